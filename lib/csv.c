@@ -1,0 +1,252 @@
+/* csv.c - RFC 4180 reader and writer.
+ *
+ * The reader keeps one record buffer and one field-offset array that grow
+ * to the largest record seen and are then reused, so reading a stream of
+ * any length allocates nothing per row.  It is lenient where spreadsheets
+ * are (byte-order mark, CRLF or LF, blank lines, a quote inside an unquoted
+ * field) and strict where data would be lost (a quote never closed, text
+ * after a closing quote, a NUL byte, a record over the size limit): such a
+ * record is reported and skipped, and reading goes on with the next one.
+ */
+#include <config.h>
+#include <stdlib.h>
+#include <string.h>
+#include "coaxline.h"
+#include "internal.h"
+
+#define CHUNK 65536
+
+struct cxl_csv_reader {
+    FILE *stream;              /* NULL for a buffer reader */
+    const char *data;          /* current chunk */
+    size_t size, pos;
+    char *chunk;               /* owned chunk buffer for a stream */
+    int at_start;              /* BOM check pending */
+    size_t line;               /* physical line of the next byte */
+    size_t row_line;           /* line where the current record began */
+    char *rec;                 /* NUL-separated fields */
+    size_t rec_len, rec_cap;
+    size_t *offs;
+    size_t nfields, offs_cap;
+};
+
+static cxl_status reader_alloc(cxl_csv_reader **out, cxl_csv_reader **r)
+{
+    if (!out) return CXL_EINVAL;
+    *r = calloc(1, sizeof **r);
+    if (!*r) return CXL_ENOMEM;
+    (*r)->at_start = 1;
+    (*r)->line = 1;
+    return CXL_OK;
+}
+
+cxl_status cxl_csv_reader_new_stream(FILE *stream, cxl_csv_reader **reader)
+{
+    cxl_csv_reader *r;
+    if (!stream) return CXL_EINVAL;
+    cxl_status st = reader_alloc(reader, &r);
+    if (st != CXL_OK) return st;
+    r->chunk = malloc(CHUNK);
+    if (!r->chunk) { free(r); return CXL_ENOMEM; }
+    r->stream = stream;
+    r->data = r->chunk;
+    *reader = r;
+    return CXL_OK;
+}
+
+cxl_status cxl_csv_reader_new_buffer(const char *text, size_t size,
+                                     cxl_csv_reader **reader)
+{
+    cxl_csv_reader *r;
+    if (!text && size > 0) return CXL_EINVAL;
+    cxl_status st = reader_alloc(reader, &r);
+    if (st != CXL_OK) return st;
+    r->data = text ? text : "";
+    r->size = size;
+    *reader = r;
+    return CXL_OK;
+}
+
+void cxl_csv_reader_free(cxl_csv_reader *r)
+{
+    if (!r) return;
+    free(r->chunk);
+    free(r->rec);
+    free(r->offs);
+    free(r);
+}
+
+/* Next byte or -1 at end of input (or on a read error). */
+static int get_byte(cxl_csv_reader *r)
+{
+    if (r->pos >= r->size) {
+        if (!r->stream) return -1;
+        r->size = fread(r->chunk, 1, CHUNK, r->stream);
+        r->pos = 0;
+        if (r->size == 0) return -1;
+    }
+    return (unsigned char)r->data[r->pos++];
+}
+
+static int peek_byte(cxl_csv_reader *r)
+{
+    int c = get_byte(r);
+    if (c >= 0) r->pos--; /* the byte stays in the current chunk */
+    return c;
+}
+
+static int push_char(cxl_csv_reader *r, char c)
+{
+    if (r->rec_len + 1 >= r->rec_cap) {
+        size_t cap = r->rec_cap ? r->rec_cap * 2 : 256;
+        if (cap > CXL_CSV_MAX_RECORD + 2) cap = CXL_CSV_MAX_RECORD + 2;
+        if (r->rec_len + 1 >= cap) return 0;
+        char *p = realloc(r->rec, cap);
+        if (!p) return -1;
+        r->rec = p;
+        r->rec_cap = cap;
+    }
+    r->rec[r->rec_len++] = c;
+    return 1;
+}
+
+static int end_field(cxl_csv_reader *r)
+{
+    if (r->nfields + 1 >= r->offs_cap) {
+        size_t cap = r->offs_cap ? r->offs_cap * 2 : 16;
+        size_t *p = realloc(r->offs, cap * sizeof *p);
+        if (!p) return -1;
+        r->offs = p;
+        r->offs_cap = cap;
+    }
+    int ok = push_char(r, '\0');
+    if (ok <= 0) return ok;
+    r->nfields++;
+    r->offs[r->nfields] = r->rec_len;
+    return 1;
+}
+
+/* Discard the rest of a bad record: up to and including the next line
+ * break (quotes are no longer trusted). */
+static void skip_line(cxl_csv_reader *r)
+{
+    int c;
+    while ((c = get_byte(r)) >= 0) {
+        if (c == '\n') { r->line++; return; }
+        if (c == '\r') {
+            if (peek_byte(r) == '\n') get_byte(r);
+            r->line++;
+            return;
+        }
+    }
+}
+
+enum { FIELD_START, UNQUOTED, QUOTED, QUOTE_END };
+
+cxl_status cxl_csv_reader_next(cxl_csv_reader *r, int *has_row)
+{
+    if (!r || !has_row) return CXL_EINVAL;
+    *has_row = 0;
+    if (r->at_start) {
+        r->at_start = 0;
+        if (peek_byte(r) == 0xEF) {
+            /* only a whole BOM is skipped; anything else is data */
+            if (r->pos + 3 <= r->size && (unsigned char)r->data[r->pos + 1] == 0xBB &&
+                (unsigned char)r->data[r->pos + 2] == 0xBF)
+                r->pos += 3;
+        }
+    }
+    for (;;) {
+        r->rec_len = 0;
+        r->nfields = 0;
+        if (!r->offs) {
+            r->offs = malloc(16 * sizeof *r->offs);
+            if (!r->offs) return CXL_ENOMEM;
+            r->offs_cap = 16;
+        }
+        r->offs[0] = 0;
+        r->row_line = r->line;
+        int state = FIELD_START, c, any = 0, ok;
+        for (;;) {
+            c = get_byte(r);
+            if (c == 0) { skip_line(r); return CXL_EPARSE; }
+            if (c < 0) {
+                if (state == QUOTED) return CXL_EPARSE;
+                if (!any) return CXL_OK; /* end of input */
+                break;
+            }
+            any = 1;
+            if (state == QUOTED) {
+                if (c == '"') {
+                    if (peek_byte(r) == '"') { get_byte(r); ok = push_char(r, '"'); }
+                    else { state = QUOTE_END; continue; }
+                } else {
+                    if (c == '\n' || (c == '\r' && peek_byte(r) != '\n')) r->line++;
+                    ok = push_char(r, (char)c);
+                }
+            } else if (c == ',') {
+                ok = end_field(r);
+                state = FIELD_START;
+            } else if (c == '\n' || c == '\r') {
+                if (c == '\r' && peek_byte(r) == '\n') get_byte(r);
+                r->line++;
+                break;
+            } else if (state == QUOTE_END) {
+                skip_line(r);
+                return CXL_EPARSE;
+            } else if (c == '"' && state == FIELD_START) {
+                state = QUOTED;
+                continue;
+            } else {
+                state = UNQUOTED;
+                ok = push_char(r, (char)c);
+            }
+            if (ok < 0) return CXL_ENOMEM;
+            if (ok == 0) { skip_line(r); return CXL_ETOOLONG; }
+        }
+        ok = end_field(r);
+        if (ok < 0) return CXL_ENOMEM;
+        if (ok == 0) return CXL_ETOOLONG;
+        if (r->nfields == 1 && r->rec_len == 1 && state == FIELD_START)
+            continue; /* blank line */
+        *has_row = 1;
+        return CXL_OK;
+    }
+}
+
+size_t cxl_csv_reader_nfields(const cxl_csv_reader *r)
+{
+    return r ? r->nfields : 0;
+}
+
+const char *cxl_csv_reader_field(const cxl_csv_reader *r, size_t i)
+{
+    if (!r || i >= r->nfields) return NULL;
+    return r->rec + r->offs[i];
+}
+
+size_t cxl_csv_reader_line(const cxl_csv_reader *r)
+{
+    return r ? r->row_line : 0;
+}
+
+cxl_status cxl_csv_write_field(FILE *stream, const char *text, int neutralise)
+{
+    if (!stream || !text) return CXL_EINVAL;
+    int risky = neutralise && strchr("=+-@\t\r", text[0]) && text[0] != '\0';
+    if (risky) {
+        double v;
+        if (cxl_units_parse_number(text, &v, NULL) == CXL_OK && text[0] != '\t' &&
+            text[0] != '\r' && text[strlen(text) - 1] != ' ')
+            risky = 0; /* a plain number such as -3.5 stays a number */
+    }
+    int quote = strpbrk(text, ",\"\r\n") != NULL;
+    if (quote && putc('"', stream) == EOF) return CXL_EIO;
+    if (risky && putc('\'', stream) == EOF) return CXL_EIO;
+    for (const char *p = text; *p; p++) {
+        if (*p == '"' && quote && putc('"', stream) == EOF) return CXL_EIO;
+        if (putc(*p, stream) == EOF) return CXL_EIO;
+    }
+    if (quote && putc('"', stream) == EOF) return CXL_EIO;
+    return CXL_OK;
+}

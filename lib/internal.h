@@ -1,0 +1,18 @@
+/* internal.h - helpers shared by the library's modules; not installed.
+ * Internal functions are named cxl__*, so the export rule (^cxl_[a-z])
+ * keeps them out of the shared library's symbol table. */
+#ifndef CXL_INTERNAL_H
+#define CXL_INTERNAL_H
+
+#include <math.h>
+#include <stddef.h>
+#include "coaxline.h"
+
+static inline int cxl__finite_pos(double x) { return isfinite(x) && x > 0.0; }
+static inline int cxl__finite_nonneg(double x) { return isfinite(x) && x >= 0.0; }
+static inline int cxl__valid_vf(double vf) { return isfinite(vf) && vf > 0.0 && vf <= 1.0; }
+
+/* Case-insensitive ASCII comparison of n bytes, locale-free. */
+int cxl__ascii_ncaseeq(const char *a, const char *b, size_t n);
+
+#endif

@@ -1,0 +1,361 @@
+/* units.c - locale-free parsing and formatting of lengths, frequencies,
+ * times and plain numbers.
+ *
+ * Numbers are checked against a strict grammar of our own first (so "1,5",
+ * "0x10", "inf" and "nan" never get in), then converted with strtod_l()
+ * in the "C" locale; output comes from snprintf() with whatever radix
+ * character the locale put in replaced by '.'.  Neither path reads or
+ * changes the process locale, so host programs under a comma-decimal
+ * locale get the same bytes.
+ */
+#define _GNU_SOURCE 1
+#include <config.h>
+#include <errno.h>
+#include <locale.h>
+#include <math.h>
+#include <pthread.h>
+#include <stdint.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include "coaxline.h"
+#include "internal.h"
+
+#define M_PER_FT 0.3048
+#define M_PER_IN 0.0254
+#define NUMBER_MAX_CHARS 64
+
+/* The "C" locale object: created once, never changed afterwards. */
+static locale_t c_locale;
+static pthread_once_t c_locale_once = PTHREAD_ONCE_INIT;
+static void c_locale_init(void) { c_locale = newlocale(LC_ALL_MASK, "C", (locale_t)0); }
+
+int cxl__ascii_ncaseeq(const char *a, const char *b, size_t n)
+{
+    for (size_t i = 0; i < n; i++) {
+        unsigned char x = (unsigned char)a[i], y = (unsigned char)b[i];
+        if (x >= 'A' && x <= 'Z') x = (unsigned char)(x - 'A' + 'a');
+        if (y >= 'A' && y <= 'Z') y = (unsigned char)(y - 'A' + 'a');
+        if (x != y) return 0;
+        if (x == '\0') return 1;
+    }
+    return 1;
+}
+
+static int is_digit(char c) { return c >= '0' && c <= '9'; }
+static int is_space(char c) { return c == ' ' || c == '\t'; }
+
+static size_t skip_spaces(const char *s, size_t i)
+{
+    while (is_space(s[i])) i++;
+    return i;
+}
+
+/* Scan an unsigned decimal number at s[i] (digits, optional fraction,
+ * optional exponent).  Returns the end index, or i when nothing valid is
+ * there.  *value gets the number; *range_error is set when it overflows. */
+static size_t scan_unsigned(const char *s, size_t i, double *value,
+                            int *range_error)
+{
+    size_t start = i, digits = 0;
+    while (is_digit(s[i])) { i++; digits++; }
+    if (s[i] == '.') {
+        i++;
+        while (is_digit(s[i])) { i++; digits++; }
+    }
+    if (digits == 0) return start;
+    if (s[i] == 'e' || s[i] == 'E') {
+        size_t j = i + 1;
+        if (s[j] == '+' || s[j] == '-') j++;
+        if (is_digit(s[j])) {
+            while (is_digit(s[j])) j++;
+            i = j;
+        }
+    }
+    if (i - start >= NUMBER_MAX_CHARS) {
+        *range_error = 1;
+        return i;
+    }
+    char buf[NUMBER_MAX_CHARS];
+    memcpy(buf, s + start, i - start);
+    buf[i - start] = '\0';
+    pthread_once(&c_locale_once, c_locale_init);
+    double v = c_locale ? strtod_l(buf, NULL, c_locale) : strtod(buf, NULL);
+    *range_error = !isfinite(v);
+    *value = v;
+    return i;
+}
+
+static cxl_status fail(size_t *error_pos, size_t pos, cxl_status st)
+{
+    if (error_pos) *error_pos = pos;
+    return st;
+}
+
+/* Optional sign at s[*i]; returns -1 or +1. */
+static double scan_sign(const char *s, size_t *i)
+{
+    if (s[*i] == '-') { (*i)++; return -1.0; }
+    if (s[*i] == '+') { (*i)++; }
+    return 1.0;
+}
+
+cxl_status cxl_units_parse_number(const char *text, double *value,
+                                  size_t *error_pos)
+{
+    if (!text || !value) return CXL_EINVAL;
+    size_t i = skip_spaces(text, 0);
+    double sign = scan_sign(text, &i);
+    double v = 0.0;
+    int range_error = 0;
+    size_t end = scan_unsigned(text, i, &v, &range_error);
+    if (end == i) return fail(error_pos, i, CXL_EPARSE);
+    if (range_error) return fail(error_pos, i, CXL_ERANGE);
+    end = skip_spaces(text, end);
+    if (text[end] != '\0') return fail(error_pos, end, CXL_EPARSE);
+    *value = sign * v;
+    return CXL_OK;
+}
+
+/* Match one of a list of unit words (case-insensitive) at s[i], longest
+ * first; the word must not be followed by a letter.  Returns the index in
+ * words or -1; *len gets the matched length. */
+static int match_word(const char *s, size_t i, const char *const *words,
+                      size_t nwords, size_t *len)
+{
+    int best = -1;
+    size_t best_len = 0;
+    for (size_t k = 0; k < nwords; k++) {
+        size_t n = strlen(words[k]);
+        if (n <= best_len) continue;
+        if (!cxl__ascii_ncaseeq(s + i, words[k], n)) continue;
+        char next = s[i + n];
+        int is_letter = (next >= 'a' && next <= 'z') || (next >= 'A' && next <= 'Z');
+        if (is_letter && words[k][n - 1] != '\'' && words[k][n - 1] != '"') continue;
+        best = (int)k;
+        best_len = n;
+    }
+    if (best >= 0) *len = best_len;
+    return best;
+}
+
+/* Scan "W N/D", "N/D" or "W" inch amounts.  Returns end index or i. */
+static size_t scan_inches(const char *s, size_t i, double *inches,
+                          size_t *error_pos, cxl_status *st)
+{
+    double whole = 0.0, num = 0.0, den = 0.0;
+    int range_error = 0;
+    size_t end = scan_unsigned(s, i, &whole, &range_error);
+    if (end == i) return i;
+    if (range_error) { *st = CXL_ERANGE; *error_pos = i; return i; }
+    if (s[end] == '/') {
+        /* the number just read was a numerator */
+        size_t d0 = end + 1;
+        size_t d1 = scan_unsigned(s, d0, &den, &range_error);
+        if (d1 == d0 || range_error) { *st = CXL_EPARSE; *error_pos = d0; return i; }
+        if (den == 0.0) { *st = CXL_ERANGE; *error_pos = d0; return i; }
+        *inches = whole / den;
+        return d1;
+    }
+    size_t j = skip_spaces(s, end);
+    if (j > end && is_digit(s[j])) {
+        size_t n1 = scan_unsigned(s, j, &num, &range_error);
+        if (n1 > j && s[n1] == '/') {
+            size_t d0 = n1 + 1;
+            size_t d1 = scan_unsigned(s, d0, &den, &range_error);
+            if (d1 == d0 || range_error) { *st = CXL_EPARSE; *error_pos = d0; return i; }
+            if (den == 0.0) { *st = CXL_ERANGE; *error_pos = d0; return i; }
+            *inches = whole + num / den;
+            return d1;
+        }
+    }
+    *inches = whole;
+    return end;
+}
+
+static const char *const metric_words[] = { "m", "cm", "mm" };
+static const double metric_scale[] = { 1.0, 0.01, 0.001 };
+static const char *const feet_words[] = { "ft", "feet", "foot", "'" };
+static const char *const inch_words[] = { "in", "inch", "inches", "\"" };
+
+cxl_status cxl_units_parse_length(const char *text, cxl_units bare_units,
+                                  double *length_m, size_t *error_pos)
+{
+    if (!text || !length_m) return CXL_EINVAL;
+    if (bare_units != CXL_UNITS_METRIC && bare_units != CXL_UNITS_IMPERIAL)
+        return CXL_EINVAL;
+    size_t i = skip_spaces(text, 0);
+    double sign = scan_sign(text, &i);
+    size_t num_start = i;
+    double inches = 0.0;
+    size_t dummy_pos = 0;
+    cxl_status st = CXL_OK;
+    size_t end = scan_inches(text, i, &inches, &dummy_pos, &st);
+    if (st != CXL_OK) return fail(error_pos, dummy_pos, st);
+    if (end == i) return fail(error_pos, i, CXL_EPARSE);
+    int is_fraction = memchr(text + i, '/', end - i) != NULL;
+    size_t u = skip_spaces(text, end);
+    size_t wlen = 0;
+    double metres;
+    int k;
+    if (!is_fraction && (k = match_word(text, u, metric_words, 3, &wlen)) >= 0) {
+        if (memchr(text + i, ' ', end - i)) return fail(error_pos, end, CXL_EPARSE);
+        metres = inches * metric_scale[k];
+        end = u + wlen;
+    } else if (!is_fraction && match_word(text, u, feet_words, 4, &wlen) >= 0
+               && !memchr(text + i, ' ', end - i)) {
+        metres = inches * M_PER_FT;
+        end = skip_spaces(text, u + wlen);
+        if (text[end] != '\0') {
+            double more = 0.0;
+            size_t e2 = scan_inches(text, end, &more, &dummy_pos, &st);
+            if (st != CXL_OK) return fail(error_pos, dummy_pos, st);
+            if (e2 == end) return fail(error_pos, end, CXL_EPARSE);
+            size_t u2 = skip_spaces(text, e2);
+            if (match_word(text, u2, inch_words, 4, &wlen) >= 0)
+                e2 = u2 + wlen;
+            metres += more * M_PER_IN;
+            end = e2;
+        }
+    } else if (match_word(text, u, inch_words, 4, &wlen) >= 0) {
+        metres = inches * M_PER_IN;
+        end = u + wlen;
+    } else if (text[u] == '\0' && !is_fraction && !memchr(text + i, ' ', end - i)) {
+        metres = bare_units == CXL_UNITS_METRIC ? inches : inches * M_PER_FT;
+        end = u;
+    } else {
+        return fail(error_pos, text[u] == '\0' ? num_start : u, CXL_EPARSE);
+    }
+    end = skip_spaces(text, end);
+    if (text[end] != '\0') return fail(error_pos, end, CXL_EPARSE);
+    if (!isfinite(metres)) return fail(error_pos, num_start, CXL_ERANGE);
+    *length_m = sign * metres;
+    return CXL_OK;
+}
+
+/* number, optional spaces, optional unit word from a table; bare_scale
+ * applies when no unit is written. */
+static cxl_status parse_scaled(const char *text, const char *const *words,
+                               const double *scales, size_t nwords,
+                               double bare_scale, double *out,
+                               size_t *error_pos)
+{
+    if (!text || !out) return CXL_EINVAL;
+    size_t i = skip_spaces(text, 0);
+    double sign = scan_sign(text, &i);
+    double v = 0.0;
+    int range_error = 0;
+    size_t end = scan_unsigned(text, i, &v, &range_error);
+    if (end == i) return fail(error_pos, i, CXL_EPARSE);
+    if (range_error) return fail(error_pos, i, CXL_ERANGE);
+    size_t u = skip_spaces(text, end);
+    double scale = bare_scale;
+    if (text[u] != '\0') {
+        size_t wlen = 0;
+        int k = match_word(text, u, words, nwords, &wlen);
+        if (k < 0) return fail(error_pos, u, CXL_EPARSE);
+        scale = scales[k];
+        u = skip_spaces(text, u + wlen);
+        if (text[u] != '\0') return fail(error_pos, u, CXL_EPARSE);
+    }
+    double r = sign * v * scale;
+    if (!isfinite(r) || (v != 0.0 && r == 0.0)) return fail(error_pos, i, CXL_ERANGE);
+    *out = r;
+    return CXL_OK;
+}
+
+static const char *const freq_words[] = { "hz", "khz", "mhz", "ghz" };
+static const double freq_scale[] = { 1.0, 1e3, 1e6, 1e9 };
+
+cxl_status cxl_units_parse_freq(const char *text, double *freq_hz,
+                                size_t *error_pos)
+{
+    return parse_scaled(text, freq_words, freq_scale, 4, 1e6, freq_hz,
+                        error_pos);
+}
+
+static const char *const time_words[] = { "s", "ms", "us", "\xc2\xb5s", "ns", "ps" };
+static const double time_scale[] = { 1.0, 1e-3, 1e-6, 1e-6, 1e-9, 1e-12 };
+
+cxl_status cxl_units_parse_time(const char *text, double *delay_s,
+                                size_t *error_pos)
+{
+    return parse_scaled(text, time_words, time_scale, 6, 1e-9, delay_s,
+                        error_pos);
+}
+
+/* Replace the locale's radix string (which follows the first run of
+ * digits) with '.', in place. */
+static void fix_radix(char *buf)
+{
+    char *p = buf;
+    if (*p == '-') p++;
+    while (is_digit(*p)) p++;
+    if (*p == '\0' || *p == 'e' || *p == 'E') return;
+    char *q = p;
+    while (*q && !is_digit(*q) && *q != 'e' && *q != 'E') q++;
+    *p = '.';
+    memmove(p + 1, q, strlen(q) + 1);
+}
+
+cxl_status cxl_units_format_fixed(double value, int decimals, char *buf,
+                                  size_t size)
+{
+    if (!buf || size == 0 || !isfinite(value) || decimals < 0 || decimals > 17)
+        return CXL_EINVAL;
+    char tmp[512];
+    int n = snprintf(tmp, sizeof tmp, "%.*f", decimals, value);
+    if (n < 0 || (size_t)n >= sizeof tmp) return CXL_ETOOLONG;
+    fix_radix(tmp);
+    char *s = tmp;
+    if (s[0] == '-' && strspn(s + 1, "0.") == strlen(s + 1))
+        s++; /* no "-0.000" */
+    size_t len = strlen(s);
+    if (len >= size) return CXL_ETOOLONG;
+    memcpy(buf, s, len + 1);
+    return CXL_OK;
+}
+
+cxl_status cxl_units_format_roundtrip(double value, char *buf, size_t size)
+{
+    if (!buf || size == 0 || !isfinite(value)) return CXL_EINVAL;
+    char tmp[64];
+    pthread_once(&c_locale_once, c_locale_init);
+    for (int prec = 15; prec <= 17; prec++) {
+        snprintf(tmp, sizeof tmp, "%.*g", prec, value);
+        fix_radix(tmp);
+        double back = c_locale ? strtod_l(tmp, NULL, c_locale) : value;
+        if (back == value || prec == 17) break;
+    }
+    size_t len = strlen(tmp);
+    if (len >= size) return CXL_ETOOLONG;
+    memcpy(buf, tmp, len + 1);
+    return CXL_OK;
+}
+
+static long long gcd_ll(long long a, long long b)
+{
+    while (b) { long long t = a % b; a = b; b = t; }
+    return a;
+}
+
+cxl_status cxl_units_format_imperial(double length_m, char *buf, size_t size)
+{
+    if (!buf || size == 0 || !isfinite(length_m)) return CXL_EINVAL;
+    double sixteenths = fabs(length_m) / M_PER_IN * 16.0;
+    if (sixteenths > 1e15) return CXL_ERANGE;
+    long long n = llround(sixteenths);
+    long long feet = n / 192, rem = n % 192;
+    long long inches = rem / 16, frac = rem % 16;
+    const char *sign = (length_m < 0 && n > 0) ? "-" : "";
+    int w;
+    if (frac == 0) {
+        w = snprintf(buf, size, "%s%lld ft %lld in", sign, feet, inches);
+    } else {
+        long long g = gcd_ll(frac, 16);
+        w = snprintf(buf, size, "%s%lld ft %lld %lld/%lld in", sign, feet,
+                     inches, frac / g, 16 / g);
+    }
+    if (w < 0 || (size_t)w >= size) return CXL_ETOOLONG;
+    return CXL_OK;
+}
