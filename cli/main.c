@@ -1,4 +1,55 @@
+/* main.c - coaxline: dispatch to a command. */
 #include <config.h>
+#include <locale.h>
 #include <stdio.h>
-#include "coaxline.h"
-int main(void) { printf("coaxline %s\n", cxl_version()); return 0; }
+#include <string.h>
+#include <gsl/gsl_errno.h>
+#include "cli.h"
+
+static const cli_command *const commands[] = {
+    &cli_cmd_cut,
+    &cli_cmd_demo,
+};
+#define NCOMMANDS (sizeof commands / sizeof commands[0])
+
+static void usage(FILE *fp)
+{
+    fprintf(fp, "usage: coaxline COMMAND [OPTIONS]\n"
+                "Feedline and delay-line calculations for phased receiving arrays.\n\n"
+                "commands:\n");
+    for (size_t i = 0; i < NCOMMANDS; i++)
+        fprintf(fp, "  %-10s %s\n", commands[i]->name, commands[i]->summary);
+    fprintf(fp, "\n  coaxline COMMAND --help   options of one command\n"
+                "  coaxline --version        version of the tool and library\n"
+                "\nSee coaxline(1).\n");
+}
+
+int main(int argc, char **argv)
+{
+    /* The user's locale may use a comma decimal mark: the library's
+     * number I/O ignores it, so output is the same bytes everywhere. */
+    setlocale(LC_ALL, "");
+    /* This process owns GSL's error handler: statuses, never abort(). */
+    gsl_set_error_handler_off();
+
+    if (argc < 2) {
+        usage(stderr);
+        return CLI_EXIT_USAGE;
+    }
+    if (strcmp(argv[1], "--help") == 0 || strcmp(argv[1], "-h") == 0 ||
+        strcmp(argv[1], "help") == 0) {
+        usage(stdout);
+        return CLI_EXIT_OK;
+    }
+    if (strcmp(argv[1], "--version") == 0) {
+        printf("coaxline %s (libcoaxline %s)\n", PACKAGE_VERSION, cxl_version());
+        return CLI_EXIT_OK;
+    }
+    for (size_t i = 0; i < NCOMMANDS; i++)
+        if (strcmp(argv[1], commands[i]->name) == 0)
+            return cli_run_command(commands[i], argc - 1, argv + 1);
+    fprintf(stderr, "coaxline: unknown command '%s' (expected one of:", argv[1]);
+    for (size_t i = 0; i < NCOMMANDS; i++) fprintf(stderr, " %s", commands[i]->name);
+    fprintf(stderr, "; see coaxline --help)\n");
+    return CLI_EXIT_USAGE;
+}

@@ -8,7 +8,6 @@
  * changes the process locale, so host programs under a comma-decimal
  * locale get the same bytes.
  */
-#define _GNU_SOURCE 1
 #include <config.h>
 #include <errno.h>
 #include <locale.h>

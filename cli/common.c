@@ -1,0 +1,318 @@
+/* common.c - errors, option values, number parsing with field names, and
+ * CSV/JSON table output shared by every coaxline command. */
+#include <config.h>
+#include <stdarg.h>
+#include <stdio.h>
+#include <string.h>
+#include <math.h>
+#include "cli.h"
+
+static void prefix(const cli_ctx *ctx, FILE *fp)
+{
+    fprintf(fp, "coaxline: %s: ", ctx && ctx->cmd ? ctx->cmd->name : "error");
+    if (ctx && ctx->input_name)
+        fprintf(fp, "%s line %zu: ", ctx->input_name, ctx->line);
+}
+
+/* Print text with control bytes shown as '?', so one error stays one line
+ * whatever the user typed. */
+static void put_clean(FILE *fp, const char *s)
+{
+    for (; *s; s++) putc((unsigned char)*s < 0x20 || *s == 0x7f ? '?' : *s, fp);
+}
+
+int cli_error(const cli_ctx *ctx, const char *field, const char *expected,
+              const char *fmt, ...)
+{
+    char msg[512];
+    va_list ap;
+    va_start(ap, fmt);
+    vsnprintf(msg, sizeof msg, fmt, ap);
+    va_end(ap);
+    fflush(ctx && ctx->out ? ctx->out : stdout);
+    prefix(ctx, stderr);
+    if (field) fprintf(stderr, "%s: ", field);
+    put_clean(stderr, msg);
+    if (expected) {
+        fputs(" (expected ", stderr);
+        put_clean(stderr, expected);
+        putc(')', stderr);
+    }
+    putc('\n', stderr);
+    return CLI_EXIT_USAGE;
+}
+
+void cli_warn(const cli_ctx *ctx, const char *fmt, ...)
+{
+    char msg[512];
+    va_list ap;
+    va_start(ap, fmt);
+    vsnprintf(msg, sizeof msg, fmt, ap);
+    va_end(ap);
+    fflush(ctx && ctx->out ? ctx->out : stdout);
+    prefix(ctx, stderr);
+    fputs("warning: ", stderr);
+    put_clean(stderr, msg);
+    putc('\n', stderr);
+}
+
+/* ---- option values ---------------------------------------------------- */
+
+static int opt_index(const cli_command *cmd, const char *name)
+{
+    for (int i = 0; cmd->opts[i].name; i++)
+        if (strcmp(cmd->opts[i].name, name) == 0) return i;
+    return -1;
+}
+
+size_t cli_count(const cli_args *a, const char *name)
+{
+    int i = opt_index(a->cmd, name);
+    if (i < 0) return 0;
+    if (a->row && a->row[i] && a->row[i][0] != '\0') return 1;
+    return a->nval[i];
+}
+
+const char *cli_get(const cli_args *a, const char *name, size_t k)
+{
+    int i = opt_index(a->cmd, name);
+    if (i < 0) return NULL;
+    if (a->row && a->row[i] && a->row[i][0] != '\0') return k == 0 ? a->row[i] : NULL;
+    return k < a->nval[i] ? a->val[i][k] : NULL;
+}
+
+int cli_flag(const cli_args *a, const char *name)
+{
+    const char *v = cli_get(a, name, 0);
+    if (!v) return 0;
+    return strcmp(v, "0") != 0 && strcmp(v, "no") != 0 && strcmp(v, "false") != 0;
+}
+
+int cli_items(const cli_ctx *ctx, const cli_args *a, const char *name,
+              char *buf, size_t bufsize, const char **items, size_t max)
+{
+    size_t n = 0, used = 0, nv = cli_count(a, name);
+    for (size_t k = 0; k < nv; k++) {
+        const char *v = cli_get(a, name, k);
+        size_t len = strlen(v);
+        if (used + len + 1 > bufsize) {
+            cli_error(ctx, name, "a shorter list", "list is too long");
+            return -1;
+        }
+        char *copy = buf + used;
+        memcpy(copy, v, len + 1);
+        used += len + 1;
+        char *save = NULL;
+        for (char *tok = strtok_r(copy, ",;", &save); tok; tok = strtok_r(NULL, ",;", &save)) {
+            while (*tok == ' ') tok++;
+            if (*tok == '\0') continue;
+            if (n == max) {
+                cli_error(ctx, name, "fewer items", "more than %zu items", max);
+                return -1;
+            }
+            items[n++] = tok;
+        }
+    }
+    return (int)n;
+}
+
+/* ---- parsers with field names ----------------------------------------- */
+
+static int report_parse(const cli_ctx *ctx, const char *field, const char *text,
+                        cxl_status st, size_t pos, const char *kind,
+                        const char *expected)
+{
+    if (st == CXL_ERANGE)
+        return cli_error(ctx, field, expected, "'%s' is too large or too small", text);
+    if (strchr(text, ',') && strspn(text, "0123456789,. \t") >= (size_t)(strchr(text, ',') - text))
+        return cli_error(ctx, field, expected,
+                         "'%s' uses a comma; the decimal mark is '.'", text);
+    if (text[0] == '\0' || strspn(text, " \t") == strlen(text))
+        return cli_error(ctx, field, expected, "value is empty");
+    return cli_error(ctx, field, expected, "'%s' is not a %s (stuck at character %zu)",
+                     text, kind, pos + 1);
+}
+
+static int check_sign(const cli_ctx *ctx, const char *field, const char *text,
+                      double v, int sign_rule, const char *expected)
+{
+    if (sign_rule == CLI_POSITIVE && !(v > 0.0))
+        return cli_error(ctx, field, expected, "'%s' must be greater than zero", text);
+    if (sign_rule == CLI_NONNEG && v < 0.0)
+        return cli_error(ctx, field, expected, "'%s' must not be negative", text);
+    return 0;
+}
+
+int cli_length(const cli_ctx *ctx, const char *field, const char *text,
+               int sign_rule, double *length_m)
+{
+    static const char expected[] = "a length such as 12.5m, 1250mm, 41ft 6in or 41' 6 3/8\"";
+    size_t pos = 0;
+    double v;
+    cxl_status st = cxl_units_parse_length(text, ctx->units, &v, &pos);
+    if (st != CXL_OK) return report_parse(ctx, field, text, st, pos, "length", expected);
+    if (check_sign(ctx, field, text, v, sign_rule, expected)) return CLI_EXIT_USAGE;
+    *length_m = v;
+    return 0;
+}
+
+int cli_freq(const cli_ctx *ctx, const char *field, const char *text,
+             double *freq_hz)
+{
+    static const char expected[] = "a frequency such as 1.83MHz, 1830kHz or 1830000Hz";
+    size_t pos = 0;
+    double v;
+    cxl_status st = cxl_units_parse_freq(text, &v, &pos);
+    if (st != CXL_OK) return report_parse(ctx, field, text, st, pos, "frequency", expected);
+    if (check_sign(ctx, field, text, v, CLI_POSITIVE, expected)) return CLI_EXIT_USAGE;
+    *freq_hz = v;
+    return 0;
+}
+
+int cli_time(const cli_ctx *ctx, const char *field, const char *text,
+             int sign_rule, double *delay_s)
+{
+    static const char expected[] = "a time such as 33.4ns or 0.0334us";
+    size_t pos = 0;
+    double v;
+    cxl_status st = cxl_units_parse_time(text, &v, &pos);
+    if (st != CXL_OK) return report_parse(ctx, field, text, st, pos, "time", expected);
+    if (check_sign(ctx, field, text, v, sign_rule, expected)) return CLI_EXIT_USAGE;
+    *delay_s = v;
+    return 0;
+}
+
+int cli_number(const cli_ctx *ctx, const char *field, const char *text,
+               double lo, double hi, const char *expected, double *value)
+{
+    size_t pos = 0;
+    double v;
+    cxl_status st = cxl_units_parse_number(text, &v, &pos);
+    if (st != CXL_OK) return report_parse(ctx, field, text, st, pos, "number", expected);
+    if (v < lo || v > hi) {
+        char a[32], b[32];
+        return cli_error(ctx, field, expected, "'%s' is outside %s to %s", text,
+                         cli_fmt(a, sizeof a, lo, 4), cli_fmt(b, sizeof b, hi, 4));
+    }
+    *value = v;
+    return 0;
+}
+
+int cli_vf(const cli_ctx *ctx, const char *field, const char *text, double *vf)
+{
+    static const char expected[] = "a velocity factor above 0 and at most 1, such as 0.66";
+    size_t pos = 0;
+    double v;
+    cxl_status st = cxl_units_parse_number(text, &v, &pos);
+    if (st != CXL_OK) return report_parse(ctx, field, text, st, pos, "number", expected);
+    if (v > 1.0 && v <= 100.0)
+        return cli_error(ctx, field, expected, "%s is above 1%s", text,
+                         v > 40.0 ? " (a percentage? write it as a ratio)" : "");
+    if (!(v > 0.0) || v > 1.0)
+        return cli_error(ctx, field, expected, "%s is out of range", text);
+    *vf = v;
+    return 0;
+}
+
+/* ---- output ----------------------------------------------------------- */
+
+const char *cli_fmt(char *buf, size_t size, double value, int decimals)
+{
+    if (cxl_units_format_fixed(value, decimals, buf, size) != CXL_OK)
+        snprintf(buf, size, "?");
+    return buf;
+}
+
+const char *cli_fmt_length(const cli_ctx *ctx, char *buf, size_t size,
+                           double length_m)
+{
+    char m[48], imp[48];
+    cli_fmt(m, sizeof m, length_m, 3);
+    if (cxl_units_format_imperial(length_m, imp, sizeof imp) != CXL_OK)
+        snprintf(imp, sizeof imp, "?");
+    if (ctx->units == CXL_UNITS_IMPERIAL)
+        snprintf(buf, size, "%s (%s m)", imp, m);
+    else
+        snprintf(buf, size, "%s m (%s)", m, imp);
+    return buf;
+}
+
+const char *cli_label(const cli_args *a)
+{
+    const char *l = cli_get(a, "label", 0);
+    return l ? l : "";
+}
+
+/* JSON string with escapes; bytes that are not valid UTF-8 become U+FFFD
+ * so the document always parses. */
+static void json_string(FILE *fp, const char *s)
+{
+    const unsigned char *p = (const unsigned char *)s;
+    putc('"', fp);
+    while (*p) {
+        unsigned char c = *p;
+        if (c == '"' || c == '\\') { putc('\\', fp); putc(c, fp); p++; continue; }
+        if (c < 0x20) { fprintf(fp, "\\u%04x", c); p++; continue; }
+        if (c < 0x80) { putc(c, fp); p++; continue; }
+        int n = (c & 0xE0) == 0xC0 ? 2 : (c & 0xF0) == 0xE0 ? 3 : (c & 0xF8) == 0xF0 ? 4 : 0;
+        int ok = n > 0 && c != 0xC0 && c != 0xC1 && c < 0xF5;
+        for (int k = 1; ok && k < n; k++) ok = (p[k] & 0xC0) == 0x80;
+        if (ok) { fwrite(p, 1, (size_t)n, fp); p += n; }
+        else { fputs("\xEF\xBF\xBD", fp); p++; }
+    }
+    putc('"', fp);
+}
+
+void cli_table_header(cli_ctx *ctx, const cli_col *cols, size_t ncols)
+{
+    if (ctx->header_done) return;
+    ctx->header_done = 1;
+    if (ctx->format == CLI_CSV) {
+        for (size_t i = 0; i < ncols; i++) {
+            if (i) putc(',', ctx->out);
+            fputs(cols[i].name, ctx->out);
+        }
+        putc('\n', ctx->out);
+    } else if (ctx->format == CLI_JSON) {
+        fputs("[\n", ctx->out);
+    }
+}
+
+void cli_table_row(cli_ctx *ctx, const cli_col *cols, size_t ncols,
+                   const cli_cell *cells)
+{
+    char num[64];
+    cli_table_header(ctx, cols, ncols);
+    if (ctx->format == CLI_CSV) {
+        for (size_t i = 0; i < ncols; i++) {
+            if (i) putc(',', ctx->out);
+            if (!cells[i].present) continue;
+            if (cols[i].decimals < 0)
+                cxl_csv_write_field(ctx->out, cells[i].text, 1);
+            else
+                fputs(cli_fmt(num, sizeof num, cells[i].value, cols[i].decimals), ctx->out);
+        }
+        putc('\n', ctx->out);
+    } else if (ctx->format == CLI_JSON) {
+        fputs(ctx->rows_out ? ",\n  {" : "  {", ctx->out);
+        for (size_t i = 0; i < ncols; i++) {
+            if (i) fputs(", ", ctx->out);
+            json_string(ctx->out, cols[i].name);
+            putc(':', ctx->out);
+            if (!cells[i].present) fputs("null", ctx->out);
+            else if (cols[i].decimals < 0) json_string(ctx->out, cells[i].text);
+            else if (cxl_units_format_roundtrip(cells[i].value, num, sizeof num) == CXL_OK)
+                fputs(num, ctx->out);
+            else fputs("null", ctx->out);
+        }
+        putc('}', ctx->out);
+    }
+    ctx->rows_out++;
+}
+
+void cli_table_close(cli_ctx *ctx)
+{
+    if (ctx->format != CLI_JSON) return;
+    if (!ctx->header_done) fputs("[", ctx->out);
+    fputs(ctx->rows_out ? "\n]\n" : "]\n", ctx->out);
+}
