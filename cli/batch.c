@@ -189,7 +189,7 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
     const char *format = NULL, *units = NULL, *input = NULL;
     int help = 0, c;
     opterr = 0;
-    optind = 1;
+    optind = 0; /* glibc: full reset, so the driver can run more than once per process */
     while ((c = getopt_long(argc, argv, ":", longopts, NULL)) != -1) {
         if (c == ':')
             return cli_error(&ctx, NULL, "a value after it, such as --vf 0.66",
