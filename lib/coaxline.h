@@ -168,6 +168,202 @@ size_t cxl_csv_reader_line(const cxl_csv_reader *reader);
 cxl_status cxl_csv_write_field(FILE *stream, const char *text,
                                int neutralise);
 
+/* ---- band.c: band edges per ITU Region -------------------------------- */
+
+/* A band table: the built-in one (data/bands.csv: amateur bands 2200 m to
+ * 6 m and the medium-wave broadcast band "mw", per ITU Region, from the ITU
+ * Radio Regulations, Article 5) or one read from a user file of the same
+ * columns: band,service,region,low_khz,high_khz,footnote,source.  A row is
+ * one segment: the general allocation (empty footnote) or a segment that
+ * holds only in the countries an RR footnote lists (footnote "5.96"). */
+typedef struct cxl_bands cxl_bands;
+
+typedef enum cxl_service {
+    CXL_SERVICE_AMATEUR = 0,
+    CXL_SERVICE_BROADCAST = 1
+} cxl_service;
+
+/* The built-in table. */
+cxl_status cxl_bands_new(cxl_bands **bands);
+/* A table read from a CSV stream the caller owns.  CXL_EPARSE (with
+ * *error_line, if not NULL, the offending line) for a missing column, a
+ * bad value, a region other than 1-3, low >= high or an empty source. */
+cxl_status cxl_bands_new_stream(FILE *stream, cxl_bands **bands,
+                                size_t *error_line);
+void cxl_bands_free(cxl_bands *bands);
+
+/* Rows in table order; 0 for NULL. */
+size_t cxl_bands_count(const cxl_bands *bands);
+/* Row index: any output pointer may be NULL.  Strings live as long as the
+ * table; name is canonical ("160m", "mw"); footnote is "" for the general
+ * allocation. */
+cxl_status cxl_bands_get(const cxl_bands *bands, size_t index,
+                         const char **name, cxl_service *service,
+                         int *region, double *low_hz, double *high_hz,
+                         const char **footnote, const char **source);
+/* Edges of a band: the lowest low edge and highest high edge of its rows
+ * in region (1-3), or across all Regions for region 0, footnote segments
+ * counted when include_footnotes is non-zero.  Names are case-insensitive
+ * and a bare wavelength is accepted: "160m", "160M", "160", "mw".
+ * CXL_ERANGE for a region outside 0-3, CXL_ENOTFOUND for an unknown band
+ * or one with no segment in that region. */
+cxl_status cxl_bands_edges(const cxl_bands *bands, const char *band,
+                           int region, int include_footnotes,
+                           double *low_hz, double *high_hz);
+
+/* ---- stub.c: velocity factor from stub resonances ----------------------- */
+
+/* Far end of a stub measured at its input on an analyzer.  Series (low
+ * impedance) resonances: open, the n-th at (2n-1)/4 wavelength; shorted,
+ * the n-th at n/2 wavelength. */
+typedef enum cxl_stub_end {
+    CXL_STUB_OPEN = 0,
+    CXL_STUB_SHORT = 1
+} cxl_stub_end;
+
+/* Highest resonance order the stub functions accept. */
+#define CXL_STUB_MAX_ORDER 1000
+
+/* Wavelengths of line at the order-th series resonance (1-based). */
+cxl_status cxl_stub_wavelengths(cxl_stub_end end, int order,
+                                double *wavelengths);
+/* VF from one resonance of length_m of cable; fixture_m of line with
+ * velocity factor fixture_vf sits between analyzer and cable (0 for none).
+ * CXL_ERANGE when the fixture alone is that long or the VF would exceed 1. */
+cxl_status cxl_stub_vf_from_resonance(cxl_stub_end end, int order,
+                                      double length_m, double freq_hz,
+                                      double fixture_m, double fixture_vf,
+                                      double *vf);
+/* Frequency of the order-th resonance of length_m of cable with vf. */
+cxl_status cxl_stub_resonance_freq(cxl_stub_end end, int order,
+                                   double length_m, double vf,
+                                   double fixture_m, double fixture_vf,
+                                   double *freq_hz);
+
+/* A set of resonance readings to fit. */
+typedef struct cxl_stub cxl_stub;
+typedef struct cxl_stub_result cxl_stub_result;
+
+/* How readings without a given order are numbered. */
+typedef enum cxl_stub_orders {
+    CXL_STUB_ORDERS_CONSECUTIVE = 0, /* 1st, 2nd, ... in ascending frequency */
+    CXL_STUB_ORDERS_BEST_FIT = 1     /* the orders that best fit one fundamental */
+} cxl_stub_orders;
+
+cxl_status cxl_stub_new(cxl_stub_end end, cxl_stub **stub);
+void cxl_stub_free(cxl_stub *stub);
+/* Known fixture between analyzer and cable (default none). */
+cxl_status cxl_stub_set_fixture(cxl_stub *stub, double fixture_m,
+                                double fixture_vf);
+/* Length tolerance of each measured cable length and the analyzer's
+ * frequency resolution, both >= 0 (default 0): they set the VF error
+ * budget, and a resolution also weights the fit toward higher orders. */
+cxl_status cxl_stub_set_tolerances(cxl_stub *stub, double length_tol_m,
+                                   double freq_res_hz);
+/* Plausible VF range, default 0.5 to 1.0. */
+cxl_status cxl_stub_set_vf_range(cxl_stub *stub, double vf_min,
+                                 double vf_max);
+/* Relative tolerance (0, 0.5] within which readings count as multiples of
+ * one fundamental, default 0.02. */
+cxl_status cxl_stub_set_consistency(cxl_stub *stub, double rel_tol);
+/* Numbering of readings given without order (default consecutive). */
+cxl_status cxl_stub_set_orders(cxl_stub *stub, cxl_stub_orders rule);
+/* One reading: the resonance at freq_hz of length_m of cable, order >= 1,
+ * or 0 when not known (all readings give an order, or none does).  On one
+ * length, readings must come in ascending frequency and order: CXL_EINVAL
+ * for a reading out of order or repeated.  Readings on two or more lengths
+ * (the cable trimmed between readings) let the fit find an unknown extra
+ * fixture length; on one length VF and fixture cannot be told apart. */
+cxl_status cxl_stub_add_reading(cxl_stub *stub, double length_m,
+                                double freq_hz, int order);
+size_t cxl_stub_count(const cxl_stub *stub);
+/* The orders that best fit one fundamental with a plausible VF, for the
+ * readings in the order added (count must equal cxl_stub_count()); given
+ * orders are ignored.  CXL_ERANGE when a reading has no plausible order. */
+cxl_status cxl_stub_infer_orders(const cxl_stub *stub, int *orders,
+                                 size_t count);
+
+/* Result flags: warnings, not failures. */
+#define CXL_STUB_FLAG_INCONSISTENT   0x1u /* readings off one fundamental */
+#define CXL_STUB_FLAG_VF_RANGE       0x2u /* a VF outside the plausible range */
+#define CXL_STUB_FLAG_ORDERS_ASSUMED 0x4u /* orders were numbered, not given */
+#define CXL_STUB_FLAG_FIXTURE_FITTED 0x8u /* an extra fixture length was fitted */
+
+/* Weighted least-squares fit of k c / f - fixture = L / VF (+ x).
+ * CXL_EINVAL without readings; CXL_ERANGE when a reading implies a VF
+ * outside the plausible range for every allowed order (the given one, or
+ * any); CXL_EINCONSISTENT when the readings imply a longer line has a
+ * shorter electrical length, or a fitted fixture longer than a reading. */
+cxl_status cxl_stub_fit(const cxl_stub *stub, cxl_stub_result **result);
+void cxl_stub_result_free(cxl_stub_result *result);
+/* Fitted VF and its total uncertainty (root sum of squares of the budget). */
+cxl_status cxl_stub_result_vf(const cxl_stub_result *result, double *vf,
+                              double *vf_err);
+/* VF uncertainty from the scatter of the fit (0 without redundant
+ * readings), from the length tolerance and from the frequency resolution.
+ * Any output may be NULL. */
+cxl_status cxl_stub_result_vf_budget(const cxl_stub_result *result,
+                                     double *err_fit, double *err_length,
+                                     double *err_freq);
+/* Fitted extra fixture length: free-space equivalent, its uncertainty, and
+ * as a length of the measured cable.  CXL_ENOTFOUND when not fitted
+ * (readings on one length). */
+cxl_status cxl_stub_result_fixture(const cxl_stub_result *result,
+                                   double *extra_free_m, double *extra_err_m,
+                                   double *extra_cable_m);
+cxl_status cxl_stub_result_flags(const cxl_stub_result *result,
+                                 unsigned *flags);
+size_t cxl_stub_result_count(const cxl_stub_result *result);
+/* Reading index: its length, frequency, order used, the VF it alone
+ * implies (after the fitted fixture), and its residual: measured minus
+ * fitted frequency, and measured minus fitted length as cable metres.
+ * Any output may be NULL. */
+cxl_status cxl_stub_result_reading(const cxl_stub_result *result,
+                                   size_t index, double *length_m,
+                                   double *freq_hz, int *order, double *vf,
+                                   double *residual_hz, double *residual_m);
+
+/* ---- pair.c: phase error and pair tolerance ----------------------------- */
+
+/* Phase error of length_m against reference_m at freq_hz:
+ * 360 f (L - Lref) / (VF c); positive when the line is longer (lags). */
+cxl_status cxl_pair_phase_error(double length_m, double reference_m,
+                                double vf, double freq_hz,
+                                double *phase_error_deg);
+/* The same with the reference given as an electrical length reference_deg
+ * at reference_freq_hz on the same cable. */
+cxl_status cxl_pair_phase_error_ref_deg(double length_m, double vf,
+                                        double reference_deg,
+                                        double reference_freq_hz,
+                                        double freq_hz,
+                                        double *phase_error_deg);
+/* Length mismatch that makes tolerance_deg at freq_hz:
+ * tolerance VF c / (360 f). */
+cxl_status cxl_pair_max_mismatch(double tolerance_deg, double vf,
+                                 double freq_hz, double *delta_m);
+/* Worst-case growth of |phase error| when the measured length may be off
+ * by length_tol_m and the VF by vf_tol (both bounds, vf_tol < vf). */
+cxl_status cxl_pair_phase_uncertainty(double length_m, double reference_m,
+                                      double vf, double freq_hz,
+                                      double length_tol_m, double vf_tol,
+                                      double *uncertainty_deg);
+
+typedef enum cxl_verdict {
+    CXL_VERDICT_PASS = 0,           /* within tolerance even in the worst case */
+    CXL_VERDICT_PASS_UNCERTAIN = 1, /* within, but error + uncertainty is not */
+    CXL_VERDICT_FAIL = 2            /* outside tolerance */
+} cxl_verdict;
+
+/* Check count >= 2 lines meant to be equal: the worst pair's length
+ * difference (longest minus shortest), its phase error at freq_hz, the
+ * uncertainty of that error (each length within length_tol_m, VF within
+ * vf_tol) and the verdict against tolerance_deg. */
+cxl_status cxl_pair_check(const double *lengths_m, size_t count, double vf,
+                          double freq_hz, double tolerance_deg,
+                          double length_tol_m, double vf_tol,
+                          double *delta_m, double *phase_error_deg,
+                          double *uncertainty_deg, cxl_verdict *verdict);
+
 #ifdef __cplusplus
 }
 #endif

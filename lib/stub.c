@@ -1,0 +1,646 @@
+/* stub.c - velocity factor from the series resonances of a cable stub.
+ *
+ * A line of physical length L and velocity factor VF, open at the far end,
+ * shows a low impedance at its input where it is an odd number of quarter
+ * waves long; shorted, where it is a whole number of half waves:
+ *     k_n = (2n - 1)/4 (open)   or   k_n = n/2 (shorted)   wavelengths,
+ * so at the n-th resonance f_n
+ *     k_n c / f_n = L / VF + Lf / VFf + x                                (1)
+ * with Lf/VFf the free-space equivalent of a known fixture (tees, adapters,
+ * the analyzer's port extension) and x any fixture length not accounted
+ * for.  Each reading is one equation y_i = k_i c / f_i - Lf/VFf = a L_i + x
+ * in the unknowns a = 1/VF and x, solved by weighted least squares.
+ *
+ * On ONE physical length the right-hand side of (1) is the same for every
+ * order, so the columns L_i and 1 are proportional and a cannot be told
+ * from x: higher orders then only average the one electrical length more
+ * finely.  x is fitted only when the readings were taken on two or more
+ * lengths (the same cable measured, trimmed by a known amount, measured
+ * again); otherwise x = 0 and VF carries everything unaccounted for.
+ *
+ * Weights: a frequency step df moves y_i by y_i df / f_i, so a reading's
+ * length error shrinks with its order; the weights 1/(y_i df/f_i)^2 let the
+ * sharper higher resonances count more.  Without df the weights are equal.
+ */
+#include <config.h>
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+#include <gsl/gsl_multifit.h>
+#include "coaxline.h"
+#include "internal.h"
+
+#define DEFAULT_VF_MIN 0.5
+#define DEFAULT_VF_MAX 1.0
+#define DEFAULT_CONSISTENCY 0.02 /* relative; common practice, no source */
+
+typedef struct reading {
+    double length_m, freq_hz;
+    int order; /* 0 = not given */
+} reading;
+
+struct cxl_stub {
+    cxl_stub_end end;
+    double fixture_free_m;            /* Lf / VFf */
+    double length_tol_m, freq_res_hz;
+    double vf_min, vf_max, consistency;
+    cxl_stub_orders rule;
+    reading *r;
+    size_t n, cap;
+};
+
+struct cxl_stub_result {
+    size_t n;
+    double *length_m, *freq_hz, *vf, *res_hz, *res_m;
+    int *order;
+    double vf_fit, err_fit, err_length, err_freq;
+    double x_m, x_err_m;
+    unsigned flags;
+};
+
+/* Wavelengths of line at the order-th series resonance. */
+static double k_of(cxl_stub_end end, int order)
+{
+    return end == CXL_STUB_OPEN ? (2.0 * order - 1.0) / 4.0 : order / 2.0;
+}
+
+/* Smallest order whose k is at least k_min (never below 1). */
+static long first_order_at_least(cxl_stub_end end, double k_min)
+{
+    double n = end == CXL_STUB_OPEN ? ceil((4.0 * k_min + 1.0) / 2.0) : ceil(2.0 * k_min);
+    if (!(n >= 1.0)) n = 1.0;
+    if (n > CXL_STUB_MAX_ORDER + 1.0) n = CXL_STUB_MAX_ORDER + 1.0;
+    return (long)n;
+}
+
+/* Order whose k is nearest to k (at least 1). */
+static long nearest_order(cxl_stub_end end, double k)
+{
+    double n = end == CXL_STUB_OPEN ? floor((4.0 * k + 1.0) / 2.0 + 0.5) : floor(2.0 * k + 0.5);
+    if (!(n >= 1.0)) n = 1.0;
+    if (n > CXL_STUB_MAX_ORDER + 1.0) n = CXL_STUB_MAX_ORDER + 1.0;
+    return (long)n;
+}
+
+static int valid_end(cxl_stub_end end)
+{
+    return end == CXL_STUB_OPEN || end == CXL_STUB_SHORT;
+}
+
+static int valid_fixture(double fixture_m, double fixture_vf)
+{
+    return cxl__finite_nonneg(fixture_m) && (fixture_m == 0.0 || cxl__valid_vf(fixture_vf));
+}
+
+cxl_status cxl_stub_wavelengths(cxl_stub_end end, int order, double *wavelengths)
+{
+    if (!wavelengths || !valid_end(end) || order < 1) return CXL_EINVAL;
+    if (order > CXL_STUB_MAX_ORDER) return CXL_ERANGE;
+    *wavelengths = k_of(end, order);
+    return CXL_OK;
+}
+
+cxl_status cxl_stub_vf_from_resonance(cxl_stub_end end, int order,
+                                      double length_m, double freq_hz,
+                                      double fixture_m, double fixture_vf,
+                                      double *vf)
+{
+    if (!vf || !valid_end(end) || order < 1 || !cxl__finite_pos(length_m) ||
+        !cxl__finite_pos(freq_hz) || !valid_fixture(fixture_m, fixture_vf))
+        return CXL_EINVAL;
+    if (order > CXL_STUB_MAX_ORDER) return CXL_ERANGE;
+    double cable_free_m = k_of(end, order) * CXL_C_M_PER_S / freq_hz;
+    if (fixture_m > 0.0) cable_free_m -= fixture_m / fixture_vf;
+    if (!(cable_free_m > 0.0)) return CXL_ERANGE; /* fixture alone is longer */
+    double v = length_m / cable_free_m;
+    if (!(v <= 1.0)) return CXL_ERANGE; /* faster than light: wrong order or length */
+    *vf = v;
+    return CXL_OK;
+}
+
+cxl_status cxl_stub_resonance_freq(cxl_stub_end end, int order,
+                                   double length_m, double vf,
+                                   double fixture_m, double fixture_vf,
+                                   double *freq_hz)
+{
+    if (!freq_hz || !valid_end(end) || order < 1 || !cxl__finite_pos(length_m) ||
+        !cxl__valid_vf(vf) || !valid_fixture(fixture_m, fixture_vf))
+        return CXL_EINVAL;
+    if (order > CXL_STUB_MAX_ORDER) return CXL_ERANGE;
+    double free_m = length_m / vf;
+    if (fixture_m > 0.0) free_m += fixture_m / fixture_vf;
+    *freq_hz = k_of(end, order) * CXL_C_M_PER_S / free_m;
+    return CXL_OK;
+}
+
+/* ---- the measurement set -------------------------------------------- */
+
+cxl_status cxl_stub_new(cxl_stub_end end, cxl_stub **stub)
+{
+    if (!stub || !valid_end(end)) return CXL_EINVAL;
+    cxl_stub *s = calloc(1, sizeof *s);
+    if (!s) return CXL_ENOMEM;
+    s->end = end;
+    s->vf_min = DEFAULT_VF_MIN;
+    s->vf_max = DEFAULT_VF_MAX;
+    s->consistency = DEFAULT_CONSISTENCY;
+    s->rule = CXL_STUB_ORDERS_CONSECUTIVE;
+    *stub = s;
+    return CXL_OK;
+}
+
+void cxl_stub_free(cxl_stub *stub)
+{
+    if (!stub) return;
+    free(stub->r);
+    free(stub);
+}
+
+cxl_status cxl_stub_set_fixture(cxl_stub *stub, double fixture_m, double fixture_vf)
+{
+    if (!stub || !valid_fixture(fixture_m, fixture_vf)) return CXL_EINVAL;
+    stub->fixture_free_m = fixture_m > 0.0 ? fixture_m / fixture_vf : 0.0;
+    return CXL_OK;
+}
+
+cxl_status cxl_stub_set_tolerances(cxl_stub *stub, double length_tol_m,
+                                   double freq_res_hz)
+{
+    if (!stub || !cxl__finite_nonneg(length_tol_m) || !cxl__finite_nonneg(freq_res_hz))
+        return CXL_EINVAL;
+    stub->length_tol_m = length_tol_m;
+    stub->freq_res_hz = freq_res_hz;
+    return CXL_OK;
+}
+
+cxl_status cxl_stub_set_vf_range(cxl_stub *stub, double vf_min, double vf_max)
+{
+    if (!stub || !cxl__valid_vf(vf_min) || !cxl__valid_vf(vf_max) || !(vf_min < vf_max))
+        return CXL_EINVAL;
+    stub->vf_min = vf_min;
+    stub->vf_max = vf_max;
+    return CXL_OK;
+}
+
+cxl_status cxl_stub_set_consistency(cxl_stub *stub, double rel_tol)
+{
+    if (!stub || !cxl__finite_pos(rel_tol) || rel_tol > 0.5) return CXL_EINVAL;
+    stub->consistency = rel_tol;
+    return CXL_OK;
+}
+
+cxl_status cxl_stub_set_orders(cxl_stub *stub, cxl_stub_orders rule)
+{
+    if (!stub || (rule != CXL_STUB_ORDERS_CONSECUTIVE && rule != CXL_STUB_ORDERS_BEST_FIT))
+        return CXL_EINVAL;
+    stub->rule = rule;
+    return CXL_OK;
+}
+
+cxl_status cxl_stub_add_reading(cxl_stub *stub, double length_m, double freq_hz,
+                                int order)
+{
+    if (!stub || !cxl__finite_pos(length_m) || !cxl__finite_pos(freq_hz) || order < 0)
+        return CXL_EINVAL;
+    if (order > CXL_STUB_MAX_ORDER) return CXL_ERANGE;
+    /* all orders given, or none */
+    if (stub->n > 0 && (stub->r[0].order == 0) != (order == 0)) return CXL_EINVAL;
+    /* on one length, readings come in ascending frequency (and order) */
+    for (size_t i = 0; i < stub->n; i++) {
+        const reading *p = &stub->r[i];
+        if (p->length_m != length_m) continue;
+        if (!(freq_hz > p->freq_hz)) return CXL_EINVAL;
+        if (order != 0 && order <= p->order) return CXL_EINVAL;
+    }
+    if (stub->n == stub->cap) {
+        size_t cap = stub->cap ? stub->cap * 2 : 8;
+        reading *q = realloc(stub->r, cap * sizeof *q);
+        if (!q) return CXL_ENOMEM;
+        stub->r = q;
+        stub->cap = cap;
+    }
+    stub->r[stub->n++] = (reading){ length_m, freq_hz, order };
+    return CXL_OK;
+}
+
+size_t cxl_stub_count(const cxl_stub *stub)
+{
+    return stub ? stub->n : 0;
+}
+
+/* Free-space electrical length of the cable alone at reading i, order n. */
+static double cable_free_m(const cxl_stub *s, size_t i, long n)
+{
+    return k_of(s->end, (int)n) * CXL_C_M_PER_S / s->r[i].freq_hz - s->fixture_free_m;
+}
+
+/* Is there an order (the given one, or any when none is given) for which
+ * reading i implies a VF in the plausible range? */
+static int reading_plausible(const cxl_stub *s, size_t i, int use_given)
+{
+    const reading *p = &s->r[i];
+    if (use_given && p->order != 0) {
+        double e = cable_free_m(s, i, p->order);
+        return e > 0.0 && p->length_m / e >= s->vf_min && p->length_m / e <= s->vf_max;
+    }
+    /* VF falls as the order rises: the first order with a cable length of
+     * at least L / vf_max is the only candidate worth testing */
+    double k_min = p->freq_hz * (p->length_m / s->vf_max + s->fixture_free_m) / CXL_C_M_PER_S;
+    long n = first_order_at_least(s->end, k_min);
+    if (n > CXL_STUB_MAX_ORDER) return 0;
+    double e = cable_free_m(s, i, n);
+    return e > 0.0 && p->length_m / e >= s->vf_min * (1.0 - 1e-12);
+}
+
+/* Orders that fit one fundamental best for the readings on one length
+ * (indices idx[0..m-1], ascending frequency).  Each order of the lowest
+ * reading that gives a plausible VF proposes an electrical length E; the
+ * others take the nearest order above the previous one; the proposal whose
+ * worst relative departure from its mean length is smallest wins (the
+ * lowest orders on a tie). */
+static cxl_status best_fit_group(const cxl_stub *s, const size_t *idx, size_t m,
+                                 int *orders)
+{
+    double best_score = INFINITY;
+    const reading *first = &s->r[idx[0]];
+    double k_min = first->freq_hz * (first->length_m / s->vf_max + s->fixture_free_m) /
+                   CXL_C_M_PER_S;
+    int *trial = malloc(m * sizeof *trial);
+    if (!trial) return CXL_ENOMEM;
+    for (long n1 = first_order_at_least(s->end, k_min); n1 <= CXL_STUB_MAX_ORDER; n1++) {
+        double e1 = cable_free_m(s, idx[0], n1);
+        if (!(e1 > 0.0) || first->length_m / e1 < s->vf_min) break;
+        double total = k_of(s->end, (int)n1) * CXL_C_M_PER_S / first->freq_hz;
+        trial[0] = (int)n1;
+        int ok = 1;
+        for (size_t j = 1; j < m && ok; j++) {
+            long n = nearest_order(s->end, total * s->r[idx[j]].freq_hz / CXL_C_M_PER_S);
+            if (n <= trial[j - 1]) n = trial[j - 1] + 1;
+            if (n > CXL_STUB_MAX_ORDER) ok = 0;
+            else trial[j] = (int)n;
+        }
+        if (!ok) break;
+        double mean = 0.0, worst = 0.0;
+        for (size_t j = 0; j < m; j++)
+            mean += k_of(s->end, trial[j]) / s->r[idx[j]].freq_hz;
+        mean /= (double)m;
+        for (size_t j = 0; j < m; j++) {
+            double d = fabs(k_of(s->end, trial[j]) / s->r[idx[j]].freq_hz - mean) / mean;
+            if (d > worst) worst = d;
+        }
+        if (worst < best_score - 1e-12) {
+            best_score = worst;
+            memcpy(orders, trial, m * sizeof *orders);
+        }
+    }
+    free(trial);
+    return isfinite(best_score) ? CXL_OK : CXL_ERANGE;
+}
+
+/* Orders for every reading under a rule, after checking that each reading
+ * is plausible for some allowed order.  *assumed is set when the orders
+ * were not given. */
+static cxl_status assign_orders(const cxl_stub *s, cxl_stub_orders rule,
+                                int use_given, int *orders, int *assumed)
+{
+    if (s->n == 0) return CXL_EINVAL;
+    for (size_t i = 0; i < s->n; i++)
+        if (!reading_plausible(s, i, use_given)) return CXL_ERANGE;
+    *assumed = !(use_given && s->r[0].order != 0);
+    if (!*assumed) {
+        for (size_t i = 0; i < s->n; i++) orders[i] = s->r[i].order;
+        return CXL_OK;
+    }
+    size_t *idx = malloc(s->n * sizeof *idx);
+    int *grp = malloc(s->n * sizeof *grp);
+    char *done = calloc(s->n, 1);
+    cxl_status st = (idx && grp && done) ? CXL_OK : CXL_ENOMEM;
+    for (size_t i = 0; i < s->n && st == CXL_OK; i++) {
+        if (done[i]) continue;
+        size_t m = 0; /* readings on this length, already ascending */
+        for (size_t j = i; j < s->n; j++)
+            if (s->r[j].length_m == s->r[i].length_m) { idx[m++] = j; done[j] = 1; }
+        if (rule == CXL_STUB_ORDERS_BEST_FIT) {
+            st = best_fit_group(s, idx, m, grp);
+        } else {
+            for (size_t j = 0; j < m; j++) grp[j] = (int)(j + 1);
+        }
+        for (size_t j = 0; j < m && st == CXL_OK; j++) orders[idx[j]] = grp[j];
+    }
+    free(idx);
+    free(grp);
+    free(done);
+    return st;
+}
+
+cxl_status cxl_stub_infer_orders(const cxl_stub *stub, int *orders, size_t count)
+{
+    if (!stub || !orders || count != stub->n || count == 0) return CXL_EINVAL;
+    int *tmp = malloc(count * sizeof *tmp), assumed;
+    if (!tmp) return CXL_ENOMEM;
+    cxl_status st = assign_orders(stub, CXL_STUB_ORDERS_BEST_FIT, 0, tmp, &assumed);
+    if (st == CXL_OK) memcpy(orders, tmp, count * sizeof *orders);
+    free(tmp);
+    return st;
+}
+
+/* ---- the fit ------------------------------------------------------- */
+
+typedef struct fit_ws {
+    size_t n, p;
+    gsl_matrix *X, *cov;
+    gsl_vector *y, *w, *c;
+    gsl_multifit_linear_workspace *work;
+} fit_ws;
+
+static void ws_free(fit_ws *f)
+{
+    if (f->work) gsl_multifit_linear_free(f->work);
+    if (f->X) gsl_matrix_free(f->X);
+    if (f->cov) gsl_matrix_free(f->cov);
+    if (f->y) gsl_vector_free(f->y);
+    if (f->w) gsl_vector_free(f->w);
+    if (f->c) gsl_vector_free(f->c);
+}
+
+/* n >= p >= 1 is checked by the caller, so GSL never sees a bad size. */
+static int ws_alloc(fit_ws *f, size_t n, size_t p)
+{
+    memset(f, 0, sizeof *f);
+    f->n = n;
+    f->p = p;
+    f->X = gsl_matrix_alloc(n, p);
+    f->cov = gsl_matrix_alloc(p, p);
+    f->y = gsl_vector_alloc(n);
+    f->w = gsl_vector_alloc(n);
+    f->c = gsl_vector_alloc(p);
+    f->work = gsl_multifit_linear_alloc(n, p);
+    return f->X && f->cov && f->y && f->w && f->c && f->work;
+}
+
+/* Solve y = a L (+ x) for lengths len[] and electrical lengths y[]
+ * (weights already in f->w).  Returns 0 when GSL reports a failure. */
+static int solve(fit_ws *f, const double *len, const double *y,
+                 double *a, double *x, double *chisq)
+{
+    for (size_t i = 0; i < f->n; i++) {
+        gsl_matrix_set(f->X, i, 0, len[i]);
+        if (f->p == 2) gsl_matrix_set(f->X, i, 1, 1.0);
+        gsl_vector_set(f->y, i, y[i]);
+    }
+    double chi = 0.0;
+    if (gsl_multifit_wlinear(f->X, f->w, f->y, f->c, f->cov, &chi, f->work) != GSL_SUCCESS)
+        return 0;
+    *a = gsl_vector_get(f->c, 0);
+    *x = f->p == 2 ? gsl_vector_get(f->c, 1) : 0.0;
+    if (chisq) *chisq = chi;
+    return isfinite(*a) && isfinite(*x);
+}
+
+static cxl_stub_result *result_alloc(size_t n)
+{
+    cxl_stub_result *r = calloc(1, sizeof *r);
+    if (!r) return NULL;
+    r->n = n;
+    r->length_m = malloc(5 * n * sizeof(double));
+    r->order = malloc(n * sizeof(int));
+    if (!r->length_m || !r->order) {
+        cxl_stub_result_free(r);
+        return NULL;
+    }
+    r->freq_hz = r->length_m + n;
+    r->vf = r->length_m + 2 * n;
+    r->res_hz = r->length_m + 3 * n;
+    r->res_m = r->length_m + 4 * n;
+    return r;
+}
+
+void cxl_stub_result_free(cxl_stub_result *result)
+{
+    if (!result) return;
+    free(result->length_m);
+    free(result->order);
+    free(result);
+}
+
+/* Shift of (VF, x) when the electrical lengths y[] and lengths len[] are
+ * replaced by the perturbed copies; accumulates squares into *dvf2, *dx2. */
+static int accumulate_shift(fit_ws *f, const double *len, const double *y,
+                            double vf0, double x0, double *dvf2, double *dx2)
+{
+    double a, x;
+    if (!solve(f, len, y, &a, &x, NULL) || !(a > 0.0)) return 0;
+    *dvf2 += (1.0 / a - vf0) * (1.0 / a - vf0);
+    *dx2 += (x - x0) * (x - x0);
+    return 1;
+}
+
+/* Everything a fit works on: orders, lengths, electrical lengths. */
+typedef struct fit_data {
+    const cxl_stub *s;
+    int *orders;
+    double *len, *y; /* y: cable's free-space length, fixture removed */
+    int assumed;
+} fit_data;
+
+/* Electrical length of the cable alone at reading i if read at freq_hz. */
+static double cable_y(const fit_data *d, size_t i, double freq_hz)
+{
+    return k_of(d->s->end, d->orders[i]) * CXL_C_M_PER_S / freq_hz - d->s->fixture_free_m;
+}
+
+/* Fill lengths, electrical lengths and weights; one fit parameter (a) on
+ * one cable length, two (a, x) on several. */
+static cxl_status fit_prepare(fit_data *d, fit_ws *f)
+{
+    const cxl_stub *s = d->s;
+    cxl_status st = assign_orders(s, s->rule, 1, d->orders, &d->assumed);
+    if (st != CXL_OK) return st;
+    size_t groups = 0;
+    for (size_t i = 0; i < s->n; i++) {
+        size_t j = 0;
+        while (j < i && s->r[j].length_m != s->r[i].length_m) j++;
+        if (j == i) groups++;
+    }
+    if (!ws_alloc(f, s->n, groups >= 2 ? 2 : 1)) return CXL_ENOMEM;
+    const double df = s->freq_res_hz;
+    for (size_t i = 0; i < s->n; i++) {
+        double total = k_of(s->end, d->orders[i]) * CXL_C_M_PER_S / s->r[i].freq_hz;
+        double sigma = total * df / s->r[i].freq_hz;
+        double w = df > 0.0 ? 1.0 / (sigma * sigma) : 1.0;
+        d->len[i] = s->r[i].length_m;
+        d->y[i] = cable_y(d, i, s->r[i].freq_hz);
+        gsl_vector_set(f->w, i, w);
+        /* extreme inputs must not reach GSL as inf or NaN */
+        if (!isfinite(d->y[i]) || !cxl__finite_pos(w)) return CXL_ERANGE;
+    }
+    return CXL_OK;
+}
+
+/* Tolerances: shift each measured cable length and each frequency by its
+ * tolerance, refit, and add the shifts in quadrature (independent errors,
+ * first order).  Fills err_length, err_freq and adds to x_err_m. */
+static cxl_status fit_budget(const fit_data *d, fit_ws *f, cxl_stub_result *r)
+{
+    const cxl_stub *s = d->s;
+    const size_t n = s->n;
+    double lvf2 = 0.0, lx2 = 0.0, fvf2 = 0.0, fx2 = 0.0;
+    double *len2 = malloc(2 * n * sizeof *len2);
+    if (!len2) return CXL_ENOMEM;
+    double *y2 = len2 + n;
+    cxl_status st = CXL_OK;
+    if (s->length_tol_m > 0.0) {
+        for (size_t i = 0; i < n && st == CXL_OK; i++) {
+            size_t j = 0;
+            while (j < i && d->len[j] != d->len[i]) j++;
+            if (j < i) continue; /* this cable length is done */
+            for (size_t k = 0; k < n; k++)
+                len2[k] = d->len[k] == d->len[i] ? d->len[k] + s->length_tol_m : d->len[k];
+            if (!accumulate_shift(f, len2, d->y, r->vf_fit, r->x_m, &lvf2, &lx2))
+                st = CXL_ENOCONV;
+        }
+    }
+    if (s->freq_res_hz > 0.0) {
+        for (size_t i = 0; i < n && st == CXL_OK; i++) {
+            memcpy(y2, d->y, n * sizeof *y2);
+            y2[i] = cable_y(d, i, s->r[i].freq_hz + s->freq_res_hz);
+            if (!accumulate_shift(f, d->len, y2, r->vf_fit, r->x_m, &fvf2, &fx2))
+                st = CXL_ENOCONV;
+        }
+    }
+    free(len2);
+    r->err_length = sqrt(lvf2);
+    r->err_freq = sqrt(fvf2);
+    r->x_err_m = sqrt(r->x_err_m * r->x_err_m + lx2 + fx2);
+    return st;
+}
+
+/* Per-reading VF and residuals, and the warning flags. */
+static cxl_status fit_readings(const fit_data *d, double a, cxl_stub_result *r)
+{
+    const cxl_stub *s = d->s;
+    const double x = r->x_m, vf = r->vf_fit;
+    if (vf < s->vf_min || vf > s->vf_max) r->flags |= CXL_STUB_FLAG_VF_RANGE;
+    for (size_t i = 0; i < s->n; i++) {
+        double model = a * d->len[i] + x;              /* cable, free-space m */
+        if (!(d->y[i] - x > 0.0) || !(model + s->fixture_free_m > 0.0))
+            return CXL_EINCONSISTENT; /* fitted fixture longer than a reading */
+        r->length_m[i] = d->len[i];
+        r->freq_hz[i] = s->r[i].freq_hz;
+        r->order[i] = d->orders[i];
+        r->vf[i] = d->len[i] / (d->y[i] - x);
+        r->res_hz[i] = s->r[i].freq_hz - k_of(s->end, d->orders[i]) * CXL_C_M_PER_S /
+                                             (model + s->fixture_free_m);
+        r->res_m[i] = (d->y[i] - model) * vf;        /* as cable length */
+        if (r->vf[i] < s->vf_min || r->vf[i] > s->vf_max)
+            r->flags |= CXL_STUB_FLAG_VF_RANGE;
+        if (fabs(r->res_hz[i]) > s->consistency * s->r[i].freq_hz + s->freq_res_hz)
+            r->flags |= CXL_STUB_FLAG_INCONSISTENT;
+    }
+    return CXL_OK;
+}
+
+cxl_status cxl_stub_fit(const cxl_stub *stub, cxl_stub_result **result)
+{
+    if (!stub || !result || stub->n == 0) return CXL_EINVAL;
+    const size_t n = stub->n;
+    fit_data d = { stub, malloc(n * sizeof(int)), malloc(2 * n * sizeof(double)), NULL, 0 };
+    cxl_stub_result *r = result_alloc(n);
+    fit_ws f;
+    memset(&f, 0, sizeof f);
+    cxl_status st = (d.orders && d.len && r) ? CXL_OK : CXL_ENOMEM;
+    if (st == CXL_OK) {
+        d.y = d.len + n;
+        st = fit_prepare(&d, &f);
+    }
+    double a = 0.0, x = 0.0, chisq = 0.0;
+    if (st == CXL_OK && !solve(&f, d.len, d.y, &a, &x, &chisq)) st = CXL_ENOCONV;
+    if (st == CXL_OK && !(a > 0.0)) st = CXL_EINCONSISTENT; /* longer line, shorter wave */
+    if (st == CXL_OK) {
+        const size_t dof = n - f.p;
+        r->vf_fit = 1.0 / a;
+        r->x_m = x;
+        if (dof > 0) { /* covariance scaled by the scatter: chisq / dof */
+            double s2 = chisq / (double)dof;
+            r->err_fit = sqrt(gsl_matrix_get(f.cov, 0, 0) * s2) / (a * a);
+            if (f.p == 2) r->x_err_m = sqrt(gsl_matrix_get(f.cov, 1, 1) * s2);
+        }
+        if (d.assumed) r->flags |= CXL_STUB_FLAG_ORDERS_ASSUMED;
+        if (f.p == 2) r->flags |= CXL_STUB_FLAG_FIXTURE_FITTED;
+        st = fit_budget(&d, &f, r);
+    }
+    if (st == CXL_OK) st = fit_readings(&d, a, r);
+    ws_free(&f);
+    free(d.orders);
+    free(d.len);
+    if (st != CXL_OK) {
+        cxl_stub_result_free(r);
+        return st;
+    }
+    *result = r;
+    return CXL_OK;
+}
+
+/* ---- results ------------------------------------------------------- */
+
+cxl_status cxl_stub_result_vf(const cxl_stub_result *result, double *vf,
+                              double *vf_err)
+{
+    if (!result || !vf) return CXL_EINVAL;
+    *vf = result->vf_fit;
+    if (vf_err)
+        *vf_err = sqrt(result->err_fit * result->err_fit +
+                       result->err_length * result->err_length +
+                       result->err_freq * result->err_freq);
+    return CXL_OK;
+}
+
+cxl_status cxl_stub_result_vf_budget(const cxl_stub_result *result,
+                                     double *err_fit, double *err_length,
+                                     double *err_freq)
+{
+    if (!result) return CXL_EINVAL;
+    if (err_fit) *err_fit = result->err_fit;
+    if (err_length) *err_length = result->err_length;
+    if (err_freq) *err_freq = result->err_freq;
+    return CXL_OK;
+}
+
+cxl_status cxl_stub_result_fixture(const cxl_stub_result *result,
+                                   double *extra_free_m, double *extra_err_m,
+                                   double *extra_cable_m)
+{
+    if (!result || !extra_free_m) return CXL_EINVAL;
+    if (!(result->flags & CXL_STUB_FLAG_FIXTURE_FITTED)) return CXL_ENOTFOUND;
+    *extra_free_m = result->x_m;
+    if (extra_err_m) *extra_err_m = result->x_err_m;
+    if (extra_cable_m) *extra_cable_m = result->x_m * result->vf_fit;
+    return CXL_OK;
+}
+
+cxl_status cxl_stub_result_flags(const cxl_stub_result *result, unsigned *flags)
+{
+    if (!result || !flags) return CXL_EINVAL;
+    *flags = result->flags;
+    return CXL_OK;
+}
+
+size_t cxl_stub_result_count(const cxl_stub_result *result)
+{
+    return result ? result->n : 0;
+}
+
+cxl_status cxl_stub_result_reading(const cxl_stub_result *result, size_t index,
+                                   double *length_m, double *freq_hz, int *order,
+                                   double *vf, double *residual_hz,
+                                   double *residual_m)
+{
+    if (!result || index >= result->n) return CXL_EINVAL;
+    if (length_m) *length_m = result->length_m[index];
+    if (freq_hz) *freq_hz = result->freq_hz[index];
+    if (order) *order = result->order[index];
+    if (vf) *vf = result->vf[index];
+    if (residual_hz) *residual_hz = result->res_hz[index];
+    if (residual_m) *residual_m = result->res_m[index];
+    return CXL_OK;
+}
