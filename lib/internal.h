@@ -15,4 +15,10 @@ static inline int cxl__valid_vf(double vf) { return isfinite(vf) && vf > 0.0 && 
 /* Case-insensitive ASCII comparison of n bytes, locale-free. */
 int cxl__ascii_ncaseeq(const char *a, const char *b, size_t n);
 
+/* Built-in tables, generated from data/NAME.csv by build-aux/embed-csv.awk. */
+extern const char cxl__data_cables[];
+extern const size_t cxl__data_cables_size;
+extern const char cxl__data_cable_loss[];
+extern const size_t cxl__data_cable_loss_size;
+
 #endif
