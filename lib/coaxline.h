@@ -363,6 +363,206 @@ cxl_status cxl_pair_check(const double *lengths_m, size_t count, double vf,
                           double length_tol_m, double vf_tol,
                           double *delta_m, double *phase_error_deg,
                           double *uncertainty_deg, cxl_verdict *verdict);
+/* ---- cable.c: cable catalog ------------------------------------------- */
+
+/* A catalog of cables: the built-in rows (compiled in from data/cables.csv
+ * and data/cable_loss.csv) plus rows the caller loads from files of the same
+ * formats.  Names are unique without regard to ASCII case; a user row never
+ * replaces a built-in or an earlier user row (CXL_EDUPLICATE): give a
+ * measured spool its own name.  Each load is all or nothing: on any error
+ * the catalog is unchanged. */
+typedef struct cxl_catalog cxl_catalog;
+
+/* Numeric properties of a cable, in SI units. */
+typedef enum cxl_cable_prop {
+    CXL_CABLE_Z0_OHM = 0,               /* nominal characteristic impedance */
+    CXL_CABLE_VF,                       /* nominal velocity factor */
+    CXL_CABLE_INNER_DIAMETER_M,         /* centre conductor */
+    CXL_CABLE_DIELECTRIC_DIAMETER_M,    /* = inner diameter of the outer conductor */
+    CXL_CABLE_RELATIVE_PERMITTIVITY,
+    CXL_CABLE_LOSS_TANGENT,
+    CXL_CABLE_CONDUCTIVITY_S_PER_M,     /* 58.0e6 (annealed copper) when not given */
+    CXL_CABLE_CONDUCTOR_LOSS_FACTOR,    /* 1 when not given */
+    CXL_CABLE_CLAD_THICKNESS_M,         /* copper-clad steel centre: cladding */
+    CXL_CABLE_CORE_CONDUCTIVITY_S_PER_M,    /* ... and its core */
+    CXL_CABLE_CORE_RELATIVE_PERMEABILITY
+} cxl_cable_prop;
+
+/* Conductivity assumed when a row leaves it empty: annealed copper, 100 %
+ * IACS, IEC 60028. */
+#define CXL_COPPER_CONDUCTIVITY_S_PER_M 58.0e6
+
+/* A new catalog holding the built-in rows. */
+cxl_status cxl_catalog_new(cxl_catalog **catalog);
+void cxl_catalog_free(cxl_catalog *catalog);
+
+/* Add user cables from a CSV stream with a header row.  Columns (any order,
+ * all but name and vf optional, cells may be empty): name, z0_ohm, vf,
+ * dielectric, inner_diameter_mm, dielectric_diameter_mm,
+ * relative_permittivity, loss_tangent, conductivity_s_per_m,
+ * conductor_loss_factor, clad_thickness_mm, core_conductivity_s_per_m,
+ * core_relative_permeability, source.  A row with only name and vf (a
+ * measured spool) is enough for cut lengths.
+ * Errors: CXL_EPARSE (unknown or repeated column, missing required column
+ * or value, bad number, wrong field count, malformed CSV), CXL_ERANGE (a
+ * number outside its valid range), CXL_EDUPLICATE (name already present),
+ * CXL_ETOOLONG, CXL_ENOMEM, CXL_EIO.  On error *error_line (if not NULL)
+ * is the 1-based line of the offending record (1 for the header) and
+ * error_text (if not NULL and error_size > 0) gets one line such as
+ * "spool.csv:3: column vf: not a number: 0,83"; file_name may be NULL. */
+cxl_status cxl_catalog_load_cables(cxl_catalog *catalog, FILE *stream,
+                                   const char *file_name, size_t *error_line,
+                                   char *error_text, size_t error_size);
+
+/* Add attenuation points from a CSV stream: columns name, freq_mhz,
+ * loss_db_per_100m (required) and source (optional).  Each name must be a
+ * user cable already in the catalog (CXL_ENOTFOUND otherwise); a built-in
+ * cable's table cannot be extended (CXL_EDUPLICATE), nor can a frequency
+ * appear twice for one cable (CXL_EDUPLICATE).  Errors as above. */
+cxl_status cxl_catalog_load_loss(cxl_catalog *catalog, FILE *stream,
+                                 const char *file_name, size_t *error_line,
+                                 char *error_text, size_t error_size);
+
+/* Number of cables (built-in first, then user rows in load order). */
+cxl_status cxl_catalog_count(const cxl_catalog *catalog, size_t *count);
+/* Index of a cable by name, ASCII case ignored; CXL_ENOTFOUND if absent. */
+cxl_status cxl_catalog_find(const cxl_catalog *catalog, const char *name,
+                            size_t *index);
+/* Text properties; the strings live as long as the catalog.  dielectric
+ * and source are "" when a user row leaves them empty. */
+cxl_status cxl_catalog_name(const cxl_catalog *catalog, size_t index,
+                            const char **name);
+cxl_status cxl_catalog_dielectric(const cxl_catalog *catalog, size_t index,
+                                  const char **dielectric);
+cxl_status cxl_catalog_source(const cxl_catalog *catalog, size_t index,
+                              const char **source);
+/* 1 for a built-in row, 0 for a user row. */
+cxl_status cxl_catalog_is_builtin(const cxl_catalog *catalog, size_t index,
+                                  int *builtin);
+/* A numeric property; CXL_ENOTFOUND when the row does not give it (and it
+ * has no default); CXL_ERANGE for an index past the end. */
+cxl_status cxl_catalog_value(const cxl_catalog *catalog, size_t index,
+                             cxl_cable_prop prop, double *value);
+/* Attenuation table of a cable, sorted by frequency. */
+cxl_status cxl_catalog_loss_count(const cxl_catalog *catalog, size_t index,
+                                  size_t *count);
+cxl_status cxl_catalog_loss_point(const cxl_catalog *catalog, size_t index,
+                                  size_t point, double *freq_hz,
+                                  double *loss_db_per_m, const char **source);
+
+/* ---- loss.c: loss models ----------------------------------------------- */
+
+/* Flags for the evaluation functions below. */
+#define CXL_LOSS_EXTRAPOLATE     0x1u /* allow frequencies outside the range */
+#define CXL_LOSS_EXTERNAL_L_ONLY 0x2u /* physical model: no internal inductance */
+
+/* Fitted model: loss_db_per_m(f) = a sqrt(f) + b f, least squares (GSL,
+ * weighted by 1/loss^2 so every point counts with its relative error) over
+ * table points.  Evaluation outside [f_min / (1 + m), f_max (1 + m)] with
+ * m = CXL_LOSS_FIT_MARGIN returns CXL_EEXTRAPOLATE unless
+ * CXL_LOSS_EXTRAPOLATE is given. */
+#define CXL_LOSS_FIT_MARGIN 0.1
+typedef struct cxl_loss_fit cxl_loss_fit;
+
+/* From n >= 2 points at two or more distinct frequencies (CXL_ERANGE
+ * otherwise); every value finite and > 0 (CXL_EINVAL). */
+cxl_status cxl_loss_fit_new(const double *freq_hz,
+                            const double *loss_db_per_m, size_t n,
+                            cxl_loss_fit **fit);
+/* From a catalog cable's table; CXL_ENOTFOUND when it has fewer than two
+ * points. */
+cxl_status cxl_loss_fit_new_cable(const cxl_catalog *catalog, size_t index,
+                                  cxl_loss_fit **fit);
+void cxl_loss_fit_free(cxl_loss_fit *fit);
+cxl_status cxl_loss_fit_coefficients(const cxl_loss_fit *fit,
+                                     double *a_db_per_m_sqrt_hz,
+                                     double *b_db_per_m_hz);
+/* Lowest and highest table frequency. */
+cxl_status cxl_loss_fit_range(const cxl_loss_fit *fit, double *min_freq_hz,
+                              double *max_freq_hz);
+/* Table points and residuals (fitted - table). */
+cxl_status cxl_loss_fit_count(const cxl_loss_fit *fit, size_t *count);
+cxl_status cxl_loss_fit_point(const cxl_loss_fit *fit, size_t point,
+                              double *freq_hz, double *table_db_per_m,
+                              double *residual_db_per_m);
+/* Largest |residual| / table value over the points. */
+cxl_status cxl_loss_fit_max_relative_residual(const cxl_loss_fit *fit,
+                                              double *relative);
+cxl_status cxl_loss_fit_eval(const cxl_loss_fit *fit, double freq_hz,
+                             unsigned flags, double *loss_db_per_m);
+
+/* Physical model of a coaxial line from geometry and materials:
+ *   R = Rs / (2 pi) (1/a + 1/b) * conductor_loss_factor,
+ *   Rs = sqrt(pi f mu0 / sigma);
+ *   L = mu0 / (2 pi) ln(b/a) + R / omega (internal inductance);
+ *   C = 2 pi eps0 eps_r / ln(b/a); G = omega C tan(delta);
+ *   gamma = sqrt((R + j omega L)(G + j omega C)), exact.
+ * a = inner radius, b = dielectric radius (= inner radius of the outer
+ * conductor).  The surface-impedance form holds while the inner radius is
+ * at least 3 skin depths, and the line carries only the TEM mode below the
+ * TE11 cut-off, about c / (pi (a + b) sqrt(eps_r)); outside that range the
+ * evaluation functions return CXL_EEXTRAPOLATE unless CXL_LOSS_EXTRAPOLATE
+ * is given.  A copper-clad centre (cxl_loss_model_set_clad) uses the
+ * surface impedance of a layer over a second metal. */
+typedef struct cxl_loss_model cxl_loss_model;
+
+cxl_status cxl_loss_model_new(double inner_diameter_m,
+                              double dielectric_diameter_m,
+                              double relative_permittivity,
+                              double loss_tangent,
+                              double conductivity_s_per_m,
+                              double conductor_loss_factor,
+                              cxl_loss_model **model);
+/* From a catalog cable: needs both diameters (CXL_ENOTFOUND otherwise);
+ * the permittivity defaults to 1/vf^2, the loss tangent to 0; a clad
+ * centre is used when the row gives one. */
+cxl_status cxl_loss_model_new_cable(const cxl_catalog *catalog, size_t index,
+                                    cxl_loss_model **model);
+/* Make the centre conductor a clad one: a layer clad_thickness_m of the
+ * model's conductivity over a core (e.g. steel). */
+cxl_status cxl_loss_model_set_clad(cxl_loss_model *model,
+                                   double clad_thickness_m,
+                                   double core_conductivity_s_per_m,
+                                   double core_relative_permeability);
+void cxl_loss_model_free(cxl_loss_model *model);
+/* Frequencies where the model holds (see above). */
+cxl_status cxl_loss_model_range(const cxl_loss_model *model,
+                                double *min_freq_hz, double *max_freq_hz);
+cxl_status cxl_loss_model_rlgc(const cxl_loss_model *model, double freq_hz,
+                               unsigned flags, double *r_ohm_per_m,
+                               double *l_h_per_m, double *g_s_per_m,
+                               double *c_f_per_m);
+/* Propagation constant gamma = alpha + j beta. */
+cxl_status cxl_loss_model_gamma(const cxl_loss_model *model, double freq_hz,
+                                unsigned flags, double *alpha_np_per_m,
+                                double *beta_rad_per_m);
+/* Matched attenuation, 20 log10(e) alpha. */
+cxl_status cxl_loss_model_attenuation(const cxl_loss_model *model,
+                                      double freq_hz, unsigned flags,
+                                      double *loss_db_per_m);
+/* Complex characteristic impedance. */
+cxl_status cxl_loss_model_z0(const cxl_loss_model *model, double freq_hz,
+                             unsigned flags, double *z0_re_ohm,
+                             double *z0_im_ohm);
+/* Phase velocity over c, omega / (beta c): slightly below the high-frequency
+ * value at low frequency, where R / (omega L) is not small. */
+cxl_status cxl_loss_model_vf(const cxl_loss_model *model, double freq_hz,
+                             unsigned flags, double *vf);
+
+/* Skin depth 1 / sqrt(pi f mu0 mu_r sigma). */
+cxl_status cxl_loss_skin_depth_m(double freq_hz, double conductivity_s_per_m,
+                                 double relative_permeability,
+                                 double *depth_m);
+
+/* Total loss of a line with matched loss matched_loss_db (>= 0) into a load
+ * with standing-wave ratio swr (>= 1, CXL_ERANGE below): with
+ * A = 10^(ML/10) and |G| = (swr - 1)/(swr + 1),
+ * total = 10 log10[(A^2 - |G|^2) / (A (1 - |G|^2))] (real Z0). */
+cxl_status cxl_loss_total_db(double matched_loss_db, double swr,
+                             double *total_loss_db);
+/* The same for a run: length_m (> 0) of line losing loss_db_per_m (>= 0). */
+cxl_status cxl_loss_run_db(double loss_db_per_m, double length_m, double swr,
+                           double *matched_loss_db, double *total_loss_db);
 
 #ifdef __cplusplus
 }

@@ -18,5 +18,9 @@ int cxl__ascii_ncaseeq(const char *a, const char *b, size_t n);
 /* Built-in tables, generated from data/NAME.csv by build-aux/embed-csv.awk. */
 extern const char cxl__data_bands[];
 extern const size_t cxl__data_bands_size;
+extern const char cxl__data_cables[];
+extern const size_t cxl__data_cables_size;
+extern const char cxl__data_cable_loss[];
+extern const size_t cxl__data_cable_loss_size;
 
 #endif
