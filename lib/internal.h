@@ -15,4 +15,11 @@ static inline int cxl__valid_vf(double vf) { return isfinite(vf) && vf > 0.0 && 
 /* Case-insensitive ASCII comparison of n bytes, locale-free. */
 int cxl__ascii_ncaseeq(const char *a, const char *b, size_t n);
 
+/* array.c: a power ratio in dB, clamped to +-CXL_DB_LIMIT. */
+double cxl__power_db(double ratio);
+/* array.c: front-to-back ratio with extra_phase_rad added to element 1. */
+cxl_status cxl__array_front_to_back(const cxl_array_pair *pair,
+                                    double freq_hz, double elevation_deg,
+                                    double extra_phase_rad, double *ratio_db);
+
 #endif
