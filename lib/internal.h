@@ -22,5 +22,11 @@ extern const char cxl__data_cables[];
 extern const size_t cxl__data_cables_size;
 extern const char cxl__data_cable_loss[];
 extern const size_t cxl__data_cable_loss_size;
+/* array.c: a power ratio in dB, clamped to +-CXL_DB_LIMIT. */
+double cxl__power_db(double ratio);
+/* array.c: front-to-back ratio with extra_phase_rad added to element 1. */
+cxl_status cxl__array_front_to_back(const cxl_array_pair *pair,
+                                    double freq_hz, double elevation_deg,
+                                    double extra_phase_rad, double *ratio_db);
 
 #endif

@@ -1,0 +1,137 @@
+/* budget.c - tolerance budget: how much phase error (and so how much cable
+ * length mismatch) a wanted null depth or front-to-back ratio allows.
+ * The inverse of the pattern results in array.c. */
+#include <config.h>
+#include <math.h>
+#include <gsl/gsl_errno.h>
+#include <gsl/gsl_math.h>
+#include <gsl/gsl_roots.h>
+#include "coaxline.h"
+#include "internal.h"
+
+#define DEG (M_PI / 180.0)
+
+cxl_status cxl_budget_phase_for_null(double depth_db, double imbalance_db,
+                                     double *phase_error_deg)
+{
+    if (!phase_error_deg || !isfinite(depth_db) || !(depth_db < 0.0) ||
+        depth_db < -CXL_DB_LIMIT || !isfinite(imbalance_db) ||
+        fabs(imbalance_db) > 200.0)
+        return CXL_EINVAL;
+    double r = pow(10.0, depth_db / 20.0);   /* null amplitude / (1 + a) */
+    double a = pow(10.0, -imbalance_db / 20.0);
+    /* (1 - a)^2 + 4 a sin^2(d/2) = r^2 (1 + a)^2, solved for sin(d/2). */
+    double s2 = (r * r * (1.0 + a) * (1.0 + a) - (1.0 - a) * (1.0 - a)) /
+                (4.0 * a);
+    if (s2 < 0.0)
+        return CXL_ERANGE;   /* the imbalance alone misses depth_db */
+    *phase_error_deg = 2.0 * asin(fmin(sqrt(s2), 1.0)) / DEG;
+    return CXL_OK;
+}
+
+typedef struct {
+    const cxl_array_pair *pair;
+    double freq_hz, elevation_deg, ratio_db, sign;
+    cxl_status status;   /* first failure inside the root finder */
+} fb_params;
+
+/* Front-to-back ratio with an error of sign * d_deg, minus the wanted one. */
+static double fb_excess(double d_deg, void *params)
+{
+    fb_params *fp = params;
+    double fb;
+    cxl_status st = cxl__array_front_to_back(fp->pair, fp->freq_hz,
+                                             fp->elevation_deg,
+                                             fp->sign * d_deg * DEG, &fb);
+    if (st) {
+        if (!fp->status)
+            fp->status = st;
+        return 0.0;
+    }
+    return fb - fp->ratio_db;
+}
+
+/* Smallest error of one sign at which the ratio falls below the wanted
+ * one; 180 when none does. */
+static cxl_status first_crossing(fb_params *fp, double *limit_deg)
+{
+    const double step = 0.25;
+    const int n = (int)(180.0 / step);
+    double lo = 0.0, g_lo = fb_excess(0.0, fp);
+    for (int i = 1; i <= n && !fp->status; i++) {
+        double hi = i * step, g_hi = fb_excess(hi, fp);
+        if (fp->status)
+            break;
+        if (!(g_hi < 0.0)) {
+            lo = hi;
+            g_lo = g_hi;
+            continue;
+        }
+        if (g_lo == 0.0) {
+            *limit_deg = lo;
+            return CXL_OK;
+        }
+        gsl_function fn = { fb_excess, fp };
+        gsl_root_fsolver *s = gsl_root_fsolver_alloc(gsl_root_fsolver_brent);
+        if (!s)
+            return CXL_ENOMEM;
+        /* g_lo > 0 > g_hi here, so the bracket is valid for GSL. */
+        cxl_status st = CXL_ENOCONV;
+        if (gsl_root_fsolver_set(s, &fn, lo, hi) == GSL_SUCCESS) {
+            for (int it = 0; it < 200 && !fp->status; it++) {
+                if (gsl_root_fsolver_iterate(s) != GSL_SUCCESS)
+                    break;
+                if (gsl_root_test_interval(gsl_root_fsolver_x_lower(s),
+                                           gsl_root_fsolver_x_upper(s),
+                                           1e-12, 0.0) == GSL_SUCCESS) {
+                    *limit_deg = gsl_root_fsolver_root(s);
+                    st = CXL_OK;
+                    break;
+                }
+            }
+        }
+        gsl_root_fsolver_free(s);
+        return fp->status ? fp->status : st;
+    }
+    if (fp->status)
+        return fp->status;
+    *limit_deg = 180.0;
+    return CXL_OK;
+}
+
+cxl_status cxl_budget_phase_for_front_to_back(const cxl_array_pair *pair,
+                                              double freq_hz,
+                                              double elevation_deg,
+                                              double ratio_db,
+                                              double *phase_error_deg)
+{
+    double fb0, limit[2];
+    if (!pair || !phase_error_deg || !isfinite(ratio_db) ||
+        fabs(ratio_db) >= CXL_DB_LIMIT)
+        return CXL_EINVAL;
+    cxl_status st = cxl_array_front_to_back(pair, freq_hz, elevation_deg,
+                                            &fb0);
+    if (st)
+        return st;
+    if (fb0 < ratio_db)
+        return CXL_ERANGE;
+    for (int k = 0; k < 2; k++) {
+        fb_params fp = { pair, freq_hz, elevation_deg, ratio_db,
+                         k ? -1.0 : 1.0, CXL_OK };
+        st = first_crossing(&fp, &limit[k]);
+        if (st)
+            return st;
+    }
+    *phase_error_deg = fmin(limit[0], limit[1]);
+    return CXL_OK;
+}
+
+cxl_status cxl_budget_length_for_phase(double phase_error_deg,
+                                       double freq_hz, double vf,
+                                       double *length_m)
+{
+    if (!length_m || !cxl__finite_nonneg(phase_error_deg))
+        return CXL_EINVAL;
+    return cxl_line_length_from_degrees(phase_error_deg, freq_hz, vf,
+                                        length_m);
+}

@@ -1,0 +1,459 @@
+/* check_array.c - pair pattern (array.c) and tolerance budget (budget.c).
+ * Beside every check value: where it comes from. */
+#include <config.h>
+#include <check.h>
+#include <math.h>
+#include <stdlib.h>
+#include <gsl/gsl_errno.h>
+#include <gsl/gsl_math.h>
+#include <gsl/gsl_sf_expint.h>
+#include "coaxline.h"
+
+#define F_HZ 1.0e6
+#define LAMBDA_M (CXL_C_M_PER_S / F_HZ)
+#define DEG (M_PI / 180.0)
+
+/* A stray GSL error must be loud, never silent. */
+static void gsl_abort(const char *reason, const char *file, int line,
+                      int gsl_errno)
+{
+    (void)reason; (void)file; (void)line; (void)gsl_errno;
+    abort();
+}
+
+static cxl_array_pair *new_pair(void)
+{
+    cxl_array_pair *p = NULL;
+    ck_assert_int_eq(cxl_array_pair_new(&p), CXL_OK);
+    ck_assert_ptr_nonnull(p);
+    return p;
+}
+
+/* Two isotropic elements: D = max|AF|^2 / (1 + a^2 + 2 a cos(beta)
+ * sin(kd)/(kd)); the sphere average of |AF|^2 is Balanis, Antenna Theory,
+ * 3rd ed., ch. 6, two-element array (section number from memory); with
+ * a = 1 and max|AF| = 2 it is D = 2 / (1 + cos(beta) sin(kd)/(kd)). */
+static double two_element_d_db(double peak_af2, double a, double beta,
+                               double kd)
+{
+    return 10.0 * log10(peak_af2 /
+                        (1.0 + a * a + 2.0 * a * cos(beta) * sin(kd) / kd));
+}
+
+START_TEST(test_broadside_half_wave)
+{
+    cxl_array_pair *p = new_pair();
+    double d, rdf;
+    ck_assert_int_eq(cxl_array_pair_set_geometry(p, 0.5 * LAMBDA_M, 0.0),
+                     CXL_OK);
+    ck_assert_int_eq(cxl_array_directivity(p, F_HZ, &d), CXL_OK);
+    /* 3.01 dB: Balanis closed form (above) with kd = pi, beta = 0. */
+    ck_assert_double_eq_tol(d, two_element_d_db(4.0, 1.0, 0.0, M_PI), 1e-6);
+    ck_assert_double_eq_tol(d, 3.0103, 1e-4);   /* 10 log10 2 */
+    /* Free space: the pattern is symmetric about the horizon, so the
+     * hemisphere RDF equals the sphere directivity (model in coaxline.h). */
+    ck_assert_int_eq(cxl_array_rdf(p, F_HZ, &rdf), CXL_OK);
+    ck_assert_double_eq_tol(rdf, d, 1e-6);
+    cxl_array_pair_free(p);
+}
+END_TEST
+
+START_TEST(test_broadside_three_quarter_wave)
+{
+    cxl_array_pair *p = new_pair();
+    double d;
+    cxl_array_pair_set_geometry(p, 0.75 * LAMBDA_M, 0.0);
+    ck_assert_int_eq(cxl_array_directivity(p, F_HZ, &d), CXL_OK);
+    /* 4.05 dB: Balanis closed form with kd = 3 pi / 2, beta = 0. */
+    ck_assert_double_eq_tol(d, two_element_d_db(4.0, 1.0, 0.0, 1.5 * M_PI),
+                            1e-6);
+    ck_assert_double_eq_tol(d, 4.0462, 1e-4);
+    cxl_array_pair_free(p);
+}
+END_TEST
+
+START_TEST(test_endfire_quarter_wave)
+{
+    /* Element 0 in front by lambda/4 and delayed 90 degrees: beta = -90. */
+    cxl_array_pair *p = new_pair();
+    double d, rdf, fb, az, depth, pk_az, pk_el;
+    cxl_array_pair_set_geometry(p, 0.0, 0.25 * LAMBDA_M);
+    ck_assert_int_eq(cxl_array_pair_set_delay_deg(p, 0, 90.0, F_HZ), CXL_OK);
+    ck_assert_int_eq(cxl_array_directivity(p, F_HZ, &d), CXL_OK);
+    /* cos(-90) = 0 so D = 2 = 3.01 dB, Balanis closed form (above);
+     * not 4.77 dB, which is the (1 + cos t)^2 cardioid's (see the
+     * crossfire limit test). */
+    ck_assert_double_eq_tol(d, two_element_d_db(4.0, 1.0, -M_PI / 2,
+                                                M_PI / 2), 1e-6);
+    ck_assert_double_eq_tol(d, 3.0103, 1e-4);
+    ck_assert_int_eq(cxl_array_rdf(p, F_HZ, &rdf), CXL_OK);
+    ck_assert_double_eq_tol(rdf, d, 1e-6);
+    /* Peak forward (psi = 0 at azimuth 0), perfect null at the rear:
+     * |AF| = 2|cos(psi/2)|, Balanis ch. 6 two-element array. */
+    ck_assert_int_eq(cxl_array_peak(p, F_HZ, &pk_az, &pk_el), CXL_OK);
+    ck_assert_double_eq_tol(fmod(pk_az + 180.0, 360.0) - 180.0, 0.0, 1e-4);
+    ck_assert_double_eq_tol(pk_el, 0.0, 1e-4);
+    ck_assert_int_eq(cxl_array_front_to_back(p, F_HZ, 0.0, &fb), CXL_OK);
+    ck_assert(fb > 250.0);
+    ck_assert_int_eq(cxl_array_rear_null(p, F_HZ, 0.0, &az, &depth), CXL_OK);
+    ck_assert_double_eq_tol(az, 180.0, 1e-3);
+    ck_assert(depth < -250.0);
+    cxl_array_pair_free(p);
+}
+END_TEST
+
+/* Crossfire: rear element delayed by the stagger and inverted.  beta =
+ * pi + kd, peak |AF|^2 = 4 sin^2(kd) (from |1 - e^{j 2 kd}|), average from
+ * Balanis ch. 6 (above); as kd -> 0 D -> 3 = 4.77 dB, the (1 + cos t)^2
+ * cardioid: (1/2) int_{-1}^{1} (1 + x)^2/4 dx = 1/3 (from memory, and
+ * elementary). */
+static double crossfire_d(double spacing_wl)
+{
+    cxl_array_pair *p = new_pair();
+    double d, t;
+    cxl_array_pair_set_geometry(p, 0.0, spacing_wl * LAMBDA_M);
+    ck_assert_int_eq(cxl_line_delay_from_offset(spacing_wl * LAMBDA_M, &t),
+                     CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_set_delay(p, 1, t), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_set_flip(p, 1, 1), CXL_OK);
+    ck_assert_int_eq(cxl_array_directivity(p, F_HZ, &d), CXL_OK);
+    cxl_array_pair_free(p);
+    return d;
+}
+
+START_TEST(test_crossfire_directivity)
+{
+    double kd = 2.0 * M_PI * 0.125;
+    ck_assert_double_eq_tol(crossfire_d(0.125),
+                            two_element_d_db(4.0 * sin(kd) * sin(kd), 1.0,
+                                             M_PI + kd, kd), 1e-6);
+    kd = 2.0 * M_PI * 0.01;
+    ck_assert_double_eq_tol(crossfire_d(0.01),
+                            two_element_d_db(4.0 * sin(kd) * sin(kd), 1.0,
+                                             M_PI + kd, kd), 1e-6);
+    /* small-spacing limit 10 log10 3 = 4.771 dB (cardioid, above) */
+    ck_assert_double_eq_tol(crossfire_d(0.01), 10.0 * log10(3.0), 0.01);
+}
+END_TEST
+
+START_TEST(test_imbalance_directivity)
+{
+    /* a = 0.5 (6.02 dB) broadside lambda/2: peak (1 + a)^2 = 2.25, mean
+     * 1 + a^2 = 1.25 (sin(pi) = 0): D = 1.8, Balanis ch. 6 average. */
+    cxl_array_pair *p = new_pair();
+    double d;
+    cxl_array_pair_set_geometry(p, 0.5 * LAMBDA_M, 0.0);
+    ck_assert_int_eq(cxl_array_pair_set_imbalance(p, -20.0 * log10(0.5)),
+                     CXL_OK);
+    ck_assert_int_eq(cxl_array_directivity(p, F_HZ, &d), CXL_OK);
+    ck_assert_double_eq_tol(d, two_element_d_db(2.25, 0.5, 0.0, M_PI), 1e-6);
+    ck_assert_double_eq_tol(d, 10.0 * log10(1.8), 1e-6);
+    cxl_array_pair_free(p);
+}
+END_TEST
+
+START_TEST(test_pattern_and_gain)
+{
+    cxl_array_pair *p = new_pair();
+    double g[8], g1, fwd, re, im, r;
+    cxl_array_pair_set_geometry(p, 0.5 * LAMBDA_M, 0.0);
+    ck_assert_int_eq(cxl_array_pattern(p, F_HZ, 0.0, 8, g), CXL_OK);
+    /* Broadside lambda/2: maximum 3.01 dBi broadside (az 0 and 180),
+     * null along the line of the elements (az 90, 270): psi = kd = pi,
+     * Balanis ch. 6 |AF| = 2|cos(psi/2)|. */
+    ck_assert_double_eq_tol(g[0], 10.0 * log10(2.0), 1e-6);
+    ck_assert_double_eq_tol(g[4], 10.0 * log10(2.0), 1e-6);
+    ck_assert(g[2] < -200.0 && g[6] < -200.0);
+    ck_assert_int_eq(cxl_array_gain(p, F_HZ, 45.0, 0.0, &g1), CXL_OK);
+    ck_assert_double_eq_tol(g1, g[1], 1e-9);   /* same quantity twice */
+    ck_assert_int_eq(cxl_array_forward_gain(p, F_HZ, 0.0, &fwd), CXL_OK);
+    ck_assert_double_eq_tol(fwd, g[0], 1e-9);
+    /* 4 cos^2(psi/2) at az 45: psi = pi sin 45 (Balanis AF); response is
+     * over one unit element, i.e. |AF|^2. */
+    ck_assert_int_eq(cxl_array_response(p, F_HZ, 45.0, 0.0, &r), CXL_OK);
+    double c = cos(0.5 * M_PI * sin(45.0 * DEG));
+    ck_assert_double_eq_tol(r, 10.0 * log10(4.0 * c * c), 1e-9);
+    ck_assert_int_eq(cxl_array_field(p, F_HZ, 45.0, 0.0, &re, &im), CXL_OK);
+    ck_assert_double_eq_tol(10.0 * log10(re * re + im * im), r, 1e-9);
+    cxl_array_pair_free(p);
+}
+END_TEST
+
+START_TEST(test_null_depth_closed_form)
+{
+    double d;
+    /* 20 log10(sin(d/2)): -21.19 dB at 10 degrees, -35.16 at 2 (common
+     * practice, no source; sin(5 deg) = 0.0871557, sin(1 deg) = 0.0174524) */
+    ck_assert_int_eq(cxl_array_null_depth(10.0, 0.0, &d), CXL_OK);
+    ck_assert_double_eq_tol(d, -21.194, 0.001);
+    ck_assert_int_eq(cxl_array_null_depth(2.0, 0.0, &d), CXL_OK);
+    ck_assert_double_eq_tol(d, -35.163, 0.001);
+    /* 1 dB imbalance alone: 20 log10((1-a)/(1+a)), a = 0.891251: -24.81 dB
+     * (common practice, no source) */
+    ck_assert_int_eq(cxl_array_null_depth(0.0, 1.0, &d), CXL_OK);
+    ck_assert_double_eq_tol(d, -24.807, 0.001);
+    ck_assert_int_eq(cxl_array_null_depth(0.0, 0.0, &d), CXL_OK);
+    ck_assert_double_eq(d, -CXL_DB_LIMIT);
+}
+END_TEST
+
+/* The end-fire pair of test_endfire_quarter_wave with an extra error. */
+static cxl_array_pair *endfire(void)
+{
+    cxl_array_pair *p = new_pair();
+    cxl_array_pair_set_geometry(p, 0.0, 0.25 * LAMBDA_M);
+    cxl_array_pair_set_delay_deg(p, 0, 90.0, F_HZ);
+    return p;
+}
+
+START_TEST(test_model_imbalance_and_phase_error)
+{
+    cxl_array_pair *p = endfire();
+    double fb, az, depth;
+    /* 1 dB imbalance: rear (1 - a)^2 against forward (1 + a)^2, the
+     * closed form above (-24.81 dB, common practice, no source). */
+    cxl_array_pair_set_imbalance(p, 1.0);
+    ck_assert_int_eq(cxl_array_rear_null(p, F_HZ, 0.0, &az, &depth), CXL_OK);
+    ck_assert_double_eq_tol(depth, -24.807, 0.001);
+    ck_assert_double_eq_tol(az, 180.0, 1e-3);
+    ck_assert_int_eq(cxl_array_front_to_back(p, F_HZ, 0.0, &fb), CXL_OK);
+    ck_assert_double_eq_tol(fb, 24.807, 0.001);
+    cxl_array_pair_set_imbalance(p, 0.0);
+
+    /* Phase error e on element 1: psi(az) = (pi/2)(1 - cos az) + e
+     * (Balanis AF).  e = -10: the rear null fills, 4 sin^2(e/2) against
+     * 4 cos^2(e/2) forward: 20 log10 tan(5 deg) = -21.13 dB. */
+    cxl_array_pair_set_phase_offset(p, 1, -10.0);
+    ck_assert_int_eq(cxl_array_rear_null(p, F_HZ, 0.0, &az, &depth), CXL_OK);
+    ck_assert_double_eq_tol(depth, 20.0 * log10(tan(5.0 * DEG)), 1e-6);
+    ck_assert_double_eq_tol(az, 180.0, 1e-3);
+    ck_assert_int_eq(cxl_array_front_to_back(p, F_HZ, 0.0, &fb), CXL_OK);
+    ck_assert_double_eq_tol(fb, -20.0 * log10(tan(5.0 * DEG)), 1e-6);
+    /* e = +10: psi reaches pi at cos az = -1 + 2e/pi = -8/9: the null
+     * stays perfect but moves to az = 152.73 (or 207.27) degrees. */
+    cxl_array_pair_set_phase_offset(p, 1, 10.0);
+    ck_assert_int_eq(cxl_array_rear_null(p, F_HZ, 0.0, &az, &depth), CXL_OK);
+    double want = acos(-8.0 / 9.0) / DEG;
+    ck_assert(fabs(az - want) < 1e-4 || fabs(az - (360.0 - want)) < 1e-4);
+    ck_assert(depth < -100.0);
+    cxl_array_pair_free(p);
+}
+END_TEST
+
+/* Kraus's traveling-wave wire, p = 1, with x = 1 - cos t: the sphere mean
+ * of sin^2 t sinc^2(X x) is (gamma + ln 4X - Ci(4X) - 1 + sin(4X)/(4X)) /
+ * (2 X^2) (elementary integration; it matches the long-wire radiated power
+ * 1.415 + ln(2L/lambda) - Ci(4 pi L/lambda) + ... of Balanis, Antenna
+ * Theory, 3rd ed., ch. 10, from memory). */
+static double wire_power(double X, double t)
+{
+    double x = X * (1.0 - cos(t));
+    double s = x == 0.0 ? 1.0 : sin(x) / x;
+    return sin(t) * sin(t) * s * s;
+}
+
+START_TEST(test_long_wire_directivity)
+{
+    double L_wl = 3.0, X = M_PI * L_wl, peak = 0.0, d, az, el;
+    for (int i = 1; i < 400000; i++)
+        peak = fmax(peak, wire_power(X, M_PI * i / 400000.0));
+    double mean = (M_EULER + log(4.0 * X) - gsl_sf_Ci(4.0 * X) - 1.0 +
+                   sin(4.0 * X) / (4.0 * X)) / (2.0 * X * X);
+    cxl_array_pair *p = new_pair();
+    /* co-located pair: the pattern is the element's own */
+    ck_assert_int_eq(cxl_array_pair_set_long_wire(p, L_wl * LAMBDA_M, 1.0),
+                     CXL_OK);
+    ck_assert_int_eq(cxl_array_directivity(p, F_HZ, &d), CXL_OK);
+    ck_assert_double_eq_tol(d, 10.0 * log10(peak / mean), 1e-6);
+
+    /* Main lobe at t = acos(1 - 0.371/(L/lambda)) from the wire axis:
+     * Orfanidis, Electromagnetic Waves and Antennas, traveling-wave
+     * antenna (an approximation; checked at 8 wavelengths to 0.3 deg). */
+    cxl_array_pair_set_long_wire(p, 8.0 * LAMBDA_M, 1.0);
+    ck_assert_int_eq(cxl_array_peak(p, F_HZ, &az, &el), CXL_OK);
+    double t = acos(cos(el * DEG) * cos(az * DEG)) / DEG;
+    ck_assert_double_eq_tol(t, acos(1.0 - 0.371 / 8.0) / DEG, 0.3);
+    cxl_array_pair_free(p);
+}
+END_TEST
+
+START_TEST(test_long_wire_pair)
+{
+    /* Crossfire pair of 2-wavelength wires, VF 0.8: RDF (hemisphere) and
+     * directivity (sphere) agree in free space (symmetry, coaxline.h). */
+    cxl_array_pair *p = new_pair();
+    double d, rdf, fb, t;
+    cxl_array_pair_set_long_wire(p, 2.0 * LAMBDA_M, 0.8);
+    cxl_array_pair_set_geometry(p, 0.5 * LAMBDA_M, 0.3 * LAMBDA_M);
+    cxl_line_delay_from_offset(0.3 * LAMBDA_M, &t);
+    cxl_array_pair_set_delay(p, 1, t);
+    cxl_array_pair_set_flip(p, 1, 1);
+    ck_assert_int_eq(cxl_array_directivity(p, F_HZ, &d), CXL_OK);
+    ck_assert_int_eq(cxl_array_rdf(p, F_HZ, &rdf), CXL_OK);
+    ck_assert_double_eq_tol(rdf, d, 1e-6);
+    /* A wire has no response along its own axis (sin t = 0, Kraus). */
+    ck_assert_int_eq(cxl_array_front_to_back(p, F_HZ, 0.0, &fb), CXL_ERANGE);
+    ck_assert_int_eq(cxl_array_front_to_back(p, F_HZ, 20.0, &fb), CXL_OK);
+    cxl_array_pair_free(p);
+}
+END_TEST
+
+START_TEST(test_zero_pattern)
+{
+    /* Equal, co-located and inverted: the output is zero everywhere. */
+    cxl_array_pair *p = new_pair();
+    double d;
+    cxl_array_pair_set_flip(p, 0, 1);
+    ck_assert_int_eq(cxl_array_directivity(p, F_HZ, &d), CXL_ERANGE);
+    cxl_array_pair_free(p);
+}
+END_TEST
+
+START_TEST(test_invalid_arguments)
+{
+    cxl_array_pair *p = new_pair(), *c = NULL;
+    double v, w, g[2];
+    ck_assert_int_eq(cxl_array_pair_new(NULL), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_pair_copy(NULL, &c), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_pair_set_geometry(p, -1.0, 0.0), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_pair_set_geometry(p, NAN, 0.0), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_pair_set_geometry(p, 1.0, INFINITY),
+                     CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_pair_set_delay(p, 2, 1e-9), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_pair_set_delay(p, 0, -1e-9), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_pair_set_delay_deg(p, 0, 90.0, 0.0),
+                     CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_pair_set_phase_offset(p, -1, 1.0),
+                     CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_pair_set_flip(NULL, 0, 1), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_pair_set_imbalance(p, 500.0), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_pair_set_long_wire(p, 10.0, 1.2), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_pair_set_long_wire(p, 0.0, 0.8), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_gain(p, NAN, 0.0, 0.0, &v), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_gain(p, F_HZ, 0.0, 91.0, &v), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_gain(NULL, F_HZ, 0.0, 0.0, &v), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_response(p, -F_HZ, 0.0, 0.0, &v), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_field(p, F_HZ, 0.0, 0.0, NULL, &v),
+                     CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_pattern(p, F_HZ, 0.0, 0, g), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_rear_null(p, F_HZ, 0.0, NULL, &v),
+                     CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_peak(p, F_HZ, &v, NULL), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_rdf(p, F_HZ, NULL), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_directivity(p, INFINITY, &v), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_null_depth(NAN, 0.0, &v), CXL_EINVAL);
+    ck_assert_int_eq(cxl_budget_phase_for_null(3.0, 0.0, &v), CXL_EINVAL);
+    ck_assert_int_eq(cxl_budget_phase_for_front_to_back(NULL, F_HZ, 0.0,
+                                                        20.0, &v),
+                     CXL_EINVAL);
+    ck_assert_int_eq(cxl_budget_length_for_phase(-1.0, F_HZ, 0.66, &v),
+                     CXL_EINVAL);
+    /* out-parameters untouched on failure */
+    v = 42.0;
+    w = 43.0;
+    ck_assert_int_eq(cxl_array_rear_null(p, F_HZ, NAN, &v, &w), CXL_EINVAL);
+    ck_assert_double_eq(v, 42.0);
+    ck_assert_double_eq(w, 43.0);
+    cxl_array_pair_free(p);
+    cxl_array_pair_free(NULL);
+}
+END_TEST
+
+START_TEST(test_copy)
+{
+    cxl_array_pair *p = endfire(), *c = NULL;
+    double a, b;
+    ck_assert_int_eq(cxl_array_pair_copy(p, &c), CXL_OK);
+    cxl_array_pair_set_phase_offset(p, 1, 30.0);   /* copy must not follow */
+    ck_assert_int_eq(cxl_array_front_to_back(c, F_HZ, 0.0, &a), CXL_OK);
+    ck_assert_int_eq(cxl_array_front_to_back(p, F_HZ, 0.0, &b), CXL_OK);
+    ck_assert(a > 250.0);
+    ck_assert_double_eq_tol(b, -20.0 * log10(tan(15.0 * DEG)), 1e-6);
+    cxl_array_pair_free(p);
+    cxl_array_pair_free(c);
+}
+END_TEST
+
+START_TEST(test_budget_null)
+{
+    double d, depth;
+    /* d = 2 asin(10^(depth/20)) (common practice, no source): the inverse
+     * of 20 log10 sin(d/2) returns 10 degrees from -21.194 dB. */
+    ck_assert_int_eq(cxl_array_null_depth(10.0, 0.0, &depth), CXL_OK);
+    ck_assert_int_eq(cxl_budget_phase_for_null(depth, 0.0, &d), CXL_OK);
+    ck_assert_double_eq_tol(d, 10.0, 1e-9);
+    ck_assert_int_eq(cxl_budget_phase_for_null(-30.0, 0.0, &d), CXL_OK);
+    ck_assert_double_eq_tol(d, 2.0 * asin(pow(10.0, -1.5)) / DEG, 1e-9);
+    /* With 1 dB imbalance, |1 - a e^{jd}|^2 = r^2 (1 + a)^2 gives cos d =
+     * (1 + a^2 - r^2 (1 + a)^2) / (2a) (law of cosines, no source). */
+    double a = pow(10.0, -1.0 / 20.0), r = pow(10.0, -20.0 / 20.0);
+    double want = acos((1.0 + a * a - r * r * (1 + a) * (1 + a)) / (2 * a));
+    ck_assert_int_eq(cxl_budget_phase_for_null(-20.0, 1.0, &d), CXL_OK);
+    ck_assert_double_eq_tol(d, want / DEG, 1e-9);
+    /* 1 dB alone already gives -24.81 dB: -30 dB cannot be reached. */
+    ck_assert_int_eq(cxl_budget_phase_for_null(-30.0, 1.0, &d), CXL_ERANGE);
+}
+END_TEST
+
+START_TEST(test_budget_front_to_back)
+{
+    /* End-fire lambda/4 pair: F/B = -20 log10 tan(|e|/2) for an error e
+     * (Balanis AF, as in test_model_imbalance_and_phase_error), so 20 dB
+     * allows e = 2 atan(0.1) = 11.42 degrees. */
+    cxl_array_pair *p = endfire();
+    double d;
+    ck_assert_int_eq(cxl_budget_phase_for_front_to_back(p, F_HZ, 0.0, 20.0,
+                                                        &d), CXL_OK);
+    ck_assert_double_eq_tol(d, 2.0 * atan(0.1) / DEG, 1e-8);
+    /* 1 dB imbalance caps F/B at 24.81 dB: 30 dB is out of reach. */
+    cxl_array_pair_set_imbalance(p, 1.0);
+    ck_assert_int_eq(cxl_budget_phase_for_front_to_back(p, F_HZ, 0.0, 30.0,
+                                                        &d), CXL_ERANGE);
+    cxl_array_pair_free(p);
+}
+END_TEST
+
+START_TEST(test_budget_length)
+{
+    /* degrees = 360 f L / (VF c) (DESIGN.md physics, any line text):
+     * 10 degrees at 1.83 MHz, VF 0.66 is 10/360 * 0.66 c / f = 3.0034 m. */
+    double len;
+    ck_assert_int_eq(cxl_budget_length_for_phase(10.0, 1.83e6, 0.66, &len),
+                     CXL_OK);
+    ck_assert_double_eq_tol(len, 10.0 / 360.0 * 0.66 * 299792458.0 / 1.83e6,
+                            1e-9);
+    ck_assert_double_eq_tol(len, 3.0034, 1e-4);
+}
+END_TEST
+
+int main(void)
+{
+    gsl_set_error_handler(gsl_abort);
+    Suite *s = suite_create("array");
+    TCase *tc = tcase_create("pattern");
+    tcase_set_timeout(tc, 60);
+    tcase_add_test(tc, test_broadside_half_wave);
+    tcase_add_test(tc, test_broadside_three_quarter_wave);
+    tcase_add_test(tc, test_endfire_quarter_wave);
+    tcase_add_test(tc, test_crossfire_directivity);
+    tcase_add_test(tc, test_imbalance_directivity);
+    tcase_add_test(tc, test_pattern_and_gain);
+    tcase_add_test(tc, test_null_depth_closed_form);
+    tcase_add_test(tc, test_model_imbalance_and_phase_error);
+    tcase_add_test(tc, test_long_wire_directivity);
+    tcase_add_test(tc, test_long_wire_pair);
+    tcase_add_test(tc, test_zero_pattern);
+    tcase_add_test(tc, test_invalid_arguments);
+    tcase_add_test(tc, test_copy);
+    suite_add_tcase(s, tc);
+    TCase *tb = tcase_create("budget");
+    tcase_add_test(tb, test_budget_null);
+    tcase_add_test(tb, test_budget_front_to_back);
+    tcase_add_test(tb, test_budget_length);
+    suite_add_tcase(s, tb);
+    SRunner *sr = srunner_create(s);
+    srunner_run_all(sr, CK_NORMAL);
+    int nf = srunner_ntests_failed(sr);
+    srunner_free(sr);
+    return nf ? EXIT_FAILURE : EXIT_SUCCESS;
+}
