@@ -8,12 +8,14 @@
 #include <string.h>
 #include "cli.h"
 
-enum { OPT_FORMAT = 1000, OPT_UNITS, OPT_INPUT, OPT_HELP };
+enum { OPT_FORMAT = 1000, OPT_UNITS, OPT_INPUT, OPT_CABLES, OPT_CABLE_LOSS, OPT_HELP };
 
 static const cli_optdef common_opts[] = {
     { "format", "text|csv|json", "output format (default text)", 0 },
     { "units", "metric|imperial", "bare lengths and text output (default metric)", 0 },
     { "input", "FILE|-", "run once per row of a CSV whose header names the options", 0 },
+    { "cables", "FILE", "user cables (CSV, same columns as data/cables.csv)", 0 },
+    { "cable-loss", "FILE", "user attenuation points (CSV, as data/cable_loss.csv)", 0 },
     { "help", NULL, "show this help", 0 },
     { NULL, NULL, NULL, 0 }
 };
@@ -200,6 +202,8 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
         if (c == OPT_FORMAT) format = optarg;
         else if (c == OPT_UNITS) units = optarg;
         else if (c == OPT_INPUT) input = optarg;
+        else if (c == OPT_CABLES) ctx.cables_path = optarg;
+        else if (c == OPT_CABLE_LOSS) ctx.loss_path = optarg;
         else if (c == OPT_HELP) help = 1;
         else if (c >= 0 && c < n) {
             if (args.nval[c] > 0 && !cmd->opts[c].repeat)
@@ -237,6 +241,7 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
     int code = input ? run_batch(&ctx, &args, input) : cmd->run(&ctx, &args);
     if (cmd->end) code = worse(code, cmd->end(&ctx));
     cli_table_close(&ctx);
+    cxl_catalog_free(ctx.catalog);
     if (fflush(stdout) != 0 || ferror(stdout)) {
         fprintf(stderr, "coaxline: %s: output: write failed\n", cmd->name);
         return CLI_EXIT_USAGE;

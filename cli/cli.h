@@ -67,6 +67,10 @@ struct cli_ctx {
     size_t rows_out;         /* data rows written (CSV/JSON) */
     int header_done;
     void *state;             /* command's own state across rows */
+    const char *cables_path; /* --cables FILE */
+    const char *loss_path;   /* --cable-loss FILE */
+    cxl_catalog *catalog;    /* loaded on first use by cli_catalog() */
+    int catalog_failed;
 };
 
 /* ---- errors: one line on stderr -------------------------------------- */
@@ -106,6 +110,24 @@ int cli_number(const cli_ctx *ctx, const char *field, const char *text,
                double lo, double hi, const char *expected, double *value);
 int cli_vf(const cli_ctx *ctx, const char *field, const char *text,
            double *vf);
+
+/* ---- cables ---------------------------------------------------------- */
+
+/* Environment variable naming a folder whose cables.csv and cable_loss.csv
+ * (each optional) are loaded as user cables when --cables/--cable-loss are
+ * not given. */
+#define CLI_CABLE_DIR_ENV "COAXLINE_CABLE_DIR"
+
+/* The catalog: built-in rows plus the user's files, loaded once per
+ * process.  NULL after a one-line error (bad file). */
+const cxl_catalog *cli_catalog(cli_ctx *ctx);
+/* Velocity factor from --vf, or from --cable NAME in the catalog (exactly
+ * one of the two).  *cable_name (may be NULL) gets the cable's name or "".
+ * Returns 0, or CLI_EXIT_USAGE after cli_error(). */
+int cli_vf_or_cable(cli_ctx *ctx, const cli_args *a, double *vf,
+                    const char **cable_name);
+/* Index of --cable NAME (or of the given name) in the catalog. */
+int cli_cable_index(cli_ctx *ctx, const char *name, size_t *index);
 
 /* ---- tabular output (CSV and JSON) ------------------------------------ */
 

@@ -10,6 +10,7 @@ static const cli_optdef cut_opts[] = {
     { "delay", "TIME", "wanted delay (e.g. 33.4ns)", 0 },
     { "degrees", "DEG", "wanted electrical length at the first --freq", 0 },
     { "vf", "X", "velocity factor of the cable, 0 < X <= 1", 0 },
+    { "cable", "NAME", "take the velocity factor from the catalog (instead of --vf)", 0 },
     { "allowance", "LEN", "length already in connectors, adapters or fixture", 0 },
     { "allowance-vf", "X", "velocity factor of the allowance (default: --vf)", 0 },
     { "freq", "F", "frequency for the electrical-degrees column", 1 },
@@ -35,9 +36,8 @@ static int cut_run(cli_ctx *ctx, const cli_args *a)
                          ngiven ? "give only one of them" : "one of them is needed");
 
     double vf, allowance_m = 0.0, allowance_vf;
-    if (!cli_count(a, "vf"))
-        return cli_error(ctx, "vf", "--vf 0.66", "velocity factor is needed");
-    if (cli_vf(ctx, "vf", cli_get(a, "vf", 0), &vf)) return CLI_EXIT_USAGE;
+    const char *cable = "";
+    if (cli_vf_or_cable(ctx, a, &vf, &cable)) return CLI_EXIT_USAGE;
     allowance_vf = vf;
     if (cli_count(a, "allowance") &&
         cli_length(ctx, "allowance", cli_get(a, "allowance", 0), CLI_NONNEG, &allowance_m))
@@ -106,7 +106,8 @@ static int cut_run(cli_ctx *ctx, const cli_args *a)
     fprintf(o, "cut%s%s\n", label[0] ? ": " : "", label);
     fprintf(o, "  free-space offset   %s\n", cli_fmt_length(ctx, b1, sizeof b1, offset_m));
     fprintf(o, "  delay               %s ns\n", cli_fmt(b1, sizeof b1, delay_s * 1e9, 3));
-    fprintf(o, "  velocity factor     %s\n", cli_fmt(b1, sizeof b1, vf, 4));
+    fprintf(o, "  velocity factor     %s%s%s\n", cli_fmt(b1, sizeof b1, vf, 4),
+            cable[0] ? "  cable " : "", cable);
     if (allowance_m > 0.0)
         fprintf(o, "  allowance           %s at VF %s\n",
                 cli_fmt_length(ctx, b1, sizeof b1, allowance_m),

@@ -3,6 +3,7 @@
 #include <config.h>
 #include <stdarg.h>
 #include <stdio.h>
+#include <stdlib.h>
 #include <string.h>
 #include <math.h>
 #include "cli.h"
@@ -211,6 +212,102 @@ int cli_vf(const cli_ctx *ctx, const char *field, const char *text, double *vf)
     if (!(v > 0.0) || v > 1.0)
         return cli_error(ctx, field, expected, "%s is out of range", text);
     *vf = v;
+    return 0;
+}
+
+/* ---- cables ---------------------------------------------------------- */
+
+typedef cxl_status (*load_fn)(cxl_catalog *, FILE *, const char *, size_t *, char *, size_t);
+
+/* Load one user file; a missing optional file is not an error. */
+static int load_user_file(cli_ctx *ctx, const char *field, const char *path,
+                          int optional, load_fn load)
+{
+    FILE *fp = fopen(path, "rb");
+    if (!fp) {
+        if (optional) return 0;
+        cli_error(ctx, field, "a readable CSV file", "cannot open '%s'", path);
+        return -1;
+    }
+    char msg[400];
+    size_t line = 0;
+    msg[0] = '\0';
+    cxl_status st = load(ctx->catalog, fp, path, &line, msg, sizeof msg);
+    fclose(fp);
+    if (st != CXL_OK) {
+        cli_error(ctx, field, strcmp(field, "cables") == 0
+                      ? "columns as in data/cables.csv: name,vf required, e.g. myspool,0.83"
+                      : "columns name,freq_mhz,loss_db_per_100m for a user cable",
+                  "%s", msg[0] ? msg : cxl_strerror(st));
+        return -1;
+    }
+    return 0;
+}
+
+const cxl_catalog *cli_catalog(cli_ctx *ctx)
+{
+    if (ctx->catalog || ctx->catalog_failed) return ctx->catalog;
+    if (cxl_catalog_new(&ctx->catalog) != CXL_OK) {
+        ctx->catalog_failed = 1;
+        cli_error(ctx, "cables", NULL, "cannot build the cable catalog");
+        return NULL;
+    }
+    /* user files are not per row: report them without a batch line */
+    cli_ctx top = *ctx;
+    top.input_name = NULL;
+    char cables[4096], loss[4096];
+    const char *dir = getenv(CLI_CABLE_DIR_ENV);
+    const char *cables_path = ctx->cables_path, *loss_path = ctx->loss_path;
+    int optional_cables = 0, optional_loss = 0;
+    if (!cables_path && dir && dir[0]) {
+        snprintf(cables, sizeof cables, "%s/cables.csv", dir);
+        cables_path = cables;
+        optional_cables = 1;
+    }
+    if (!loss_path && dir && dir[0]) {
+        snprintf(loss, sizeof loss, "%s/cable_loss.csv", dir);
+        loss_path = loss;
+        optional_loss = 1;
+    }
+    if ((cables_path && load_user_file(&top, "cables", cables_path, optional_cables,
+                                       cxl_catalog_load_cables)) ||
+        (loss_path && load_user_file(&top, "cable-loss", loss_path, optional_loss,
+                                     cxl_catalog_load_loss))) {
+        cxl_catalog_free(ctx->catalog);
+        ctx->catalog = NULL;
+        ctx->catalog_failed = 1;
+    }
+    return ctx->catalog;
+}
+
+int cli_cable_index(cli_ctx *ctx, const char *name, size_t *index)
+{
+    const cxl_catalog *cat = cli_catalog(ctx);
+    if (!cat) return CLI_EXIT_USAGE;
+    if (cxl_catalog_find(cat, name, index) != CXL_OK)
+        return cli_error(ctx, "cable", "a name listed by coaxline cables, or one from --cables FILE",
+                         "unknown cable '%s'", name);
+    return 0;
+}
+
+int cli_vf_or_cable(cli_ctx *ctx, const cli_args *a, double *vf, const char **cable_name)
+{
+    const char *v = cli_get(a, "vf", 0), *c = cli_get(a, "cable", 0);
+    if (cable_name) *cable_name = "";
+    if (v && c)
+        return cli_error(ctx, "vf", "--vf 0.66 or --cable NAME, not both",
+                         "both --vf and --cable are given");
+    if (v) return cli_vf(ctx, "vf", v, vf);
+    if (!c)
+        return cli_error(ctx, "vf", "--vf 0.66, or --cable NAME from coaxline cables",
+                         "velocity factor is needed");
+    size_t i;
+    if (cli_cable_index(ctx, c, &i)) return CLI_EXIT_USAGE;
+    const char *name = "";
+    cxl_catalog_name(cli_catalog(ctx), i, &name);
+    if (cxl_catalog_value(cli_catalog(ctx), i, CXL_CABLE_VF, vf) != CXL_OK)
+        return cli_error(ctx, "cable", "a cable with a vf value", "cable '%s' has no velocity factor", c);
+    if (cable_name) *cable_name = name;
     return 0;
 }
 
