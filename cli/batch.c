@@ -242,6 +242,7 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
     if (cmd->end) code = worse(code, cmd->end(&ctx));
     cli_table_close(&ctx);
     cxl_catalog_free(ctx.catalog);
+    cxl_bands_free(ctx.bands);
     if (fflush(stdout) != 0 || ferror(stdout)) {
         fprintf(stderr, "coaxline: %s: output: write failed\n", cmd->name);
         return CLI_EXIT_USAGE;

@@ -71,6 +71,7 @@ struct cli_ctx {
     const char *loss_path;   /* --cable-loss FILE */
     cxl_catalog *catalog;    /* loaded on first use by cli_catalog() */
     int catalog_failed;
+    cxl_bands *bands;        /* loaded on first use by cli_bands() */
 };
 
 /* ---- errors: one line on stderr -------------------------------------- */
@@ -128,6 +129,27 @@ int cli_vf_or_cable(cli_ctx *ctx, const cli_args *a, double *vf,
                     const char **cable_name);
 /* Index of --cable NAME (or of the given name) in the catalog. */
 int cli_cable_index(cli_ctx *ctx, const char *name, size_t *index);
+
+/* ---- bands (bandsel.c) ---------------------------------------------- */
+
+/* Options a per-band command declares to use cli_freq_points():
+ *   { "band", "LIST", ..., 1 }, { "region", "N", ..., 0 },
+ *   { "exclude-footnotes", NULL, ..., 0 }, { "freq", "F", ..., 1 } */
+typedef struct cli_freq_point {
+    char band[16];      /* canonical band name, "" for a --freq point */
+    const char *edge;   /* "low", "centre", "high" or "freq" */
+    double freq_hz;
+} cli_freq_point;
+
+/* The built-in band table, loaded once per process; NULL after an error. */
+const cxl_bands *cli_bands(cli_ctx *ctx);
+/* --region as 1-3, or 0 when absent (widest across Regions). */
+int cli_region(const cli_ctx *ctx, const cli_args *a, int *region);
+/* Low edge, centre and high edge of each --band (for --region, or the
+ * widest across Regions; footnote segments counted unless
+ * --exclude-footnotes), then each --freq.  Returns the number of points,
+ * or -1 after cli_error() (also when there is none at all). */
+int cli_freq_points(cli_ctx *ctx, const cli_args *a, cli_freq_point *pts, size_t max);
 
 /* ---- tabular output (CSV and JSON) ------------------------------------ */
 
