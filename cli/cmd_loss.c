@@ -162,7 +162,9 @@ static void text_output(cli_ctx *ctx, const cli_args *a, const char *name, size_
         fprintf(o, ", %s ohm", cli_fmt(b2, sizeof b2, z0, 0));
     if (cxl_catalog_value(cat, idx, CXL_CABLE_VF, &vf) == CXL_OK)
         fprintf(o, ", VF %s", cli_fmt(b2, sizeof b2, vf, 4));
-    fprintf(o, " (nominal)\n");
+    int builtin = 1;
+    cxl_catalog_is_builtin(cat, idx, &builtin);
+    fprintf(o, "%s\n", builtin ? " (nominal)" : " (user file)");
     fprintf(o, "  length     %s\n", cli_fmt_length(ctx, b1, sizeof b1, length_m));
     model_range(s, &lo, &hi);
     if (s->physical) {
