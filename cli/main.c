@@ -8,6 +8,8 @@
 
 static const cli_command *const commands[] = {
     &cli_cmd_cut,
+    &cli_cmd_cables,
+    &cli_cmd_loss,
     &cli_cmd_demo,
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
