@@ -237,6 +237,10 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
         return cli_error(&ctx, "input", NULL, "the %s command does not take a batch file",
                          cmd->name);
 
+    /* files named on the command line are read (and checked) even when no
+     * row ends up needing the catalog */
+    if ((ctx.cables_path || ctx.loss_path) && !cli_catalog(&ctx)) return CLI_EXIT_USAGE;
+
     if (cmd->begin) cmd->begin(&ctx);
     int code = input ? run_batch(&ctx, &args, input) : cmd->run(&ctx, &args);
     if (cmd->end) code = worse(code, cmd->end(&ctx));
