@@ -9,6 +9,9 @@
 static const cli_command *const commands[] = {
     &cli_cmd_cut,
     &cli_cmd_demo,
+    &cli_cmd_pattern,
+    &cli_cmd_budget,
+    &cli_cmd_hybrid,
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 
