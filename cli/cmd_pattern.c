@@ -279,10 +279,12 @@ static int pattern_run(cli_ctx *ctx, const cli_args *a)
             "freq MHz", "case", "B lag", "B weak", "gain", "F/B", "null", "at az", "RDF");
     fprintf(o, "  %-6s %-6s %10s  %-8s %7s %7s %8s %7s %8s %6s %6s\n", "", "", "", "", "deg",
             "dB", "dBi", "dB", "dB", "deg", "dB");
+    int at_limit = 0;
     for (int i = 0; i < n; i++)
         for (int c = 0; c < ncases; c++) {
             const pattern_row *r = &rows[i][c];
             char f[32], v[7][32];
+            at_limit |= fabs(r->fb_db) >= CXL_DB_LIMIT || fabs(r->null_db) >= CXL_DB_LIMIT;
             fprintf(o, "  %-6s %-6s %10s  %-8s %7s %7s %8s %7s %8s %6s %6s\n",
                     c ? "" : pts[i].band, c ? "" : pts[i].edge,
                     c ? "" : cli_fmt(f, sizeof f, pts[i].freq_hz / 1e6, 6), case_name[c],
@@ -294,7 +296,8 @@ static int pattern_run(cli_ctx *ctx, const cli_args *a)
                     cli_fmt(v[5], sizeof v[5], r->null_az_deg, 1),
                     cli_fmt(v[6], sizeof v[6], r->rdf_db, 2));
         }
-    fprintf(o, "  (a null or ratio of 300 dB is the model's limit: a perfect null)\n");
+    if (at_limit)
+        fprintf(o, "  (300 dB is the model's limit: a perfect null)\n");
     cli_pair_spec_free(&s);
     return CLI_EXIT_OK;
 }
