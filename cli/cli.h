@@ -341,5 +341,18 @@ int cli_budget_tolerance(cli_ctx *ctx, const cli_args *a, double freq_hz,
 extern const cli_command cli_cmd_pattern;
 extern const cli_command cli_cmd_budget;
 extern const cli_command cli_cmd_hybrid;
+/* ---- cables and loss (cableinfo.c, cmd_cables.c, cmd_loss.c) ----------- */
+
+extern const cli_command cli_cmd_cables;
+extern const cli_command cli_cmd_loss;
+/* Copy of text with control bytes shown as '?', for one-line text output. */
+const char *cli_clean(char *buf, size_t size, const char *text);
+/* "1.000-100.000 MHz". */
+const char *cli_fmt_range_mhz(char *buf, size_t size, double lo_hz, double hi_hz);
+/* The fitted loss model of catalog cable index (caller frees), or NULL when
+ * its table has fewer than two points. */
+cxl_loss_fit *cli_cable_fit(const cxl_catalog *cat, size_t index);
+/* One line describing a fit: points, table range, usable range, residual. */
+const char *cli_fmt_fit(char *buf, size_t size, const cxl_loss_fit *fit);
 
 #endif

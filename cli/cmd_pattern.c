@@ -237,6 +237,9 @@ static int pattern_run(cli_ctx *ctx, const cli_args *a)
     if (cli_pair_spec_parse(ctx, a, &s)) return CLI_EXIT_USAGE;
     int n = cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0]);
     int code = n < 0 ? CLI_EXIT_USAGE : 0;
+    if (!code && (cli_count(a, "plot-freq") || cli_count(a, "plot-range")) && !cli_count(a, "plot"))
+        code = cli_error(ctx, cli_count(a, "plot-freq") ? "plot-freq" : "plot-range",
+                         "--plot FILE.svg with it", "it only applies to --plot");
     if (!code && cli_count(a, "plot-freq"))
         code = cli_freq(ctx, "plot-freq", cli_get(a, "plot-freq", 0), &plot_hz);
     int ncases = s.has_errors ? 2 : 1;

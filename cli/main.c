@@ -8,6 +8,8 @@
 
 static const cli_command *const commands[] = {
     &cli_cmd_cut,
+    &cli_cmd_cables,
+    &cli_cmd_loss,
     &cli_cmd_demo,
     &cli_cmd_pattern,
     &cli_cmd_budget,

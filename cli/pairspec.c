@@ -115,14 +115,14 @@ static int parse_element(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
     return 0;
 }
 
-/* Loss per metre of the --cable at freq_hz: the physical model where the
- * catalog gives the geometry (it holds on the low bands), else the fit to
- * the attenuation table, extrapolated. */
+/* Loss per metre of the --cable at freq_hz, from the model chosen as the
+ * loss command chooses by default: the fit to the attenuation table when
+ * the cable has one, else the physical model from its geometry.  No
+ * extrapolation: CXL_EEXTRAPOLATE outside the model's range. */
 static cxl_status loss_db_per_m(const cli_pair_spec *s, double freq_hz, double *db_per_m)
 {
-    if (s->loss_model)
-        return cxl_loss_model_attenuation(s->loss_model, freq_hz, CXL_LOSS_EXTRAPOLATE, db_per_m);
-    return cxl_loss_fit_eval(s->loss_fit, freq_hz, CXL_LOSS_EXTRAPOLATE, db_per_m);
+    if (s->loss_fit) return cxl_loss_fit_eval(s->loss_fit, freq_hz, 0, db_per_m);
+    return cxl_loss_model_attenuation(s->loss_model, freq_hz, 0, db_per_m);
 }
 
 static int parse_as_built(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
@@ -176,8 +176,8 @@ static int parse_as_built(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
                              "the loss of the lines needs a cable from the catalog");
         if (cli_cable_index(ctx, s->cable, &idx)) return CLI_EXIT_USAGE;
         const cxl_catalog *cat = cli_catalog(ctx);
-        if (cxl_loss_model_new_cable(cat, idx, &s->loss_model) != CXL_OK &&
-            cxl_loss_fit_new_cable(cat, idx, &s->loss_fit) != CXL_OK)
+        s->loss_fit = cli_cable_fit(cat, idx);
+        if (!s->loss_fit && cxl_loss_model_new_cable(cat, idx, &s->loss_model) != CXL_OK)
             return cli_error(ctx, "line-loss", "a cable with diameters or attenuation points",
                              "cable '%s' has no loss data", s->cable);
         if (!s->has_line[0] && !s->has_line[1] && !cli_count(a, "measured-a") &&
@@ -256,12 +256,22 @@ int cli_pair_spec_build(cli_ctx *ctx, const cli_pair_spec *s, int as_built, doub
         phase = remainder(360.0 * freq_hz * extra_s + s->phase_error_deg, 360.0);
         imbalance = s->imbalance_db;
         if (s->line_loss) {
-            double db_per_m;
-            char f[32];
-            if (loss_db_per_m(s, freq_hz, &db_per_m) != CXL_OK)
-                return cli_error(ctx, "line-loss", "a frequency the cable's loss model covers",
-                                 "no loss for cable '%s' at %s MHz", s->cable,
-                                 cli_fmt(f, sizeof f, freq_hz / 1e6, 6));
+            double db_per_m, lo, hi;
+            char f[32], range[96], expected[160];
+            if (loss_db_per_m(s, freq_hz, &db_per_m) != CXL_OK) {
+                if (s->loss_fit) {
+                    cxl_loss_fit_range(s->loss_fit, &lo, &hi);
+                    lo /= 1.0 + CXL_LOSS_FIT_MARGIN;
+                    hi *= 1.0 + CXL_LOSS_FIT_MARGIN;
+                } else {
+                    cxl_loss_model_range(s->loss_model, &lo, &hi);
+                }
+                snprintf(expected, sizeof expected, "a frequency within %s, or --imbalance DB instead",
+                         cli_fmt_range_mhz(range, sizeof range, lo, hi));
+                return cli_error(ctx, "line-loss", expected,
+                                 "%s MHz is outside the loss data of cable '%s'",
+                                 cli_fmt(f, sizeof f, freq_hz / 1e6, 6), s->cable);
+            }
             imbalance += db_per_m * (s->built_line_m[1] - s->built_line_m[0]);
         }
     }

@@ -86,14 +86,7 @@ END_TEST
 
 static void bad(const char *args, const char *field)
 {
-    cli_result r = run_cli(NULL, args, NULL);
-    ck_assert_msg(r.rc == 2, "'%s' exit %d", args, r.rc);
-    ck_assert_msg(count_lines(r.err) == 1, "'%s' stderr: %s", args, r.err);
-    ck_assert_msg(strncmp(r.err, "coaxline: ", 10) == 0, "'%s': %s", args, r.err);
-    ck_assert_msg(strstr(r.err, field) != NULL, "'%s' does not name %s: %s", args, field, r.err);
-    ck_assert_msg(strstr(r.err, "(expected ") != NULL, "'%s' gives no example: %s", args, r.err);
-    ck_assert_msg(r.out[0] == '\0', "'%s' printed: %s", args, r.out);
-    cli_result_free(&r);
+    expect_usage_error(NULL, args, field, NULL);
 }
 
 START_TEST(cut_bad_input)

@@ -295,6 +295,20 @@ START_TEST(test_fit_errors)
 }
 END_TEST
 
+/* The table value of catalog cable i at freq_hz (within 1 Hz), in dB/100
+ * ft; -1 when the table has no point there. */
+static double table_point_db_100ft(const cxl_catalog *cat, size_t i, double freq_hz)
+{
+    size_t np;
+    ck_assert_int_eq(cxl_catalog_loss_count(cat, i, &np), CXL_OK);
+    for (size_t p = 0; p < np; p++) {
+        double f, l;
+        ck_assert_int_eq(cxl_catalog_loss_point(cat, i, p, &f, &l, NULL), CXL_OK);
+        if (fabs(f - freq_hz) <= 1.0) return l * 30.48; /* dB/m -> dB/100 ft */
+    }
+    return -1.0;
+}
+
 START_TEST(test_catalog_loss_against_published_table)
 {
     /* ARRL General Class License Manual, Table 6-1 Feedline Characteristics,
@@ -308,19 +322,36 @@ START_TEST(test_catalog_loss_against_published_table)
     cxl_catalog *cat;
     ck_assert_int_eq(cxl_catalog_new(&cat), CXL_OK);
     for (size_t k = 0; k < sizeof pub / sizeof pub[0]; k++) {
-        size_t i;
+        size_t i, np;
         ck_assert_int_eq(cxl_catalog_find(cat, pub[k].name, &i), CXL_OK);
+        ck_assert_int_eq(cxl_catalog_loss_count(cat, i, &np), CXL_OK);
+        /* the table holds the published points themselves */
+        ck_assert_double_eq_tol(table_point_db_100ft(cat, i, 30e6), pub[k].l30,
+                                pub[k].l30 < 10 ? 0.006 : 0.06);
+        ck_assert_double_eq_tol(table_point_db_100ft(cat, i, 150e6), pub[k].l150,
+                                pub[k].l150 < 10 ? 0.006 : 0.06);
         cxl_loss_fit *fit;
         ck_assert_int_eq(cxl_loss_fit_new_cable(cat, i, &fit), CXL_OK);
         double l30, l150, rel;
         ck_assert_int_eq(cxl_loss_fit_eval(fit, 30e6, 0, &l30), CXL_OK);
         ck_assert_int_eq(cxl_loss_fit_eval(fit, 150e6, 0, &l150), CXL_OK);
-        double tol30 = pub[k].l30 < 10 ? 0.006 : 0.06, tol150 = pub[k].l150 < 10 ? 0.006 : 0.06;
-        ck_assert_double_eq_tol(l30 * 30.48, pub[k].l30, tol30);   /* dB/m -> dB/100 ft */
-        ck_assert_double_eq_tol(l150 * 30.48, pub[k].l150, tol150);
-        /* fitted model reproduces its own table points within their precision */
         ck_assert_int_eq(cxl_loss_fit_max_relative_residual(fit, &rel), CXL_OK);
-        ck_assert(rel < 0.005);
+        printf("%-7s %zu points, fit max relative residual %.2f %%\n", pub[k].name, np, 100 * rel);
+        if (np == 2) {
+            /* two parameters through two points: exact (common practice, no source) */
+            ck_assert(rel < 0.005);
+            ck_assert_double_eq_tol(l30 * 30.48, pub[k].l30, pub[k].l30 < 10 ? 0.006 : 0.06);
+            ck_assert_double_eq_tol(l150 * 30.48, pub[k].l150, pub[k].l150 < 10 ? 0.006 : 0.06);
+        } else {
+            /* Tables grown with low-frequency points from other sources
+             * (data/cable_loss.csv: a handbook table to 0.1 dB/100 ft, from
+             * memory, and a graph reading): constructions sold under one RG
+             * number differ by several per cent (common practice, no source),
+             * so the one curve a sqrt(f) + b f stays within 5 % of them all. */
+            ck_assert(rel < 0.05);
+            ck_assert_double_eq_tol(l30 * 30.48, pub[k].l30, 0.05 * pub[k].l30);
+            ck_assert_double_eq_tol(l150 * 30.48, pub[k].l150, 0.05 * pub[k].l150);
+        }
         /* the physical model with ideal smooth copper is a lower bound: braid
          * and stranding add some 20-60 % (common practice, from memory) */
         cxl_loss_model *m;
@@ -337,12 +368,50 @@ START_TEST(test_catalog_loss_against_published_table)
 }
 END_TEST
 
+START_TEST(test_catalog_low_band_points)
+{
+    /* The low-frequency points of data/cable_loss.csv, in dB/100 ft as their
+     * sources give them: ARRL Handbook table of nominal line characteristics
+     * (from memory, 0.1 dB/100 ft resolution, so +-0.05) and the ARRL
+     * Handbook 2000 attenuation graph read at 10 MHz (as quoted, 2
+     * significant figures).  The file stores them in dB/100 m to 5
+     * significant figures. */
+    static const struct { const char *name; double f_mhz, db_100ft; } pts[] = {
+        {"RG-213", 1, 0.2}, {"RG-213", 10, 0.66}, {"RG-58", 1, 0.4}, {"RG-58", 10, 1.4},
+        {"RG-6-foam", 1, 0.2}, {"RG-6-foam", 10, 0.7}, {"RG-6-foam", 100, 1.8},
+    };
+    cxl_catalog *cat;
+    ck_assert_int_eq(cxl_catalog_new(&cat), CXL_OK);
+    for (size_t k = 0; k < sizeof pts / sizeof pts[0]; k++) {
+        size_t i;
+        ck_assert_int_eq(cxl_catalog_find(cat, pts[k].name, &i), CXL_OK);
+        ck_assert_double_eq_tol(table_point_db_100ft(cat, i, pts[k].f_mhz * 1e6),
+                                pts[k].db_100ft, 1e-4 * pts[k].db_100ft);
+        cxl_loss_fit *fit;
+        ck_assert_int_eq(cxl_loss_fit_new_cable(cat, i, &fit), CXL_OK);
+        double v;
+        /* the fit reaches the point and stays within 8 % of it: the source
+         * resolution (25 % at 0.2 dB/100 ft, 7 % at 0.7) and the spread
+         * between sources above (common practice, no source) */
+        ck_assert_int_eq(cxl_loss_fit_eval(fit, pts[k].f_mhz * 1e6, 0, &v), CXL_OK);
+        ck_assert_double_eq_tol(v * 30.48, pts[k].db_100ft, 0.08 * pts[k].db_100ft);
+        /* the 160 m band (1.8-2.0 MHz, ITU RR Art. 5) is now inside the table */
+        ck_assert_int_eq(cxl_loss_fit_eval(fit, 1.8e6, 0, &v), CXL_OK);
+        ck_assert_int_eq(cxl_loss_fit_eval(fit, 2.0e6, 0, &v), CXL_OK);
+        cxl_loss_fit_free(fit);
+    }
+    cxl_catalog_free(cat);
+}
+END_TEST
+
 START_TEST(test_fit_range)
 {
     cxl_catalog *cat;
     size_t i;
     ck_assert_int_eq(cxl_catalog_new(&cat), CXL_OK);
-    ck_assert_int_eq(cxl_catalog_find(cat, "RG-58", &i), CXL_OK);
+    /* RG-59 keeps only the two Table 6-1 points (copper-clad steel centre:
+     * an a sqrt(f) + b f curve would not hold below a few MHz) */
+    ck_assert_int_eq(cxl_catalog_find(cat, "RG-59", &i), CXL_OK);
     cxl_loss_fit *fit;
     ck_assert_int_eq(cxl_loss_fit_new_cable(cat, i, &fit), CXL_OK);
     double lo, hi, v;
@@ -358,6 +427,14 @@ START_TEST(test_fit_range)
     ck_assert(v > 0.0);
     ck_assert_int_eq(cxl_loss_fit_eval(fit, -1.0, CXL_LOSS_EXTRAPOLATE, &v), CXL_EINVAL);
     ck_assert_int_eq(cxl_loss_fit_eval(fit, 50e6, 0x40u, &v), CXL_EINVAL);
+    cxl_loss_fit_free(fit);
+    /* RG-58 now starts at 1 MHz: 0.95 MHz is inside the margin, 0.85 not */
+    ck_assert_int_eq(cxl_catalog_find(cat, "RG-58", &i), CXL_OK);
+    ck_assert_int_eq(cxl_loss_fit_new_cable(cat, i, &fit), CXL_OK);
+    ck_assert_int_eq(cxl_loss_fit_range(fit, &lo, &hi), CXL_OK);
+    ck_assert_double_eq_tol(lo, 1e6, 1e-6);
+    ck_assert_int_eq(cxl_loss_fit_eval(fit, 0.95e6, 0, &v), CXL_OK);
+    ck_assert_int_eq(cxl_loss_fit_eval(fit, 0.85e6, 0, &v), CXL_EEXTRAPOLATE);
     cxl_loss_fit_free(fit);
     cxl_catalog_free(cat);
 }
@@ -435,6 +512,7 @@ int main(void)
     tcase_add_test(tc, test_fit_recovers_coefficients);
     tcase_add_test(tc, test_fit_errors);
     tcase_add_test(tc, test_catalog_loss_against_published_table);
+    tcase_add_test(tc, test_catalog_low_band_points);
     tcase_add_test(tc, test_fit_range);
     tcase_add_test(tc, test_total_loss);
     suite_add_tcase(s, tc);

@@ -18,4 +18,10 @@ int count_lines(const char *text);
 /* Write text to a new temporary file; returns its path (owned). */
 char *temp_file(const char *text, size_t size);
 
+/* Check that "coaxline ARGS" (with env, or NULL) fails as bad usage: exit 2,
+ * nothing on stdout, exactly one stderr line "coaxline: ..." that names
+ * field, contains also (unless NULL) and gives an example "(expected ...)". */
+void expect_usage_error(const char *env, const char *args, const char *field,
+                        const char *also);
+
 #endif

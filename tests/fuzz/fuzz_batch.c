@@ -10,7 +10,7 @@
 
 int coaxline_main(int argc, char **argv);
 
-static const char *const commands[] = { "cut" };
+static const char *const commands[] = { "cut", "loss" };
 
 int LLVMFuzzerInitialize(int *argc, char ***argv)
 {
