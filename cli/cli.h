@@ -194,6 +194,153 @@ void cli_print_command_help(const cli_command *cmd, FILE *fp);
 extern const cli_command cli_cmd_cut;
 extern const cli_command cli_cmd_demo;
 
+/* ---- pattern, budget, hybrid, plots (pairspec.c, budgettol.c, svg.c) -- */
+
+/* Plain SVG plots written without any external program (svg.c).  Numbers
+ * go through cxl_units_format_fixed, so a file is the same bytes in every
+ * locale; text is XML-escaped. */
+typedef struct cli_svg_curve {
+    const char *name;       /* legend text */
+    const double *x;        /* polar: azimuth in degrees; x-y: x values */
+    const double *y;        /* polar: dB; x-y: y values (a non-finite
+                             * value breaks the line) */
+    size_t n;
+    int dashed;
+    int markers;            /* x-y plot: a dot at each point */
+} cli_svg_curve;
+
+typedef struct cli_svg_polar {
+    const char *title;
+    const char *note[3];    /* lines under the plot (NULL: none) */
+    const char *unit;       /* ring unit, e.g. "dBi" */
+    double range_db;        /* centre is this far below the outer ring */
+    double ring_step_db;    /* e.g. 10 */
+    const cli_svg_curve *curves;
+    size_t ncurves;
+} cli_svg_polar;
+
+typedef struct cli_svg_span {  /* shaded x segment (a band) */
+    double x0, x1;
+    const char *name;
+} cli_svg_span;
+
+typedef struct cli_svg_hline { /* horizontal line (a tolerance) */
+    double y;
+    const char *name;
+} cli_svg_hline;
+
+typedef struct cli_svg_xy {
+    const char *title;
+    const char *note[3];
+    const char *x_label;    /* with its unit, e.g. "frequency (MHz)" */
+    const char *y_label;    /* e.g. "phase error (deg)" */
+    const cli_svg_curve *curves;
+    size_t ncurves;
+    const cli_svg_span *spans;
+    size_t nspans;
+    const cli_svg_hline *hlines;
+    size_t nhlines;
+} cli_svg_xy;
+
+/* Write a polar plot (azimuth 0 at the top, counter-clockwise as seen from
+ * above, rings in dB) or an x-y plot (axes fitted to the data, spans and
+ * lines) to fp.  Return 0, or -1 when writing failed. */
+int cli_svg_polar_write(FILE *fp, const cli_svg_polar *plot);
+int cli_svg_xy_write(FILE *fp, const cli_svg_xy *plot);
+/* Write either plot (exactly one of polar, xy non-NULL) to the file path.
+ * Returns 0, or CLI_EXIT_USAGE after a one-line error naming field. */
+int cli_svg_save(const cli_ctx *ctx, const char *field, const char *path,
+                 const cli_svg_polar *polar, const cli_svg_xy *xy);
+
+/* A two-element receive pair as pattern and budget describe it
+ * (pairspec.c).  Element A is the library's element 0, B element 1. */
+#define CLI_PAIR_OPTDEFS \
+    { "spacing", "LEN", "broadside distance between elements A and B (default 0)", 0 }, \
+    { "stagger", "LEN", "how far B sits behind A along the forward axis, negative: in front (default 0)", 0 }, \
+    { "feed", "crossfire|endfire", "design feed worked out from the stagger", 0 }, \
+    { "design-freq", "F", "frequency for --degrees-a/--degrees-b and --feed endfire", 0 }, \
+    { "line-a", "LEN", "line making A's feed delay, at --vf or --cable", 0 }, \
+    { "line-b", "LEN", "line making B's feed delay", 0 }, \
+    { "delay-a", "TIME", "feed delay of A", 0 }, \
+    { "delay-b", "TIME", "feed delay of B", 0 }, \
+    { "degrees-a", "DEG", "feed delay of A in electrical degrees at --design-freq", 0 }, \
+    { "degrees-b", "DEG", "feed delay of B in electrical degrees at --design-freq", 0 }, \
+    { "invert", "a|b", "reverse one element's polarity (crossfire)", 0 }, \
+    { "vf", "X", "velocity factor of the feed lines", 0 }, \
+    { "cable", "NAME", "feed-line cable from the catalog (VF, and loss for --line-loss)", 0 }, \
+    { "element", "isotropic|wire", "element type (default isotropic)", 0 }, \
+    { "wire-length", "LEN", "length of each traveling-wave wire", 0 }, \
+    { "wire-vf", "X", "velocity factor along the wire (0.45-0.8 on the ground, 0.95-0.99 raised)", 0 }, \
+    { "elevation", "DEG", "elevation of the azimuth cut (default 0; 20 for wires)", 0 }
+
+/* The per-band options of cli_freq_points(), as pattern and budget take
+ * them. */
+#define CLI_PAIR_BAND_OPTDEFS \
+    { "band", "LIST", "bands to evaluate, e.g. 160m,80m", 1 }, \
+    { "region", "N", "ITU Region 1, 2 or 3 (default: widest edges of all)", 0 }, \
+    { "exclude-footnotes", NULL, "leave out band segments allowed only by footnote", 0 }, \
+    { "freq", "F", "a single frequency to evaluate", 1 }
+
+/* Option values a pair command parsed; lengths in m, delays in s. */
+typedef struct cli_pair_spec {
+    double spacing_m, stagger_m;
+    const char *feed;           /* "crossfire", "endfire" or "manual" */
+    double delay_s[2];          /* design feed delays */
+    double line_m[2];           /* design lines (0 where no line) */
+    int has_line[2];            /* the line length is known */
+    int flip[2];
+    int wire;
+    double wire_length_m, wire_vf;
+    double elevation_deg;
+    int elevation_default;
+    int has_vf;
+    double vf;
+    const char *cable;          /* "" when none */
+    /* as built (pattern): measured lines, actual VF, fixed errors */
+    int has_errors;
+    double built_delay_s[2];
+    double built_line_m[2];
+    double actual_vf;
+    double phase_error_deg;     /* B lags by this much more */
+    double imbalance_db;        /* B weaker by this much */
+    int line_loss;              /* add the lines' loss difference */
+    cxl_loss_model *loss_model; /* owned; one of the two for line_loss */
+    cxl_loss_fit *loss_fit;
+} cli_pair_spec;
+
+/* Parse CLI_PAIR_OPTDEFS (and, where the command declares them,
+ * measured-a, measured-b, actual-vf, phase-error, imbalance, line-loss).
+ * Returns 0, or CLI_EXIT_USAGE after cli_error(). */
+int cli_pair_spec_parse(cli_ctx *ctx, const cli_args *a, cli_pair_spec *spec);
+void cli_pair_spec_free(cli_pair_spec *spec);
+/* The design pair (as_built 0) or the as-built one at freq_hz, with the
+ * as-built phase error (deg, B lagging positive, wrapped to +-180) and
+ * amplitude imbalance (dB, B weaker positive) relative to the design.
+ * Returns 0, or CLI_EXIT_USAGE after cli_error(). */
+int cli_pair_spec_build(cli_ctx *ctx, const cli_pair_spec *spec, int as_built,
+                        double freq_hz, cxl_array_pair **pair,
+                        double *phase_error_deg, double *imbalance_db);
+
+/* Phase tolerance from a wanted result (budgettol.c).  A command declares
+ * CLI_BUDGET_OPTDEFS; with --null-depth DB (< 0) the tolerance is the
+ * largest phase error that keeps the closed-form null of the pair (with
+ * --imbalance) at or below DB, the same at every frequency
+ * (cxl_budget_phase_for_null); a command that also declares
+ * { "front-to-back", ... } and CLI_PAIR_OPTDEFS may ask instead for the
+ * largest error on B that keeps the pair's front-to-back ratio at freq_hz
+ * at or above DB (cxl_budget_phase_for_front_to_back).  Returns 0 with
+ * *tolerance_deg set; CLI_EXIT_TOLERANCE (nothing printed) when even an
+ * error-free pair misses the goal at freq_hz; CLI_EXIT_USAGE after
+ * cli_error(). */
+#define CLI_BUDGET_OPTDEFS \
+    { "null-depth", "DB", "wanted worst rear null, e.g. -25 (dB below the forward response)", 0 }, \
+    { "imbalance", "DB", "amplitude imbalance between the elements (default 0)", 0 }
+int cli_budget_tolerance(cli_ctx *ctx, const cli_args *a, double freq_hz,
+                         double *tolerance_deg);
+
+extern const cli_command cli_cmd_pattern;
+extern const cli_command cli_cmd_budget;
+extern const cli_command cli_cmd_hybrid;
 /* ---- cables and loss (cableinfo.c, cmd_cables.c, cmd_loss.c) ----------- */
 
 extern const cli_command cli_cmd_cables;

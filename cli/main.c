@@ -11,6 +11,9 @@ static const cli_command *const commands[] = {
     &cli_cmd_cables,
     &cli_cmd_loss,
     &cli_cmd_demo,
+    &cli_cmd_pattern,
+    &cli_cmd_budget,
+    &cli_cmd_hybrid,
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 

@@ -1,0 +1,297 @@
+/* pairspec.c - the two-element receive pair that pattern and budget
+ * describe: geometry, element type, the design feed (explicit delays or a
+ * crossfire/end-fire feed worked out from the stagger), and the as-built
+ * errors (measured lines, the spool's real VF, a fixed phase error, an
+ * amplitude imbalance, the lines' loss difference). */
+#include <config.h>
+#include <math.h>
+#include <string.h>
+#include "cli.h"
+
+static const char *const elem_name[2] = { "a", "b" };
+
+/* --line-X, --delay-X or --degrees-X for element k: at most one. */
+static int parse_manual_delay(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s, int k,
+                              double design_hz)
+{
+    char line_opt[16], delay_opt[16], deg_opt[16];
+    snprintf(line_opt, sizeof line_opt, "line-%s", elem_name[k]);
+    snprintf(delay_opt, sizeof delay_opt, "delay-%s", elem_name[k]);
+    snprintf(deg_opt, sizeof deg_opt, "degrees-%s", elem_name[k]);
+    int n = (cli_count(a, line_opt) > 0) + (cli_count(a, delay_opt) > 0) +
+            (cli_count(a, deg_opt) > 0);
+    if (n > 1)
+        return cli_error(ctx, line_opt, "one of --line-a, --delay-a or --degrees-a per element",
+                         "give the feed delay of element %c only once", k ? 'B' : 'A');
+    if (cli_count(a, line_opt)) {
+        if (!s->has_vf)
+            return cli_error(ctx, "vf", "--vf 0.66 or --cable NAME with --line-a/--line-b",
+                             "a line length needs the cable's velocity factor");
+        if (cli_length(ctx, line_opt, cli_get(a, line_opt, 0), CLI_NONNEG, &s->line_m[k]))
+            return CLI_EXIT_USAGE;
+        s->delay_s[k] = s->line_m[k] / (s->vf * CXL_C_M_PER_S);
+        s->has_line[k] = 1;
+    } else if (cli_count(a, delay_opt)) {
+        if (cli_time(ctx, delay_opt, cli_get(a, delay_opt, 0), CLI_NONNEG, &s->delay_s[k]))
+            return CLI_EXIT_USAGE;
+    } else if (cli_count(a, deg_opt)) {
+        double deg;
+        if (cli_number(ctx, deg_opt, cli_get(a, deg_opt, 0), 0.0, 1e6,
+                       "electrical degrees, 0 or more, such as 90", &deg))
+            return CLI_EXIT_USAGE;
+        if (!(design_hz > 0.0))
+            return cli_error(ctx, "design-freq", "--degrees-b 90 --design-freq 1.83MHz",
+                             "electrical degrees need the frequency they hold at");
+        s->delay_s[k] = deg / (360.0 * design_hz);
+    }
+    return 0;
+}
+
+/* The design feed from --feed: the element that must wait is the front
+ * one (end-fire) or the rear one (crossfire). */
+static int parse_preset(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s, double design_hz)
+{
+    const char *feed = cli_get(a, "feed", 0);
+    static const char *const manual[] = { "line-a", "line-b", "delay-a", "delay-b",
+                                          "degrees-a", "degrees-b", "invert" };
+    for (size_t i = 0; i < sizeof manual / sizeof manual[0]; i++)
+        if (cli_count(a, manual[i]))
+            return cli_error(ctx, "feed", "--feed alone, or the feed given element by element",
+                             "--feed and --%s both describe the feed", manual[i]);
+    if (s->stagger_m == 0.0)
+        return cli_error(ctx, "stagger", "a stagger such as --stagger 20m with --feed",
+                         "--feed %s needs the elements staggered along the forward axis", feed);
+    int front = s->stagger_m > 0.0 ? 0 : 1, rear = 1 - front;
+    double lag_s = fabs(s->stagger_m) / CXL_C_M_PER_S;
+    if (strcmp(feed, "crossfire") == 0) {
+        /* rear wave: the rear element hears it first by the stagger; wait
+         * that long, then the inversion cancels it at every frequency */
+        s->feed = "crossfire";
+        s->delay_s[rear] = lag_s;
+        s->flip[rear] = 1;
+    } else if (strcmp(feed, "endfire") == 0) {
+        if (!(design_hz > 0.0))
+            return cli_error(ctx, "design-freq", "--feed endfire --design-freq 1.83MHz",
+                             "an end-fire feed is cut for one frequency");
+        /* front element waits 180 deg minus the stagger, so a rear wave
+         * arrives 180 deg apart at the design frequency only */
+        double deg = fmod(180.0 - 360.0 * design_hz * lag_s, 360.0);
+        if (deg < 0.0) deg += 360.0;
+        s->feed = "endfire";
+        s->delay_s[front] = deg / (360.0 * design_hz);
+    } else {
+        return cli_error(ctx, "feed", "crossfire or endfire", "unknown feed '%s'", feed);
+    }
+    for (int k = 0; k < 2; k++)
+        if (s->has_vf && s->delay_s[k] > 0.0) {
+            s->line_m[k] = s->delay_s[k] * s->vf * CXL_C_M_PER_S;
+            s->has_line[k] = 1;
+        }
+    return 0;
+}
+
+static int parse_element(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
+{
+    const char *el = cli_get(a, "element", 0);
+    if (el && strcmp(el, "wire") == 0) s->wire = 1;
+    else if (el && strcmp(el, "isotropic") != 0)
+        return cli_error(ctx, "element", "isotropic or wire", "unknown element '%s'", el);
+    if (!s->wire) {
+        if (cli_count(a, "wire-length") || cli_count(a, "wire-vf"))
+            return cli_error(ctx, cli_count(a, "wire-length") ? "wire-length" : "wire-vf",
+                             "--element wire with --wire-length and --wire-vf",
+                             "wire values given for isotropic elements");
+        return 0;
+    }
+    if (!cli_count(a, "wire-length"))
+        return cli_error(ctx, "wire-length", "--wire-length 150m", "a wire element needs its length");
+    if (!cli_count(a, "wire-vf"))
+        return cli_error(ctx, "wire-vf", "0.45-0.8 for a wire on the ground, 0.95-0.99 raised",
+                         "a wire element needs its velocity factor");
+    if (cli_length(ctx, "wire-length", cli_get(a, "wire-length", 0), CLI_POSITIVE,
+                   &s->wire_length_m) ||
+        cli_vf(ctx, "wire-vf", cli_get(a, "wire-vf", 0), &s->wire_vf))
+        return CLI_EXIT_USAGE;
+    return 0;
+}
+
+/* Loss per metre of the --cable at freq_hz, from the model chosen as the
+ * loss command chooses by default: the fit to the attenuation table when
+ * the cable has one, else the physical model from its geometry.  No
+ * extrapolation: CXL_EEXTRAPOLATE outside the model's range. */
+static cxl_status loss_db_per_m(const cli_pair_spec *s, double freq_hz, double *db_per_m)
+{
+    if (s->loss_fit) return cxl_loss_fit_eval(s->loss_fit, freq_hz, 0, db_per_m);
+    return cxl_loss_model_attenuation(s->loss_model, freq_hz, 0, db_per_m);
+}
+
+static int parse_as_built(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
+{
+    s->actual_vf = s->vf;
+    if (cli_count(a, "actual-vf")) {
+        if (!s->has_vf)
+            return cli_error(ctx, "actual-vf", "--actual-vf 0.81 with the design --vf or --cable",
+                             "the spool's VF needs the VF the lines were cut for");
+        if (cli_vf(ctx, "actual-vf", cli_get(a, "actual-vf", 0), &s->actual_vf))
+            return CLI_EXIT_USAGE;
+        s->has_errors = 1;
+    }
+    for (int k = 0; k < 2; k++) {
+        char opt[16];
+        snprintf(opt, sizeof opt, "measured-%s", elem_name[k]);
+        s->built_line_m[k] = s->line_m[k];
+        s->built_delay_s[k] = s->delay_s[k];
+        if (cli_count(a, opt)) {
+            if (!s->has_vf)
+                return cli_error(ctx, "vf", "--vf 0.66 or --cable NAME with --measured-a/--measured-b",
+                                 "a measured length needs the cable's velocity factor");
+            if (cli_length(ctx, opt, cli_get(a, opt, 0), CLI_NONNEG, &s->built_line_m[k]))
+                return CLI_EXIT_USAGE;
+            s->has_errors = 1;
+        } else if (!s->has_line[k]) {
+            continue;   /* a delay given as time or degrees: no line to re-measure */
+        }
+        s->built_delay_s[k] = s->built_line_m[k] / (s->actual_vf * CXL_C_M_PER_S);
+    }
+    if (cli_count(a, "actual-vf") && !s->has_line[0] && !s->has_line[1] &&
+        !cli_count(a, "measured-a") && !cli_count(a, "measured-b"))
+        return cli_error(ctx, "actual-vf", "--line-a/--line-b, --measured-a/-b or --feed with --vf",
+                         "no line lengths for the spool's VF to act on");
+    if (cli_count(a, "phase-error")) {
+        if (cli_number(ctx, "phase-error", cli_get(a, "phase-error", 0), -180.0, 180.0,
+                       "degrees B lags A beyond the design, such as 5 or -3", &s->phase_error_deg))
+            return CLI_EXIT_USAGE;
+        s->has_errors = 1;
+    }
+    if (cli_count(a, "imbalance")) {
+        if (cli_number(ctx, "imbalance", cli_get(a, "imbalance", 0), -60.0, 60.0,
+                       "dB by which B is weaker than A, such as 0.5", &s->imbalance_db))
+            return CLI_EXIT_USAGE;
+        s->has_errors = 1;
+    }
+    if (cli_flag(a, "line-loss")) {
+        size_t idx;
+        if (!s->cable[0])
+            return cli_error(ctx, "line-loss", "--line-loss with --cable NAME (a catalog cable)",
+                             "the loss of the lines needs a cable from the catalog");
+        if (cli_cable_index(ctx, s->cable, &idx)) return CLI_EXIT_USAGE;
+        const cxl_catalog *cat = cli_catalog(ctx);
+        s->loss_fit = cli_cable_fit(cat, idx);
+        if (!s->loss_fit && cxl_loss_model_new_cable(cat, idx, &s->loss_model) != CXL_OK)
+            return cli_error(ctx, "line-loss", "a cable with diameters or attenuation points",
+                             "cable '%s' has no loss data", s->cable);
+        if (!s->has_line[0] && !s->has_line[1] && !cli_count(a, "measured-a") &&
+            !cli_count(a, "measured-b"))
+            return cli_error(ctx, "line-loss", "--line-a/--line-b, --measured-a/-b or --feed with --cable",
+                             "no line lengths to take the loss of");
+        s->line_loss = 1;
+        s->has_errors = 1;
+    }
+    return 0;
+}
+
+int cli_pair_spec_parse(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
+{
+    memset(s, 0, sizeof *s);
+    s->feed = "manual";
+    s->cable = "";
+    if (cli_count(a, "spacing") &&
+        cli_length(ctx, "spacing", cli_get(a, "spacing", 0), CLI_NONNEG, &s->spacing_m))
+        return CLI_EXIT_USAGE;
+    if (cli_count(a, "stagger") &&
+        cli_length(ctx, "stagger", cli_get(a, "stagger", 0), CLI_ANY, &s->stagger_m))
+        return CLI_EXIT_USAGE;
+    if (parse_element(ctx, a, s)) return CLI_EXIT_USAGE;
+    s->elevation_default = !cli_count(a, "elevation");
+    s->elevation_deg = s->wire ? 20.0 : 0.0;
+    if (!s->elevation_default &&
+        cli_number(ctx, "elevation", cli_get(a, "elevation", 0), 0.0, 89.0,
+                   "degrees above the horizon, 0 to 89", &s->elevation_deg))
+        return CLI_EXIT_USAGE;
+    if (s->wire && s->elevation_deg == 0.0)
+        return cli_error(ctx, "elevation", "an elevation above 0 for wires, such as 20",
+                         "a long wire has no response along its own axis at elevation 0");
+    if (cli_count(a, "vf") || cli_count(a, "cable")) {
+        if (cli_vf_or_cable(ctx, a, &s->vf, &s->cable)) return CLI_EXIT_USAGE;
+        s->has_vf = 1;
+    }
+    double design_hz = 0.0;
+    if (cli_count(a, "design-freq") &&
+        cli_freq(ctx, "design-freq", cli_get(a, "design-freq", 0), &design_hz))
+        return CLI_EXIT_USAGE;
+    if (cli_count(a, "feed")) {
+        if (parse_preset(ctx, a, s, design_hz)) return CLI_EXIT_USAGE;
+    } else {
+        for (int k = 0; k < 2; k++)
+            if (parse_manual_delay(ctx, a, s, k, design_hz)) return CLI_EXIT_USAGE;
+        const char *inv = cli_get(a, "invert", 0);
+        if (inv && strcmp(inv, "a") != 0 && strcmp(inv, "b") != 0 &&
+            strcmp(inv, "A") != 0 && strcmp(inv, "B") != 0)
+            return cli_error(ctx, "invert", "a or b", "unknown element '%s'", inv);
+        if (inv) s->flip[inv[0] == 'a' || inv[0] == 'A' ? 0 : 1] = 1;
+    }
+    if (parse_as_built(ctx, a, s)) {
+        cli_pair_spec_free(s);
+        return CLI_EXIT_USAGE;
+    }
+    return 0;
+}
+
+void cli_pair_spec_free(cli_pair_spec *s)
+{
+    cxl_loss_model_free(s->loss_model);
+    cxl_loss_fit_free(s->loss_fit);
+    s->loss_model = NULL;
+    s->loss_fit = NULL;
+}
+
+int cli_pair_spec_build(cli_ctx *ctx, const cli_pair_spec *s, int as_built, double freq_hz,
+                        cxl_array_pair **pair, double *phase_error_deg, double *imbalance_db)
+{
+    const double *delay = as_built ? s->built_delay_s : s->delay_s;
+    double phase = 0.0, imbalance = 0.0;
+    if (as_built) {
+        /* extra lag of B over A against the design, in degrees */
+        double extra_s = (delay[1] - delay[0]) - (s->delay_s[1] - s->delay_s[0]);
+        phase = remainder(360.0 * freq_hz * extra_s + s->phase_error_deg, 360.0);
+        imbalance = s->imbalance_db;
+        if (s->line_loss) {
+            double db_per_m, lo, hi;
+            char f[32], range[96], expected[160];
+            if (loss_db_per_m(s, freq_hz, &db_per_m) != CXL_OK) {
+                if (s->loss_fit) {
+                    cxl_loss_fit_range(s->loss_fit, &lo, &hi);
+                    lo /= 1.0 + CXL_LOSS_FIT_MARGIN;
+                    hi *= 1.0 + CXL_LOSS_FIT_MARGIN;
+                } else {
+                    cxl_loss_model_range(s->loss_model, &lo, &hi);
+                }
+                snprintf(expected, sizeof expected, "a frequency within %s, or --imbalance DB instead",
+                         cli_fmt_range_mhz(range, sizeof range, lo, hi));
+                return cli_error(ctx, "line-loss", expected,
+                                 "%s MHz is outside the loss data of cable '%s'",
+                                 cli_fmt(f, sizeof f, freq_hz / 1e6, 6), s->cable);
+            }
+            imbalance += db_per_m * (s->built_line_m[1] - s->built_line_m[0]);
+        }
+    }
+    cxl_array_pair *p = NULL;
+    cxl_status st = cxl_array_pair_new(&p);
+    if (st == CXL_OK) st = cxl_array_pair_set_geometry(p, s->spacing_m, s->stagger_m);
+    for (int k = 0; k < 2 && st == CXL_OK; k++) {
+        st = cxl_array_pair_set_delay(p, k, delay[k]);
+        if (st == CXL_OK) st = cxl_array_pair_set_flip(p, k, s->flip[k]);
+    }
+    if (st == CXL_OK) st = cxl_array_pair_set_phase_offset(p, 1, -s->phase_error_deg * as_built);
+    if (st == CXL_OK) st = cxl_array_pair_set_imbalance(p, imbalance);
+    if (st == CXL_OK && s->wire) st = cxl_array_pair_set_long_wire(p, s->wire_length_m, s->wire_vf);
+    if (st != CXL_OK) {
+        cxl_array_pair_free(p);
+        return cli_error(ctx, as_built ? "imbalance" : "spacing", "smaller values",
+                         "the pair cannot be modelled: %s", cxl_strerror(st));
+    }
+    *pair = p;
+    if (phase_error_deg) *phase_error_deg = phase;
+    if (imbalance_db) *imbalance_db = imbalance;
+    return 0;
+}

@@ -1,0 +1,330 @@
+/* svg.c - small plain-SVG plots: a polar azimuth pattern and an x-y plot.
+ * Written by hand (no plotting program), with every number formatted by
+ * cxl_units_format_fixed so a file is the same bytes in every locale, and
+ * every text XML-escaped so a label cannot break the document. */
+#include <config.h>
+#include <errno.h>
+#include <math.h>
+#include <stdio.h>
+#include <string.h>
+#include "cli.h"
+
+#define DEG (3.14159265358979323846 / 180.0)
+
+static const char *const palette[] = { "#1f4e9c", "#c0392b", "#2e7d32", "#6a1b9a", "#b26a00" };
+#define NPALETTE (sizeof palette / sizeof palette[0])
+
+/* A coordinate or value, 2 decimals, '.' whatever the locale. */
+static void num(FILE *fp, double v, int decimals)
+{
+    char buf[64];
+    if (cxl_units_format_fixed(v, decimals, buf, sizeof buf) != CXL_OK)
+        snprintf(buf, sizeof buf, "0");
+    fputs(buf, fp);
+}
+
+static void xy(FILE *fp, double x, double y)
+{
+    num(fp, x, 2);
+    putc(',', fp);
+    num(fp, y, 2);
+}
+
+/* Text content or attribute value: XML escapes; control bytes and bytes
+ * that are not UTF-8 become U+FFFD, which XML always accepts. */
+static void text(FILE *fp, const char *s)
+{
+    const unsigned char *p = (const unsigned char *)(s ? s : "");
+    while (*p) {
+        unsigned char c = *p;
+        const char *esc = c == '&' ? "&amp;" : c == '<' ? "&lt;" : c == '>' ? "&gt;"
+                        : c == '"' ? "&quot;" : c == '\'' ? "&#39;" : NULL;
+        if (esc) { fputs(esc, fp); p++; continue; }
+        if (c < 0x80) {
+            if (c < 0x20 && c != '\t') fputs("\xEF\xBF\xBD", fp);
+            else putc(c, fp);
+            p++;
+            continue;
+        }
+        int n = (c & 0xE0) == 0xC0 ? 2 : (c & 0xF0) == 0xE0 ? 3 : (c & 0xF8) == 0xF0 ? 4 : 0;
+        int ok = n > 0 && c != 0xC0 && c != 0xC1 && c < 0xF5;
+        for (int k = 1; ok && k < n; k++) ok = (p[k] & 0xC0) == 0x80;
+        if (ok) { fwrite(p, 1, (size_t)n, fp); p += n; }
+        else { fputs("\xEF\xBF\xBD", fp); p++; }
+    }
+}
+
+/* halo: a white outline under the letters, so a curve crossing the label
+ * does not hide it */
+static void label_at(FILE *fp, double x, double y, const char *anchor, int size,
+                     int halo, const char *s)
+{
+    fputs("<text x=\"", fp);
+    num(fp, x, 2);
+    fputs("\" y=\"", fp);
+    num(fp, y, 2);
+    fprintf(fp, "\" font-size=\"%d\" text-anchor=\"%s\"%s>", size, anchor,
+            halo ? " stroke=\"#ffffff\" stroke-width=\"3\" paint-order=\"stroke\"" : "");
+    text(fp, s);
+    fputs("</text>\n", fp);
+}
+
+static void label(FILE *fp, double x, double y, const char *anchor, int size,
+                  const char *s)
+{
+    label_at(fp, x, y, anchor, size, 0, s);
+}
+
+static void line(FILE *fp, double x0, double y0, double x1, double y1,
+                 const char *stroke, double width, const char *dash)
+{
+    fputs("<line x1=\"", fp);
+    num(fp, x0, 2);
+    fputs("\" y1=\"", fp);
+    num(fp, y0, 2);
+    fputs("\" x2=\"", fp);
+    num(fp, x1, 2);
+    fputs("\" y2=\"", fp);
+    num(fp, y1, 2);
+    fprintf(fp, "\" stroke=\"%s\" stroke-width=\"", stroke);
+    num(fp, width, 2);
+    if (dash) fprintf(fp, "\" stroke-dasharray=\"%s", dash);
+    fputs("\"/>\n", fp);
+}
+
+static void open_svg(FILE *fp, int width, int height, const char *title)
+{
+    fprintf(fp, "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n"
+                "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"%d\" height=\"%d\" "
+                "viewBox=\"0 0 %d %d\" font-family=\"sans-serif\">\n<title>",
+            width, height, width, height);
+    text(fp, title);
+    fprintf(fp, "</title>\n<rect x=\"0\" y=\"0\" width=\"%d\" height=\"%d\" fill=\"#ffffff\"/>\n",
+            width, height);
+    label(fp, width / 2.0, 28.0, "middle", 16, title);
+}
+
+/* Legend rows and note lines from y downwards. */
+static void legend_and_notes(FILE *fp, double x, double y, const cli_svg_curve *curves,
+                             size_t ncurves, const char *const note[3])
+{
+    for (size_t i = 0; i < ncurves; i++, y += 20.0) {
+        line(fp, x, y - 4.0, x + 36.0, y - 4.0, palette[i % NPALETTE], 2.5,
+             curves[i].dashed ? "7 4" : NULL);
+        label(fp, x + 44.0, y, "start", 13, curves[i].name);
+    }
+    y += 6.0;
+    for (int i = 0; i < 3; i++)
+        if (note[i]) {
+            label(fp, x, y, "start", 11, note[i]);
+            y += 16.0;
+        }
+}
+
+static int close_svg(FILE *fp)
+{
+    fputs("</svg>\n", fp);
+    return ferror(fp) ? -1 : 0;
+}
+
+static size_t count_notes(const char *const note[3])
+{
+    return (note[0] != NULL) + (note[1] != NULL) + (note[2] != NULL);
+}
+
+/* ---- polar plot ------------------------------------------------------- */
+
+int cli_svg_polar_write(FILE *fp, const cli_svg_polar *p)
+{
+    const double cx = 320.0, cy = 300.0, radius = 230.0;
+    double range = p->range_db > 0.0 ? p->range_db : 40.0;
+    double step = p->ring_step_db > 0.0 ? p->ring_step_db : 10.0;
+    double top = -INFINITY;
+    for (size_t c = 0; c < p->ncurves; c++)
+        for (size_t i = 0; i < p->curves[c].n; i++)
+            if (isfinite(p->curves[c].y[i]) && p->curves[c].y[i] > top) top = p->curves[c].y[i];
+    /* outer ring: the peak rounded up to half a ring step */
+    top = isfinite(top) ? ceil(top / (0.5 * step) - 1e-9) * 0.5 * step : 0.0;
+    double floor_db = top - range;
+    int height = (int)(cy + radius + 60.0 + 20.0 * p->ncurves + 16.0 * count_notes(p->note) + 16.0);
+
+    open_svg(fp, 640, height, p->title);
+    /* rings, labelled in dB along the lower right diagonal */
+    for (double v = top; v > floor_db + 1e-9; v -= step) {
+        double r = radius * (v - floor_db) / range;
+        fputs("<circle cx=\"", fp);
+        num(fp, cx, 2);
+        fputs("\" cy=\"", fp);
+        num(fp, cy, 2);
+        fputs("\" r=\"", fp);
+        num(fp, r, 2);
+        fputs("\" fill=\"none\" stroke=\"#b0b0b0\" stroke-width=\"1\"/>\n", fp);
+        char t[64], n[48];
+        snprintf(t, sizeof t, "%s %s", cli_fmt(n, sizeof n, v, step < 1.0 ? 1 : 0),
+                 p->unit ? p->unit : "dB");
+        label_at(fp, cx + 0.7071 * r + 3.0, cy + 0.7071 * r - 3.0, "start", 10, 1, t);
+    }
+    /* spokes and azimuth labels: 0 at the top, counter-clockwise */
+    for (int az = 0; az < 360; az += 30) {
+        double s = sin(az * DEG), c = cos(az * DEG);
+        line(fp, cx, cy, cx - radius * s, cy - radius * c, "#d0d0d0", 1.0, NULL);
+        char t[32];
+        snprintf(t, sizeof t, "%d\xC2\xB0", az);
+        label(fp, cx - (radius + 16.0) * s, cy - (radius + 16.0) * c + 4.0, "middle", 12, t);
+    }
+    for (size_t k = 0; k < p->ncurves; k++) {
+        const cli_svg_curve *cv = &p->curves[k];
+        fputs("<path d=\"", fp);
+        int started = 0;
+        for (size_t i = 0; i < cv->n; i++) {
+            if (!isfinite(cv->x[i])) continue;
+            double v = isfinite(cv->y[i]) ? cv->y[i] : floor_db;
+            double r = radius * fmin(fmax((v - floor_db) / range, 0.0), 1.0);
+            double a = cv->x[i] * DEG;
+            fputs(started ? " L" : "M", fp);
+            xy(fp, cx - r * sin(a), cy - r * cos(a));
+            started = 1;
+        }
+        if (started) fputs(" Z", fp);
+        fprintf(fp, "\" fill=\"none\" stroke=\"%s\" stroke-width=\"2\"%s/>\n",
+                palette[k % NPALETTE], cv->dashed ? " stroke-dasharray=\"7 4\"" : "");
+    }
+    legend_and_notes(fp, 40.0, cy + radius + 56.0, p->curves, p->ncurves, p->note);
+    return close_svg(fp);
+}
+
+/* ---- x-y plot --------------------------------------------------------- */
+
+/* A step of 1, 2 or 5 times a power of ten giving about 5-8 ticks. */
+static double nice_step(double span)
+{
+    double raw = span / 6.0, mag = pow(10.0, floor(log10(raw)));
+    double f = raw / mag;
+    return (f < 1.5 ? 1.0 : f < 3.5 ? 2.0 : f < 7.5 ? 5.0 : 10.0) * mag;
+}
+
+static void fit_axis(double lo, double hi, double *a, double *b, double *step)
+{
+    if (!(isfinite(lo) && isfinite(hi))) { lo = 0.0; hi = 1.0; }
+    if (hi - lo < 1e-12 * fmax(1.0, fabs(hi))) { lo -= 1.0; hi += 1.0; }
+    double pad = 0.02 * (hi - lo);   /* keep a curve off the frame */
+    lo -= pad;
+    hi += pad;
+    *step = nice_step(hi - lo);
+    *a = floor(lo / *step + 1e-9) * *step;
+    *b = ceil(hi / *step - 1e-9) * *step;
+}
+
+static int tick_decimals(double step)
+{
+    int d = (int)ceil(-log10(step) - 1e-9);
+    return d < 0 ? 0 : d > 6 ? 6 : d;
+}
+
+int cli_svg_xy_write(FILE *fp, const cli_svg_xy *p)
+{
+    const double left = 80.0, right = 690.0, top = 50.0, bottom = 400.0;
+    double xlo = INFINITY, xhi = -INFINITY, ylo = INFINITY, yhi = -INFINITY;
+    for (size_t c = 0; c < p->ncurves; c++)
+        for (size_t i = 0; i < p->curves[c].n; i++) {
+            double x = p->curves[c].x[i], y = p->curves[c].y[i];
+            if (!isfinite(x) || !isfinite(y)) continue;
+            xlo = fmin(xlo, x); xhi = fmax(xhi, x);
+            ylo = fmin(ylo, y); yhi = fmax(yhi, y);
+        }
+    for (size_t i = 0; i < p->nspans; i++) {
+        xlo = fmin(xlo, p->spans[i].x0);
+        xhi = fmax(xhi, p->spans[i].x1);
+    }
+    for (size_t i = 0; i < p->nhlines; i++) {
+        ylo = fmin(ylo, p->hlines[i].y);
+        yhi = fmax(yhi, p->hlines[i].y);
+    }
+    double x0, x1, xs, y0, y1, ys;
+    fit_axis(xlo, xhi, &x0, &x1, &xs);
+    fit_axis(ylo, yhi, &y0, &y1, &ys);
+#define SX(v) (left + ((v) - x0) / (x1 - x0) * (right - left))
+#define SY(v) (bottom - ((v) - y0) / (y1 - y0) * (bottom - top))
+    int height = (int)(bottom + 70.0 + 20.0 * p->ncurves + 16.0 * count_notes(p->note) + 16.0);
+
+    open_svg(fp, 720, height, p->title);
+    for (size_t i = 0; i < p->nspans; i++) {
+        double a = SX(fmax(p->spans[i].x0, x0)), b = SX(fmin(p->spans[i].x1, x1));
+        fputs("<rect x=\"", fp);
+        num(fp, a, 2);
+        fprintf(fp, "\" y=\"%d\" width=\"", (int)top);
+        num(fp, fmax(b - a, 1.0), 2);
+        fprintf(fp, "\" height=\"%d\" fill=\"#e6e6e6\"/>\n", (int)(bottom - top));
+        label(fp, 0.5 * (a + b), top - 5.0, "middle", 11, p->spans[i].name);
+    }
+    int xd = tick_decimals(xs), yd = tick_decimals(ys);
+    char t[64];
+    for (double v = x0; v <= x1 + 0.5 * xs; v += xs) {
+        line(fp, SX(v), top, SX(v), bottom, "#d8d8d8", 1.0, NULL);
+        label(fp, SX(v), bottom + 18.0, "middle", 11, cli_fmt(t, sizeof t, v, xd));
+    }
+    for (double v = y0; v <= y1 + 0.5 * ys; v += ys) {
+        line(fp, left, SY(v), right, SY(v), "#d8d8d8", 1.0, NULL);
+        label(fp, left - 6.0, SY(v) + 4.0, "end", 11, cli_fmt(t, sizeof t, v, yd));
+    }
+    fprintf(fp, "<rect x=\"%d\" y=\"%d\" width=\"%d\" height=\"%d\" fill=\"none\" "
+                "stroke=\"#404040\" stroke-width=\"1\"/>\n",
+            (int)left, (int)top, (int)(right - left), (int)(bottom - top));
+    for (size_t i = 0; i < p->nhlines; i++) {
+        double y = SY(p->hlines[i].y);
+        line(fp, left, y, right, y, "#7a7a7a", 1.5, "4 3");
+        label(fp, right - 4.0, y - 4.0, "end", 11, p->hlines[i].name);
+    }
+    for (size_t k = 0; k < p->ncurves; k++) {
+        const cli_svg_curve *cv = &p->curves[k];
+        const char *colour = palette[k % NPALETTE];
+        int pen = 0;
+        fputs("<path d=\"", fp);
+        for (size_t i = 0; i < cv->n; i++) {
+            if (!isfinite(cv->x[i]) || !isfinite(cv->y[i])) { pen = 0; continue; }
+            fputs(pen ? " L" : (i ? " M" : "M"), fp);
+            xy(fp, SX(cv->x[i]), SY(cv->y[i]));
+            pen = 1;
+        }
+        fprintf(fp, "\" fill=\"none\" stroke=\"%s\" stroke-width=\"2\"%s/>\n", colour,
+                cv->dashed ? " stroke-dasharray=\"7 4\"" : "");
+        for (size_t i = 0; cv->markers && i < cv->n; i++) {
+            if (!isfinite(cv->x[i]) || !isfinite(cv->y[i])) continue;
+            fputs("<circle cx=\"", fp);
+            num(fp, SX(cv->x[i]), 2);
+            fputs("\" cy=\"", fp);
+            num(fp, SY(cv->y[i]), 2);
+            fprintf(fp, "\" r=\"3\" fill=\"%s\"/>\n", colour);
+        }
+    }
+    label(fp, 0.5 * (left + right), bottom + 40.0, "middle", 13, p->x_label);
+    fputs("<text x=\"0\" y=\"0\" font-size=\"13\" text-anchor=\"middle\" transform=\"translate(22,", fp);
+    num(fp, 0.5 * (top + bottom), 2);
+    fputs(") rotate(-90)\">", fp);
+    text(fp, p->y_label);
+    fputs("</text>\n", fp);
+#undef SX
+#undef SY
+    legend_and_notes(fp, left, bottom + 70.0, p->curves, p->ncurves, p->note);
+    return close_svg(fp);
+}
+
+int cli_svg_save(const cli_ctx *ctx, const char *field, const char *path,
+                 const cli_svg_polar *polar, const cli_svg_xy *plot_xy)
+{
+    static const char expected[] = "a writable file path such as pattern.svg";
+    if (!path || !path[0])
+        return cli_error(ctx, field, expected, "file name is empty");
+    FILE *fp = fopen(path, "wb");
+    if (!fp)
+        return cli_error(ctx, field, expected, "cannot write '%s': %s", path, strerror(errno));
+    int bad = polar ? cli_svg_polar_write(fp, polar) : cli_svg_xy_write(fp, plot_xy);
+    int err = errno;
+    if (fclose(fp) != 0 && !bad) {
+        bad = -1;
+        err = errno;
+    }
+    if (bad)
+        return cli_error(ctx, field, expected, "writing '%s' failed: %s", path, strerror(err));
+    return 0;
+}
