@@ -223,8 +223,8 @@ static cxl_status parse_cell(const char *text, const struct column *col,
     if (st != CXL_OK)
         return report(ctx, st == CXL_ERANGE ? CXL_ERANGE : CXL_EPARSE, line,
                       "column %s: not a number: %.64s", col->header, text);
-    v *= col->scale;
-    if (col->prop >= 0 ? !prop_in_range(col->prop, v) : !(v > 0.0))
+    v *= col->scale; /* 1e305 MHz is finite, but not in Hz */
+    if (!isfinite(v) || (col->prop >= 0 ? !prop_in_range(col->prop, v) : !(v > 0.0)))
         return report(ctx, CXL_ERANGE, line, "column %s: out of range: %.64s",
                       col->header, text);
     *value = v;
