@@ -31,6 +31,7 @@
 #include <check.h>
 #include <float.h>
 #include <limits.h>
+#include <locale.h>
 #include <math.h>
 #include <stdint.h>
 #include <stdio.h>
@@ -191,6 +192,8 @@ static double text_out(const char *buf, size_t size, size_t cap)
     if (!nul) return NAN;
     if (strstr(buf, "nan") || strstr(buf, "inf") || strstr(buf, "NAN") || strstr(buf, "INF"))
         return NAN;
+    if (strchr(buf, ','))
+        return NAN; /* the decimal mark is '.', whatever the locale */
     return 0.0;
 }
 
@@ -1478,6 +1481,10 @@ static size_t count_probes(void)
 int main(void)
 {
     gsl_set_error_handler(gsl_abort_loudly);
+    /* walk under a comma-decimal locale where there is one: parsing and
+     * formatting must not notice */
+    if (!setlocale(LC_ALL, "de_DE.UTF-8"))
+        fprintf(stderr, "note: de_DE.UTF-8 not available, walking in the C locale\n");
     setup_objects();
     size_t distinct = 0;
     for (size_t i = 0; i < NCASES; i++)
