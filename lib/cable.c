@@ -366,7 +366,8 @@ static cxl_status load_cables(cxl_catalog *cat, cxl_csv_reader *rd, int builtin,
     if (st == CXL_OK && !grow((void **)&cat->rows, &cat->cap, cat->n + n, sizeof *cat->rows))
         st = CXL_ENOMEM;
     if (st == CXL_OK) {
-        memcpy(cat->rows + cat->n, staged, n * sizeof *staged);
+        if (n > 0) /* a header without rows stages nothing: staged is NULL */
+            memcpy(cat->rows + cat->n, staged, n * sizeof *staged);
         cat->n += n;
     } else {
         for (size_t i = 0; i < n; i++) cable_clear(&staged[i]);
