@@ -190,6 +190,7 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
 
     const char *format = NULL, *units = NULL, *input = NULL;
     int help = 0, c;
+    unsigned common_seen = 0; /* a common option given twice is an error, as for others */
     opterr = 0;
     optind = 0; /* glibc: full reset, so the driver can run more than once per process */
     while ((c = getopt_long(argc, argv, ":", longopts, NULL)) != -1) {
@@ -199,6 +200,13 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
         if (c == '?')
             return cli_error(&ctx, NULL, "an option listed by coaxline COMMAND --help",
                              "unknown option '%s'", argv[optind - 1]);
+        if (c >= OPT_FORMAT && c < OPT_HELP) {
+            unsigned bit = 1u << (c - OPT_FORMAT);
+            if (common_seen & bit)
+                return cli_error(&ctx, common_opts[c - OPT_FORMAT].name, "it once",
+                                 "given more than once");
+            common_seen |= bit;
+        }
         if (c == OPT_FORMAT) format = optarg;
         else if (c == OPT_UNITS) units = optarg;
         else if (c == OPT_INPUT) input = optarg;
@@ -234,8 +242,8 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
         else return cli_error(&ctx, "units", "metric or imperial", "unknown units '%s'", units);
     }
     if (input && !cmd->batch)
-        return cli_error(&ctx, "input", NULL, "the %s command does not take a batch file",
-                         cmd->name);
+        return cli_error(&ctx, "input", "the command without --input",
+                         "the %s command does not take a batch file", cmd->name);
 
     /* files named on the command line are read (and checked) even when no
      * row ends up needing the catalog */

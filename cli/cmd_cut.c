@@ -25,6 +25,15 @@ static const cli_col cut_cols[] = {
 };
 #define NCOLS (sizeof cut_cols / sizeof cut_cols[0])
 
+/* Limits that keep every number of a cut meaningful and printable in text,
+ * CSV and as a tape reading (common practice, no source): no piece of
+ * feedline is shorter than a millimetre (the text shows millimetres) or
+ * longer than 1000 km, and coax is not used above 1 THz. */
+#define CUT_MIN_M 1e-3
+#define CUT_MAX_M 1e6
+#define OFFSET_MAX_M 1e7
+#define FREQ_MAX_HZ 1e12
+
 static int cut_run(cli_ctx *ctx, const cli_args *a)
 {
     const char *kinds[] = { "offset", "delay", "degrees" };
@@ -51,8 +60,12 @@ static int cut_run(cli_ctx *ctx, const cli_args *a)
     double freq_hz[CLI_MAX_ITEMS];
     int nfreq = cli_items(ctx, a, "freq", buf, sizeof buf, items, CLI_MAX_ITEMS);
     if (nfreq < 0) return CLI_EXIT_USAGE;
-    for (int i = 0; i < nfreq; i++)
+    for (int i = 0; i < nfreq; i++) {
         if (cli_freq(ctx, "freq", items[i], &freq_hz[i])) return CLI_EXIT_USAGE;
+        if (freq_hz[i] > FREQ_MAX_HZ)
+            return cli_error(ctx, "freq", "a frequency up to 1 THz, such as 1.83MHz",
+                             "'%s' is above 1 THz", items[i]);
+    }
 
     double delay_s = 0.0, value;
     const char *text = cli_get(a, kinds[given], 0);
@@ -74,13 +87,25 @@ static int cut_run(cli_ctx *ctx, const cli_args *a)
         delay_s = value / (360.0 * freq_hz[0]);
     }
 
-    double cut_m, qw_hz, offset_m = delay_s * CXL_C_M_PER_S;
-    cxl_status st = cxl_line_cut_length(delay_s, vf, allowance_m, allowance_vf, &cut_m);
-    if (st == CXL_ERANGE)
+    char b1[96], b2[96];
+    double allowance_s = 0.0;
+    if (allowance_m > 0.0 &&
+        (cxl_line_delay_from_length(allowance_m, allowance_vf, &allowance_s) != CXL_OK ||
+         !(allowance_s < delay_s)))
         return cli_error(ctx, "allowance", "an allowance shorter than the line it is part of",
                          "the allowance alone already gives more than the wanted delay");
-    if (st != CXL_OK || cxl_line_quarter_wave_freq(cut_m, vf, &qw_hz) != CXL_OK)
-        return cli_error(ctx, kinds[given], "a smaller value", "%s", cxl_strerror(st));
+    /* the library's CXL_ERANGE here is an overflow, not the allowance */
+    double cut_m = 0.0, qw_hz = 0.0, offset_m = delay_s * CXL_C_M_PER_S;
+    char len[48] = "";
+    if (!(offset_m <= OFFSET_MAX_M) ||
+        cxl_line_cut_length(delay_s, vf, allowance_m, allowance_vf, &cut_m) != CXL_OK ||
+        cut_m > CUT_MAX_M)
+        snprintf(len, sizeof len, "over 1000 km");
+    else if (!(cut_m >= CUT_MIN_M) || cxl_line_quarter_wave_freq(cut_m, vf, &qw_hz) != CXL_OK)
+        snprintf(len, sizeof len, "of %s m", cli_fmt(b1, sizeof b1, cut_m, 6));
+    if (len[0])
+        return cli_error(ctx, kinds[given], "a cut length from 1 mm to 1000 km",
+                         "'%s' gives a cut length %s", text, len);
 
     const char *label = cli_label(a);
     if (ctx->format != CLI_TEXT) {
@@ -100,7 +125,6 @@ static int cut_run(cli_ctx *ctx, const cli_args *a)
         return CLI_EXIT_OK;
     }
 
-    char b1[96], b2[96];
     FILE *o = ctx->out;
     if (ctx->rows_out++) putc('\n', o);
     fprintf(o, "cut%s%s\n", label[0] ? ": " : "", label);

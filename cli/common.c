@@ -104,6 +104,7 @@ int cli_items(const cli_ctx *ctx, const cli_args *a, const char *name,
         memcpy(copy, v, len + 1);
         used += len + 1;
         char *save = NULL;
+        size_t before = n;
         for (char *tok = strtok_r(copy, ",;", &save); tok; tok = strtok_r(NULL, ",;", &save)) {
             while (*tok == ' ') tok++;
             if (*tok == '\0') continue;
@@ -112,6 +113,11 @@ int cli_items(const cli_ctx *ctx, const cli_args *a, const char *name,
                 return -1;
             }
             items[n++] = tok;
+        }
+        if (n == before) {
+            /* --freq '' or ',,' must not pass as "no frequency given" */
+            cli_error(ctx, name, "one or more values separated by commas", "value is empty");
+            return -1;
         }
     }
     return (int)n;

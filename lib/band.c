@@ -9,6 +9,7 @@
  * so a tolerance check run on them is never too lenient.
  */
 #include <config.h>
+#include <math.h>
 #include <stdlib.h>
 #include <string.h>
 #include "coaxline.h"
@@ -83,7 +84,7 @@ static cxl_status parse_khz(const char *text, double *hz)
 {
     double khz;
     if (cxl_units_parse_number(text, &khz, NULL) != CXL_OK) return CXL_EPARSE;
-    if (!cxl__finite_pos(khz)) return CXL_EPARSE;
+    if (!cxl__finite_pos(khz) || !isfinite(khz * 1e3)) return CXL_EPARSE;
     *hz = khz * 1e3;
     return CXL_OK;
 }

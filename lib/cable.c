@@ -223,8 +223,8 @@ static cxl_status parse_cell(const char *text, const struct column *col,
     if (st != CXL_OK)
         return report(ctx, st == CXL_ERANGE ? CXL_ERANGE : CXL_EPARSE, line,
                       "column %s: not a number: %.64s", col->header, text);
-    v *= col->scale;
-    if (col->prop >= 0 ? !prop_in_range(col->prop, v) : !(v > 0.0))
+    v *= col->scale; /* 1e305 MHz is finite, but not in Hz */
+    if (!isfinite(v) || (col->prop >= 0 ? !prop_in_range(col->prop, v) : !(v > 0.0)))
         return report(ctx, CXL_ERANGE, line, "column %s: out of range: %.64s",
                       col->header, text);
     *value = v;
@@ -366,7 +366,8 @@ static cxl_status load_cables(cxl_catalog *cat, cxl_csv_reader *rd, int builtin,
     if (st == CXL_OK && !grow((void **)&cat->rows, &cat->cap, cat->n + n, sizeof *cat->rows))
         st = CXL_ENOMEM;
     if (st == CXL_OK) {
-        memcpy(cat->rows + cat->n, staged, n * sizeof *staged);
+        if (n > 0) /* a header without rows stages nothing: staged is NULL */
+            memcpy(cat->rows + cat->n, staged, n * sizeof *staged);
         cat->n += n;
     } else {
         for (size_t i = 0; i < n; i++) cable_clear(&staged[i]);

@@ -146,7 +146,6 @@ enum { FIELD_START, UNQUOTED, QUOTED, QUOTE_END };
 cxl_status cxl_csv_reader_next(cxl_csv_reader *r, int *has_row)
 {
     if (!r || !has_row) return CXL_EINVAL;
-    *has_row = 0;
     if (r->at_start) {
         r->at_start = 0;
         if (peek_byte(r) == 0xEF) {
@@ -172,7 +171,7 @@ cxl_status cxl_csv_reader_next(cxl_csv_reader *r, int *has_row)
             if (c == 0) { skip_line(r); return CXL_EPARSE; }
             if (c < 0) {
                 if (state == QUOTED) return CXL_EPARSE;
-                if (!any) return CXL_OK; /* end of input */
+                if (!any) { *has_row = 0; return CXL_OK; } /* end of input */
                 break;
             }
             any = 1;

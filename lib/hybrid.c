@@ -15,6 +15,8 @@ cxl_status cxl_hybrid_inphase(double z_port_ohm, double *isolation_ohm,
 {
     if (!isolation_ohm || !common_ohm || !cxl__finite_pos(z_port_ohm))
         return CXL_EINVAL;
+    if (!isfinite(2.0 * z_port_ohm) || !(0.5 * z_port_ohm > 0.0))
+        return CXL_ERANGE; /* 2 Z overflows or Z / 2 underflows */
     *isolation_ohm = 2.0 * z_port_ohm;
     *common_ohm = 0.5 * z_port_ohm;
     return CXL_OK;

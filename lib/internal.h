@@ -11,6 +11,15 @@
 static inline int cxl__finite_pos(double x) { return isfinite(x) && x > 0.0; }
 static inline int cxl__finite_nonneg(double x) { return isfinite(x) && x >= 0.0; }
 static inline int cxl__valid_vf(double vf) { return isfinite(vf) && vf > 0.0 && vf <= 1.0; }
+/* Store a result only when it is finite: huge or tiny (but finite)
+ * arguments can overflow a formula, and no NaN or infinity may leave the
+ * library.  CXL_ERANGE otherwise, *out untouched. */
+static inline cxl_status cxl__put_finite(double v, double *out)
+{
+    if (!isfinite(v)) return CXL_ERANGE;
+    *out = v;
+    return CXL_OK;
+}
 
 /* Case-insensitive ASCII comparison of n bytes, locale-free. */
 int cxl__ascii_ncaseeq(const char *a, const char *b, size_t n);

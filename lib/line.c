@@ -2,6 +2,8 @@
  *
  * v = VF * c (phase velocity on the line); delay = L / v;
  * degrees = 360 f L / v.  A free-space offset d delays a wave by d / c.
+ * Arguments are finite, but a product of huge ones (or a quotient by a
+ * tiny one) need not be: such results are CXL_ERANGE, never infinity.
  */
 #include <config.h>
 #include <math.h>
@@ -13,8 +15,7 @@ cxl_status cxl_line_delay_from_length(double length_m, double vf,
 {
     if (!delay_s || !cxl__finite_nonneg(length_m) || !cxl__valid_vf(vf))
         return CXL_EINVAL;
-    *delay_s = length_m / (vf * CXL_C_M_PER_S);
-    return CXL_OK;
+    return cxl__put_finite(length_m / (vf * CXL_C_M_PER_S), delay_s);
 }
 
 cxl_status cxl_line_length_from_delay(double delay_s, double vf,
@@ -22,8 +23,7 @@ cxl_status cxl_line_length_from_delay(double delay_s, double vf,
 {
     if (!length_m || !cxl__finite_nonneg(delay_s) || !cxl__valid_vf(vf))
         return CXL_EINVAL;
-    *length_m = delay_s * vf * CXL_C_M_PER_S;
-    return CXL_OK;
+    return cxl__put_finite(delay_s * vf * CXL_C_M_PER_S, length_m);
 }
 
 cxl_status cxl_line_degrees_from_length(double length_m, double vf,
@@ -32,8 +32,7 @@ cxl_status cxl_line_degrees_from_length(double length_m, double vf,
     if (!phase_deg || !isfinite(length_m) || !cxl__valid_vf(vf) ||
         !cxl__finite_pos(freq_hz))
         return CXL_EINVAL;
-    *phase_deg = 360.0 * freq_hz * length_m / (vf * CXL_C_M_PER_S);
-    return CXL_OK;
+    return cxl__put_finite(360.0 * freq_hz * length_m / (vf * CXL_C_M_PER_S), phase_deg);
 }
 
 cxl_status cxl_line_length_from_degrees(double phase_deg, double freq_hz,
@@ -42,8 +41,7 @@ cxl_status cxl_line_length_from_degrees(double phase_deg, double freq_hz,
     if (!length_m || !isfinite(phase_deg) || !cxl__valid_vf(vf) ||
         !cxl__finite_pos(freq_hz))
         return CXL_EINVAL;
-    *length_m = phase_deg / 360.0 * vf * CXL_C_M_PER_S / freq_hz;
-    return CXL_OK;
+    return cxl__put_finite(phase_deg / 360.0 * vf * CXL_C_M_PER_S / freq_hz, length_m);
 }
 
 cxl_status cxl_line_degrees_from_delay(double delay_s, double freq_hz,
@@ -51,16 +49,14 @@ cxl_status cxl_line_degrees_from_delay(double delay_s, double freq_hz,
 {
     if (!phase_deg || !isfinite(delay_s) || !cxl__finite_pos(freq_hz))
         return CXL_EINVAL;
-    *phase_deg = 360.0 * freq_hz * delay_s;
-    return CXL_OK;
+    return cxl__put_finite(360.0 * freq_hz * delay_s, phase_deg);
 }
 
 cxl_status cxl_line_delay_from_offset(double offset_m, double *delay_s)
 {
     if (!delay_s || !isfinite(offset_m))
         return CXL_EINVAL;
-    *delay_s = offset_m / CXL_C_M_PER_S;
-    return CXL_OK;
+    return cxl__put_finite(offset_m / CXL_C_M_PER_S, delay_s);
 }
 
 cxl_status cxl_line_cut_length(double delay_s, double vf,
@@ -77,8 +73,7 @@ cxl_status cxl_line_cut_length(double delay_s, double vf,
         cable_delay_s -= allowance_m / (allowance_vf * CXL_C_M_PER_S);
     if (!(cable_delay_s > 0.0))
         return CXL_ERANGE;
-    *cut_length_m = cable_delay_s * vf * CXL_C_M_PER_S;
-    return CXL_OK;
+    return cxl__put_finite(cable_delay_s * vf * CXL_C_M_PER_S, cut_length_m);
 }
 
 cxl_status cxl_line_quarter_wave_freq(double length_m, double vf,
@@ -86,6 +81,5 @@ cxl_status cxl_line_quarter_wave_freq(double length_m, double vf,
 {
     if (!freq_hz || !cxl__finite_pos(length_m) || !cxl__valid_vf(vf))
         return CXL_EINVAL;
-    *freq_hz = vf * CXL_C_M_PER_S / (4.0 * length_m);
-    return CXL_OK;
+    return cxl__put_finite(vf * CXL_C_M_PER_S / (4.0 * length_m), freq_hz);
 }

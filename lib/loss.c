@@ -39,9 +39,10 @@ cxl_status cxl_loss_skin_depth_m(double freq_hz, double conductivity_s_per_m,
         !cxl__finite_pos(conductivity_s_per_m) ||
         !isfinite(relative_permeability) || !(relative_permeability > 0.0))
         return CXL_EINVAL;
-    *depth_m = 1.0 / sqrt(M_PI * freq_hz * MU0 * relative_permeability *
+    double d = 1.0 / sqrt(M_PI * freq_hz * MU0 * relative_permeability *
                           conductivity_s_per_m);
-    return CXL_OK;
+    if (!(d > 0.0)) return CXL_ERANGE; /* the product overflowed */
+    return cxl__put_finite(d, depth_m);
 }
 
 cxl_status cxl_loss_total_db(double matched_loss_db, double swr,
@@ -55,9 +56,11 @@ cxl_status cxl_loss_total_db(double matched_loss_db, double swr,
      * ML + 10 log10(1 - g^2/A^2) - 10 log10(1 - g^2), which neither
      * overflows for a long line nor loses digits for a short one. */
     double inv_a2 = pow(10.0, -matched_loss_db / 5.0);
-    *total_loss_db = matched_loss_db +
-                     (10.0 / M_LN10) * (log1p(-g2 * inv_a2) - log1p(-g2));
-    return CXL_OK;
+    /* an SWR so large that |G| rounds to 1 reflects everything: no finite
+     * total loss (CXL_ERANGE) */
+    return cxl__put_finite(matched_loss_db +
+                               (10.0 / M_LN10) * (log1p(-g2 * inv_a2) - log1p(-g2)),
+                           total_loss_db);
 }
 
 cxl_status cxl_loss_run_db(double loss_db_per_m, double length_m, double swr,
@@ -287,6 +290,15 @@ cxl_status cxl_loss_model_new(double inner_diameter_m, double dielectric_diamete
     m->tan_d = loss_tangent;
     m->sigma = conductivity_s_per_m;
     m->factor = conductor_loss_factor;
+    /* extreme but finite geometry or materials can put the range where
+     * the model holds at 0 or infinity: refuse it here rather than hand
+     * out a model whose every answer overflows */
+    double lo, hi;
+    cxl_loss_model_range(m, &lo, &hi);
+    if (!cxl__finite_pos(lo) || !cxl__finite_pos(hi) || !isfinite(log(m->b / m->a))) {
+        free(m);
+        return CXL_ERANGE;
+    }
     *model = m;
     return CXL_OK;
 }
@@ -394,6 +406,7 @@ static cxl_status model_rlgc(const cxl_loss_model *m, double freq_hz, unsigned f
         if (freq_hz < lo || freq_hz > hi) return CXL_EEXTRAPOLATE;
     }
     double omega = 2.0 * M_PI * freq_hz, ln_ba = log(m->b / m->a);
+    if (!isfinite(omega)) return CXL_ERANGE;
     gsl_complex zs_in = m->clad ? clad_surface_impedance(m, omega)
                                 : surface_impedance(omega, m->sigma, 1.0);
     gsl_complex zs_out = surface_impedance(omega, m->sigma, 1.0);
@@ -407,6 +420,11 @@ static cxl_status model_rlgc(const cxl_loss_model *m, double freq_hz, unsigned f
     if (!(flags & CXL_LOSS_EXTERNAL_L_ONLY)) out->l += GSL_IMAG(z_int) / omega;
     out->c = 2.0 * M_PI * EPS0 * m->eps_r / ln_ba;
     out->g = omega * out->c * m->tan_d;
+    /* far outside the model's range (allowed with CXL_LOSS_EXTRAPOLATE)
+     * or with extreme materials the terms can overflow */
+    if (!isfinite(out->r) || !isfinite(out->l) || !isfinite(out->c) || !isfinite(out->g) ||
+        !isfinite(omega * out->l) || !isfinite(omega * out->c))
+        return CXL_ERANGE;
     return CXL_OK;
 }
 
@@ -446,6 +464,8 @@ cxl_status cxl_loss_model_gamma(const cxl_loss_model *model, double freq_hz,
     cxl_status st = model_zy(model, freq_hz, flags, &z, &y);
     if (st != CXL_OK) return st;
     gsl_complex g = gsl_complex_sqrt(gsl_complex_mul(z, y)); /* principal root: alpha, beta >= 0 */
+    if (!isfinite(GSL_REAL(g)) || !isfinite(GSL_IMAG(g)) || !(GSL_IMAG(g) > 0.0))
+        return CXL_ERANGE;
     *alpha_np_per_m = GSL_REAL(g);
     *beta_rad_per_m = GSL_IMAG(g);
     return CXL_OK;
@@ -457,8 +477,8 @@ cxl_status cxl_loss_model_attenuation(const cxl_loss_model *model, double freq_h
     double alpha, beta;
     if (!loss_db_per_m) return CXL_EINVAL;
     cxl_status st = cxl_loss_model_gamma(model, freq_hz, flags, &alpha, &beta);
-    if (st == CXL_OK) *loss_db_per_m = DB_PER_NEPER * alpha;
-    return st;
+    if (st != CXL_OK) return st;
+    return cxl__put_finite(DB_PER_NEPER * alpha, loss_db_per_m);
 }
 
 cxl_status cxl_loss_model_z0(const cxl_loss_model *model, double freq_hz,
@@ -469,6 +489,8 @@ cxl_status cxl_loss_model_z0(const cxl_loss_model *model, double freq_hz,
     cxl_status st = model_zy(model, freq_hz, flags, &z, &y);
     if (st != CXL_OK) return st;
     gsl_complex z0 = gsl_complex_sqrt(gsl_complex_div(z, y));
+    if (!isfinite(GSL_REAL(z0)) || !isfinite(GSL_IMAG(z0)))
+        return CXL_ERANGE;
     *z0_re_ohm = GSL_REAL(z0);
     *z0_im_ohm = GSL_IMAG(z0);
     return CXL_OK;
@@ -480,6 +502,6 @@ cxl_status cxl_loss_model_vf(const cxl_loss_model *model, double freq_hz,
     double alpha, beta;
     if (!vf) return CXL_EINVAL;
     cxl_status st = cxl_loss_model_gamma(model, freq_hz, flags, &alpha, &beta);
-    if (st == CXL_OK) *vf = 2.0 * M_PI * freq_hz / (beta * CXL_C_M_PER_S);
-    return st;
+    if (st != CXL_OK) return st;
+    return cxl__put_finite(2.0 * M_PI * freq_hz / (beta * CXL_C_M_PER_S), vf);
 }

@@ -42,8 +42,7 @@ cxl_status cxl_pair_phase_error(double length_m, double reference_m, double vf,
     if (!phase_error_deg || !cxl__finite_pos(length_m) || !cxl__finite_pos(reference_m) ||
         !cxl__valid_vf(vf) || !cxl__finite_pos(freq_hz))
         return CXL_EINVAL;
-    *phase_error_deg = phase_deg(length_m - reference_m, vf, freq_hz);
-    return CXL_OK;
+    return cxl__put_finite(phase_deg(length_m - reference_m, vf, freq_hz), phase_error_deg);
 }
 
 cxl_status cxl_pair_phase_error_ref_deg(double length_m, double vf,
@@ -66,8 +65,7 @@ cxl_status cxl_pair_max_mismatch(double tolerance_deg, double vf, double freq_hz
     if (!delta_m || !cxl__finite_pos(tolerance_deg) || !cxl__valid_vf(vf) ||
         !cxl__finite_pos(freq_hz))
         return CXL_EINVAL;
-    *delta_m = tolerance_deg * vf * CXL_C_M_PER_S / (360.0 * freq_hz);
-    return CXL_OK;
+    return cxl__put_finite(tolerance_deg * vf * CXL_C_M_PER_S / (360.0 * freq_hz), delta_m);
 }
 
 static int valid_tolerances(double length_tol_m, double vf, double vf_tol)
@@ -85,9 +83,9 @@ cxl_status cxl_pair_phase_uncertainty(double length_m, double reference_m,
     cxl_status st = cxl_pair_phase_error(length_m, reference_m, vf, freq_hz, &err);
     if (st != CXL_OK) return st;
     if (!valid_tolerances(length_tol_m, vf, vf_tol)) return CXL_EINVAL;
-    *uncertainty_deg = phase_uncertainty(length_m - reference_m, vf, freq_hz,
-                                         length_tol_m, 1, vf_tol);
-    return CXL_OK;
+    return cxl__put_finite(phase_uncertainty(length_m - reference_m, vf, freq_hz,
+                                             length_tol_m, 1, vf_tol),
+                           uncertainty_deg);
 }
 
 cxl_status cxl_pair_check(const double *lengths_m, size_t count, double vf,
@@ -110,6 +108,8 @@ cxl_status cxl_pair_check(const double *lengths_m, size_t count, double vf,
     double delta = hi - lo;
     double err = phase_deg(delta, vf, freq_hz);
     double u = phase_uncertainty(delta, vf, freq_hz, length_tol_m, 2, vf_tol);
+    if (!isfinite(delta) || !isfinite(err) || !isfinite(u))
+        return CXL_ERANGE; /* huge lengths or tolerances overflow */
     *delta_m = delta;
     *phase_error_deg = err;
     *uncertainty_deg = u;

@@ -80,7 +80,9 @@ static size_t scan_unsigned(const char *s, size_t i, double *value,
     buf[i - start] = '\0';
     pthread_once(&c_locale_once, c_locale_init);
     double v = c_locale ? strtod_l(buf, NULL, c_locale) : strtod(buf, NULL);
-    *range_error = !isfinite(v);
+    /* too large, or a non-zero mantissa that underflowed to zero */
+    *range_error = !isfinite(v) ||
+                   (v == 0.0 && strcspn(buf, "123456789") < strcspn(buf, "eE"));
     *value = v;
     return i;
 }
@@ -341,6 +343,7 @@ static long long gcd_ll(long long a, long long b)
 cxl_status cxl_units_format_imperial(double length_m, char *buf, size_t size)
 {
     if (!buf || size == 0 || !isfinite(length_m)) return CXL_EINVAL;
+    char tmp[96]; /* buf is written only on success */
     double sixteenths = fabs(length_m) / M_PER_IN * 16.0;
     if (sixteenths > 1e15) return CXL_ERANGE;
     long long n = llround(sixteenths);
@@ -349,12 +352,13 @@ cxl_status cxl_units_format_imperial(double length_m, char *buf, size_t size)
     const char *sign = (length_m < 0 && n > 0) ? "-" : "";
     int w;
     if (frac == 0) {
-        w = snprintf(buf, size, "%s%lld ft %lld in", sign, feet, inches);
+        w = snprintf(tmp, sizeof tmp, "%s%lld ft %lld in", sign, feet, inches);
     } else {
         long long g = gcd_ll(frac, 16);
-        w = snprintf(buf, size, "%s%lld ft %lld %lld/%lld in", sign, feet,
+        w = snprintf(tmp, sizeof tmp, "%s%lld ft %lld %lld/%lld in", sign, feet,
                      inches, frac / g, 16 / g);
     }
     if (w < 0 || (size_t)w >= size) return CXL_ETOOLONG;
+    memcpy(buf, tmp, (size_t)w + 1);
     return CXL_OK;
 }

@@ -3,6 +3,7 @@
  * ThreadSanitizer in CI: build-aux/harden.sh tsan). */
 #include <config.h>
 #include <check.h>
+#include <locale.h>
 #include <pthread.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -47,9 +48,13 @@ static void work(int seed, char *digest, size_t size)
 
 static char expected[ROUNDS][256];
 
+/* Per-thread locale for thread_main: (locale_t)0 keeps the global one. */
+static locale_t thread_locale;
+
 static void *thread_main(void *arg)
 {
     long id = (long)arg;
+    if (thread_locale) uselocale(thread_locale);
     char got[256];
     long mismatches = 0;
     for (int round = 0; round < ROUNDS; round++) {
@@ -75,12 +80,38 @@ START_TEST(same_results_in_threads)
 }
 END_TEST
 
+/* The same under a per-thread comma-decimal locale (uselocale changes what
+ * strtod and printf do in that thread only, so a process-wide check would
+ * not see a library that leans on them). */
+START_TEST(same_results_under_thread_locale)
+{
+    thread_locale = newlocale(LC_ALL_MASK, "de_DE.UTF-8", (locale_t)0);
+    if (!thread_locale) {
+        fprintf(stderr, "note: de_DE.UTF-8 not available, per-thread locale check skipped\n");
+        return;
+    }
+    for (int i = 0; i < ROUNDS; i++) work(i, expected[i], sizeof expected[i]);
+    pthread_t th[NTHREADS];
+    for (long t = 0; t < NTHREADS; t++)
+        ck_assert_int_eq(pthread_create(&th[t], NULL, thread_main, (void *)t), 0);
+    for (int t = 0; t < NTHREADS; t++) {
+        void *res = NULL;
+        pthread_join(th[t], &res);
+        ck_assert_int_eq((long)res, 0);
+    }
+    ck_assert_str_ne(expected[0], "error");
+    freelocale(thread_locale);
+    thread_locale = (locale_t)0;
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("threads");
     TCase *tc = tcase_create("core");
     tcase_set_timeout(tc, 120);
     tcase_add_test(tc, same_results_in_threads);
+    tcase_add_test(tc, same_results_under_thread_locale);
     suite_add_tcase(s, tc);
     SRunner *sr = srunner_create(s);
     srunner_run_all(sr, CK_NORMAL);

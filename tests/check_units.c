@@ -107,7 +107,10 @@ START_TEST(frequencies_and_times)
     ck_assert_uint_eq(pos, 4);
     ck_assert_int_eq(cxl_units_parse_freq("1.8m", &v, &pos), CXL_EPARSE);
     ck_assert_int_eq(cxl_units_parse_time("5 parsecs", &v, &pos), CXL_EPARSE);
-    ck_assert_int_eq(cxl_units_parse_freq("1e-400", &v, &pos), CXL_OK); /* underflows to 0; caller checks sign */
+    /* a non-zero number that underflows to 0 is out of range, not zero */
+    ck_assert_int_eq(cxl_units_parse_freq("1e-400", &v, &pos), CXL_ERANGE);
+    ck_assert_int_eq(cxl_units_parse_freq("0e-400", &v, &pos), CXL_OK);
+    ck_assert(v == 0.0);
     ck_assert_int_eq(cxl_units_parse_freq("1e400", &v, &pos), CXL_ERANGE);
     ck_assert_int_eq(cxl_units_parse_freq(NULL, &v, &pos), CXL_EINVAL);
     ck_assert_int_eq(cxl_units_parse_freq("1", NULL, &pos), CXL_EINVAL);

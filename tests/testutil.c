@@ -36,9 +36,16 @@ char *temp_file(const char *text, size_t size)
 
 cli_result run_cli(const char *env, const char *args, const char *stdin_text)
 {
+    return run_cli_bytes(env, args, stdin_text ? stdin_text : "",
+                         stdin_text ? strlen(stdin_text) : 0);
+}
+
+cli_result run_cli_bytes(const char *env, const char *args, const char *stdin_bytes,
+                         size_t n)
+{
     const char *bin = getenv("COAXLINE_BIN");
     ck_assert_msg(bin != NULL, "COAXLINE_BIN is not set (run through make check)");
-    char *in = temp_file(stdin_text ? stdin_text : "", stdin_text ? strlen(stdin_text) : 0);
+    char *in = temp_file(stdin_bytes, n);
     char *out = temp_file("", 0), *err = temp_file("", 0);
     size_t len = strlen(bin) + strlen(args) + (env ? strlen(env) : 0) + 3 * 64 + 64;
     char *cmd = malloc(len);

@@ -2,6 +2,8 @@
 #ifndef COAXLINE_TESTUTIL_H
 #define COAXLINE_TESTUTIL_H
 
+#include <stddef.h>
+
 typedef struct cli_result {
     int rc;        /* exit status */
     char *out;     /* stdout, NUL-terminated (owned) */
@@ -12,6 +14,9 @@ typedef struct cli_result {
  * standard input and the extra environment assignments env (or NULL),
  * e.g. "LC_ALL=de_DE.UTF-8". */
 cli_result run_cli(const char *env, const char *args, const char *stdin_text);
+/* The same with n bytes of standard input, which may hold NUL bytes. */
+cli_result run_cli_bytes(const char *env, const char *args, const char *stdin_bytes,
+                         size_t n);
 void cli_result_free(cli_result *r);
 /* Number of lines in text. */
 int count_lines(const char *text);

@@ -1,0 +1,1528 @@
+/* check_api.c - every exported cxl_ function, given NULL or out-of-range
+ * arguments, returns a status and never aborts; results are never NaN or
+ * infinite; out-parameters are untouched on failure.
+ *
+ * The walk is table driven: each function has an adapter that maps an
+ * array of numbers (its numeric arguments) and a NULL mask (its pointer
+ * arguments, in signature order) to a call, copying every output into an
+ * array of doubles pre-filled with a sentinel.  For every table row:
+ *   1. the good arguments must succeed with finite outputs;
+ *   2. each pointer argument NULL in turn must fail (or, for an output
+ *      documented as optional, succeed), the other outputs untouched;
+ *   3. each numeric argument in turn gets every "bad" value of its kind
+ *      (NaN, +-inf, wrong sign, outside its documented range, an unknown
+ *      enum value ...): the call must fail with the outputs untouched;
+ *   4. each numeric argument in turn gets every "odd" value of its kind
+ *      (0, +-DBL_MAX, 1e308, the smallest subnormal ...): the call may
+ *      fail (outputs untouched) or succeed, but never with a NaN or an
+ *      infinity in its outputs;
+ *   5. rows of arguments that are bad only together (inner diameter not
+ *      smaller than the dielectric, vf_min >= vf_max ...) must fail.
+ * Functions returning size_t, void or a string (free, count, field, line,
+ * strerror, version) and text or file contents are checked by hand below.
+ * tests/api_coverage.sh fails the build when an exported function does not
+ * appear in this file.
+ *
+ * GSL's error handler is set to abort loudly: the library must validate
+ * its input before any GSL routine could see it.  Expected statuses are
+ * the header's documentation (lib/coaxline.h); no numeric reference values
+ * are checked here. */
+#include <config.h>
+#include <check.h>
+#include <float.h>
+#include <limits.h>
+#include <locale.h>
+#include <math.h>
+#include <stdint.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <gsl/gsl_errno.h>
+#include "coaxline.h"
+
+#define SENT 7777.0      /* representable as int, unsigned, size_t, double */
+#define NOUT 12
+#define MAXARGS 8
+
+/* ---- argument kinds ----------------------------------------------------- */
+
+typedef struct kind {
+    const char *name;
+    const double *bad;  /* must be refused */
+    size_t nbad;
+    const double *odd;  /* refused, or accepted with finite results */
+    size_t nodd;
+} kind;
+
+#define LIST(...) (const double[]){ __VA_ARGS__ }, \
+    sizeof((const double[]){ __VA_ARGS__ }) / sizeof(double)
+#define NONE NULL, 0
+#define NONFINITE NAN, INFINITY, -INFINITY
+#define HUGE_SMALL 1e308, DBL_MAX, DBL_MIN, DBL_TRUE_MIN, 1e-300
+
+/* reals */
+static const kind K_FIN = { "finite", LIST(NONFINITE),
+    LIST(0.0, -0.0, 1e308, -1e308, DBL_MAX, -DBL_MAX, DBL_TRUE_MIN, -DBL_TRUE_MIN, 1e-300) };
+static const kind K_POS = { "> 0", LIST(NONFINITE, 0.0, -0.0, -1.0, -DBL_MAX, -DBL_TRUE_MIN),
+    LIST(HUGE_SMALL) };
+static const kind K_NONNEG = { ">= 0", LIST(NONFINITE, -1.0, -DBL_MAX, -DBL_TRUE_MIN),
+    LIST(0.0, -0.0, HUGE_SMALL) };
+static const kind K_VF = { "velocity factor", LIST(NONFINITE, 0.0, -0.5, 1.0000001, 2.0, 66.0, DBL_MAX),
+    LIST(1.0, DBL_MIN, DBL_TRUE_MIN, 1e-300) };
+static const kind K_ELEV = { "elevation", LIST(NONFINITE, 90.0001, -90.0001, 1e308, -DBL_MAX),
+    LIST(90.0, -90.0, 0.0, DBL_TRUE_MIN) };
+static const kind K_IMB = { "imbalance dB", LIST(NONFINITE, 200.0001, -200.0001, DBL_MAX, -DBL_MAX),
+    LIST(200.0, -200.0, 0.0, DBL_TRUE_MIN) };
+static const kind K_SWR = { "swr", LIST(NONFINITE, 0.999, 0.0, -1.0, -DBL_MAX),
+    LIST(1.0, 1e308, DBL_MAX) };
+static const kind K_GAMMA = { "reflection part", LIST(NONFINITE, 1.5, -1.01, DBL_MAX),
+    LIST(1.0, -1.0, 0.0, DBL_TRUE_MIN) };
+static const kind K_DEPTH = { "null depth dB", LIST(NONFINITE, 0.0, 1.0, -300.0001, -DBL_MAX, DBL_MAX),
+    LIST(-300.0, -DBL_TRUE_MIN, -1e-300) };
+static const kind K_RATIO_DB = { "ratio dB", LIST(NONFINITE, 300.0, -300.0, DBL_MAX, -DBL_MAX),
+    LIST(299.9, -299.9, 0.0) };
+static const kind K_CONSIST = { "consistency", LIST(NONFINITE, 0.0, -0.1, 0.5001, DBL_MAX),
+    LIST(0.5, DBL_TRUE_MIN) };
+static const kind K_EPS_R = { ">= 1", LIST(NONFINITE, 0.999, 0.0, -1.0, -DBL_MAX),
+    LIST(1.0, 1e308, DBL_MAX) };
+static const kind K_TAND = { "loss tangent", LIST(NONFINITE, -0.1, 1.0, 2.0, DBL_MAX),
+    LIST(0.0, 0.999999, DBL_TRUE_MIN) };
+
+/* integers: only values an int, unsigned or size_t can hold */
+static const kind K_ORDER = { "order", LIST(0, -1, INT_MIN, 1001, INT_MAX), LIST(1000) };
+static const kind K_ORDER0 = { "order or 0", LIST(-1, INT_MIN, 1001, INT_MAX), LIST(0, 1000) };
+static const kind K_ELEMENT = { "element", LIST(-1, 2, INT_MIN, INT_MAX), NONE };
+static const kind K_ENUM2 = { "enum of two", LIST(-1, 2, 99, INT_MIN, INT_MAX), NONE };
+static const kind K_REGION = { "region", LIST(-1, 4, INT_MIN, INT_MAX), LIST(0, 3) };
+static const kind K_DECIMALS = { "decimals", LIST(-1, 18, INT_MIN, INT_MAX), LIST(0, 17) };
+static const kind K_PROP = { "cable property", LIST(-1, 11, INT_MIN, INT_MAX), NONE };
+static const kind K_ANYINT = { "any int", NONE, LIST(0, -1, INT_MIN, INT_MAX) };
+static const kind K_FLAGS = { "loss flags", LIST(4, 8, 0x80000000u, UINT_MAX), LIST(0, 1, 2, 3) };
+static const kind K_TURNS = { "turns", LIST(0), LIST(1, 1000, UINT_MAX) };
+static const kind K_MAXTURNS = { "max turns", LIST(0, 257, UINT_MAX), LIST(1, 256) };
+static const kind K_COUNT1 = { "count >= 1 (within the test's buffer)", LIST(0), NONE };
+static const kind K_INDEX = { "index", LIST(1e6, 1e15, (double)SIZE_MAX), NONE };
+static const kind K_COUNT3 = { "count of 3 readings", LIST(0, 2, 4, 1e6, (double)SIZE_MAX), NONE };
+static const kind K_BUFSIZE = { "buffer size", LIST(0), LIST(1, 2, 5) };
+static const kind K_TEXTSIZE = { "text size (within the text)", NONE, LIST(0, 1) };
+
+static int to_int(double v)
+{
+    return v >= INT_MAX ? INT_MAX : v <= INT_MIN ? INT_MIN : (int)v;
+}
+static unsigned to_uint(double v)
+{
+    return v >= UINT_MAX ? UINT_MAX : v <= 0 ? 0u : (unsigned)v;
+}
+static size_t to_size(double v)
+{
+    return v >= 1.8e19 ? SIZE_MAX : v <= 0 ? 0u : (size_t)v;
+}
+
+/* ---- the table -------------------------------------------------------- */
+
+typedef cxl_status (*call_fn)(const double *a, double *o, unsigned nulls);
+
+typedef struct api_case {
+    const char *fn;
+    call_fn call;
+    size_t nargs;
+    double good[MAXARGS];
+    const kind *kinds[MAXARGS];
+    unsigned nptr;            /* pointer arguments, in signature order */
+    unsigned optional;        /* mask: pointers documented as optional */
+    size_t nout;              /* outputs written to o[0..nout-1] */
+    size_t nbadrows;
+    double badrows[3][MAXARGS];
+} api_case;
+
+/* Pointer argument j, or NULL when its bit is set. */
+#define P(j, p) (((nulls >> (j)) & 1u) ? NULL : (p))
+#define ADAPTER(name) static cxl_status call_##name(const double *a, double *o, unsigned nulls)
+
+/* A sentinel handle: never dereferenced, only compared. */
+static char sentinel_object;
+#define SENT_PTR ((void *)&sentinel_object)
+static const char sentinel_text[] = "sentinel";
+
+/* An output handle or string: SENT when untouched, 0 when set, NaN when
+ * set to NULL (a success must never hand back NULL). */
+static double ptr_out(const void *p)
+{
+    return p == SENT_PTR || p == (const void *)sentinel_text ? SENT : p ? 0.0 : NAN;
+}
+
+/* Global objects the walk works on, built once in main(). */
+static cxl_bands *g_bands;
+static cxl_catalog *g_cat;
+static size_t g_user;          /* a user cable with two loss points */
+static cxl_stub *g_stub;       /* readings on one length */
+static cxl_stub_result *g_res1;
+static cxl_stub_result *g_res2; /* readings on two lengths: fixture fitted */
+static cxl_loss_fit *g_fit;
+static cxl_loss_model *g_model;
+static cxl_array_pair *g_pair;  /* end-fire pair of long wires */
+
+/* A read stream over text (a new one per call). */
+static FILE *text_stream(const char *text)
+{
+    FILE *fp = fmemopen((void *)text, strlen(text), "r");
+    if (!fp) {
+        perror("fmemopen");
+        abort();
+    }
+    return fp;
+}
+
+static const char good_bands_csv[] =
+    "band,service,region,low_khz,high_khz,footnote,source\n"
+    "160m,amateur,1,1810,2000,,invented test row\n";
+static const char good_cables_csv[] = "name,vf\nbench-spool,0.83\n";
+static const char good_loss_csv[] =
+    "name,freq_mhz,loss_db_per_100m\nbench-spool,1.8,1.2\nbench-spool,30,5.5\n";
+
+/* Text formatted into a buffer: SENT untouched, 0 for a clean result,
+ * NaN for no terminator or a "nan"/"inf" in the text. */
+static double text_out(const char *buf, size_t size, size_t cap)
+{
+    size_t k;
+    for (k = 0; k < cap - 1 && buf[k] == 'Z'; k++) {}
+    if (k == cap - 1) return SENT;
+    const char *nul = memchr(buf, '\0', size < cap ? size : cap);
+    if (!nul) return NAN;
+    if (strstr(buf, "nan") || strstr(buf, "inf") || strstr(buf, "NAN") || strstr(buf, "INF"))
+        return NAN;
+    if (strchr(buf, ','))
+        return NAN; /* the decimal mark is '.', whatever the locale */
+    return 0.0;
+}
+
+/* A constructor: the handle is set on success, untouched on failure. */
+#define NEW_ADAPTER(name, type, call, free_fn)                               \
+    ADAPTER(name)                                                            \
+    {                                                                        \
+        (void)a;                                                             \
+        type *h = SENT_PTR;                                                  \
+        cxl_status st = call;                                                \
+        o[0] = ptr_out(h);                                                   \
+        if (st == CXL_OK) free_fn(h);                                        \
+        return st;                                                           \
+    }
+
+/* units.c: a parse sets the value, or leaves it and sets the position */
+#define PARSE_ADAPTER(name, call)                                            \
+    ADAPTER(name)                                                            \
+    {                                                                        \
+        (void)a;                                                             \
+        size_t pos = (size_t)SENT;                                           \
+        cxl_status st = call;                                                \
+        o[1] = (double)pos == SENT ? SENT : 0.0;                             \
+        return st;                                                           \
+    }
+PARSE_ADAPTER(parse_number, cxl_units_parse_number(P(0, " -12.5e1 "), P(1, &o[0]), P(2, &pos)))
+PARSE_ADAPTER(parse_length, cxl_units_parse_length(P(0, "41' 6 3/8\""), (cxl_units)to_int(a[0]),
+                                                   P(1, &o[0]), P(2, &pos)))
+PARSE_ADAPTER(parse_freq, cxl_units_parse_freq(P(0, "1830kHz"), P(1, &o[0]), P(2, &pos)))
+PARSE_ADAPTER(parse_time, cxl_units_parse_time(P(0, "33.4ns"), P(1, &o[0]), P(2, &pos)))
+
+/* a[size_arg] is the buffer size given (the buffer holds 600) */
+#define FORMAT_ADAPTER(name, size_arg, call)                                 \
+    ADAPTER(name)                                                            \
+    {                                                                        \
+        char buf[600];                                                       \
+        memset(buf, 'Z', sizeof buf);                                        \
+        size_t size = to_size(a[size_arg]);                                  \
+        cxl_status st = call;                                                \
+        o[0] = text_out(buf, size, sizeof buf);                              \
+        return st;                                                           \
+    }
+FORMAT_ADAPTER(format_fixed, 2, cxl_units_format_fixed(a[0], to_int(a[1]), P(0, buf), size))
+FORMAT_ADAPTER(format_roundtrip, 1, cxl_units_format_roundtrip(a[0], P(0, buf), size))
+FORMAT_ADAPTER(format_imperial, 1, cxl_units_format_imperial(a[0], P(0, buf), size))
+
+/* line.c */
+ADAPTER(delay_from_length) { return cxl_line_delay_from_length(a[0], a[1], P(0, &o[0])); }
+ADAPTER(length_from_delay) { return cxl_line_length_from_delay(a[0], a[1], P(0, &o[0])); }
+ADAPTER(degrees_from_length)
+{
+    return cxl_line_degrees_from_length(a[0], a[1], a[2], P(0, &o[0]));
+}
+ADAPTER(length_from_degrees)
+{
+    return cxl_line_length_from_degrees(a[0], a[1], a[2], P(0, &o[0]));
+}
+ADAPTER(degrees_from_delay) { return cxl_line_degrees_from_delay(a[0], a[1], P(0, &o[0])); }
+ADAPTER(delay_from_offset) { return cxl_line_delay_from_offset(a[0], P(0, &o[0])); }
+ADAPTER(cut_length) { return cxl_line_cut_length(a[0], a[1], a[2], a[3], P(0, &o[0])); }
+ADAPTER(quarter_wave) { return cxl_line_quarter_wave_freq(a[0], a[1], P(0, &o[0])); }
+
+/* csv.c */
+ADAPTER(reader_new_stream)
+{
+    (void)a;
+    FILE *fp = text_stream("a,b\n");
+    cxl_csv_reader *r = SENT_PTR;
+    cxl_status st = cxl_csv_reader_new_stream(P(0, fp), P(1, &r));
+    o[0] = ptr_out(r);
+    if (st == CXL_OK) cxl_csv_reader_free(r);
+    fclose(fp);
+    return st;
+}
+ADAPTER(reader_new_buffer)
+{
+    static const char text[] = "a,b\n1,2\n";
+    cxl_csv_reader *r = SENT_PTR;
+    cxl_status st = cxl_csv_reader_new_buffer(P(0, text), to_size(a[0]), P(1, &r));
+    o[0] = ptr_out(r);
+    if (st == CXL_OK) cxl_csv_reader_free(r);
+    return st;
+}
+ADAPTER(reader_next)
+{
+    (void)a;
+    static const char text[] = "a,b\n1,2\n";
+    cxl_csv_reader *r = NULL;
+    ck_assert_int_eq(cxl_csv_reader_new_buffer(text, sizeof text - 1, &r), CXL_OK);
+    int has = (int)SENT;
+    cxl_status st = cxl_csv_reader_next(P(0, r), P(1, &has));
+    o[0] = has;
+    cxl_csv_reader_free(r);
+    return st;
+}
+ADAPTER(write_field)
+{
+    (void)o;
+    FILE *fp = tmpfile();
+    ck_assert_ptr_nonnull(fp);
+    cxl_status st = cxl_csv_write_field(P(0, fp), P(1, "=1+2, \"x\""), to_int(a[0]));
+    fclose(fp);
+    return st;
+}
+
+/* band.c */
+NEW_ADAPTER(bands_new, cxl_bands, cxl_bands_new(P(0, &h)), cxl_bands_free)
+ADAPTER(bands_new_stream)
+{
+    (void)a;
+    FILE *fp = text_stream(good_bands_csv);
+    cxl_bands *b = SENT_PTR;
+    size_t line = (size_t)SENT;
+    cxl_status st = cxl_bands_new_stream(P(0, fp), P(1, &b), P(2, &line));
+    o[0] = ptr_out(b);
+    o[1] = (double)line;
+    if (st == CXL_OK) cxl_bands_free(b);
+    fclose(fp);
+    return st;
+}
+ADAPTER(bands_get)
+{
+    const char *name = sentinel_text, *foot = sentinel_text, *src = sentinel_text;
+    cxl_service service = (cxl_service)SENT;
+    int region = (int)SENT;
+    cxl_status st = cxl_bands_get(P(0, g_bands), to_size(a[0]), P(1, &name), P(2, &service),
+                                  P(3, &region), P(4, &o[0]), P(5, &o[1]), P(6, &foot),
+                                  P(7, &src));
+    o[2] = ptr_out(name);
+    o[3] = (double)service;
+    o[4] = region;
+    o[5] = ptr_out(foot);
+    o[6] = ptr_out(src);
+    return st;
+}
+ADAPTER(bands_edges)
+{
+    return cxl_bands_edges(P(0, g_bands), P(1, "160m"), to_int(a[0]), to_int(a[1]),
+                           P(2, &o[0]), P(3, &o[1]));
+}
+
+/* stub.c */
+ADAPTER(stub_wavelengths)
+{
+    return cxl_stub_wavelengths((cxl_stub_end)to_int(a[0]), to_int(a[1]), P(0, &o[0]));
+}
+ADAPTER(stub_vf_from_resonance)
+{
+    return cxl_stub_vf_from_resonance((cxl_stub_end)to_int(a[0]), to_int(a[1]), a[2], a[3],
+                                      a[4], a[5], P(0, &o[0]));
+}
+ADAPTER(stub_resonance_freq)
+{
+    return cxl_stub_resonance_freq((cxl_stub_end)to_int(a[0]), to_int(a[1]), a[2], a[3],
+                                   a[4], a[5], P(0, &o[0]));
+}
+NEW_ADAPTER(stub_new, cxl_stub, cxl_stub_new((cxl_stub_end)to_int(a[0]), P(0, &h)), cxl_stub_free)
+/* Setters work on a fresh stub, so the walk never changes g_stub. */
+static cxl_stub *fresh_stub(void)
+{
+    cxl_stub *s = NULL;
+    ck_assert_int_eq(cxl_stub_new(CXL_STUB_OPEN, &s), CXL_OK);
+    return s;
+}
+#define STUB_SETTER(name, call)                                              \
+    ADAPTER(name)                                                            \
+    {                                                                        \
+        (void)o;                                                             \
+        cxl_stub *s = fresh_stub();                                          \
+        cxl_status st = call;                                                \
+        cxl_stub_free(s);                                                    \
+        return st;                                                           \
+    }
+STUB_SETTER(stub_set_fixture, cxl_stub_set_fixture(P(0, s), a[0], a[1]))
+STUB_SETTER(stub_set_tolerances, cxl_stub_set_tolerances(P(0, s), a[0], a[1]))
+STUB_SETTER(stub_set_vf_range, cxl_stub_set_vf_range(P(0, s), a[0], a[1]))
+STUB_SETTER(stub_set_consistency, cxl_stub_set_consistency(P(0, s), a[0]))
+STUB_SETTER(stub_set_orders, cxl_stub_set_orders(P(0, s), (cxl_stub_orders)to_int(a[0])))
+STUB_SETTER(stub_add_reading, cxl_stub_add_reading(P(0, s), a[0], a[1], to_int(a[2])))
+ADAPTER(stub_infer_orders)
+{
+    int orders[3] = { (int)SENT, (int)SENT, (int)SENT };
+    cxl_status st = cxl_stub_infer_orders(P(0, g_stub), P(1, orders), to_size(a[0]));
+    for (int k = 0; k < 3; k++) o[k] = orders[k];
+    return st;
+}
+NEW_ADAPTER(stub_fit, cxl_stub_result, cxl_stub_fit(P(0, g_stub), P(1, &h)), cxl_stub_result_free)
+ADAPTER(stub_result_vf)
+{
+    (void)a;
+    return cxl_stub_result_vf(P(0, g_res1), P(1, &o[0]), P(2, &o[1]));
+}
+ADAPTER(stub_result_vf_budget)
+{
+    (void)a;
+    return cxl_stub_result_vf_budget(P(0, g_res1), P(1, &o[0]), P(2, &o[1]), P(3, &o[2]));
+}
+ADAPTER(stub_result_fixture)
+{
+    (void)a;
+    return cxl_stub_result_fixture(P(0, g_res2), P(1, &o[0]), P(2, &o[1]), P(3, &o[2]));
+}
+ADAPTER(stub_result_flags)
+{
+    (void)a;
+    unsigned flags = (unsigned)SENT;
+    cxl_status st = cxl_stub_result_flags(P(0, g_res1), P(1, &flags));
+    o[0] = flags;
+    return st;
+}
+ADAPTER(stub_result_reading)
+{
+    int order = (int)SENT;
+    cxl_status st = cxl_stub_result_reading(P(0, g_res1), to_size(a[0]), P(1, &o[0]),
+                                            P(2, &o[1]), P(3, &order), P(4, &o[2]),
+                                            P(5, &o[3]), P(6, &o[4]));
+    o[5] = order;
+    return st;
+}
+
+/* pair.c */
+ADAPTER(pair_phase_error)
+{
+    return cxl_pair_phase_error(a[0], a[1], a[2], a[3], P(0, &o[0]));
+}
+ADAPTER(pair_phase_error_ref_deg)
+{
+    return cxl_pair_phase_error_ref_deg(a[0], a[1], a[2], a[3], a[4], P(0, &o[0]));
+}
+ADAPTER(pair_max_mismatch) { return cxl_pair_max_mismatch(a[0], a[1], a[2], P(0, &o[0])); }
+ADAPTER(pair_phase_uncertainty)
+{
+    return cxl_pair_phase_uncertainty(a[0], a[1], a[2], a[3], a[4], a[5], P(0, &o[0]));
+}
+ADAPTER(pair_check)
+{
+    double lengths[2] = { a[0], a[1] };
+    cxl_verdict v = (cxl_verdict)SENT;
+    cxl_status st = cxl_pair_check(P(0, lengths), to_size(a[2]), a[3], a[4], a[5], a[6], a[7],
+                                   P(1, &o[0]), P(2, &o[1]), P(3, &o[2]), P(4, &v));
+    o[3] = (double)v;
+    return st;
+}
+
+/* cable.c */
+NEW_ADAPTER(catalog_new, cxl_catalog, cxl_catalog_new(P(0, &h)), cxl_catalog_free)
+ADAPTER(catalog_load_cables)
+{
+    (void)a;
+    cxl_catalog *c = NULL;
+    ck_assert_int_eq(cxl_catalog_new(&c), CXL_OK);
+    FILE *fp = text_stream(good_cables_csv);
+    char text[128];
+    size_t line = (size_t)SENT;
+    memset(text, 'Z', sizeof text);
+    cxl_status st = cxl_catalog_load_cables(P(0, c), P(1, fp), P(2, "bench.csv"), P(3, &line),
+                                            P(4, text), sizeof text);
+    if (st != CXL_OK) o[0] = (double)line; /* written on error only */
+    fclose(fp);
+    cxl_catalog_free(c);
+    return st;
+}
+ADAPTER(catalog_load_loss)
+{
+    (void)a;
+    cxl_catalog *c = NULL;
+    ck_assert_int_eq(cxl_catalog_new(&c), CXL_OK);
+    FILE *fp = text_stream(good_cables_csv);
+    ck_assert_int_eq(cxl_catalog_load_cables(c, fp, NULL, NULL, NULL, 0), CXL_OK);
+    fclose(fp);
+    fp = text_stream(good_loss_csv);
+    char text[128];
+    size_t line = (size_t)SENT;
+    cxl_status st = cxl_catalog_load_loss(P(0, c), P(1, fp), P(2, "loss.csv"), P(3, &line),
+                                          P(4, text), sizeof text);
+    if (st != CXL_OK) o[0] = (double)line;
+    fclose(fp);
+    cxl_catalog_free(c);
+    return st;
+}
+ADAPTER(catalog_count)
+{
+    (void)a;
+    size_t n = (size_t)SENT;
+    cxl_status st = cxl_catalog_count(P(0, g_cat), P(1, &n));
+    o[0] = (double)n;
+    return st;
+}
+ADAPTER(catalog_find)
+{
+    (void)a;
+    size_t i = (size_t)SENT;
+    cxl_status st = cxl_catalog_find(P(0, g_cat), P(1, "bench-spool"), P(2, &i));
+    o[0] = (double)i;
+    return st;
+}
+#define CATALOG_TEXT(name, fn)                                               \
+    ADAPTER(name)                                                            \
+    {                                                                        \
+        const char *s = sentinel_text;                                       \
+        cxl_status st = fn(P(0, g_cat), to_size(a[0]), P(1, &s));            \
+        o[0] = ptr_out(s);                                                   \
+        return st;                                                           \
+    }
+CATALOG_TEXT(catalog_name, cxl_catalog_name)
+CATALOG_TEXT(catalog_dielectric, cxl_catalog_dielectric)
+CATALOG_TEXT(catalog_source, cxl_catalog_source)
+ADAPTER(catalog_is_builtin)
+{
+    int b = (int)SENT;
+    cxl_status st = cxl_catalog_is_builtin(P(0, g_cat), to_size(a[0]), P(1, &b));
+    o[0] = b;
+    return st;
+}
+ADAPTER(catalog_value)
+{
+    return cxl_catalog_value(P(0, g_cat), to_size(a[0]), (cxl_cable_prop)to_int(a[1]),
+                             P(1, &o[0]));
+}
+ADAPTER(catalog_loss_count)
+{
+    size_t n = (size_t)SENT;
+    cxl_status st = cxl_catalog_loss_count(P(0, g_cat), to_size(a[0]), P(1, &n));
+    o[0] = (double)n;
+    return st;
+}
+ADAPTER(catalog_loss_point)
+{
+    const char *src = sentinel_text;
+    cxl_status st = cxl_catalog_loss_point(P(0, g_cat), to_size(a[0]), to_size(a[1]),
+                                           P(1, &o[0]), P(2, &o[1]), P(3, &src));
+    o[2] = ptr_out(src);
+    return st;
+}
+
+/* loss.c */
+ADAPTER(loss_fit_new)
+{
+    double f[2] = { a[0], a[1] }, l[2] = { a[2], a[3] };
+    cxl_loss_fit *fit = SENT_PTR;
+    cxl_status st = cxl_loss_fit_new(P(0, f), P(1, l), to_size(a[4]), P(2, &fit));
+    o[0] = ptr_out(fit);
+    if (st == CXL_OK) {
+        /* a fit that succeeded must evaluate to a finite value in range */
+        double lo, hi, v;
+        ck_assert_int_eq(cxl_loss_fit_range(fit, &lo, &hi), CXL_OK);
+        cxl_status e = cxl_loss_fit_eval(fit, lo, 0, &v);
+        if (e == CXL_OK) o[1] = v;
+        cxl_loss_fit_free(fit);
+    }
+    return st;
+}
+NEW_ADAPTER(loss_fit_new_cable, cxl_loss_fit,
+            cxl_loss_fit_new_cable(P(0, g_cat), to_size(a[0]), P(1, &h)), cxl_loss_fit_free)
+ADAPTER(loss_fit_coefficients)
+{
+    (void)a;
+    return cxl_loss_fit_coefficients(P(0, g_fit), P(1, &o[0]), P(2, &o[1]));
+}
+ADAPTER(loss_fit_range)
+{
+    (void)a;
+    return cxl_loss_fit_range(P(0, g_fit), P(1, &o[0]), P(2, &o[1]));
+}
+ADAPTER(loss_fit_count)
+{
+    (void)a;
+    size_t n = (size_t)SENT;
+    cxl_status st = cxl_loss_fit_count(P(0, g_fit), P(1, &n));
+    o[0] = (double)n;
+    return st;
+}
+ADAPTER(loss_fit_point)
+{
+    return cxl_loss_fit_point(P(0, g_fit), to_size(a[0]), P(1, &o[0]), P(2, &o[1]),
+                              P(3, &o[2]));
+}
+ADAPTER(loss_fit_max_relative_residual)
+{
+    (void)a;
+    return cxl_loss_fit_max_relative_residual(P(0, g_fit), P(1, &o[0]));
+}
+ADAPTER(loss_fit_eval)
+{
+    return cxl_loss_fit_eval(P(0, g_fit), a[0], to_uint(a[1]), P(1, &o[0]));
+}
+ADAPTER(loss_model_new)
+{
+    cxl_loss_model *m = SENT_PTR;
+    cxl_status st = cxl_loss_model_new(a[0], a[1], a[2], a[3], a[4], a[5], P(0, &m));
+    o[0] = ptr_out(m);
+    if (st == CXL_OK) {
+        /* a model that was accepted must state a finite range (it may be
+         * empty: lo above hi for a freak geometry) */
+        double lo = NAN, hi = NAN;
+        ck_assert_int_eq(cxl_loss_model_range(m, &lo, &hi), CXL_OK);
+        o[1] = lo;
+        o[2] = hi;
+        cxl_loss_model_free(m);
+    }
+    return st;
+}
+NEW_ADAPTER(loss_model_new_cable, cxl_loss_model,
+            cxl_loss_model_new_cable(P(0, g_cat), to_size(a[0]), P(1, &h)), cxl_loss_model_free)
+ADAPTER(loss_model_set_clad)
+{
+    cxl_loss_model *m = NULL;
+    ck_assert_int_eq(cxl_loss_model_new(0.81e-3, 2.95e-3, 2.25, 2e-4, 58e6, 1.0, &m), CXL_OK);
+    cxl_status st = cxl_loss_model_set_clad(P(0, m), a[0], a[1], a[2]);
+    if (st == CXL_OK) {
+        /* the clad centre must still evaluate to finite numbers */
+        double alpha, beta;
+        cxl_status e = cxl_loss_model_gamma(m, 1e6, CXL_LOSS_EXTRAPOLATE, &alpha, &beta);
+        if (e == CXL_OK) { o[0] = alpha; o[1] = beta; }
+    }
+    cxl_loss_model_free(m);
+    return st;
+}
+ADAPTER(loss_model_range)
+{
+    (void)a;
+    return cxl_loss_model_range(P(0, g_model), P(1, &o[0]), P(2, &o[1]));
+}
+ADAPTER(loss_model_rlgc)
+{
+    return cxl_loss_model_rlgc(P(0, g_model), a[0], to_uint(a[1]), P(1, &o[0]), P(2, &o[1]),
+                               P(3, &o[2]), P(4, &o[3]));
+}
+ADAPTER(loss_model_gamma)
+{
+    return cxl_loss_model_gamma(P(0, g_model), a[0], to_uint(a[1]), P(1, &o[0]), P(2, &o[1]));
+}
+ADAPTER(loss_model_attenuation)
+{
+    return cxl_loss_model_attenuation(P(0, g_model), a[0], to_uint(a[1]), P(1, &o[0]));
+}
+ADAPTER(loss_model_z0)
+{
+    return cxl_loss_model_z0(P(0, g_model), a[0], to_uint(a[1]), P(1, &o[0]), P(2, &o[1]));
+}
+ADAPTER(loss_model_vf)
+{
+    return cxl_loss_model_vf(P(0, g_model), a[0], to_uint(a[1]), P(1, &o[0]));
+}
+ADAPTER(loss_skin_depth) { return cxl_loss_skin_depth_m(a[0], a[1], a[2], P(0, &o[0])); }
+ADAPTER(loss_total_db) { return cxl_loss_total_db(a[0], a[1], P(0, &o[0])); }
+ADAPTER(loss_run_db) { return cxl_loss_run_db(a[0], a[1], a[2], P(0, &o[0]), P(1, &o[1])); }
+
+/* array.c */
+NEW_ADAPTER(pair_new, cxl_array_pair, cxl_array_pair_new(P(0, &h)), cxl_array_pair_free)
+NEW_ADAPTER(pair_copy, cxl_array_pair, cxl_array_pair_copy(P(0, g_pair), P(1, &h)),
+            cxl_array_pair_free)
+/* Setters work on a copy of g_pair; an accepted value must leave a pair
+ * whose forward response is finite or refused. */
+static cxl_array_pair *fresh_pair(void)
+{
+    cxl_array_pair *p = NULL;
+    ck_assert_int_eq(cxl_array_pair_copy(g_pair, &p), CXL_OK);
+    return p;
+}
+static void probe_pair(const cxl_array_pair *p, double *o)
+{
+    double r;
+    if (cxl_array_response(p, 1.83e6, 0.0, 15.0, &r) == CXL_OK) o[0] = r;
+}
+#define PAIR_SETTER(name, call)                                              \
+    ADAPTER(name)                                                            \
+    {                                                                        \
+        cxl_array_pair *p = fresh_pair();                                    \
+        cxl_status st = call;                                                \
+        if (st == CXL_OK) probe_pair(p, o);                                  \
+        cxl_array_pair_free(p);                                              \
+        return st;                                                           \
+    }
+PAIR_SETTER(pair_set_geometry, cxl_array_pair_set_geometry(P(0, p), a[0], a[1]))
+PAIR_SETTER(pair_set_delay, cxl_array_pair_set_delay(P(0, p), to_int(a[0]), a[1]))
+PAIR_SETTER(pair_set_delay_deg,
+            cxl_array_pair_set_delay_deg(P(0, p), to_int(a[0]), a[1], a[2]))
+PAIR_SETTER(pair_set_phase_offset,
+            cxl_array_pair_set_phase_offset(P(0, p), to_int(a[0]), a[1]))
+PAIR_SETTER(pair_set_flip, cxl_array_pair_set_flip(P(0, p), to_int(a[0]), to_int(a[1])))
+PAIR_SETTER(pair_set_imbalance, cxl_array_pair_set_imbalance(P(0, p), a[0]))
+PAIR_SETTER(pair_set_isotropic, ((void)a, cxl_array_pair_set_isotropic(P(0, p))))
+PAIR_SETTER(pair_set_long_wire, cxl_array_pair_set_long_wire(P(0, p), a[0], a[1]))
+
+ADAPTER(array_field)
+{
+    return cxl_array_field(P(0, g_pair), a[0], a[1], a[2], P(1, &o[0]), P(2, &o[1]));
+}
+ADAPTER(array_response)
+{
+    return cxl_array_response(P(0, g_pair), a[0], a[1], a[2], P(1, &o[0]));
+}
+ADAPTER(array_gain) { return cxl_array_gain(P(0, g_pair), a[0], a[1], a[2], P(1, &o[0])); }
+ADAPTER(array_forward_gain)
+{
+    return cxl_array_forward_gain(P(0, g_pair), a[0], a[1], P(1, &o[0]));
+}
+ADAPTER(array_pattern)
+{
+    /* the output array holds 4; n is only ever 4 or a bad value */
+    return cxl_array_pattern(P(0, g_pair), a[0], a[1], to_size(a[2]), P(1, &o[0]));
+}
+ADAPTER(array_front_to_back)
+{
+    return cxl_array_front_to_back(P(0, g_pair), a[0], a[1], P(1, &o[0]));
+}
+ADAPTER(array_rear_null)
+{
+    return cxl_array_rear_null(P(0, g_pair), a[0], a[1], P(1, &o[0]), P(2, &o[1]));
+}
+ADAPTER(array_peak) { return cxl_array_peak(P(0, g_pair), a[0], P(1, &o[0]), P(2, &o[1])); }
+ADAPTER(array_directivity) { return cxl_array_directivity(P(0, g_pair), a[0], P(1, &o[0])); }
+ADAPTER(array_rdf) { return cxl_array_rdf(P(0, g_pair), a[0], P(1, &o[0])); }
+ADAPTER(array_null_depth) { return cxl_array_null_depth(a[0], a[1], P(0, &o[0])); }
+
+/* budget.c */
+ADAPTER(budget_phase_for_null)
+{
+    return cxl_budget_phase_for_null(a[0], a[1], P(0, &o[0]));
+}
+ADAPTER(budget_phase_for_front_to_back)
+{
+    return cxl_budget_phase_for_front_to_back(P(0, g_pair), a[0], a[1], a[2], P(1, &o[0]));
+}
+ADAPTER(budget_length_for_phase)
+{
+    return cxl_budget_length_for_phase(a[0], a[1], a[2], P(0, &o[0]));
+}
+
+/* hybrid.c */
+ADAPTER(hybrid_inphase) { return cxl_hybrid_inphase(a[0], P(0, &o[0]), P(1, &o[1])); }
+ADAPTER(hybrid_turns_ratio) { return cxl_hybrid_turns_ratio(a[0], a[1], P(0, &o[0])); }
+ADAPTER(hybrid_match)
+{
+    return cxl_hybrid_match(a[0], a[1], to_uint(a[2]), to_uint(a[3]), P(0, &o[0]),
+                            P(1, &o[1]), P(2, &o[2]));
+}
+ADAPTER(hybrid_turns_search)
+{
+    /* the arrays hold 4; capacity is only ever 4 or a bad value */
+    unsigned p[4], q[4];
+    size_t n = (size_t)SENT;
+    for (int k = 0; k < 4; k++) p[k] = q[k] = (unsigned)SENT;
+    cxl_status st = cxl_hybrid_turns_search(a[0], a[1], to_uint(a[2]), to_size(a[3]),
+                                            P(0, p), P(1, q), P(2, &n));
+    for (int k = 0; k < 4; k++) { o[k] = p[k]; o[4 + k] = q[k]; }
+    o[8] = (double)n;
+    return st;
+}
+ADAPTER(hybrid_response)
+{
+    return cxl_hybrid_response(a[0], a[1], a[2], a[3], P(0, &o[0]), P(1, &o[1]));
+}
+
+#define F 1.83e6 /* a frequency in the 160 m band */
+#define C CXL_C_M_PER_S
+
+static api_case cases[] = {
+    /* units.c */
+    { "cxl_units_parse_number", call_parse_number, 0, {0}, {0}, 3, 0x4, 2, 0, {{0}} },
+    { "cxl_units_parse_length", call_parse_length, 1, {CXL_UNITS_IMPERIAL}, {&K_ENUM2}, 3, 0x4, 2, 0, {{0}} },
+    { "cxl_units_parse_freq", call_parse_freq, 0, {0}, {0}, 3, 0x4, 2, 0, {{0}} },
+    { "cxl_units_parse_time", call_parse_time, 0, {0}, {0}, 3, 0x4, 2, 0, {{0}} },
+    { "cxl_units_format_fixed", call_format_fixed, 3, {-12.25, 3, 600},
+      {&K_FIN, &K_DECIMALS, &K_BUFSIZE}, 1, 0, 1, 0, {{0}} },
+    { "cxl_units_format_roundtrip", call_format_roundtrip, 2, {-12.25, 600},
+      {&K_FIN, &K_BUFSIZE}, 1, 0, 1, 0, {{0}} },
+    { "cxl_units_format_imperial", call_format_imperial, 2, {8.0, 600},
+      {&K_FIN, &K_BUFSIZE}, 1, 0, 1, 0, {{0}} },
+    /* line.c */
+    { "cxl_line_delay_from_length", call_delay_from_length, 2, {10, 0.8}, {&K_NONNEG, &K_VF}, 1, 0, 1, 0, {{0}} },
+    { "cxl_line_length_from_delay", call_length_from_delay, 2, {33e-9, 0.8}, {&K_NONNEG, &K_VF}, 1, 0, 1, 0, {{0}} },
+    { "cxl_line_degrees_from_length", call_degrees_from_length, 3, {10, 0.8, F},
+      {&K_FIN, &K_VF, &K_POS}, 1, 0, 1, 0, {{0}} },
+    { "cxl_line_length_from_degrees", call_length_from_degrees, 3, {90, F, 0.66},
+      {&K_FIN, &K_POS, &K_VF}, 1, 0, 1, 0, {{0}} },
+    { "cxl_line_degrees_from_delay", call_degrees_from_delay, 2, {33e-9, F}, {&K_FIN, &K_POS}, 1, 0, 1, 0, {{0}} },
+    { "cxl_line_delay_from_offset", call_delay_from_offset, 1, {10}, {&K_FIN}, 1, 0, 1, 0, {{0}} },
+    { "cxl_line_cut_length", call_cut_length, 4, {33e-9, 0.8, 0.1, 0.7},
+      {&K_POS, &K_VF, &K_NONNEG, &K_VF}, 1, 0, 1,
+      1, {{33e-9, 0.8, 10.0, 0.7}} /* the allowance alone is longer */ },
+    { "cxl_line_quarter_wave_freq", call_quarter_wave, 2, {8, 0.8}, {&K_POS, &K_VF}, 1, 0, 1, 0, {{0}} },
+    /* csv.c */
+    { "cxl_csv_reader_new_stream", call_reader_new_stream, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
+    { "cxl_csv_reader_new_buffer", call_reader_new_buffer, 1, {8}, {&K_TEXTSIZE}, 2, 0, 1, 0, {{0}} },
+    { "cxl_csv_reader_next", call_reader_next, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
+    { "cxl_csv_write_field", call_write_field, 1, {1}, {&K_ANYINT}, 2, 0, 0, 0, {{0}} },
+    /* band.c */
+    { "cxl_bands_new", call_bands_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
+    { "cxl_bands_new_stream", call_bands_new_stream, 0, {0}, {0}, 3, 0x4, 1, 0, {{0}} },
+    { "cxl_bands_get", call_bands_get, 1, {0}, {&K_INDEX}, 8, 0xFE, 7, 0, {{0}} },
+    { "cxl_bands_edges", call_bands_edges, 2, {0, 1}, {&K_REGION, &K_ANYINT}, 4, 0, 2, 0, {{0}} },
+    /* stub.c */
+    { "cxl_stub_wavelengths", call_stub_wavelengths, 2, {CXL_STUB_OPEN, 3}, {&K_ENUM2, &K_ORDER}, 1, 0, 1, 0, {{0}} },
+    { "cxl_stub_vf_from_resonance", call_stub_vf_from_resonance, 6,
+      {CXL_STUB_OPEN, 1, 10.0, 0.25 * 0.66 * C / 10.5, 0.5, 0.66},
+      {&K_ENUM2, &K_ORDER, &K_POS, &K_POS, &K_NONNEG, &K_VF}, 1, 0, 1,
+      2, {{CXL_STUB_OPEN, 1, 10.0, 0.25 * C / 5.0, 10.0, 0.66}, /* fixture alone longer */
+          {CXL_STUB_OPEN, 1, 10.0, 0.25 * C / 5.0, 0.0, 0.66}} /* VF above 1 */ },
+    { "cxl_stub_resonance_freq", call_stub_resonance_freq, 6,
+      {CXL_STUB_SHORT, 2, 10.0, 0.66, 0.5, 0.66},
+      {&K_ENUM2, &K_ORDER, &K_POS, &K_VF, &K_NONNEG, &K_VF}, 1, 0, 1, 0, {{0}} },
+    { "cxl_stub_new", call_stub_new, 1, {CXL_STUB_SHORT}, {&K_ENUM2}, 1, 0, 1, 0, {{0}} },
+    { "cxl_stub_set_fixture", call_stub_set_fixture, 2, {0.3, 0.66}, {&K_NONNEG, &K_VF}, 1, 0, 0, 0, {{0}} },
+    { "cxl_stub_set_tolerances", call_stub_set_tolerances, 2, {0.005, 1e3}, {&K_NONNEG, &K_NONNEG}, 1, 0, 0, 0, {{0}} },
+    { "cxl_stub_set_vf_range", call_stub_set_vf_range, 2, {0.6, 0.9}, {&K_VF, &K_VF}, 1, 0, 0,
+      2, {{0.9, 0.6}, {0.7, 0.7}} },
+    { "cxl_stub_set_consistency", call_stub_set_consistency, 1, {0.05}, {&K_CONSIST}, 1, 0, 0, 0, {{0}} },
+    { "cxl_stub_set_orders", call_stub_set_orders, 1, {CXL_STUB_ORDERS_BEST_FIT}, {&K_ENUM2}, 1, 0, 0, 0, {{0}} },
+    { "cxl_stub_add_reading", call_stub_add_reading, 3, {10.0, 4.9e6, 1}, {&K_POS, &K_POS, &K_ORDER0}, 1, 0, 0, 0, {{0}} },
+    { "cxl_stub_infer_orders", call_stub_infer_orders, 1, {3}, {&K_COUNT3}, 2, 0, 3, 0, {{0}} },
+    { "cxl_stub_fit", call_stub_fit, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
+    { "cxl_stub_result_vf", call_stub_result_vf, 0, {0}, {0}, 3, 0x4, 2, 0, {{0}} },
+    { "cxl_stub_result_vf_budget", call_stub_result_vf_budget, 0, {0}, {0}, 4, 0xE, 3, 0, {{0}} },
+    { "cxl_stub_result_fixture", call_stub_result_fixture, 0, {0}, {0}, 4, 0xC, 3, 0, {{0}} },
+    { "cxl_stub_result_flags", call_stub_result_flags, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
+    { "cxl_stub_result_reading", call_stub_result_reading, 1, {2}, {&K_INDEX}, 7, 0x7E, 6, 0, {{0}} },
+    /* pair.c */
+    { "cxl_pair_phase_error", call_pair_phase_error, 4, {10.1, 10.0, 0.66, F},
+      {&K_POS, &K_POS, &K_VF, &K_POS}, 1, 0, 1, 0, {{0}} },
+    { "cxl_pair_phase_error_ref_deg", call_pair_phase_error_ref_deg, 5, {10.1, 0.66, 90, F, 3.6e6},
+      {&K_POS, &K_VF, &K_POS, &K_POS, &K_POS}, 1, 0, 1, 0, {{0}} },
+    { "cxl_pair_max_mismatch", call_pair_max_mismatch, 3, {5, 0.66, F}, {&K_POS, &K_VF, &K_POS}, 1, 0, 1, 0, {{0}} },
+    { "cxl_pair_phase_uncertainty", call_pair_phase_uncertainty, 6, {10.1, 10.0, 0.66, F, 0.005, 0.01},
+      {&K_POS, &K_POS, &K_VF, &K_POS, &K_NONNEG, &K_NONNEG}, 1, 0, 1,
+      1, {{10.1, 10.0, 0.66, F, 0.005, 0.66}} /* vf_tol not below vf */ },
+    { "cxl_pair_check", call_pair_check, 8, {10.0, 10.02, 2, 0.66, F, 5, 0.005, 0.01},
+      {&K_POS, &K_POS, &K_COUNT1, &K_VF, &K_POS, &K_POS, &K_NONNEG, &K_NONNEG}, 5, 0, 4,
+      2, {{10.0, 10.02, 1, 0.66, F, 5, 0.005, 0.01}, {10.0, 10.02, 2, 0.66, F, 5, 0.005, 0.7}} },
+    /* cable.c */
+    { "cxl_catalog_new", call_catalog_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
+    { "cxl_catalog_load_cables", call_catalog_load_cables, 0, {0}, {0}, 5, 0x1C, 1, 0, {{0}} },
+    { "cxl_catalog_load_loss", call_catalog_load_loss, 0, {0}, {0}, 5, 0x1C, 1, 0, {{0}} },
+    { "cxl_catalog_count", call_catalog_count, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
+    { "cxl_catalog_find", call_catalog_find, 0, {0}, {0}, 3, 0, 1, 0, {{0}} },
+    { "cxl_catalog_name", call_catalog_name, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
+    { "cxl_catalog_dielectric", call_catalog_dielectric, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
+    { "cxl_catalog_source", call_catalog_source, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
+    { "cxl_catalog_is_builtin", call_catalog_is_builtin, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
+    { "cxl_catalog_value", call_catalog_value, 2, {0, CXL_CABLE_VF}, {&K_INDEX, &K_PROP}, 2, 0, 1, 0, {{0}} },
+    { "cxl_catalog_loss_count", call_catalog_loss_count, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
+    { "cxl_catalog_loss_point", call_catalog_loss_point, 2, {0, 1}, {&K_INDEX, &K_INDEX}, 4, 0x8, 3, 0, {{0}} },
+    /* loss.c */
+    { "cxl_loss_fit_new", call_loss_fit_new, 5, {1.8e6, 30e6, 0.012, 0.055, 2},
+      {&K_POS, &K_POS, &K_POS, &K_POS, &K_COUNT1}, 3, 0, 2,
+      2, {{1.8e6, 30e6, 0.012, 0.055, 1}, {30e6, 30e6, 0.012, 0.055, 2}} },
+    { "cxl_loss_fit_new_cable", call_loss_fit_new_cable, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
+    { "cxl_loss_fit_coefficients", call_loss_fit_coefficients, 0, {0}, {0}, 3, 0, 2, 0, {{0}} },
+    { "cxl_loss_fit_range", call_loss_fit_range, 0, {0}, {0}, 3, 0, 2, 0, {{0}} },
+    { "cxl_loss_fit_count", call_loss_fit_count, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
+    { "cxl_loss_fit_point", call_loss_fit_point, 1, {1}, {&K_INDEX}, 4, 0, 3, 0, {{0}} },
+    { "cxl_loss_fit_max_relative_residual", call_loss_fit_max_relative_residual, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
+    { "cxl_loss_fit_eval", call_loss_fit_eval, 2, {10e6, 0}, {&K_POS, &K_FLAGS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_loss_fit_eval", call_loss_fit_eval, 2, {10e6, CXL_LOSS_EXTRAPOLATE}, {&K_POS, &K_FLAGS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_loss_model_new", call_loss_model_new, 6, {0.81e-3, 2.95e-3, 2.25, 2e-4, 58e6, 1.0},
+      {&K_POS, &K_POS, &K_EPS_R, &K_TAND, &K_POS, &K_POS}, 1, 0, 3,
+      2, {{2.95e-3, 2.95e-3, 2.25, 2e-4, 58e6, 1.0}, {3e-3, 2.95e-3, 2.25, 2e-4, 58e6, 1.0}} },
+    { "cxl_loss_model_new_cable", call_loss_model_new_cable, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
+    { "cxl_loss_model_set_clad", call_loss_model_set_clad, 3, {0.02e-3, 5e6, 100},
+      {&K_POS, &K_POS, &K_EPS_R}, 1, 0, 2, 1, {{0.5e-3, 5e6, 100}} /* thicker than the radius */ },
+    { "cxl_loss_model_range", call_loss_model_range, 0, {0}, {0}, 3, 0, 2, 0, {{0}} },
+    { "cxl_loss_model_rlgc", call_loss_model_rlgc, 2, {10e6, 0}, {&K_POS, &K_FLAGS}, 5, 0, 4, 0, {{0}} },
+    { "cxl_loss_model_rlgc", call_loss_model_rlgc, 2, {10e6, 3}, {&K_POS, &K_FLAGS}, 5, 0, 4, 0, {{0}} },
+    { "cxl_loss_model_gamma", call_loss_model_gamma, 2, {10e6, 0}, {&K_POS, &K_FLAGS}, 3, 0, 2, 0, {{0}} },
+    { "cxl_loss_model_gamma", call_loss_model_gamma, 2, {10e6, 1}, {&K_POS, &K_FLAGS}, 3, 0, 2, 0, {{0}} },
+    { "cxl_loss_model_attenuation", call_loss_model_attenuation, 2, {10e6, 0}, {&K_POS, &K_FLAGS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_loss_model_attenuation", call_loss_model_attenuation, 2, {10e6, 1}, {&K_POS, &K_FLAGS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_loss_model_z0", call_loss_model_z0, 2, {10e6, 0}, {&K_POS, &K_FLAGS}, 3, 0, 2, 0, {{0}} },
+    { "cxl_loss_model_z0", call_loss_model_z0, 2, {10e6, 1}, {&K_POS, &K_FLAGS}, 3, 0, 2, 0, {{0}} },
+    { "cxl_loss_model_vf", call_loss_model_vf, 2, {10e6, 0}, {&K_POS, &K_FLAGS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_loss_model_vf", call_loss_model_vf, 2, {10e6, 1}, {&K_POS, &K_FLAGS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_loss_skin_depth_m", call_loss_skin_depth, 3, {F, 58e6, 1.0}, {&K_POS, &K_POS, &K_POS}, 1, 0, 1, 0, {{0}} },
+    { "cxl_loss_total_db", call_loss_total_db, 2, {1.5, 2.0}, {&K_NONNEG, &K_SWR}, 1, 0, 1, 0, {{0}} },
+    { "cxl_loss_run_db", call_loss_run_db, 3, {0.02, 50, 2.0}, {&K_NONNEG, &K_POS, &K_SWR}, 2, 0, 2, 0, {{0}} },
+    /* array.c */
+    { "cxl_array_pair_new", call_pair_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_pair_copy", call_pair_copy, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
+    { "cxl_array_pair_set_geometry", call_pair_set_geometry, 2, {10, 40}, {&K_NONNEG, &K_FIN}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_pair_set_delay", call_pair_set_delay, 2, {1, 100e-9}, {&K_ELEMENT, &K_NONNEG}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_pair_set_delay_deg", call_pair_set_delay_deg, 3, {1, 90, F},
+      {&K_ELEMENT, &K_NONNEG, &K_POS}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_pair_set_phase_offset", call_pair_set_phase_offset, 2, {1, 5}, {&K_ELEMENT, &K_FIN}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_pair_set_flip", call_pair_set_flip, 2, {1, 1}, {&K_ELEMENT, &K_ANYINT}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_pair_set_imbalance", call_pair_set_imbalance, 1, {1}, {&K_IMB}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_pair_set_isotropic", call_pair_set_isotropic, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_pair_set_long_wire", call_pair_set_long_wire, 2, {80, 0.7}, {&K_POS, &K_VF}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_field", call_array_field, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 3, 0, 2, 0, {{0}} },
+    { "cxl_array_response", call_array_response, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 2, 0, 1, 0, {{0}} },
+    { "cxl_array_gain", call_array_gain, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 2, 0, 1, 0, {{0}} },
+    { "cxl_array_forward_gain", call_array_forward_gain, 2, {F, 15}, {&K_POS, &K_ELEV}, 2, 0, 1, 0, {{0}} },
+    { "cxl_array_pattern", call_array_pattern, 3, {F, 15, 4}, {&K_POS, &K_ELEV, &K_COUNT1}, 2, 0, 4, 0, {{0}} },
+    { "cxl_array_front_to_back", call_array_front_to_back, 2, {F, 15}, {&K_POS, &K_ELEV}, 2, 0, 1, 0, {{0}} },
+    { "cxl_array_rear_null", call_array_rear_null, 2, {F, 15}, {&K_POS, &K_ELEV}, 3, 0, 2, 0, {{0}} },
+    { "cxl_array_peak", call_array_peak, 1, {F}, {&K_POS}, 3, 0, 2, 0, {{0}} },
+    { "cxl_array_directivity", call_array_directivity, 1, {F}, {&K_POS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_array_rdf", call_array_rdf, 1, {F}, {&K_POS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_array_null_depth", call_array_null_depth, 2, {2, 0.5}, {&K_FIN, &K_IMB}, 1, 0, 1, 0, {{0}} },
+    /* budget.c */
+    { "cxl_budget_phase_for_null", call_budget_phase_for_null, 2, {-30, 0.2}, {&K_DEPTH, &K_IMB}, 1, 0, 1,
+      1, {{-40, 3.0}} /* the imbalance alone misses -40 dB */ },
+    { "cxl_budget_phase_for_front_to_back", call_budget_phase_for_front_to_back, 3, {F, 15, 3},
+      {&K_POS, &K_ELEV, &K_RATIO_DB}, 2, 0, 1, 1, {{F, 15, 299}} /* the pair never reaches it */ },
+    { "cxl_budget_length_for_phase", call_budget_length_for_phase, 3, {5, F, 0.66},
+      {&K_NONNEG, &K_POS, &K_VF}, 1, 0, 1, 0, {{0}} },
+    /* hybrid.c */
+    { "cxl_hybrid_inphase", call_hybrid_inphase, 1, {75}, {&K_POS}, 2, 0, 2, 0, {{0}} },
+    { "cxl_hybrid_turns_ratio", call_hybrid_turns_ratio, 2, {37.5, 75}, {&K_POS, &K_POS}, 1, 0, 1, 0, {{0}} },
+    { "cxl_hybrid_match", call_hybrid_match, 4, {37.5, 75, 2, 3}, {&K_POS, &K_POS, &K_TURNS, &K_TURNS}, 3, 0, 3, 0, {{0}} },
+    { "cxl_hybrid_turns_search", call_hybrid_turns_search, 4, {37.5, 75, 10, 4},
+      {&K_POS, &K_POS, &K_MAXTURNS, &K_COUNT1}, 3, 0, 9, 0, {{0}} },
+    { "cxl_hybrid_response", call_hybrid_response, 4, {0.1, 0.05, -0.2, 0.0},
+      {&K_GAMMA, &K_GAMMA, &K_GAMMA, &K_GAMMA}, 2, 0, 2,
+      1, {{0.8, 0.8, 0, 0}} /* |Gamma| above 1 */ },
+};
+#define NCASES (sizeof cases / sizeof cases[0])
+
+/* ---- the walk --------------------------------------------------------- */
+
+static int valid_status(cxl_status st)
+{
+    return (int)st >= (int)CXL_OK && (int)st <= (int)CXL_EINCONSISTENT;
+}
+
+static void fill(double *o)
+{
+    for (size_t k = 0; k < NOUT; k++) o[k] = SENT;
+}
+
+static void fmt_args(char *buf, size_t size, const double *a, size_t n)
+{
+    size_t used = 0;
+    buf[0] = '\0';
+    for (size_t i = 0; i < n && used < size; i++) {
+        int w = snprintf(buf + used, size - used, "%s%.17g", i ? ", " : "", a[i]);
+        if (w < 0) break;
+        used += (size_t)w;
+    }
+}
+
+/* Refused: a failing, valid status with every output untouched. */
+static void expect_refused(const api_case *c, const double *a, unsigned nulls, const char *why)
+{
+    double o[NOUT];
+    char args[512];
+    fill(o);
+    cxl_status st = c->call(a, o, nulls);
+    fmt_args(args, sizeof args, a, c->nargs);
+    ck_assert_msg(valid_status(st), "%s(%s) nulls=%#x: status %d is not a cxl_status",
+                  c->fn, args, nulls, (int)st);
+    ck_assert_msg(st != CXL_OK, "%s(%s) nulls=%#x accepted %s", c->fn, args, nulls, why);
+    for (size_t k = 0; k < NOUT; k++)
+        ck_assert_msg(o[k] == SENT, "%s(%s) nulls=%#x failed with %s but wrote output %zu",
+                      c->fn, args, nulls, cxl_strerror(st), k);
+}
+
+/* Accepted or refused; never a NaN or infinity, never a half-written
+ * output on failure. */
+static void expect_safe(const api_case *c, const double *a, unsigned nulls, int must_pass)
+{
+    double o[NOUT];
+    char args[512];
+    fill(o);
+    cxl_status st = c->call(a, o, nulls);
+    fmt_args(args, sizeof args, a, c->nargs);
+    ck_assert_msg(valid_status(st), "%s(%s) nulls=%#x: status %d is not a cxl_status",
+                  c->fn, args, nulls, (int)st);
+    if (must_pass)
+        ck_assert_msg(st == CXL_OK, "%s(%s) nulls=%#x refused good arguments: %s",
+                      c->fn, args, nulls, cxl_strerror(st));
+    for (size_t k = 0; k < NOUT; k++) {
+        if (st == CXL_OK)
+            ck_assert_msg(isfinite(o[k]), "%s(%s) nulls=%#x: output %zu is %g",
+                          c->fn, args, nulls, k, o[k]);
+        else
+            ck_assert_msg(o[k] == SENT, "%s(%s) failed with %s but wrote output %zu",
+                          c->fn, args, cxl_strerror(st), k);
+    }
+}
+
+START_TEST(walk_function)
+{
+    const api_case *c = &cases[_i];
+    double a[MAXARGS];
+    /* 1. good arguments */
+    expect_safe(c, c->good, 0, 1);
+    /* 2. NULL for each pointer in turn */
+    for (unsigned j = 0; j < c->nptr; j++) {
+        if (c->optional & (1u << j)) expect_safe(c, c->good, 1u << j, 1);
+        else expect_refused(c, c->good, 1u << j, "a NULL pointer");
+    }
+    if (c->optional) expect_safe(c, c->good, c->optional, 1);
+    /* 3 and 4. each numeric argument in turn */
+    for (size_t i = 0; i < c->nargs; i++) {
+        const kind *k = c->kinds[i];
+        ck_assert_ptr_nonnull(k);
+        for (size_t v = 0; v < k->nbad; v++) {
+            memcpy(a, c->good, sizeof a);
+            a[i] = k->bad[v];
+            expect_refused(c, a, 0, k->name);
+        }
+        for (size_t v = 0; v < k->nodd; v++) {
+            memcpy(a, c->good, sizeof a);
+            a[i] = k->odd[v];
+            expect_safe(c, a, 0, 0);
+        }
+    }
+    /* 5. arguments bad together */
+    for (size_t r = 0; r < c->nbadrows; r++)
+        expect_refused(c, c->badrows[r], 0, "a bad combination");
+}
+END_TEST
+
+/* ---- functions outside the table -------------------------------------- */
+
+START_TEST(strings_and_version)
+{
+    ck_assert_str_eq(cxl_version(), CXL_VERSION_STRING);
+    /* every status has its own text; anything else is "unknown status" */
+    for (int s = CXL_OK; s <= CXL_EINCONSISTENT; s++)
+        ck_assert_str_ne(cxl_strerror((cxl_status)s), "unknown status");
+    const int outside[] = { -1, CXL_EINCONSISTENT + 1, 1000, INT_MAX, INT_MIN };
+    for (size_t i = 0; i < sizeof outside / sizeof outside[0]; i++) {
+        const char *t = cxl_strerror((cxl_status)outside[i]);
+        ck_assert_ptr_nonnull(t);
+        ck_assert_str_eq(t, "unknown status");
+    }
+}
+END_TEST
+
+START_TEST(free_and_count_null)
+{
+    /* freeing NULL is a no-op, counting NULL gives 0 */
+    cxl_csv_reader_free(NULL);
+    cxl_bands_free(NULL);
+    cxl_stub_free(NULL);
+    cxl_stub_result_free(NULL);
+    cxl_catalog_free(NULL);
+    cxl_loss_fit_free(NULL);
+    cxl_loss_model_free(NULL);
+    cxl_array_pair_free(NULL);
+    ck_assert_uint_eq(cxl_csv_reader_nfields(NULL), 0);
+    ck_assert_ptr_null(cxl_csv_reader_field(NULL, 0));
+    ck_assert_uint_eq(cxl_csv_reader_line(NULL), 0);
+    ck_assert_uint_eq(cxl_bands_count(NULL), 0);
+    ck_assert_uint_eq(cxl_stub_count(NULL), 0);
+    ck_assert_uint_eq(cxl_stub_result_count(NULL), 0);
+    ck_assert_uint_gt(cxl_bands_count(g_bands), 0);
+    ck_assert_uint_eq(cxl_stub_count(g_stub), 3);
+    ck_assert_uint_eq(cxl_stub_result_count(g_res1), 3);
+}
+END_TEST
+
+START_TEST(csv_reader_bounds)
+{
+    static const char text[] = "a,b\n";
+    cxl_csv_reader *r = NULL;
+    int has = 0;
+    ck_assert_int_eq(cxl_csv_reader_new_buffer(text, sizeof text - 1, &r), CXL_OK);
+    /* before the first record: no fields */
+    ck_assert_uint_eq(cxl_csv_reader_nfields(r), 0);
+    ck_assert_ptr_null(cxl_csv_reader_field(r, 0));
+    ck_assert_int_eq(cxl_csv_reader_next(r, &has), CXL_OK);
+    ck_assert_int_eq(has, 1);
+    ck_assert_uint_eq(cxl_csv_reader_nfields(r), 2);
+    ck_assert_str_eq(cxl_csv_reader_field(r, 1), "b");
+    ck_assert_ptr_null(cxl_csv_reader_field(r, 2));
+    ck_assert_ptr_null(cxl_csv_reader_field(r, SIZE_MAX));
+    ck_assert_uint_eq(cxl_csv_reader_line(r), 1);
+    /* end of input, asked again: still the end */
+    ck_assert_int_eq(cxl_csv_reader_next(r, &has), CXL_OK);
+    ck_assert_int_eq(has, 0);
+    ck_assert_int_eq(cxl_csv_reader_next(r, &has), CXL_OK);
+    ck_assert_int_eq(has, 0);
+    cxl_csv_reader_free(r);
+    /* NULL text is an empty buffer only with size 0 */
+    ck_assert_int_eq(cxl_csv_reader_new_buffer(NULL, 0, &r), CXL_OK);
+    ck_assert_int_eq(cxl_csv_reader_next(r, &has), CXL_OK);
+    ck_assert_int_eq(has, 0);
+    cxl_csv_reader_free(r);
+    r = SENT_PTR;
+    ck_assert_int_ne(cxl_csv_reader_new_buffer(NULL, 1, &r), CXL_OK);
+    ck_assert_ptr_eq(r, SENT_PTR);
+}
+END_TEST
+
+/* A malformed record fails without touching *has_row, and reading goes on. */
+START_TEST(csv_reader_malformed)
+{
+    static const char *const bad[] = {
+        "\"open quote,x\n",           /* never closed */
+        "\"a\"b,c\n",                 /* text after a closing quote */
+        "a,\0b\n",                    /* NUL byte (length given below) */
+    };
+    const size_t len[] = { strlen(bad[0]), strlen(bad[1]), 5 };
+    for (size_t i = 0; i < 3; i++) {
+        char buf[64];
+        memcpy(buf, bad[i], len[i]);
+        memcpy(buf + len[i], "ok,1\n", 5);
+        cxl_csv_reader *r = NULL;
+        int has = (int)SENT;
+        ck_assert_int_eq(cxl_csv_reader_new_buffer(buf, len[i] + 5, &r), CXL_OK);
+        cxl_status st = cxl_csv_reader_next(r, &has);
+        ck_assert_msg(st == CXL_EPARSE, "case %zu: %s", i, cxl_strerror(st));
+        ck_assert_msg(has == (int)SENT, "case %zu: has_row written on failure", i);
+        if (i > 0) {
+            /* the reader resynchronises on the next line (a quote never
+             * closed swallows the rest of the input instead) */
+            ck_assert_int_eq(cxl_csv_reader_next(r, &has), CXL_OK);
+            ck_assert_int_eq(has, 1);
+            ck_assert_str_eq(cxl_csv_reader_field(r, 0), "ok");
+        }
+        cxl_csv_reader_free(r);
+    }
+    /* a record longer than the limit: CXL_ETOOLONG, then the next record */
+    size_t big = CXL_CSV_MAX_RECORD + 100;
+    char *text = malloc(big + 16);
+    memset(text, 'x', big);
+    memcpy(text + big, "\nok,1\n", 6);
+    cxl_csv_reader *r = NULL;
+    int has = (int)SENT;
+    ck_assert_int_eq(cxl_csv_reader_new_buffer(text, big + 6, &r), CXL_OK);
+    ck_assert_int_eq(cxl_csv_reader_next(r, &has), CXL_ETOOLONG);
+    ck_assert_int_eq(has, (int)SENT);
+    ck_assert_int_eq(cxl_csv_reader_next(r, &has), CXL_OK);
+    ck_assert_int_eq(has, 1);
+    ck_assert_str_eq(cxl_csv_reader_field(r, 0), "ok");
+    cxl_csv_reader_free(r);
+    free(text);
+}
+END_TEST
+
+START_TEST(csv_write_errors)
+{
+    /* a stream that cannot be written: CXL_EIO, not a crash */
+    FILE *ro = fopen("/dev/null", "r");
+    ck_assert_ptr_nonnull(ro);
+    ck_assert_int_eq(cxl_csv_write_field(ro, "x", 0), CXL_EIO);
+    fclose(ro);
+    /* the empty text is a valid, empty field */
+    FILE *fp = tmpfile();
+    ck_assert_int_eq(cxl_csv_write_field(fp, "", 1), CXL_OK);
+    ck_assert_int_eq((int)ftell(fp), 0);
+    fclose(fp);
+}
+END_TEST
+
+/* Text that is not a number, length, frequency or time. */
+START_TEST(parse_bad_text)
+{
+    static const char *const bad[] = {
+        "", " ", "\t", "nan", "NaN", "inf", "-inf", "infinity", "1e999", "-1e999",
+        "0x10", "1,5", "1.2.3", "--1", "+-1", "1e", "e5", ".", "-", "1 2",
+        "\xff\xfe", "1\xc3", "12\xe2\x80\xaf" "5", "\xef\xbb\xbf" "1",
+        "1/0", "3/0in", "1/2/3in", "3m 2ft", "2ft 3m", "5 furlongs", "10 m m",
+    };
+    char huge[2048];
+    memset(huge, '9', sizeof huge - 1);
+    huge[sizeof huge - 1] = '\0';
+    for (size_t i = 0; i <= sizeof bad / sizeof bad[0]; i++) {
+        const char *t = i < sizeof bad / sizeof bad[0] ? bad[i] : huge;
+        double v = SENT;
+        size_t pos = SIZE_MAX;
+        cxl_status st = cxl_units_parse_length(t, CXL_UNITS_METRIC, &v, &pos);
+        ck_assert_msg(st == CXL_EPARSE || st == CXL_ERANGE, "length '%s': %s", t, cxl_strerror(st));
+        ck_assert_msg(v == SENT, "length '%s' wrote its output", t);
+        ck_assert_msg(pos <= strlen(t), "length '%s': error position %zu", t, pos);
+        st = cxl_units_parse_freq(t, &v, NULL);
+        ck_assert_msg(st != CXL_OK && v == SENT, "freq '%s': %s", t, cxl_strerror(st));
+        st = cxl_units_parse_time(t, &v, NULL);
+        ck_assert_msg(st != CXL_OK && v == SENT, "time '%s': %s", t, cxl_strerror(st));
+        st = cxl_units_parse_number(t, &v, NULL);
+        ck_assert_msg(st != CXL_OK && v == SENT, "number '%s': %s", t, cxl_strerror(st));
+    }
+    /* a number too small to represent is refused, not silently zero */
+    double v = SENT;
+    ck_assert_int_eq(cxl_units_parse_freq("1e-400MHz", &v, NULL), CXL_ERANGE);
+    ck_assert_int_eq(cxl_units_parse_length("1e-400m", CXL_UNITS_METRIC, &v, NULL), CXL_ERANGE);
+    ck_assert_int_eq(cxl_units_parse_number("1e-400", &v, NULL), CXL_ERANGE);
+    ck_assert(v == SENT);
+}
+END_TEST
+
+START_TEST(bands_bad_names_and_files)
+{
+    static const char *const names[] = {
+        "", " ", "xyz", "161m", "0", "-160m", "160mm", "\xff", "a-very-long-band-name-indeed",
+    };
+    for (size_t i = 0; i < sizeof names / sizeof names[0]; i++) {
+        double lo = SENT, hi = SENT;
+        cxl_status st = cxl_bands_edges(g_bands, names[i], 0, 1, &lo, &hi);
+        ck_assert_msg(st == CXL_ENOTFOUND, "'%s': %s", names[i], cxl_strerror(st));
+        ck_assert(lo == SENT && hi == SENT);
+    }
+    /* the index just past the end */
+    double lo = SENT;
+    ck_assert_int_ne(cxl_bands_get(g_bands, cxl_bands_count(g_bands), NULL, NULL, NULL, &lo,
+                                   NULL, NULL, NULL), CXL_OK);
+    ck_assert(lo == SENT);
+    static const char *const files[] = {
+        "",                                                             /* empty */
+        "band,service,region,low_khz,high_khz,footnote,source\n",       /* no rows */
+        "band,service,region,low_khz,high_khz,source\n160m,amateur,1,1810,2000,x\n",
+        "band,service,region,low_khz,high_khz,footnote,source\n160m,amateur,4,1810,2000,,x\n",
+        "band,service,region,low_khz,high_khz,footnote,source\n160m,amateur,1,2000,1810,,x\n",
+        "band,service,region,low_khz,high_khz,footnote,source\n160m,amateur,1,1810,2000,,\n",
+        "band,service,region,low_khz,high_khz,footnote,source\n160m,amateur,1,nan,2000,,x\n",
+        "band,service,region,low_khz,high_khz,footnote,source\n160m,amateur,1,1e999,2000,,x\n",
+        "band,service,region,low_khz,high_khz,footnote,source\n160m,military,1,1810,2000,,x\n",
+        "band,service,region,low_khz,high_khz,footnote,source\n160m,amateur,1,1810,2000,,\"x\n",
+        "band,service,region,low_khz,high_khz,footnote,source\n160m,amateur,1,1810\n",
+        "band,service,region,low_khz,high_khz,footnote,source\n160m,amateur,1,1810,1e306,,x\n",
+    };
+    for (size_t i = 0; i < sizeof files / sizeof files[0]; i++) {
+        FILE *fp = text_stream(files[i][0] ? files[i] : "\n");
+        cxl_bands *b = SENT_PTR;
+        size_t line = SIZE_MAX;
+        cxl_status st = cxl_bands_new_stream(fp, &b, &line);
+        fclose(fp);
+        ck_assert_msg(st != CXL_OK, "band file %zu accepted", i);
+        ck_assert_msg(b == SENT_PTR, "band file %zu: handle written on failure", i);
+    }
+}
+END_TEST
+
+/* Malformed user cable files: refused, catalog unchanged, one line of text. */
+START_TEST(catalog_bad_files)
+{
+    /* len 0: the text is a C string; otherwise it holds a NUL byte */
+    static const struct { const char *text; size_t len; cxl_status want; } bad[] = {
+        { "\n", 0, CXL_EPARSE },                                 /* no header */
+        { "name,vf,colour\nx,0.8,red\n", 0, CXL_EPARSE },        /* unknown column */
+        { "name,vf,vf\nx,0.8,0.8\n", 0, CXL_EPARSE },            /* column twice */
+        { "name,z0_ohm\nx,50\n", 0, CXL_EPARSE },                /* vf column missing */
+        { "name,vf\nx,\n", 0, CXL_EPARSE },                      /* vf value missing */
+        { "name,vf\n,0.8\n", 0, CXL_EPARSE },                    /* name missing */
+        { "name,vf\nx,0.8\nX,0.7\n", 0, CXL_EDUPLICATE },        /* same name, other case */
+        { "name,vf\nRG-58,0.8\n", 0, CXL_EDUPLICATE },           /* a built-in name */
+        { "name,vf\nx,1.2\n", 0, CXL_ERANGE },
+        { "name,vf\nx,nan\n", 0, CXL_EPARSE },
+        { "name,vf\nx,1e999\n", 0, CXL_ERANGE },
+        { "name,vf\nx,0,8\n", 0, CXL_EPARSE },                   /* comma decimal: 3 fields */
+        { "name,vf\n\"x,0.8\n", 0, CXL_EPARSE },                 /* quote never closed */
+        { "name,vf\nx\0,0.8\n", 15, CXL_EPARSE },                /* NUL byte */
+        { "name,vf,inner_diameter_mm,dielectric_diameter_mm\nx,0.8,3,2\n", 0, CXL_ERANGE },
+        { "name,vf,clad_thickness_mm\nx,0.8,0.1\n", 0, CXL_EPARSE }, /* clad without core */
+    };
+    cxl_catalog *cat = NULL;
+    size_t before, after;
+    ck_assert_int_eq(cxl_catalog_new(&cat), CXL_OK);
+    ck_assert_int_eq(cxl_catalog_count(cat, &before), CXL_OK);
+    for (size_t i = 0; i < sizeof bad / sizeof bad[0]; i++) {
+        size_t len = bad[i].len ? bad[i].len : strlen(bad[i].text);
+        FILE *fp = fmemopen((void *)bad[i].text, len, "r");
+        ck_assert_ptr_nonnull(fp);
+        char msg[256];
+        size_t line = SIZE_MAX;
+        msg[0] = 'Z';
+        cxl_status st = cxl_catalog_load_cables(cat, fp, "bad.csv", &line, msg, sizeof msg);
+        fclose(fp);
+        ck_assert_msg(st == bad[i].want, "cable file %zu: %s, wanted %s (%s)", i,
+                      cxl_strerror(st), cxl_strerror(bad[i].want), msg);
+        ck_assert_msg(line != SIZE_MAX && line >= 1, "cable file %zu: no error line", i);
+        ck_assert_msg(strncmp(msg, "bad.csv:", 8) == 0 && !strchr(msg, '\n'),
+                      "cable file %zu: message '%s'", i, msg);
+        ck_assert_int_eq(cxl_catalog_count(cat, &after), CXL_OK);
+        ck_assert_uint_eq(after, before);
+    }
+    /* a header without rows adds nothing and is not an error */
+    FILE *fp = text_stream("name,vf\n");
+    ck_assert_int_eq(cxl_catalog_load_cables(cat, fp, NULL, NULL, NULL, 0), CXL_OK);
+    fclose(fp);
+    ck_assert_int_eq(cxl_catalog_count(cat, &after), CXL_OK);
+    ck_assert_uint_eq(after, before);
+    cxl_catalog_free(cat);
+}
+END_TEST
+
+START_TEST(catalog_bad_loss_files)
+{
+    static const char *const bad[] = {
+        "name,freq_mhz\nbench-spool,10\n",                                  /* column missing */
+        "name,freq_mhz,loss_db_per_100m\nnobody,10,1\n",                    /* unknown cable */
+        "name,freq_mhz,loss_db_per_100m\nRG-58,10,1\n",                     /* built-in table */
+        "name,freq_mhz,loss_db_per_100m\nbench-spool,1.8,1\n",              /* frequency twice */
+        "name,freq_mhz,loss_db_per_100m\nbench-spool,10,1\nbench-spool,10,2\n",
+        "name,freq_mhz,loss_db_per_100m\nbench-spool,,1\n",                 /* value missing */
+        "name,freq_mhz,loss_db_per_100m\nbench-spool,-10,1\n",
+        "name,freq_mhz,loss_db_per_100m\nbench-spool,10,0\n",
+        "name,freq_mhz,loss_db_per_100m\nbench-spool,1e305,1\n",            /* infinite in Hz */
+        "name,freq_mhz,loss_db_per_100m\nbench-spool,10,nan\n",
+    };
+    size_t points_before;
+    ck_assert_int_eq(cxl_catalog_loss_count(g_cat, g_user, &points_before), CXL_OK);
+    for (size_t i = 0; i < sizeof bad / sizeof bad[0]; i++) {
+        FILE *fp = text_stream(bad[i]);
+        char msg[256] = "";
+        cxl_status st = cxl_catalog_load_loss(g_cat, fp, "loss.csv", NULL, msg, sizeof msg);
+        fclose(fp);
+        ck_assert_msg(st != CXL_OK, "loss file %zu accepted", i);
+        ck_assert_msg(msg[0] != '\0', "loss file %zu: no message", i);
+        size_t n;
+        ck_assert_int_eq(cxl_catalog_loss_count(g_cat, g_user, &n), CXL_OK);
+        ck_assert_uint_eq(n, points_before);
+    }
+    /* names that are not there */
+    static const char *const names[] = { "", " ", "\xff", "RG-58 ", "nobody" };
+    for (size_t i = 0; i < sizeof names / sizeof names[0]; i++) {
+        size_t idx = SIZE_MAX;
+        ck_assert_int_eq(cxl_catalog_find(g_cat, names[i], &idx), CXL_ENOTFOUND);
+        ck_assert_uint_eq(idx, SIZE_MAX);
+    }
+    /* the index just past the end, and a cable without points */
+    size_t n, idx;
+    double v = SENT;
+    ck_assert_int_eq(cxl_catalog_count(g_cat, &n), CXL_OK);
+    ck_assert_int_eq(cxl_catalog_value(g_cat, n, CXL_CABLE_VF, &v), CXL_ERANGE);
+    ck_assert(v == SENT);
+    const char *t = sentinel_text;
+    ck_assert_int_eq(cxl_catalog_name(g_cat, n, &t), CXL_ERANGE);
+    ck_assert_int_eq(cxl_catalog_dielectric(g_cat, n, &t), CXL_ERANGE);
+    ck_assert_int_eq(cxl_catalog_source(g_cat, n, &t), CXL_ERANGE);
+    ck_assert_ptr_eq(t, sentinel_text);
+    ck_assert_int_eq(cxl_catalog_find(g_cat, "bare-spool", &idx), CXL_OK);
+    cxl_loss_fit *fit = SENT_PTR;
+    ck_assert_int_eq(cxl_loss_fit_new_cable(g_cat, idx, &fit), CXL_ENOTFOUND);
+    cxl_loss_model *m = SENT_PTR;
+    ck_assert_int_eq(cxl_loss_model_new_cable(g_cat, idx, &m), CXL_ENOTFOUND);
+    ck_assert_ptr_eq(fit, SENT_PTR);
+    ck_assert_ptr_eq(m, SENT_PTR);
+    ck_assert_int_eq(cxl_catalog_value(g_cat, idx, CXL_CABLE_Z0_OHM, &v), CXL_ENOTFOUND);
+    ck_assert(v == SENT);
+}
+END_TEST
+
+START_TEST(stub_bad_sets)
+{
+    cxl_stub *s = NULL;
+    cxl_stub_result *r = SENT_PTR;
+    int orders[1] = { (int)SENT };
+    ck_assert_int_eq(cxl_stub_new(CXL_STUB_OPEN, &s), CXL_OK);
+    /* no readings */
+    ck_assert_int_eq(cxl_stub_fit(s, &r), CXL_EINVAL);
+    ck_assert_int_eq(cxl_stub_infer_orders(s, orders, 0), CXL_EINVAL);
+    /* mixed given and missing orders, repeated and descending readings */
+    ck_assert_int_eq(cxl_stub_add_reading(s, 10.0, 5e6, 1), CXL_OK);
+    ck_assert_int_eq(cxl_stub_add_reading(s, 10.0, 15e6, 0), CXL_EINVAL);
+    ck_assert_int_eq(cxl_stub_add_reading(s, 10.0, 5e6, 2), CXL_EINVAL);
+    ck_assert_int_eq(cxl_stub_add_reading(s, 10.0, 4e6, 2), CXL_EINVAL);
+    ck_assert_int_eq(cxl_stub_add_reading(s, 10.0, 15e6, 1), CXL_EINVAL);
+    ck_assert_uint_eq(cxl_stub_count(s), 1);
+    cxl_stub_free(s);
+    /* a reading no plausible VF explains: a 10 m cable resonating at
+     * 100 kHz would need a VF far below 0.5 for every order */
+    ck_assert_int_eq(cxl_stub_new(CXL_STUB_OPEN, &s), CXL_OK);
+    ck_assert_int_eq(cxl_stub_add_reading(s, 10.0, 1e5, 0), CXL_OK);
+    ck_assert_int_eq(cxl_stub_fit(s, &r), CXL_ERANGE);
+    ck_assert_int_eq(cxl_stub_infer_orders(s, orders, 1), CXL_ERANGE);
+    ck_assert_int_eq(orders[0], (int)SENT);
+    cxl_stub_free(s);
+    /* extreme but finite readings reach GSL only as finite numbers */
+    ck_assert_int_eq(cxl_stub_new(CXL_STUB_SHORT, &s), CXL_OK);
+    ck_assert_int_eq(cxl_stub_set_vf_range(s, DBL_MIN, 1.0), CXL_OK);
+    ck_assert_int_eq(cxl_stub_add_reading(s, DBL_MIN, DBL_MAX, 0), CXL_OK);
+    ck_assert_int_eq(cxl_stub_add_reading(s, 1e308, DBL_MIN, 0), CXL_OK);
+    cxl_status st = cxl_stub_fit(s, &r);
+    if (st == CXL_OK) {
+        double vf, err;
+        ck_assert_int_eq(cxl_stub_result_vf(r, &vf, &err), CXL_OK);
+        ck_assert(isfinite(vf) && isfinite(err));
+        cxl_stub_result_free(r);
+    } else {
+        ck_assert_ptr_eq(r, SENT_PTR);
+    }
+    cxl_stub_free(s);
+    /* a result without a fitted fixture */
+    double x = SENT;
+    ck_assert_int_eq(cxl_stub_result_fixture(g_res1, &x, NULL, NULL), CXL_ENOTFOUND);
+    ck_assert(x == SENT);
+    /* the reading index just past the end */
+    ck_assert_int_eq(cxl_stub_result_reading(g_res1, 3, &x, NULL, NULL, NULL, NULL, NULL),
+                     CXL_EINVAL);
+    ck_assert(x == SENT);
+}
+END_TEST
+
+START_TEST(loss_fit_odd_tables)
+{
+    /* points that ask GSL to fit nonsense: refused or finite */
+    const double f[][3] = { { 1e6, 2e6, 3e6 }, { DBL_MIN, 1.0, DBL_MAX },
+                            { 1e6, 1e6 * (1 + DBL_EPSILON), 1e6 * (1 + 2 * DBL_EPSILON) } };
+    const double l[][3] = { { 1e-300, 1e300, 1.0 }, { DBL_MIN, 1.0, DBL_MAX },
+                            { 0.01, 0.02, 0.03 } };
+    for (size_t i = 0; i < 3; i++) {
+        cxl_loss_fit *fit = SENT_PTR;
+        cxl_status st = cxl_loss_fit_new(f[i], l[i], 3, &fit);
+        if (st != CXL_OK) {
+            ck_assert_ptr_eq(fit, SENT_PTR);
+            continue;
+        }
+        double a, b, rel;
+        ck_assert_int_eq(cxl_loss_fit_coefficients(fit, &a, &b), CXL_OK);
+        ck_assert_msg(isfinite(a) && isfinite(b), "table %zu: a=%g b=%g", i, a, b);
+        ck_assert_int_eq(cxl_loss_fit_max_relative_residual(fit, &rel), CXL_OK);
+        ck_assert_msg(isfinite(rel), "table %zu: residual %g", i, rel);
+        cxl_loss_fit_free(fit);
+    }
+    /* the point index just past the end */
+    double v = SENT, t = SENT, res = SENT;
+    ck_assert_int_eq(cxl_loss_fit_point(g_fit, 2, &v, &t, &res), CXL_ERANGE);
+    ck_assert(v == SENT && t == SENT && res == SENT);
+}
+END_TEST
+
+/* ---- set-up ------------------------------------------------------------- */
+
+static void gsl_abort_loudly(const char *reason, const char *file, int line, int gsl_errno)
+{
+    fprintf(stderr, "GSL error reached through libcoaxline: %s (%s:%d, GSL code %d)\n",
+            reason, file, line, gsl_errno);
+    abort();
+}
+
+/* Set-up runs outside any test, where Check's assertions do not work. */
+#define NEED(expr)                                                           \
+    do {                                                                     \
+        if (!(expr)) {                                                       \
+            fprintf(stderr, "set-up failed: %s\n", #expr);                   \
+            exit(EXIT_FAILURE);                                              \
+        }                                                                    \
+    } while (0)
+
+static void setup_objects(void)
+{
+    NEED(cxl_bands_new(&g_bands) == CXL_OK);
+    NEED(cxl_catalog_new(&g_cat) == CXL_OK);
+    FILE *fp = text_stream("name,vf\nbench-spool,0.83\nbare-spool,0.8\n");
+    NEED(cxl_catalog_load_cables(g_cat, fp, NULL, NULL, NULL, 0) == CXL_OK);
+    fclose(fp);
+    fp = text_stream(good_loss_csv);
+    NEED(cxl_catalog_load_loss(g_cat, fp, NULL, NULL, NULL, 0) == CXL_OK);
+    fclose(fp);
+    NEED(cxl_catalog_find(g_cat, "bench-spool", &g_user) == CXL_OK);
+
+    /* open stub, 10 m, VF 0.66: readings at orders 1, 2, 3 */
+    NEED(cxl_stub_new(CXL_STUB_OPEN, &g_stub) == CXL_OK);
+    for (int n = 1; n <= 3; n++)
+        NEED(cxl_stub_add_reading(g_stub, 10.0, (2 * n - 1) / 4.0 * 0.66 * C / 10.0, n) == CXL_OK);
+    NEED(cxl_stub_fit(g_stub, &g_res1) == CXL_OK);
+    /* two lengths with 0.3 m of unknown fixture (free space) */
+    cxl_stub *s2 = NULL;
+    NEED(cxl_stub_new(CXL_STUB_OPEN, &s2) == CXL_OK);
+    const double lens[2] = { 10.0, 8.0 };
+    for (int i = 0; i < 2; i++)
+        for (int n = 1; n <= 2; n++)
+            NEED(cxl_stub_add_reading(s2, lens[i], (2 * n - 1) / 4.0 * C / (lens[i] / 0.66 + 0.3),
+                                      n) == CXL_OK);
+    NEED(cxl_stub_fit(s2, &g_res2) == CXL_OK);
+    cxl_stub_free(s2);
+
+    const double f[2] = { 1.8e6, 30e6 }, l[2] = { 0.012, 0.055 };
+    NEED(cxl_loss_fit_new(f, l, 2, &g_fit) == CXL_OK);
+    NEED(cxl_loss_model_new(0.81e-3, 2.95e-3, 2.25, 2e-4, 58e6, 1.0, &g_model) == CXL_OK);
+
+    /* end-fire pair of 60 m long wires, 40 m stagger, the front element
+     * delayed by the stagger so that arrivals from the front add */
+    NEED(cxl_array_pair_new(&g_pair) == CXL_OK);
+    NEED(cxl_array_pair_set_geometry(g_pair, 5.0, 40.0) == CXL_OK);
+    NEED(cxl_array_pair_set_delay(g_pair, 0, 40.0 / C) == CXL_OK);
+    NEED(cxl_array_pair_set_long_wire(g_pair, 60.0, 0.8) == CXL_OK);
+}
+
+/* How many probes the table makes (printed for the record). */
+static size_t count_probes(void)
+{
+    size_t n = 0;
+    for (size_t i = 0; i < NCASES; i++) {
+        const api_case *c = &cases[i];
+        n += 1 + c->nptr + (c->optional != 0) + c->nbadrows;
+        for (size_t k = 0; k < c->nargs; k++) n += c->kinds[k]->nbad + c->kinds[k]->nodd;
+    }
+    return n;
+}
+
+int main(void)
+{
+    gsl_set_error_handler(gsl_abort_loudly);
+    /* walk under a comma-decimal locale where there is one: parsing and
+     * formatting must not notice */
+    if (!setlocale(LC_ALL, "de_DE.UTF-8"))
+        fprintf(stderr, "note: de_DE.UTF-8 not available, walking in the C locale\n");
+    setup_objects();
+    size_t distinct = 0;
+    for (size_t i = 0; i < NCASES; i++)
+        distinct += i == 0 || strcmp(cases[i].fn, cases[i - 1].fn) != 0;
+    printf("walking %zu functions in %zu table rows, %zu probes\n", distinct, NCASES,
+           count_probes());
+
+    Suite *s = suite_create("api");
+    TCase *tc = tcase_create("walk");
+    tcase_set_timeout(tc, 120);
+    tcase_add_loop_test(tc, walk_function, 0, (int)NCASES);
+    suite_add_tcase(s, tc);
+    TCase *hand = tcase_create("by hand");
+    tcase_set_timeout(hand, 60);
+    tcase_add_test(hand, strings_and_version);
+    tcase_add_test(hand, free_and_count_null);
+    tcase_add_test(hand, csv_reader_bounds);
+    tcase_add_test(hand, csv_reader_malformed);
+    tcase_add_test(hand, csv_write_errors);
+    tcase_add_test(hand, parse_bad_text);
+    tcase_add_test(hand, bands_bad_names_and_files);
+    tcase_add_test(hand, catalog_bad_files);
+    tcase_add_test(hand, catalog_bad_loss_files);
+    tcase_add_test(hand, stub_bad_sets);
+    tcase_add_test(hand, loss_fit_odd_tables);
+    suite_add_tcase(s, hand);
+    SRunner *sr = srunner_create(s);
+    srunner_run_all(sr, CK_NORMAL);
+    int nf = srunner_ntests_failed(sr);
+    srunner_free(sr);
+
+    cxl_array_pair_free(g_pair);
+    cxl_loss_model_free(g_model);
+    cxl_loss_fit_free(g_fit);
+    cxl_stub_result_free(g_res2);
+    cxl_stub_result_free(g_res1);
+    cxl_stub_free(g_stub);
+    cxl_catalog_free(g_cat);
+    cxl_bands_free(g_bands);
+    return nf ? EXIT_FAILURE : EXIT_SUCCESS;
+}
