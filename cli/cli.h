@@ -193,5 +193,7 @@ void cli_print_command_help(const cli_command *cmd, FILE *fp);
 
 extern const cli_command cli_cmd_cut;
 extern const cli_command cli_cmd_demo;
+/* ---- cmd_trim.c: cut long, read, trim ---- */
+extern const cli_command cli_cmd_trim;
 
 #endif

@@ -9,6 +9,7 @@
 static const cli_command *const commands[] = {
     &cli_cmd_cut,
     &cli_cmd_demo,
+    &cli_cmd_trim,
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 
