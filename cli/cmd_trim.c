@@ -226,8 +226,8 @@ static void print_text(cli_ctx *ctx, const cli_args *a, const trim_in *in,
                 cli_fmt(b2, sizeof b2, vf_t, 5),
                 flags & CXL_TRIM_FLAG_DRIFT
                     ? (flags & CXL_TRIM_FLAG_EXTRAPOLATED
-                           ? "trend a + b/sqrt(f) over the readings, extrapolated"
-                           : "trend a + b/sqrt(f) over the readings")
+                           ? "trend a - b/sqrt(f) over the readings, extrapolated"
+                           : "trend a - b/sqrt(f) over the readings")
                     : "from the one reading");
     else
         fprintf(o, "  VF                  %s  fitted over the readings\n",
