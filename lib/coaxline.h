@@ -503,7 +503,8 @@ cxl_status cxl_loss_fit_eval(const cxl_loss_fit *fit, double freq_hz,
  * TE11 cut-off, about c / (pi (a + b) sqrt(eps_r)); outside that range the
  * evaluation functions return CXL_EEXTRAPOLATE unless CXL_LOSS_EXTRAPOLATE
  * is given.  A copper-clad centre (cxl_loss_model_set_clad) uses the
- * surface impedance of a layer over a second metal. */
+ * surface impedance of a layer over a second metal, and the skin depth of
+ * whichever of its two metals has the deeper one sets the lower limit. */
 typedef struct cxl_loss_model cxl_loss_model;
 
 cxl_status cxl_loss_model_new(double inner_diameter_m,
