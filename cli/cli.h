@@ -193,6 +193,8 @@ void cli_print_command_help(const cli_command *cmd, FILE *fp);
 
 extern const cli_command cli_cmd_cut;
 extern const cli_command cli_cmd_demo;
+/* ---- cmd_trim.c: cut long, read, trim ---- */
+extern const cli_command cli_cmd_trim;
 
 /* ---- pattern, budget, hybrid, plots (pairspec.c, budgettol.c, svg.c) -- */
 

@@ -14,6 +14,7 @@ static const cli_command *const commands[] = {
     &cli_cmd_pattern,
     &cli_cmd_budget,
     &cli_cmd_hybrid,
+    &cli_cmd_trim,
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 

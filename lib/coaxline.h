@@ -503,7 +503,8 @@ cxl_status cxl_loss_fit_eval(const cxl_loss_fit *fit, double freq_hz,
  * TE11 cut-off, about c / (pi (a + b) sqrt(eps_r)); outside that range the
  * evaluation functions return CXL_EEXTRAPOLATE unless CXL_LOSS_EXTRAPOLATE
  * is given.  A copper-clad centre (cxl_loss_model_set_clad) uses the
- * surface impedance of a layer over a second metal. */
+ * surface impedance of a layer over a second metal, and the skin depth of
+ * whichever of its two metals has the deeper one sets the lower limit. */
 typedef struct cxl_loss_model cxl_loss_model;
 
 cxl_status cxl_loss_model_new(double inner_diameter_m,
@@ -518,12 +519,23 @@ cxl_status cxl_loss_model_new(double inner_diameter_m,
  * centre is used when the row gives one. */
 cxl_status cxl_loss_model_new_cable(const cxl_catalog *catalog, size_t index,
                                     cxl_loss_model **model);
-/* Make the centre conductor a clad one: a layer clad_thickness_m of the
- * model's conductivity over a core (e.g. steel). */
+/* Make the centre conductor a clad one: a layer clad_thickness_m (>= 0,
+ * below the centre radius) of the model's conductivity over a core (e.g.
+ * steel, relative permeability >= 1).  Its surface impedance is that of a
+ * layer over a second metal,
+ *   Zs = eta1 (eta2 + eta1 tanh(g1 t)) / (eta1 + eta2 tanh(g1 t)),
+ *   eta_i = (1 + j)/(sigma_i delta_i), g1 = (1 + j)/delta1;
+ * a thickness of 0 makes the centre the core metal. */
 cxl_status cxl_loss_model_set_clad(cxl_loss_model *model,
                                    double clad_thickness_m,
                                    double core_conductivity_s_per_m,
                                    double core_relative_permeability);
+/* Frequency at which the skin depth of the cladding equals its thickness:
+ * well above it the centre behaves as solid cladding metal, below it the
+ * core carries a growing share of the current.  CXL_ENOTFOUND for a model
+ * without cladding, CXL_ERANGE for a cladding of thickness 0. */
+cxl_status cxl_loss_model_clad_crossover(const cxl_loss_model *model,
+                                         double *freq_hz);
 void cxl_loss_model_free(cxl_loss_model *model);
 /* Frequencies where the model holds (see above). */
 cxl_status cxl_loss_model_range(const cxl_loss_model *model,
@@ -779,6 +791,198 @@ cxl_status cxl_hybrid_response(double gamma_common_re,
                                double gamma_common_im,
                                double gamma_idle_re, double gamma_idle_im,
                                double *common_db, double *isolation_db);
+
+/* ---- transfer.c: a line into a load ----------------------------------- */
+
+/* Voltage transfer of length_m (>= 0) of line with propagation constant
+ * gamma = alpha + j beta (alpha >= 0, beta > 0, per metre) and
+ * characteristic impedance Z0 (Re Z0 > 0) into a load ZL (Re ZL >= 0):
+ *     V_load / V_in = (1 + G) / (e^{gamma l} + G e^{-gamma l}),
+ *     G = (ZL - Z0) / (ZL + Z0)
+ * (Pozar, Microwave Engineering, 4th ed., sec. 2.3 and 2.7).  A lossless
+ * half wave gives -1 into any load; a lossless quarter wave gives
+ * -j ZL / Z0.  CXL_ERANGE when the load is a short (no voltage, no phase),
+ * when the line turns a reactive load into a short at its input, or when
+ * alpha l exceeds 345 Np.  A very high-impedance load (a probe, an open
+ * end) is given as a large resistance, e.g. 1e9 ohm. */
+cxl_status cxl_transfer_ratio(double z0_re_ohm, double z0_im_ohm,
+                              double alpha_np_per_m, double beta_rad_per_m,
+                              double length_m, double load_re_ohm,
+                              double load_im_ohm, double *ratio_re,
+                              double *ratio_im);
+/* A ratio as 20 log10 |ratio| (dB; above 0 where the load sees more
+ * voltage than the input) and as a delay in degrees: minus its phase
+ * angle, taken within 180 degrees of electrical_deg (the line's own
+ * electrical length, beta l) so that whole turns are kept.  The delay
+ * equals electrical_deg into a matched load and departs from it into any
+ * other: that departure is what a mismatched load adds to a phasing line. */
+cxl_status cxl_transfer_delay(double ratio_re, double ratio_im,
+                              double electrical_deg, double *transfer_db,
+                              double *delay_deg);
+/* A lossless line of real impedance z0_ohm and velocity factor vf at
+ * freq_hz: transfer in dB, delay in degrees, and the electrical length
+ * 360 f l / (vf c) in degrees (electrical_deg may be NULL). */
+cxl_status cxl_transfer_lossless(double z0_ohm, double vf, double length_m,
+                                 double freq_hz, double load_re_ohm,
+                                 double load_im_ohm, double *transfer_db,
+                                 double *delay_deg, double *electrical_deg);
+/* The same for a physical cable model (complex gamma and Z0 at freq_hz,
+ * flags as for cxl_loss_model_gamma); electrical_deg is beta l. */
+cxl_status cxl_transfer_model(const cxl_loss_model *model, double freq_hz,
+                              unsigned flags, double length_m,
+                              double load_re_ohm, double load_im_ohm,
+                              double *transfer_db, double *delay_deg,
+                              double *electrical_deg);
+/* Input impedance Z0 (1 + G e^{-2 gamma l}) / (1 - G e^{-2 gamma l}) of the
+ * same line and load; CXL_ERANGE when it is an open circuit. */
+cxl_status cxl_transfer_input_impedance(double z0_re_ohm, double z0_im_ohm,
+                                        double alpha_np_per_m,
+                                        double beta_rad_per_m,
+                                        double length_m, double load_re_ohm,
+                                        double load_im_ohm, double *zin_re_ohm,
+                                        double *zin_im_ohm);
+/* What an analyzer shows on length_m of a modelled cable with its far end
+ * open or shorted: the frequency of the order-th series resonance, where
+ * the input reactance of Z0 coth(gamma l) (open) or Z0 tanh(gamma l)
+ * (shorted) crosses zero near the point where the line is (2n-1)/4 or n/2
+ * wavelengths long.  Found with GSL's Brent solver; it carries the model's
+ * low-frequency VF drop and its complex Z0.  CXL_EEXTRAPOLATE when the
+ * search leaves the model's range (unless CXL_LOSS_EXTRAPOLATE),
+ * CXL_ENOCONV when no zero crossing is found (a very lossy line). */
+cxl_status cxl_transfer_stub_resonance(const cxl_loss_model *model,
+                                       unsigned flags, cxl_stub_end end,
+                                       int order, double length_m,
+                                       double *resonance_hz);
+
+/* ---- drift.c: velocity factor against frequency ------------------------ */
+
+/* VF(f) = vf_hf - drop / sqrt(f), fitted by weighted least squares (GSL)
+ * in 1/sqrt(f).  Physical reason: the conductors' internal inductance,
+ * R / omega, falls as 1/sqrt(f) in the skin-effect regime, and the phase
+ * velocity of a low-loss line drops by half its ratio to the external
+ * inductance (see drift.c).  A clad centre below its crossover frequency
+ * does not follow this law. */
+typedef struct cxl_drift cxl_drift;
+
+/* From n readings: frequency, VF and (vf_err may be NULL) its standard
+ * error, used as weight 1/err^2.  CXL_ERANGE unless there are two distinct
+ * frequencies; with two points the line goes through both. */
+cxl_status cxl_drift_new(const double *freq_hz, const double *vf,
+                         const double *vf_err, size_t n, cxl_drift **drift);
+/* From the per-reading VFs of a stub fit; freq_res_hz (>= 0) the analyzer's
+ * resolution, which weights each reading by its VF error VF df / f (equal
+ * weights when 0). */
+cxl_status cxl_drift_new_stub(const cxl_stub_result *result,
+                              double freq_res_hz, cxl_drift **drift);
+void cxl_drift_free(cxl_drift *drift);
+/* vf_hf (the limit at high frequency) and drop (VF times sqrt(Hz)). */
+cxl_status cxl_drift_coefficients(const cxl_drift *drift, double *vf_hf,
+                                  double *drop_sqrt_hz);
+/* Lowest and highest reading frequency. */
+cxl_status cxl_drift_range(const cxl_drift *drift, double *min_freq_hz,
+                           double *max_freq_hz);
+/* VF at freq_hz from the trend and its standard error from the fit's
+ * covariance (vf_err may be NULL; 0 without redundant or weighted
+ * readings).  Extrapolation is allowed: compare with cxl_drift_range.
+ * CXL_ERANGE when the trend leaves (0, 1] there. */
+cxl_status cxl_drift_vf(const cxl_drift *drift, double freq_hz, double *vf,
+                        double *vf_err);
+
+/* ---- trim.c: cut long, measure, trim ---------------------------------- */
+
+/* A piece of cable of physical length length_m, cut long, whose series
+ * resonances were read on an analyzer with its far end open or shorted.
+ * The readings give the VF of this piece (per order, and a drift trend
+ * over several orders); the target gives the length it must have; the
+ * result says how much to cut off and what the analyzer should show
+ * after the cut. */
+typedef struct cxl_trim cxl_trim;
+typedef struct cxl_trim_result cxl_trim_result;
+
+typedef enum cxl_trim_action {
+    CXL_TRIM_CUT = 0,    /* cut off more than the measurement resolves */
+    CXL_TRIM_WITHIN = 1, /* on target within the resolution: stop, or read a
+                          * higher order to resolve the rest */
+    CXL_TRIM_SHORT = 2   /* shorter than the target beyond the resolution:
+                          * it needs lengthening (cut a new piece) */
+} cxl_trim_action;
+
+/* Result flags beyond the CXL_STUB_FLAG_* ones of the reading fit. */
+#define CXL_TRIM_FLAG_DRIFT        0x100u /* target VF from the drift trend */
+#define CXL_TRIM_FLAG_EXTRAPOLATED 0x200u /* target frequency outside the readings */
+#define CXL_TRIM_FLAG_MODEL        0x400u /* readings corrected with a cable model */
+
+cxl_status cxl_trim_new(cxl_stub_end end, double length_m, cxl_trim **trim);
+void cxl_trim_free(cxl_trim *trim);
+/* What sits between the analyzer and the piece while measuring (tee,
+ * adapters, a jumper; not part of the finished piece): fixture_m of line
+ * with velocity factor fixture_vf, or of the piece's own cable when
+ * fixture_vf is 0; fixture_tol_m (>= 0) the uncertainty of that length,
+ * which limits the resolution.  Default: none. */
+cxl_status cxl_trim_set_fixture(cxl_trim *trim, double fixture_m,
+                                double fixture_vf, double fixture_tol_m);
+/* Optional: a physical model of the piece's cable (kept by reference: it
+ * must outlive the trim; NULL removes it).  On a lossy line with a complex
+ * Z0 the input reactance crosses zero slightly above the frequency at
+ * which the line is exactly (2n-1)/4 or n/2 wavelengths long (by about
+ * 1e-4 relative on solid-PE cable at 2 MHz); with a model each reading is
+ * moved back by that offset (cxl_transfer_stub_resonance) before the fit,
+ * and the expected readings after the cut carry it again.  The model's
+ * own VF does not enter: only the offset ratio. */
+cxl_status cxl_trim_set_model(cxl_trim *trim, const cxl_loss_model *model);
+/* The analyzer's frequency resolution (step), >= 0, default 0. */
+cxl_status cxl_trim_set_resolution(cxl_trim *trim, double freq_res_hz);
+/* One low-impedance reading in any order of frequency; order >= 1, or 0
+ * when not known (all readings give one, or none does; unknown orders are
+ * inferred as those that best fit one fundamental).  CXL_EINVAL for a
+ * frequency or order given twice. */
+cxl_status cxl_trim_add_reading(cxl_trim *trim, double freq_hz, int order);
+size_t cxl_trim_count(const cxl_trim *trim);
+/* The target (the last one set counts): phase_deg (> 0) of electrical
+ * length at freq_hz; */
+cxl_status cxl_trim_target_degrees(cxl_trim *trim, double phase_deg,
+                                   double freq_hz);
+/* a delay (> 0) at freq_hz, or with freq_hz 0 at the fitted VF of the
+ * readings; */
+cxl_status cxl_trim_target_delay(cxl_trim *trim, double delay_s,
+                                 double freq_hz);
+/* or the electrical length of a reference piece whose order-th resonance
+ * with far end `end` read freq_hz through the same fixture. */
+cxl_status cxl_trim_target_resonance(cxl_trim *trim, cxl_stub_end end,
+                                     int order, double freq_hz);
+/* Fit the readings and compute the cut.  CXL_EINVAL without readings or
+ * target; CXL_ERANGE when a reading implies no plausible VF (0.5 to 1) or
+ * the target is not positive after the fixture; CXL_EINCONSISTENT when
+ * given orders do not rise with frequency. */
+cxl_status cxl_trim_solve(const cxl_trim *trim, cxl_trim_result **result);
+void cxl_trim_result_free(cxl_trim_result *result);
+/* Length to cut off (negative: the piece is short), the length that will
+ * remain, the resolution of that length (what one step of the frequency
+ * resolution in the readings moves it by: remaining times the relative
+ * error of the VF at the target, from the drift fit's covariance with each
+ * reading weighted by VF df / f, or VF df / f of the one reading; the
+ * fixture uncertainty in quadrature) and what to do.  Any output may be
+ * NULL. */
+cxl_status cxl_trim_result_cut(const cxl_trim_result *result,
+                               double *cut_off_m, double *remaining_m,
+                               double *resolution_m, cxl_trim_action *action);
+/* The VF fitted over all readings (one value), the VF used at the target
+ * frequency (drift trend with two or more readings, else the one
+ * reading's; the fitted value without a target frequency) and that
+ * frequency (0 when none).  Any output may be NULL. */
+cxl_status cxl_trim_result_vf(const cxl_trim_result *result, double *vf_fit,
+                              double *vf_target, double *target_freq_hz);
+cxl_status cxl_trim_result_flags(const cxl_trim_result *result,
+                                 unsigned *flags);
+size_t cxl_trim_result_count(const cxl_trim_result *result);
+/* Reading index, in ascending frequency: its frequency, order (given or
+ * inferred), the VF it implies, the frequency it should read after the
+ * cut, and the length that a step of the frequency resolution makes at
+ * that order.  Any output may be NULL. */
+cxl_status cxl_trim_result_reading(const cxl_trim_result *result,
+                                   size_t index, double *freq_hz, int *order,
+                                   double *vf, double *expected_hz,
+                                   double *resolution_m);
 
 #ifdef __cplusplus
 }

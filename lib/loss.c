@@ -307,7 +307,7 @@ cxl_status cxl_loss_model_set_clad(cxl_loss_model *model, double clad_thickness_
                                    double core_conductivity_s_per_m,
                                    double core_relative_permeability)
 {
-    if (!model || !cxl__finite_pos(clad_thickness_m) ||
+    if (!model || !cxl__finite_nonneg(clad_thickness_m) ||
         !cxl__finite_pos(core_conductivity_s_per_m) ||
         !isfinite(core_relative_permeability))
         return CXL_EINVAL;
@@ -354,6 +354,19 @@ cxl_status cxl_loss_model_new_cable(const cxl_catalog *catalog, size_t index,
     return CXL_OK;
 }
 
+cxl_status cxl_loss_model_clad_crossover(const cxl_loss_model *model,
+                                         double *freq_hz)
+{
+    if (!model || !freq_hz) return CXL_EINVAL;
+    if (!model->clad) return CXL_ENOTFOUND;
+    if (!(model->clad_t > 0.0)) return CXL_ERANGE; /* no cladding: never */
+    /* skin depth of the cladding metal equal to its thickness */
+    double f = 1.0 / (M_PI * MU0 * model->sigma * model->clad_t * model->clad_t);
+    if (!isfinite(f)) return CXL_ERANGE;
+    *freq_hz = f;
+    return CXL_OK;
+}
+
 void cxl_loss_model_free(cxl_loss_model *model)
 {
     free(model);
@@ -364,8 +377,12 @@ cxl_status cxl_loss_model_range(const cxl_loss_model *model, double *min_freq_hz
 {
     if (!model || !min_freq_hz || !max_freq_hz) return CXL_EINVAL;
     double delta_max = model->a / MIN_RADIUS_IN_SKIN_DEPTHS;
-    /* delta = 1/sqrt(pi f mu0 sigma)  =>  f = 1/(pi mu0 sigma delta^2) */
-    *min_freq_hz = 1.0 / (M_PI * MU0 * model->sigma * delta_max * delta_max);
+    /* delta = 1/sqrt(pi f mu0 mu_r sigma)  =>  f = 1/(pi mu0 mu_r sigma delta^2);
+     * under a cladding the metal with the deeper skin depth sets the limit */
+    double mu_sigma = model->sigma;
+    if (model->clad && model->core_mu_r * model->core_sigma < mu_sigma)
+        mu_sigma = model->core_mu_r * model->core_sigma;
+    *min_freq_hz = 1.0 / (M_PI * MU0 * mu_sigma * delta_max * delta_max);
     /* TE11 cut-off, lambda_c ~ pi (a + b) in the dielectric */
     *max_freq_hz = CXL_C_M_PER_S / (M_PI * (model->a + model->b) * sqrt(model->eps_r));
     return CXL_OK;
@@ -379,10 +396,17 @@ static gsl_complex surface_impedance(double omega, double sigma, double mu_r)
 }
 
 /* Surface impedance of a layer (thickness t, conductivity sigma1) over a
- * half-space of another metal, as a line section terminated by the second
- * metal's wave impedance:
+ * half-space of another metal.  The plane wave going into the metal sees
+ * the layer as a line section of wave impedance eta1 and propagation
+ * constant g1 terminated by the second metal's wave impedance eta2, so the
+ * input-impedance formula of a terminated line applies:
  *   Zs = eta1 (eta2 + eta1 tanh(g1 t)) / (eta1 + eta2 tanh(g1 t)),
- *   eta_i = (1 + j)/(sigma_i delta_i), g1 = (1 + j)/delta1. */
+ *   eta_i = (1 + j)/(sigma_i delta_i), g1 = (1 + j)/delta1
+ * (Ramo, Whinnery and Van Duzer, Fields and Waves in Communication
+ * Electronics, 3rd ed., plane waves normally incident on layered media and
+ * the transmission-line analogy, from memory; the planar form holds while
+ * t and the skin depths are small against the wire radius).  t = 0 gives
+ * eta2; t >> delta1 gives eta1. */
 static gsl_complex clad_surface_impedance(const cxl_loss_model *m, double omega)
 {
     gsl_complex eta1 = surface_impedance(omega, m->sigma, 1.0);

@@ -854,7 +854,7 @@ static api_case cases[] = {
       2, {{2.95e-3, 2.95e-3, 2.25, 2e-4, 58e6, 1.0}, {3e-3, 2.95e-3, 2.25, 2e-4, 58e6, 1.0}} },
     { "cxl_loss_model_new_cable", call_loss_model_new_cable, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
     { "cxl_loss_model_set_clad", call_loss_model_set_clad, 3, {0.02e-3, 5e6, 100},
-      {&K_POS, &K_POS, &K_EPS_R}, 1, 0, 2, 1, {{0.5e-3, 5e6, 100}} /* thicker than the radius */ },
+      {&K_NONNEG, &K_POS, &K_EPS_R}, 1, 0, 2, 1, {{0.5e-3, 5e6, 100}} /* thicker than the radius; 0 = bare core */ },
     { "cxl_loss_model_range", call_loss_model_range, 0, {0}, {0}, 3, 0, 2, 0, {{0}} },
     { "cxl_loss_model_rlgc", call_loss_model_rlgc, 2, {10e6, 0}, {&K_POS, &K_FLAGS}, 5, 0, 4, 0, {{0}} },
     { "cxl_loss_model_rlgc", call_loss_model_rlgc, 2, {10e6, 3}, {&K_POS, &K_FLAGS}, 5, 0, 4, 0, {{0}} },

@@ -82,7 +82,7 @@ START_TEST(cables_list)
                             "RG-11-foam", "RG-316", "RG-142", "RG-179" };
     for (size_t i = 0; i < sizeof names / sizeof names[0]; i++)
         ck_assert_msg(strstr(r.out, names[i]) != NULL, "%s missing", names[i]);
-    ck_assert_ptr_nonnull(strstr(r.out, "12 built in, 0 from user files"));
+    ck_assert_ptr_nonnull(strstr(r.out, "15 built in, 0 from user files"));
     /* RG-6-foam's table: 1, 10 and 100 MHz (data/cable_loss.csv) */
     ck_assert_ptr_nonnull(strstr(r.out, "1.000-100.000 MHz"));
     ck_assert_str_eq(r.err, "");
@@ -94,7 +94,7 @@ START_TEST(cables_csv_and_json)
 {
     cli_result r = run_cli(NULL, "cables --format csv", NULL);
     ck_assert_int_eq(r.rc, 0);
-    ck_assert_int_eq(count_lines(r.out), 13);
+    ck_assert_int_eq(count_lines(r.out), 16); /* header + 15 rows of data/cables.csv */
     static const char header[] =
         "name,z0_ohm,vf,dielectric,inner_diameter_mm,dielectric_diameter_mm,relative_permittivity,"
         "loss_tangent,builtin,loss_points,loss_min_mhz,loss_max_mhz,source,conductivity_s_per_m,"
@@ -113,7 +113,7 @@ START_TEST(cables_csv_and_json)
     ck_assert_int_eq(r.rc, 0);
     /* Python's json module is an independent parser */
     ck_assert_int_eq(py_check("import json,sys; d=json.load(open(sys.argv[1])); "
-                              "assert len(d)==12 and all(c[\"builtin\"]==\"yes\" for c in d); "
+                              "assert len(d)==15 and all(c[\"builtin\"]==\"yes\" for c in d); "
                               "c=[c for c in d if c[\"name\"]==\"RG-6-foam\"][0]; "
                               "assert c[\"z0_ohm\"]==75 and c[\"vf\"]==0.82 and c[\"loss_points\"]==3; "
                               "assert c[\"loss_min_mhz\"]==1 and c[\"loss_max_mhz\"]==100; "
@@ -467,7 +467,7 @@ START_TEST(user_spool_cut)
     ck_assert_ptr_nonnull(strstr(viaenv.out, "\nmyspool,75.0,0.8310,,,,,,no,2,1.000,4.000,drum 4 measured at the bench,"));
     cli_result_free(&viaenv);
     viaenv = run_cli(env, "cables", NULL);
-    ck_assert_ptr_nonnull(strstr(viaenv.out, "12 built in, 1 from user files"));
+    ck_assert_ptr_nonnull(strstr(viaenv.out, "15 built in, 1 from user files"));
     cli_result_free(&viaenv);
     unlink(path);
     snprintf(path, sizeof path, "%s/cables.csv", dir);

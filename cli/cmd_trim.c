@@ -1,0 +1,379 @@
+/* cmd_trim.c - coaxline trim: a piece cut long, its resonances read on an
+ * analyzer; how much to cut off to reach a target, and what the analyzer
+ * should show afterwards. */
+#include <config.h>
+#include <math.h>
+#include <stdio.h>
+#include <string.h>
+#include "cli.h"
+
+static const cli_optdef trim_opts[] = {
+    { "length", "LEN", "physical length of the piece now (e.g. 30m or 98ft 5in)", 0 },
+    { "end", "open|short", "far end of the piece while reading (default open)", 0 },
+    { "resonance", "F", "a low-impedance frequency read on the analyzer (e.g. 1.645MHz)", 1 },
+    { "order", "N", "order of each --resonance, in the same order (default: inferred)", 1 },
+    { "fixture", "LEN", "tee, adapters or jumper between analyzer and piece", 0 },
+    { "fixture-vf", "X", "velocity factor of the fixture (default: the piece's cable)", 0 },
+    { "fixture-tol", "LEN", "how well the fixture length is known (default 0)", 0 },
+    { "resolution", "F", "the analyzer's frequency step (e.g. 1kHz; default 0)", 0 },
+    { "degrees", "DEG", "target: electrical length at --freq", 0 },
+    { "delay", "TIME", "target: a delay (at --freq when given)", 0 },
+    { "freq", "F", "frequency the target holds at", 0 },
+    { "match-resonance", "F", "target: what a reference piece read through the same fixture", 0 },
+    { "match-end", "open|short", "far end of the reference piece (default: --end)", 0 },
+    { "match-order", "N", "order of the reference reading (default 1)", 0 },
+    { "cable", "NAME", "catalog cable whose model corrects the lossy-line offset of each reading", 0 },
+    { "label", "TEXT", "name of the piece, kept in every output row", 0 },
+    { NULL, NULL, NULL, 0 }
+};
+
+static const cli_col trim_cols[] = {
+    { "label", -1 }, { "length_m", 4 }, { "end", -1 }, { "order", 0 }, { "order_source", -1 },
+    { "freq_mhz", 6 }, { "vf", 5 }, { "target_freq_mhz", 6 }, { "target_vf", 5 },
+    { "cut_off_m", 4 }, { "cut_off_ft", 4 }, { "cut_off_tape", -1 }, { "remaining_m", 4 },
+    { "expected_mhz", 6 }, { "resolution_mm", 1 }, { "remaining_res_mm", 1 }, { "action", -1 },
+};
+#define NCOLS (sizeof trim_cols / sizeof trim_cols[0])
+
+static const char end_expected[] = "open or short";
+
+static int parse_end(cli_ctx *ctx, const char *field, const char *text, cxl_stub_end *end)
+{
+    if (strcmp(text, "open") == 0) *end = CXL_STUB_OPEN;
+    else if (strcmp(text, "short") == 0) *end = CXL_STUB_SHORT;
+    else return cli_error(ctx, field, end_expected, "unknown end '%s'", text);
+    return 0;
+}
+
+static int parse_order(cli_ctx *ctx, const char *field, const char *text, int *order)
+{
+    static const char expected[] = "a whole number from 1 (the lowest resonance) up, such as 3";
+    double v;
+    if (cli_number(ctx, field, text, 1.0, CXL_STUB_MAX_ORDER, expected, &v)) return CLI_EXIT_USAGE;
+    if (v != floor(v)) return cli_error(ctx, field, expected, "'%s' is not a whole number", text);
+    *order = (int)v;
+    return 0;
+}
+
+/* Everything one invocation reads, checked. */
+typedef struct trim_in {
+    double length_m, fixture_m, fixture_vf, fixture_tol_m, res_hz;
+    cxl_stub_end end;
+    int n, orders_given;
+    double freq_hz[CLI_MAX_ITEMS];
+    int order[CLI_MAX_ITEMS];
+} trim_in;
+
+static int read_readings(cli_ctx *ctx, const cli_args *a, trim_in *in)
+{
+    char buf[2048], obuf[1024];
+    const char *items[CLI_MAX_ITEMS], *oitems[CLI_MAX_ITEMS];
+    int n = cli_items(ctx, a, "resonance", buf, sizeof buf, items, CLI_MAX_ITEMS);
+    if (n < 0) return CLI_EXIT_USAGE;
+    if (n == 0)
+        return cli_error(ctx, "resonance", "--resonance 1.645MHz (repeat it or give a list for more orders)",
+                         "at least one reading is needed");
+    int no = cli_items(ctx, a, "order", obuf, sizeof obuf, oitems, CLI_MAX_ITEMS);
+    if (no < 0) return CLI_EXIT_USAGE;
+    if (no != 0 && no != n)
+        return cli_error(ctx, "order", "one order per --resonance, e.g. --resonance 1.6MHz,4.9MHz --order 1,2",
+                         "%d orders for %d readings", no, n);
+    for (int i = 0; i < n; i++) {
+        if (cli_freq(ctx, "resonance", items[i], &in->freq_hz[i])) return CLI_EXIT_USAGE;
+        in->order[i] = 0;
+        if (no && parse_order(ctx, "order", oitems[i], &in->order[i])) return CLI_EXIT_USAGE;
+        for (int j = 0; j < i; j++) {
+            if (in->freq_hz[j] == in->freq_hz[i])
+                return cli_error(ctx, "resonance", "each resonance once", "'%s' is given twice",
+                                 items[i]);
+            if (no && in->order[j] == in->order[i])
+                return cli_error(ctx, "order", "each order once", "order %d is given twice",
+                                 in->order[i]);
+        }
+    }
+    in->n = n;
+    in->orders_given = no != 0;
+    return 0;
+}
+
+static int read_piece(cli_ctx *ctx, const cli_args *a, trim_in *in)
+{
+    const char *t;
+    memset(in, 0, sizeof *in);
+    if (!(t = cli_get(a, "length", 0)))
+        return cli_error(ctx, "length", "--length 30m, the piece's length now", "the piece's length is needed");
+    if (cli_length(ctx, "length", t, CLI_POSITIVE, &in->length_m)) return CLI_EXIT_USAGE;
+    in->end = CXL_STUB_OPEN;
+    if ((t = cli_get(a, "end", 0)) && parse_end(ctx, "end", t, &in->end)) return CLI_EXIT_USAGE;
+    if ((t = cli_get(a, "fixture", 0)) &&
+        cli_length(ctx, "fixture", t, CLI_NONNEG, &in->fixture_m))
+        return CLI_EXIT_USAGE;
+    if ((t = cli_get(a, "fixture-vf", 0)) && cli_vf(ctx, "fixture-vf", t, &in->fixture_vf))
+        return CLI_EXIT_USAGE;
+    if ((t = cli_get(a, "fixture-tol", 0)) &&
+        cli_length(ctx, "fixture-tol", t, CLI_NONNEG, &in->fixture_tol_m))
+        return CLI_EXIT_USAGE;
+    if ((t = cli_get(a, "resolution", 0))) {
+        static const char expected[] = "a frequency step such as 1kHz or 100Hz, or 0";
+        size_t pos = 0;
+        if (cxl_units_parse_freq(t, &in->res_hz, &pos) != CXL_OK || !(in->res_hz >= 0.0))
+            return cli_error(ctx, "resolution", expected, "'%s' is not a frequency step", t);
+    }
+    return read_readings(ctx, a, in);
+}
+
+/* The one target of this invocation, set on the trim. */
+static int set_target(cli_ctx *ctx, const cli_args *a, const trim_in *in, cxl_trim *trim,
+                      char *what, size_t size)
+{
+    static const char kinds_expected[] =
+        "--degrees 90 --freq 1.83MHz, --delay 40ns or --match-resonance 2.471MHz";
+    const char *deg = cli_get(a, "degrees", 0), *dl = cli_get(a, "delay", 0);
+    const char *mr = cli_get(a, "match-resonance", 0), *ft = cli_get(a, "freq", 0);
+    int kinds = !!deg + !!dl + !!mr;
+    if (kinds != 1)
+        return cli_error(ctx, "degrees/delay/match-resonance", kinds_expected,
+                         kinds ? "give only one target" : "a target is needed");
+    double f = 0.0, v;
+    char b1[64], b2[64];
+    if (ft && cli_freq(ctx, "freq", ft, &f)) return CLI_EXIT_USAGE;
+    if (ft && mr)
+        return cli_error(ctx, "freq", "--freq with --degrees or --delay",
+                         "--match-resonance holds at its own frequency");
+    if (deg) {
+        static const char expected[] = "electrical degrees above 0, such as 90";
+        if (cli_number(ctx, "degrees", deg, 0.0, 1e6, expected, &v)) return CLI_EXIT_USAGE;
+        if (!(v > 0.0))
+            return cli_error(ctx, "degrees", expected, "'%s' must be greater than zero", deg);
+        if (!ft)
+            return cli_error(ctx, "freq", "--degrees 90 --freq 1.83MHz",
+                             "--degrees needs the frequency it holds at");
+        cxl_trim_target_degrees(trim, v, f);
+        snprintf(what, size, "%s deg at %s MHz", cli_fmt(b1, sizeof b1, v, 3),
+                 cli_fmt(b2, sizeof b2, f / 1e6, 6));
+    } else if (dl) {
+        if (cli_time(ctx, "delay", dl, CLI_POSITIVE, &v)) return CLI_EXIT_USAGE;
+        cxl_trim_target_delay(trim, v, f);
+        snprintf(what, size, "%s ns%s%s%s", cli_fmt(b1, sizeof b1, v * 1e9, 3),
+                 ft ? " at " : "", ft ? cli_fmt(b2, sizeof b2, f / 1e6, 6) : "", ft ? " MHz" : "");
+    } else {
+        cxl_stub_end end = in->end;
+        int order = 1;
+        const char *t;
+        if (cli_freq(ctx, "match-resonance", mr, &f)) return CLI_EXIT_USAGE;
+        if ((t = cli_get(a, "match-end", 0)) && parse_end(ctx, "match-end", t, &end))
+            return CLI_EXIT_USAGE;
+        if ((t = cli_get(a, "match-order", 0)) && parse_order(ctx, "match-order", t, &order))
+            return CLI_EXIT_USAGE;
+        cxl_trim_target_resonance(trim, end, order, f);
+        snprintf(what, size, "the reference piece: order %d at %s MHz, far end %s", order,
+                 cli_fmt(b1, sizeof b1, f / 1e6, 6), end == CXL_STUB_OPEN ? "open" : "short");
+    }
+    return 0;
+}
+
+/* "12.3 mm" style: a fixed-decimal number and its unit. */
+static const char *with_unit(char *buf, size_t size, double value, int decimals,
+                             const char *unit)
+{
+    char num[64];
+    snprintf(buf, size, "%s %s", cli_fmt(num, sizeof num, value, decimals), unit);
+    return buf;
+}
+
+static const char *action_word(cxl_trim_action act)
+{
+    return act == CXL_TRIM_CUT ? "cut" : act == CXL_TRIM_WITHIN ? "within" : "short";
+}
+
+static void print_text(cli_ctx *ctx, const cli_args *a, const trim_in *in,
+                       const cxl_trim_result *r, const char *what, const char *cable)
+{
+    FILE *o = ctx->out;
+    char b1[96], b2[96], b3[96], b4[96];
+    double cut, keep, res, vf_fit, vf_t, ft;
+    cxl_trim_action act;
+    unsigned flags;
+    const char *label = cli_label(a);
+    cxl_trim_result_cut(r, &cut, &keep, &res, &act);
+    cxl_trim_result_vf(r, &vf_fit, &vf_t, &ft);
+    cxl_trim_result_flags(r, &flags);
+    size_t n = cxl_trim_result_count(r);
+
+    if (ctx->rows_out++) putc('\n', o);
+    fprintf(o, "trim%s%s\n", label[0] ? ": " : "", label);
+    fprintf(o, "  piece               %s, far end %s\n",
+            cli_fmt_length(ctx, b1, sizeof b1, in->length_m),
+            in->end == CXL_STUB_OPEN ? "open" : "shorted");
+    if (in->fixture_m > 0.0)
+        fprintf(o, "  fixture             %s, %s\n", cli_fmt_length(ctx, b1, sizeof b1, in->fixture_m),
+                in->fixture_vf > 0.0 ? cli_fmt(b2, sizeof b2, in->fixture_vf, 4) : "same cable");
+    fprintf(o, "  readings            order  MHz          VF       one step resolves\n");
+    for (size_t i = 0; i < n; i++) {
+        double f, v, rm;
+        int order;
+        cxl_trim_result_reading(r, i, &f, &order, &v, NULL, &rm);
+        fprintf(o, "                      %-5d  %-11s  %-7s  %s\n", order,
+                cli_fmt(b1, sizeof b1, f / 1e6, 6), cli_fmt(b2, sizeof b2, v, 5),
+                in->res_hz > 0.0 ? with_unit(b3, sizeof b3, rm * 1e3, 1, "mm") : "-");
+    }
+    fprintf(o, "                      orders %s%s\n", in->orders_given ? "as given" : "inferred",
+            flags & CXL_TRIM_FLAG_MODEL ? "; each reading corrected for the lossy-line offset" : "");
+    if (flags & CXL_TRIM_FLAG_MODEL)
+        fprintf(o, "                      (model of cable %s)\n", cable);
+    if (ft > 0.0)
+        fprintf(o, "  VF at %-13s %s  %s\n", with_unit(b1, sizeof b1, ft / 1e6, 3, "MHz"),
+                cli_fmt(b2, sizeof b2, vf_t, 5),
+                flags & CXL_TRIM_FLAG_DRIFT
+                    ? (flags & CXL_TRIM_FLAG_EXTRAPOLATED
+                           ? "trend a - b/sqrt(f) over the readings, extrapolated"
+                           : "trend a - b/sqrt(f) over the readings")
+                    : "from the one reading");
+    else
+        fprintf(o, "  VF                  %s  fitted over the readings\n",
+                cli_fmt(b2, sizeof b2, vf_t, 5));
+    fprintf(o, "  target              %s\n", what);
+    fprintf(o, "  keep                %s", cli_fmt_length(ctx, b1, sizeof b1, keep));
+    if (res > 0.0) fprintf(o, "  +- %s mm", cli_fmt(b2, sizeof b2, res * 1e3, 1));
+    putc('\n', o);
+    if (act == CXL_TRIM_SHORT) {
+        fprintf(o, "  SHORT               the piece is %s shorter than the target: trimming cannot\n"
+                   "                      reach it; lengthen it or cut a new piece\n",
+                cli_fmt_length(ctx, b1, sizeof b1, -cut));
+        return;
+    }
+    fprintf(o, "  cut off             %s\n", cli_fmt_length(ctx, b1, sizeof b1, cut));
+    if (act == CXL_TRIM_WITHIN)
+        fprintf(o, "                      within the resolution: stop, or read a higher order\n");
+    fprintf(o, "  analyzer after cut  ");
+    for (size_t i = 0; i < n; i++) {
+        double e;
+        int order;
+        cxl_trim_result_reading(r, i, NULL, &order, NULL, &e, NULL);
+        fprintf(o, "%s%s MHz (order %d)", i ? ", " : "", cli_fmt(b4, sizeof b4, e / 1e6, 6), order);
+    }
+    putc('\n', o);
+}
+
+static void print_rows(cli_ctx *ctx, const cli_args *a, const trim_in *in,
+                       const cxl_trim_result *r)
+{
+    double cut, keep, res, vf_t, ft;
+    cxl_trim_action act;
+    char tape[64];
+    cxl_trim_result_cut(r, &cut, &keep, &res, &act);
+    cxl_trim_result_vf(r, NULL, &vf_t, &ft);
+    if (cxl_units_format_imperial(cut, tape, sizeof tape) != CXL_OK) tape[0] = '\0';
+    for (size_t i = 0; i < cxl_trim_result_count(r); i++) {
+        double f, v, e, rm;
+        int order;
+        cxl_trim_result_reading(r, i, &f, &order, &v, &e, &rm);
+        cli_cell cells[NCOLS] = {
+            CLI_TXT(cli_label(a)), CLI_NUM(in->length_m),
+            CLI_TXT(in->end == CXL_STUB_OPEN ? "open" : "short"), CLI_NUM(order),
+            CLI_TXT(in->orders_given ? "given" : "inferred"), CLI_NUM(f / 1e6), CLI_NUM(v),
+            ft > 0.0 ? CLI_NUM(ft / 1e6) : CLI_NONE, CLI_NUM(vf_t), CLI_NUM(cut),
+            CLI_NUM(cut / 0.3048), CLI_TXT(tape), CLI_NUM(keep), CLI_NUM(e / 1e6),
+            CLI_NUM(rm * 1e3), CLI_NUM(res * 1e3), CLI_TXT(action_word(act)),
+        };
+        cli_table_row(ctx, trim_cols, NCOLS, cells);
+    }
+}
+
+/* Every number the output shows must be finite. */
+static int result_finite(const cxl_trim_result *r)
+{
+    double v[5];
+    cxl_trim_result_cut(r, &v[0], &v[1], &v[2], NULL);
+    cxl_trim_result_vf(r, &v[3], &v[4], NULL);
+    int ok = isfinite(v[0]) && isfinite(v[1]) && isfinite(v[2]) && isfinite(v[3]) && isfinite(v[4]);
+    for (size_t i = 0; i < cxl_trim_result_count(r) && ok; i++) {
+        double f, vf, e, rm;
+        cxl_trim_result_reading(r, i, &f, NULL, &vf, &e, &rm);
+        ok = isfinite(f) && isfinite(vf) && isfinite(e) && isfinite(rm);
+    }
+    return ok;
+}
+
+static int solve_error(cli_ctx *ctx, cxl_status st)
+{
+    if (st == CXL_EINCONSISTENT)
+        return cli_error(ctx, "order", "orders that rise with frequency, e.g. --order 1,2,3",
+                         "a higher reading has a lower or equal order");
+    if (st == CXL_ERANGE)
+        return cli_error(ctx, "resonance",
+                         "readings of this piece with a velocity factor between 0.5 and 1 (check --length, --end, --order, --fixture)",
+                         "the readings and the target do not fit this piece");
+    return cli_error(ctx, "resonance", "readings the model can follow", "%s", cxl_strerror(st));
+}
+
+static int trim_run(cli_ctx *ctx, const cli_args *a)
+{
+    trim_in in;
+    if (read_piece(ctx, a, &in)) return CLI_EXIT_USAGE;
+    cxl_trim *trim = NULL;
+    cxl_loss_model *model = NULL;
+    cxl_trim_result *r = NULL;
+    char what[160];
+    const char *cable = cli_get(a, "cable", 0);
+    int code = CLI_EXIT_USAGE;
+    if (cxl_trim_new(in.end, in.length_m, &trim) != CXL_OK) {
+        cli_error(ctx, "length", NULL, "out of memory");
+        goto done;
+    }
+    cxl_trim_set_fixture(trim, in.fixture_m, in.fixture_vf, in.fixture_tol_m);
+    cxl_trim_set_resolution(trim, in.res_hz);
+    for (int i = 0; i < in.n; i++) cxl_trim_add_reading(trim, in.freq_hz[i], in.order[i]);
+    if (set_target(ctx, a, &in, trim, what, sizeof what)) goto done;
+    if (cable) {
+        size_t idx;
+        if (cli_cable_index(ctx, cable, &idx)) goto done;
+        if (cxl_loss_model_new_cable(cli_catalog(ctx), idx, &model) != CXL_OK) {
+            cli_error(ctx, "cable", "a cable with inner and dielectric diameters (coaxline cables)",
+                      "cable '%s' has no geometry to model", cable);
+            goto done;
+        }
+        cxl_trim_set_model(trim, model);
+    }
+    cxl_status st = cxl_trim_solve(trim, &r);
+    if (st != CXL_OK) {
+        solve_error(ctx, st);
+        goto done;
+    }
+    if (!result_finite(r)) {
+        cli_error(ctx, "resonance", "readings of an ordinary piece of cable", "no finite result");
+        goto done;
+    }
+    double cut, res;
+    cxl_trim_action act;
+    unsigned flags;
+    cxl_trim_result_cut(r, &cut, NULL, &res, &act);
+    cxl_trim_result_flags(r, &flags);
+    if (ctx->format == CLI_TEXT) print_text(ctx, a, &in, r, what, cable);
+    else print_rows(ctx, a, &in, r);
+    if (flags & CXL_STUB_FLAG_INCONSISTENT)
+        cli_warn(ctx, "the readings are not multiples of one fundamental within 2 %%: "
+                      "check the orders, the far end and the fixture");
+    if (act == CXL_TRIM_WITHIN) {
+        char b1[32], b2[32];
+        cli_warn(ctx, "the cut (%s mm) is below what this measurement resolves (%s mm): "
+                      "stop, or read a higher order or with a finer step",
+                 cli_fmt(b1, sizeof b1, cut * 1e3, 1), cli_fmt(b2, sizeof b2, res * 1e3, 1));
+    }
+    code = act == CXL_TRIM_SHORT ? CLI_EXIT_TOLERANCE : CLI_EXIT_OK;
+done:
+    cxl_trim_result_free(r);
+    cxl_trim_free(trim);
+    cxl_loss_model_free(model);
+    return code;
+}
+
+const cli_command cli_cmd_trim = {
+    .name = "trim",
+    .summary = "how much to cut off a piece cut long, from its analyzer resonances",
+    .synopsis = "--length LEN --resonance F[,F...] (--degrees DEG --freq F | --delay TIME | "
+                "--match-resonance F) [OPTIONS]",
+    .opts = trim_opts,
+    .run = trim_run,
+    .batch = 1,
+};

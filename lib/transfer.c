@@ -1,0 +1,318 @@
+/* transfer.c - a line into a load: voltage transfer, input impedance and
+ * the series resonances of a lossy stub.
+ *
+ * On a line with propagation constant gamma and characteristic impedance
+ * Z0, V(z) = V+ (e^{-gamma z} + G e^{gamma z}) with the load at z = 0 and
+ * G = (ZL - Z0)/(ZL + Z0); the input sits at z = -l, so
+ *     V_load / V_in = (1 + G) / (e^{gamma l} + G e^{-gamma l})
+ *     Z_in = Z0 (1 + G e^{-2 gamma l}) / (1 - G e^{-2 gamma l})
+ * (Pozar, Microwave Engineering, 4th ed., sec. 2.3 lossless, sec. 2.7
+ * lossy).  Both are evaluated with e^{-gamma l} only, so a long lossy line
+ * cannot overflow.  With a complex Z0 these are the voltage-wave forms, so
+ * they are exact for the low bands, where Z0 is far from real.
+ */
+#include <config.h>
+#include <math.h>
+#include <gsl/gsl_complex.h>
+#include <gsl/gsl_complex_math.h>
+#include <gsl/gsl_errno.h>
+#include <gsl/gsl_math.h>
+#include <gsl/gsl_roots.h>
+#include "coaxline.h"
+#include "internal.h"
+
+#define RAD_TO_DEG (180.0 / M_PI)
+/* below this |V_load / V_in| the phase means nothing (a shorted load) */
+#define MIN_RATIO 1e-300
+/* e^{-2 alpha l} below this is 0 for every load: alpha l > 345 Np */
+#define MAX_ATTENUATION_NP 345.0
+
+/* e^{-gamma l} and Gamma of a load, with the arguments checked. */
+typedef struct terminated {
+    gsl_complex z0, g, e1; /* Z0, Gamma_L, e^{-gamma l} */
+} terminated;
+
+static int valid_line(double z0_re, double z0_im, double alpha, double beta,
+                      double length_m)
+{
+    return cxl__finite_pos(z0_re) && isfinite(z0_im) && cxl__finite_nonneg(alpha) &&
+           cxl__finite_pos(beta) && cxl__finite_nonneg(length_m);
+}
+
+static cxl_status terminate(double z0_re, double z0_im, double alpha, double beta,
+                            double length_m, double load_re, double load_im,
+                            terminated *t)
+{
+    if (!valid_line(z0_re, z0_im, alpha, beta, length_m) ||
+        !cxl__finite_nonneg(load_re) || !isfinite(load_im))
+        return CXL_EINVAL;
+    double a_l = alpha * length_m, b_l = beta * length_m;
+    if (!isfinite(b_l) || a_l > MAX_ATTENUATION_NP) return CXL_ERANGE;
+    t->z0 = gsl_complex_rect(z0_re, z0_im);
+    gsl_complex zl = gsl_complex_rect(load_re, load_im);
+    gsl_complex den = gsl_complex_add(zl, t->z0);
+    /* Re Z0 > 0 and Re ZL >= 0, so |ZL + Z0| > 0 */
+    t->g = gsl_complex_div(gsl_complex_sub(zl, t->z0), den);
+    t->e1 = gsl_complex_polar(exp(-a_l), -b_l);
+    return CXL_OK;
+}
+
+cxl_status cxl_transfer_ratio(double z0_re_ohm, double z0_im_ohm,
+                              double alpha_np_per_m, double beta_rad_per_m,
+                              double length_m, double load_re_ohm,
+                              double load_im_ohm, double *ratio_re,
+                              double *ratio_im)
+{
+    terminated t;
+    if (!ratio_re || !ratio_im) return CXL_EINVAL;
+    cxl_status st = terminate(z0_re_ohm, z0_im_ohm, alpha_np_per_m, beta_rad_per_m,
+                              length_m, load_re_ohm, load_im_ohm, &t);
+    if (st != CXL_OK) return st;
+    /* (1 + G) e^{-gl} / (1 + G e^{-2gl}) */
+    gsl_complex num = gsl_complex_mul(gsl_complex_add_real(t.g, 1.0), t.e1);
+    gsl_complex den = gsl_complex_add_real(
+        gsl_complex_mul(t.g, gsl_complex_mul(t.e1, t.e1)), 1.0);
+    double dn = gsl_complex_abs(den), nn = gsl_complex_abs(num);
+    /* a reactive load that the line turns into a short at its input, or a
+     * shorted load: no finite ratio with a phase */
+    if (!(dn > 1e-15 * (nn > 1.0 ? nn : 1.0)) || !(nn > MIN_RATIO * dn)) return CXL_ERANGE;
+    gsl_complex r = gsl_complex_div(num, den);
+    if (!isfinite(GSL_REAL(r)) || !isfinite(GSL_IMAG(r))) return CXL_ERANGE;
+    *ratio_re = GSL_REAL(r);
+    *ratio_im = GSL_IMAG(r);
+    return CXL_OK;
+}
+
+cxl_status cxl_transfer_delay(double ratio_re, double ratio_im,
+                              double electrical_deg, double *transfer_db,
+                              double *delay_deg)
+{
+    if (!transfer_db || !delay_deg || !isfinite(ratio_re) || !isfinite(ratio_im) ||
+        !isfinite(electrical_deg))
+        return CXL_EINVAL;
+    double mag = hypot(ratio_re, ratio_im);
+    if (!(mag > 0.0)) return CXL_ERANGE;
+    /* the delay is minus the phase angle, taken within half a turn of the
+     * line's own electrical length so that whole turns are kept */
+    double phi = -atan2(ratio_im, ratio_re) * RAD_TO_DEG;
+    double turns = floor((electrical_deg - phi) / 360.0 + 0.5);
+    *transfer_db = 20.0 * log10(mag);
+    *delay_deg = phi + 360.0 * turns;
+    return CXL_OK;
+}
+
+/* Ratio, dB and delay for a line given by Z0, gamma; electrical = beta l. */
+static cxl_status transfer_all(double z0_re, double z0_im, double alpha, double beta,
+                               double length_m, double load_re, double load_im,
+                               double *transfer_db, double *delay_deg,
+                               double *electrical_deg)
+{
+    double rr, ri, db, dl, el = beta * length_m * RAD_TO_DEG;
+    if (!transfer_db || !delay_deg) return CXL_EINVAL;
+    cxl_status st = cxl_transfer_ratio(z0_re, z0_im, alpha, beta, length_m, load_re,
+                                       load_im, &rr, &ri);
+    if (st == CXL_OK) st = cxl_transfer_delay(rr, ri, el, &db, &dl);
+    if (st != CXL_OK) return st;
+    *transfer_db = db;
+    *delay_deg = dl;
+    if (electrical_deg) *electrical_deg = el;
+    return CXL_OK;
+}
+
+cxl_status cxl_transfer_lossless(double z0_ohm, double vf, double length_m,
+                                 double freq_hz, double load_re_ohm,
+                                 double load_im_ohm, double *transfer_db,
+                                 double *delay_deg, double *electrical_deg)
+{
+    if (!cxl__valid_vf(vf) || !cxl__finite_pos(freq_hz)) return CXL_EINVAL;
+    double beta = 2.0 * M_PI * freq_hz / (vf * CXL_C_M_PER_S);
+    return transfer_all(z0_ohm, 0.0, 0.0, beta, length_m, load_re_ohm, load_im_ohm,
+                        transfer_db, delay_deg, electrical_deg);
+}
+
+/* gamma and Z0 of a model at a frequency. */
+static cxl_status model_line(const cxl_loss_model *model, double freq_hz,
+                             unsigned flags, double *alpha, double *beta,
+                             double *z0_re, double *z0_im)
+{
+    cxl_status st = cxl_loss_model_gamma(model, freq_hz, flags, alpha, beta);
+    if (st == CXL_OK) st = cxl_loss_model_z0(model, freq_hz, flags, z0_re, z0_im);
+    return st;
+}
+
+cxl_status cxl_transfer_model(const cxl_loss_model *model, double freq_hz,
+                              unsigned flags, double length_m,
+                              double load_re_ohm, double load_im_ohm,
+                              double *transfer_db, double *delay_deg,
+                              double *electrical_deg)
+{
+    double alpha, beta, zr, zi;
+    if (!model || !transfer_db || !delay_deg) return CXL_EINVAL;
+    cxl_status st = model_line(model, freq_hz, flags, &alpha, &beta, &zr, &zi);
+    if (st != CXL_OK) return st;
+    return transfer_all(zr, zi, alpha, beta, length_m, load_re_ohm, load_im_ohm,
+                        transfer_db, delay_deg, electrical_deg);
+}
+
+/* Z_in = Z0 (1 + G e^{-2gl}) / (1 - G e^{-2gl}) for a given G. */
+static cxl_status input_impedance(gsl_complex z0, gsl_complex g, gsl_complex e1,
+                                  gsl_complex *zin)
+{
+    gsl_complex ge2 = gsl_complex_mul(g, gsl_complex_mul(e1, e1));
+    gsl_complex den = gsl_complex_sub(gsl_complex_rect(1.0, 0.0), ge2);
+    if (!(gsl_complex_abs(den) > 1e-15)) return CXL_ERANGE; /* open at the input */
+    *zin = gsl_complex_mul(z0, gsl_complex_div(gsl_complex_add_real(ge2, 1.0), den));
+    if (!isfinite(GSL_REAL(*zin)) || !isfinite(GSL_IMAG(*zin))) return CXL_ERANGE;
+    return CXL_OK;
+}
+
+cxl_status cxl_transfer_input_impedance(double z0_re_ohm, double z0_im_ohm,
+                                        double alpha_np_per_m,
+                                        double beta_rad_per_m, double length_m,
+                                        double load_re_ohm, double load_im_ohm,
+                                        double *zin_re_ohm, double *zin_im_ohm)
+{
+    terminated t;
+    gsl_complex zin;
+    if (!zin_re_ohm || !zin_im_ohm) return CXL_EINVAL;
+    cxl_status st = terminate(z0_re_ohm, z0_im_ohm, alpha_np_per_m, beta_rad_per_m,
+                              length_m, load_re_ohm, load_im_ohm, &t);
+    if (st == CXL_OK) st = input_impedance(t.z0, t.g, t.e1, &zin);
+    if (st != CXL_OK) return st;
+    *zin_re_ohm = GSL_REAL(zin);
+    *zin_im_ohm = GSL_IMAG(zin);
+    return CXL_OK;
+}
+
+/* ---- series resonances of a stub of a modelled cable -------------------- */
+
+typedef struct stub_eval {
+    const cxl_loss_model *model;
+    unsigned flags;
+    double length_m, k;      /* k: wavelengths at the resonance */
+    double gamma_l;          /* +1 open far end, -1 shorted */
+    cxl_status st;           /* first failure inside a GSL callback */
+} stub_eval;
+
+/* beta l / (2 pi) - k: zero where the line is k wavelengths long. */
+static double wavelength_gap(double f, void *p)
+{
+    stub_eval *e = p;
+    double alpha, beta;
+    cxl_status st = cxl_loss_model_gamma(e->model, f, e->flags, &alpha, &beta);
+    if (st != CXL_OK) {
+        if (e->st == CXL_OK) e->st = st;
+        return GSL_NAN;
+    }
+    return beta * e->length_m / (2.0 * M_PI) - e->k;
+}
+
+/* Input reactance of the stub at f, in units of |Z0|. */
+static double stub_reactance(double f, void *p)
+{
+    stub_eval *e = p;
+    double alpha, beta, zr, zi;
+    gsl_complex zin;
+    cxl_status st = model_line(e->model, f, e->flags, &alpha, &beta, &zr, &zi);
+    if (st == CXL_OK) {
+        gsl_complex e1 = gsl_complex_polar(exp(-alpha * e->length_m), -beta * e->length_m);
+        st = input_impedance(gsl_complex_rect(zr, zi), gsl_complex_rect(e->gamma_l, 0.0),
+                             e1, &zin);
+    }
+    if (st != CXL_OK) {
+        if (e->st == CXL_OK) e->st = st;
+        return GSL_NAN;
+    }
+    return GSL_IMAG(zin) / hypot(zr, zi);
+}
+
+/* Root of fn in [lo, hi] (signs already opposite) by Brent's method. */
+static cxl_status brent_root(gsl_function *fn, double lo, double hi, double *root)
+{
+    gsl_root_fsolver *s = gsl_root_fsolver_alloc(gsl_root_fsolver_brent);
+    if (!s) return CXL_ENOMEM;
+    cxl_status st = CXL_ENOCONV;
+    if (gsl_root_fsolver_set(s, fn, lo, hi) == GSL_SUCCESS) {
+        for (int i = 0; i < 200; i++) {
+            if (gsl_root_fsolver_iterate(s) != GSL_SUCCESS) break;
+            double a = gsl_root_fsolver_x_lower(s), b = gsl_root_fsolver_x_upper(s);
+            if (gsl_root_test_interval(a, b, 0.0, 1e-13) == GSL_SUCCESS) {
+                *root = gsl_root_fsolver_root(s);
+                st = CXL_OK;
+                break;
+            }
+        }
+    }
+    gsl_root_fsolver_free(s);
+    return st;
+}
+
+/* [lo, hi] around guess where fn changes sign.  grow > 1 widens the
+ * interval from half (a monotonic fn), grow < 1 narrows it (a sign change
+ * expected close to the guess).  At most 40 steps. */
+static cxl_status bracket(gsl_function *fn, stub_eval *e, double guess, double half,
+                          double grow, double *lo, double *hi)
+{
+    for (int i = 0; i < 40; i++, half *= grow) {
+        double a = guess - half, b = guess + half;
+        if (!(a > 0.0)) a = guess * 0.5;
+        double fa = GSL_FN_EVAL(fn, a), fb = GSL_FN_EVAL(fn, b);
+        if (e->st != CXL_OK) return e->st;
+        if (!isfinite(fa) || !isfinite(fb)) return CXL_ENOCONV;
+        if ((fa < 0.0) != (fb < 0.0)) {
+            *lo = a;
+            *hi = b;
+            return CXL_OK;
+        }
+    }
+    return CXL_ENOCONV;
+}
+
+cxl_status cxl__transfer_stub_points(const cxl_loss_model *model, unsigned flags,
+                                     cxl_stub_end end, int order, double length_m,
+                                     double *wave_hz, double *reactance_hz)
+{
+    double k, lo, hi, guess, root, vf, f_min, f_max;
+    if (!model || !cxl__finite_pos(length_m)) return CXL_EINVAL;
+    cxl_status st = cxl_stub_wavelengths(end, order, &k);
+    if (st == CXL_OK) st = cxl_loss_model_range(model, &f_min, &f_max);
+    if (st != CXL_OK) return st;
+    stub_eval e = { model, flags, length_m, k, end == CXL_STUB_OPEN ? 1.0 : -1.0, CXL_OK };
+    /* first guess: the phase velocity at the top of the range, where it is
+     * nearly the high-frequency value, then two fixed-point steps */
+    guess = f_max;
+    for (int i = 0; i < 3; i++) {
+        st = cxl_loss_model_vf(model, guess, flags | CXL_LOSS_EXTRAPOLATE, &vf);
+        if (st != CXL_OK) return st;
+        guess = k * vf * CXL_C_M_PER_S / length_m;
+        if (!isfinite(guess) || !(guess > 0.0)) return CXL_ERANGE;
+    }
+    /* where the line is exactly k wavelengths (beta l grows with f) */
+    gsl_function gap = { wavelength_gap, &e };
+    st = bracket(&gap, &e, guess, 1e-3 * guess, 2.0, &lo, &hi);
+    if (st == CXL_OK) st = brent_root(&gap, lo, hi, &guess);
+    if (st == CXL_OK && e.st != CXL_OK) st = e.st;
+    if (st != CXL_OK) return st;
+    /* the input reactance crosses zero close to it: +-1/8 wavelength
+     * (+-pi/4 of beta l, guess / (8 k) in frequency) holds no
+     * anti-resonance */
+    gsl_function react = { stub_reactance, &e };
+    st = bracket(&react, &e, guess, guess / (8.0 * k), 0.5, &lo, &hi);
+    if (st == CXL_OK) st = brent_root(&react, lo, hi, &root);
+    if (st == CXL_OK && e.st != CXL_OK) st = e.st;
+    if (st != CXL_OK) return st;
+    *wave_hz = guess;
+    *reactance_hz = root;
+    return CXL_OK;
+}
+
+cxl_status cxl_transfer_stub_resonance(const cxl_loss_model *model, unsigned flags,
+                                       cxl_stub_end end, int order, double length_m,
+                                       double *resonance_hz)
+{
+    double wave, react;
+    if (!resonance_hz) return CXL_EINVAL;
+    cxl_status st = cxl__transfer_stub_points(model, flags, end, order, length_m, &wave, &react);
+    if (st == CXL_OK) *resonance_hz = react;
+    return st;
+}

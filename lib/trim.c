@@ -1,0 +1,448 @@
+/* trim.c - cut long, measure the resonances, trim to the target.
+ *
+ * The piece (physical length L, far end open or shorted) is read on an
+ * analyzer through a fixture.  Its readings give the electrical length of
+ * the piece alone at each resonance, E_i = k_i c / f_i - fixture (stub.c),
+ * and so the velocity factor there, VF_i = L / E_i.  The target is an
+ * electrical length E_t (free-space metres) at a frequency F_t; the piece
+ * that has it is L_t = E_t VF(F_t) long, with VF(F_t) from the drift fit
+ * over several resonances (drift.c) or from the one reading.  Cut L - L_t.
+ *
+ * An error in the tape-measured L hardly matters: with VF = L / E the cut
+ * is L (1 - E_t / E), a fixed fraction of the piece, so a tape error dL
+ * leaves the remaining piece off by only dL (1 - E_t / E), the error of
+ * the part cut off.
+ *
+ * Resolution: a frequency step df at the order-k resonance moves E by
+ * k c df / f^2, i.e. the piece by VF k c df / f^2 = L_tot df / f; higher
+ * orders resolve finer.  The length to keep inherits the VF's error at the
+ * target: VF df / f from one reading, or the drift fit's standard error
+ * with each reading weighted by its own VF df / f (so a target far from
+ * the readings, extrapolated, resolves worse).  The fixture's own
+ * uncertainty adds in quadrature.
+ */
+#include <config.h>
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+#include "coaxline.h"
+#include "internal.h"
+
+enum target_kind { TARGET_NONE = 0, TARGET_DEGREES, TARGET_DELAY, TARGET_RESONANCE };
+
+typedef struct trim_reading {
+    double freq_hz;
+    int order;
+} trim_reading;
+
+struct cxl_trim {
+    cxl_stub_end end;
+    double length_m;
+    double fixture_m, fixture_vf, fixture_tol_m; /* fixture_vf 0: the piece's cable */
+    double freq_res_hz;
+    trim_reading *r;
+    size_t n, cap;
+    enum target_kind kind;
+    double target_value, target_freq_hz;  /* degrees or seconds; Hz (0: none) */
+    cxl_stub_end ref_end;
+    int ref_order;
+    const cxl_loss_model *model; /* optional: the lossy-resonance offset */
+};
+
+struct cxl_trim_result {
+    size_t n;
+    double *freq_hz, *vf, *expected_hz, *resolution_m;
+    int *order;
+    double vf_fit, vf_target, target_freq_hz;
+    double cut_m, remaining_m, resolution_m_all;
+    cxl_trim_action action;
+    unsigned flags;
+};
+
+cxl_status cxl_trim_new(cxl_stub_end end, double length_m, cxl_trim **trim)
+{
+    if (!trim || (end != CXL_STUB_OPEN && end != CXL_STUB_SHORT) ||
+        !cxl__finite_pos(length_m))
+        return CXL_EINVAL;
+    cxl_trim *t = calloc(1, sizeof *t);
+    if (!t) return CXL_ENOMEM;
+    t->end = end;
+    t->length_m = length_m;
+    *trim = t;
+    return CXL_OK;
+}
+
+void cxl_trim_free(cxl_trim *trim)
+{
+    if (!trim) return;
+    free(trim->r);
+    free(trim);
+}
+
+cxl_status cxl_trim_set_fixture(cxl_trim *trim, double fixture_m, double fixture_vf,
+                                double fixture_tol_m)
+{
+    if (!trim || !cxl__finite_nonneg(fixture_m) || !cxl__finite_nonneg(fixture_tol_m) ||
+        !(fixture_vf == 0.0 || cxl__valid_vf(fixture_vf)))
+        return CXL_EINVAL;
+    trim->fixture_m = fixture_m;
+    trim->fixture_vf = fixture_vf;
+    trim->fixture_tol_m = fixture_tol_m;
+    return CXL_OK;
+}
+
+cxl_status cxl_trim_set_model(cxl_trim *trim, const cxl_loss_model *model)
+{
+    if (!trim) return CXL_EINVAL;
+    trim->model = model;
+    return CXL_OK;
+}
+
+cxl_status cxl_trim_set_resolution(cxl_trim *trim, double freq_res_hz)
+{
+    if (!trim || !cxl__finite_nonneg(freq_res_hz)) return CXL_EINVAL;
+    trim->freq_res_hz = freq_res_hz;
+    return CXL_OK;
+}
+
+cxl_status cxl_trim_add_reading(cxl_trim *trim, double freq_hz, int order)
+{
+    if (!trim || !cxl__finite_pos(freq_hz) || order < 0) return CXL_EINVAL;
+    if (order > CXL_STUB_MAX_ORDER) return CXL_ERANGE;
+    if (trim->n > 0 && (trim->r[0].order == 0) != (order == 0)) return CXL_EINVAL;
+    for (size_t i = 0; i < trim->n; i++)
+        if (trim->r[i].freq_hz == freq_hz || (order != 0 && trim->r[i].order == order))
+            return CXL_EINVAL; /* the same resonance twice */
+    if (trim->n == trim->cap) {
+        size_t cap = trim->cap ? 2 * trim->cap : 8;
+        trim_reading *q = realloc(trim->r, cap * sizeof *q);
+        if (!q) return CXL_ENOMEM;
+        trim->r = q;
+        trim->cap = cap;
+    }
+    trim->r[trim->n++] = (trim_reading){ freq_hz, order };
+    return CXL_OK;
+}
+
+size_t cxl_trim_count(const cxl_trim *trim)
+{
+    return trim ? trim->n : 0;
+}
+
+static cxl_status set_target(cxl_trim *trim, enum target_kind kind, double value,
+                             double freq_hz, int freq_required)
+{
+    if (!trim || !cxl__finite_pos(value) || !cxl__finite_nonneg(freq_hz) ||
+        (freq_required && freq_hz == 0.0))
+        return CXL_EINVAL;
+    trim->kind = kind;
+    trim->target_value = value;
+    trim->target_freq_hz = freq_hz;
+    return CXL_OK;
+}
+
+cxl_status cxl_trim_target_degrees(cxl_trim *trim, double phase_deg, double freq_hz)
+{
+    return set_target(trim, TARGET_DEGREES, phase_deg, freq_hz, 1);
+}
+
+cxl_status cxl_trim_target_delay(cxl_trim *trim, double delay_s, double freq_hz)
+{
+    return set_target(trim, TARGET_DELAY, delay_s, freq_hz, 0);
+}
+
+cxl_status cxl_trim_target_resonance(cxl_trim *trim, cxl_stub_end end, int order,
+                                     double freq_hz)
+{
+    double k;
+    if (!trim || !cxl__finite_pos(freq_hz)) return CXL_EINVAL;
+    cxl_status st = cxl_stub_wavelengths(end, order, &k);
+    if (st != CXL_OK) return st;
+    trim->kind = TARGET_RESONANCE;
+    trim->ref_end = end;
+    trim->ref_order = order;
+    trim->target_freq_hz = freq_hz;
+    return CXL_OK;
+}
+
+/* ---- solving ------------------------------------------------------------ */
+
+static int cmp_reading(const void *a, const void *b)
+{
+    const trim_reading *x = a, *y = b;
+    return (x->freq_hz > y->freq_hz) - (x->freq_hz < y->freq_hz);
+}
+
+static cxl_trim_result *result_alloc(size_t n)
+{
+    cxl_trim_result *r = calloc(1, sizeof *r);
+    if (!r) return NULL;
+    r->n = n;
+    r->freq_hz = malloc(4 * n * sizeof(double));
+    r->order = malloc(n * sizeof(int));
+    if (!r->freq_hz || !r->order) {
+        cxl_trim_result_free(r);
+        return NULL;
+    }
+    r->vf = r->freq_hz + n;
+    r->expected_hz = r->freq_hz + 2 * n;
+    r->resolution_m = r->freq_hz + 3 * n;
+    return r;
+}
+
+void cxl_trim_result_free(cxl_trim_result *result)
+{
+    if (!result) return;
+    free(result->freq_hz);
+    free(result->order);
+    free(result);
+}
+
+/* Free-space length of the fixture at a VF of the piece's cable. */
+static double fixture_free(const cxl_trim *t, double piece_vf)
+{
+    if (t->fixture_m == 0.0) return 0.0;
+    return t->fixture_m / (t->fixture_vf > 0.0 ? t->fixture_vf : piece_vf);
+}
+
+/* VF of the piece at f: the drift trend where there is one, else vf0. */
+static double vf_at(const cxl_drift *drift, double f, double vf0)
+{
+    double v;
+    if (drift && cxl_drift_vf(drift, f, &v, NULL) == CXL_OK) return v;
+    return vf0;
+}
+
+/* Readings sorted by frequency into a stub fit; the fixture is removed
+ * there, or (same cable as the piece) counted as part of the line. */
+static cxl_status fit_readings(const cxl_trim *t, const trim_reading *rd,
+                               cxl_stub_result **res)
+{
+    cxl_stub *s;
+    cxl_status st = cxl_stub_new(t->end, &s);
+    if (st != CXL_OK) return st;
+    double line_m = t->length_m;
+    if (t->fixture_vf > 0.0) st = cxl_stub_set_fixture(s, t->fixture_m, t->fixture_vf);
+    else line_m += t->fixture_m;
+    if (st == CXL_OK) st = cxl_stub_set_tolerances(s, 0.0, t->freq_res_hz);
+    if (st == CXL_OK && rd[0].order == 0) st = cxl_stub_set_orders(s, CXL_STUB_ORDERS_BEST_FIT);
+    for (size_t i = 0; i < t->n && st == CXL_OK; i++)
+        st = cxl_stub_add_reading(s, line_m, rd[i].freq_hz, rd[i].order);
+    if (st == CXL_OK) st = cxl_stub_fit(s, res);
+    cxl_stub_free(s);
+    return st;
+}
+
+/* Target electrical length of the piece alone, free-space metres. */
+static double target_free_m(const cxl_trim *t, const cxl_drift *drift, double vf0)
+{
+    double k = 0.0;
+    switch (t->kind) {
+    case TARGET_DEGREES:
+        return t->target_value / 360.0 * CXL_C_M_PER_S / t->target_freq_hz;
+    case TARGET_DELAY:
+        return t->target_value * CXL_C_M_PER_S;
+    case TARGET_RESONANCE:
+        /* a reference piece read through the same fixture */
+        cxl_stub_wavelengths(t->ref_end, t->ref_order, &k);
+        return k * CXL_C_M_PER_S / t->target_freq_hz -
+               fixture_free(t, vf_at(drift, t->target_freq_hz, vf0));
+    default:
+        return NAN;
+    }
+}
+
+/* Length of line the model sees: the piece, and a fixture of its cable. */
+static double model_line_m(const cxl_trim *t, double piece_m)
+{
+    return piece_m + (t->fixture_vf > 0.0 ? 0.0 : t->fixture_m);
+}
+
+/* Reactance zero over the exact k-wavelength frequency of the modelled
+ * line at an order: what a lossy line's resonance reads high by. */
+static cxl_status model_offset(const cxl_trim *t, int order, double piece_m, double *ratio)
+{
+    double wave, react;
+    cxl_status st = cxl__transfer_stub_points(t->model, CXL_LOSS_EXTRAPOLATE, t->end, order,
+                                              model_line_m(t, piece_m), &wave, &react);
+    if (st == CXL_OK) *ratio = react / wave;
+    return st;
+}
+
+/* Where the remaining piece of remaining_m will read at order n. */
+static cxl_status expected_freq(const cxl_trim *t, const cxl_drift *drift, int order,
+                                double remaining_m, double f0, double vf0, double *freq_hz)
+{
+    double f = f0, k, ratio = 1.0;
+    cxl_stub_wavelengths(t->end, order, &k);
+    for (int i = 0; i < 8; i++) { /* VF(f) changes slowly: a few fixed-point steps */
+        double vf = vf_at(drift, f, vf0);
+        f = k * CXL_C_M_PER_S / (remaining_m / vf + fixture_free(t, vf));
+    }
+    if (t->model) {
+        cxl_status st = model_offset(t, order, remaining_m, &ratio);
+        if (st != CXL_OK) return st;
+    }
+    f *= ratio;
+    if (!(f > 0.0) || !isfinite(f)) return CXL_ERANGE;
+    *freq_hz = f;
+    return CXL_OK;
+}
+
+/* With a model: read each resonance as the frequency at which the line is
+ * exactly k wavelengths (orders from the first fit), and fit again. */
+static cxl_status correct_readings(const cxl_trim *t, trim_reading *rd,
+                                   cxl_stub_result **fit)
+{
+    cxl_status st = CXL_OK;
+    for (size_t i = 0; i < t->n && st == CXL_OK; i++) {
+        double ratio;
+        st = cxl_stub_result_reading(*fit, i, NULL, NULL, &rd[i].order, NULL, NULL, NULL);
+        if (st == CXL_OK) st = model_offset(t, rd[i].order, t->length_m, &ratio);
+        if (st == CXL_OK) rd[i].freq_hz /= ratio;
+    }
+    cxl_stub_result_free(*fit);
+    *fit = NULL;
+    return st == CXL_OK ? fit_readings(t, rd, fit) : st;
+}
+
+cxl_status cxl_trim_solve(const cxl_trim *trim, cxl_trim_result **result)
+{
+    if (!trim || !result || trim->n == 0 || trim->kind == TARGET_NONE) return CXL_EINVAL;
+    const size_t n = trim->n;
+    trim_reading *rd = malloc(2 * n * sizeof *rd), *shown = rd ? rd + n : NULL;
+    cxl_trim_result *r = result_alloc(n);
+    cxl_stub_result *fit = NULL;
+    cxl_drift *drift = NULL;
+    cxl_status st = rd && r ? CXL_OK : CXL_ENOMEM;
+    if (st == CXL_OK) {
+        memcpy(rd, trim->r, n * sizeof *rd);
+        qsort(rd, n, sizeof *rd, cmp_reading);
+        memcpy(shown, rd, n * sizeof *rd);
+        /* given orders must rise with frequency */
+        for (size_t i = 1; i < n && st == CXL_OK; i++)
+            if (rd[0].order != 0 && rd[i].order <= rd[i - 1].order) st = CXL_EINCONSISTENT;
+    }
+    if (st == CXL_OK) st = fit_readings(trim, rd, &fit);
+    if (st == CXL_OK) st = cxl_stub_result_flags(fit, &r->flags);
+    if (st == CXL_OK && trim->model) {
+        unsigned more = 0;
+        st = correct_readings(trim, rd, &fit);
+        if (st == CXL_OK) st = cxl_stub_result_flags(fit, &more);
+        r->flags |= more | CXL_TRIM_FLAG_MODEL;
+    }
+    double vf_fit = 0.0, f_lo = 0.0, f_hi = 0.0;
+    if (st == CXL_OK) st = cxl_stub_result_vf(fit, &vf_fit, NULL);
+    if (st == CXL_OK && n >= 2) {
+        st = cxl_drift_new_stub(fit, trim->freq_res_hz, &drift);
+        if (st == CXL_OK) st = cxl_drift_range(drift, &f_lo, &f_hi);
+    }
+    for (size_t i = 0; i < n && st == CXL_OK; i++)
+        st = cxl_stub_result_reading(fit, i, NULL, &r->freq_hz[i], &r->order[i], &r->vf[i],
+                                     NULL, NULL);
+    if (st != CXL_OK) goto done;
+    /* report what the analyzer showed (sorted), not a corrected value */
+    for (size_t i = 0; i < n; i++) r->freq_hz[i] = shown[i].freq_hz;
+
+    /* VF at the target frequency, and how far a step of the frequency
+     * resolution in the readings moves it */
+    double ft = trim->target_freq_hz, vf_t = vf_fit, vf_err = 0.0;
+    if (ft > 0.0 && drift) {
+        st = cxl_drift_vf(drift, ft, &vf_t, &vf_err);
+        if (st != CXL_OK) goto done;
+        r->flags |= CXL_TRIM_FLAG_DRIFT;
+        if (ft < f_lo || ft > f_hi) r->flags |= CXL_TRIM_FLAG_EXTRAPOLATED;
+    } else {
+        if (ft > 0.0) vf_t = r->vf[0];
+        if (n == 1) vf_err = vf_t * trim->freq_res_hz / r->freq_hz[0];
+        else st = cxl_stub_result_vf_budget(fit, NULL, NULL, &vf_err);
+        if (st != CXL_OK) goto done;
+    }
+    if (trim->freq_res_hz == 0.0) vf_err = 0.0; /* the scatter is not a resolution */
+    double e_t = target_free_m(trim, drift, vf_fit);
+    if (!(e_t > 0.0) || !isfinite(e_t)) { st = CXL_ERANGE; goto done; }
+    r->vf_fit = vf_fit;
+    r->vf_target = vf_t;
+    r->target_freq_hz = ft;
+    r->remaining_m = e_t * vf_t;
+    r->cut_m = trim->length_m - r->remaining_m;
+
+    /* resolution per order, and of the length to keep */
+    for (size_t i = 0; i < n; i++) {
+        double k;
+        cxl_stub_wavelengths(trim->end, r->order[i], &k);
+        /* dE = k c df / f^2 free-space metres, times VF as cable */
+        r->resolution_m[i] = r->vf[i] * k * CXL_C_M_PER_S * trim->freq_res_hz /
+                             (r->freq_hz[i] * r->freq_hz[i]);
+        st = expected_freq(trim, drift, r->order[i], r->remaining_m, r->freq_hz[i], r->vf[i],
+                           &r->expected_hz[i]);
+        if (st != CXL_OK) goto done;
+    }
+    double fix_tol = trim->fixture_tol_m *
+                     (trim->fixture_vf > 0.0 ? vf_t / trim->fixture_vf : 1.0);
+    double res_vf = r->remaining_m * vf_err / vf_t;
+    r->resolution_m_all = sqrt(res_vf * res_vf + fix_tol * fix_tol);
+    if (r->cut_m > r->resolution_m_all) r->action = CXL_TRIM_CUT;
+    else if (r->cut_m < -r->resolution_m_all) r->action = CXL_TRIM_SHORT;
+    else r->action = CXL_TRIM_WITHIN;
+
+done:
+    free(rd);
+    cxl_stub_result_free(fit);
+    cxl_drift_free(drift);
+    if (st != CXL_OK) {
+        cxl_trim_result_free(r);
+        return st;
+    }
+    *result = r;
+    return CXL_OK;
+}
+
+/* ---- results ------------------------------------------------------------ */
+
+cxl_status cxl_trim_result_cut(const cxl_trim_result *result, double *cut_off_m,
+                               double *remaining_m, double *resolution_m,
+                               cxl_trim_action *action)
+{
+    if (!result) return CXL_EINVAL;
+    if (cut_off_m) *cut_off_m = result->cut_m;
+    if (remaining_m) *remaining_m = result->remaining_m;
+    if (resolution_m) *resolution_m = result->resolution_m_all;
+    if (action) *action = result->action;
+    return CXL_OK;
+}
+
+cxl_status cxl_trim_result_vf(const cxl_trim_result *result, double *vf_fit,
+                              double *vf_target, double *target_freq_hz)
+{
+    if (!result) return CXL_EINVAL;
+    if (vf_fit) *vf_fit = result->vf_fit;
+    if (vf_target) *vf_target = result->vf_target;
+    if (target_freq_hz) *target_freq_hz = result->target_freq_hz;
+    return CXL_OK;
+}
+
+cxl_status cxl_trim_result_flags(const cxl_trim_result *result, unsigned *flags)
+{
+    if (!result || !flags) return CXL_EINVAL;
+    *flags = result->flags;
+    return CXL_OK;
+}
+
+size_t cxl_trim_result_count(const cxl_trim_result *result)
+{
+    return result ? result->n : 0;
+}
+
+cxl_status cxl_trim_result_reading(const cxl_trim_result *result, size_t index,
+                                   double *freq_hz, int *order, double *vf,
+                                   double *expected_hz, double *resolution_m)
+{
+    if (!result || index >= result->n) return CXL_EINVAL;
+    if (freq_hz) *freq_hz = result->freq_hz[index];
+    if (order) *order = result->order[index];
+    if (vf) *vf = result->vf[index];
+    if (expected_hz) *expected_hz = result->expected_hz[index];
+    if (resolution_m) *resolution_m = result->resolution_m[index];
+    return CXL_OK;
+}
