@@ -150,6 +150,11 @@ int cli_region(const cli_ctx *ctx, const cli_args *a, int *region);
  * --exclude-footnotes), then each --freq.  Returns the number of points,
  * or -1 after cli_error() (also when there is none at all). */
 int cli_freq_points(cli_ctx *ctx, const cli_args *a, cli_freq_point *pts, size_t max);
+/* Edges of one band the user typed (for region 1-3, or 0: widest across
+ * Regions) and the table's own name for it (*name: "160m" for "160").
+ * Returns 0, or CLI_EXIT_USAGE after cli_error() for an unknown band. */
+int cli_band_lookup(cli_ctx *ctx, const char *item, int region, int footnotes,
+                    double *low_hz, double *high_hz, const char **name);
 
 /* ---- tabular output (CSV and JSON) ------------------------------------ */
 
@@ -193,5 +198,28 @@ void cli_print_command_help(const cli_command *cmd, FILE *fp);
 
 extern const cli_command cli_cmd_cut;
 extern const cli_command cli_cmd_demo;
+
+/* ---- measured lines: bands, vf, phase, pair (measured.c) ------------- */
+
+/* A `coaxline vf --format csv` output read by --vf-from, kept for the
+ * whole run (standard input can be read only once; a batch reads it once). */
+typedef struct cli_vf_file cli_vf_file;
+void cli_vf_file_free(cli_vf_file *file);
+/* Velocity factor from exactly one of --vf, --cable NAME or --vf-from
+ * FILE|- (the fitted row whose label matches this row's --label when the
+ * file holds several fits).  *cache keeps the file between rows (start it
+ * NULL, free it with cli_vf_file_free()).  from (may be NULL) gets where
+ * the value came from for text output: "", "cable NAME" or "FILE".
+ * Returns 0, or CLI_EXIT_USAGE after cli_error(). */
+int cli_vf_source(cli_ctx *ctx, const cli_args *a, cli_vf_file **cache,
+                  double *vf, char *from, size_t from_size);
+
+/* A number with its sign always shown ("+0.327", "-0.100"), for text. */
+const char *cli_fmt_signed(char *buf, size_t size, double value, int decimals);
+
+extern const cli_command cli_cmd_bands;
+extern const cli_command cli_cmd_vf;
+extern const cli_command cli_cmd_phase;
+extern const cli_command cli_cmd_pair;
 
 #endif

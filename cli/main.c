@@ -9,6 +9,10 @@
 static const cli_command *const commands[] = {
     &cli_cmd_cut,
     &cli_cmd_demo,
+    &cli_cmd_bands,
+    &cli_cmd_vf,
+    &cli_cmd_phase,
+    &cli_cmd_pair,
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 
