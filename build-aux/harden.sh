@@ -33,7 +33,7 @@ valgrind)
     # memcheck over the library's Check suites (no fork, so it sees the tests).
     fail=0
     for t in tests/check_*; do
-        case "$t" in *.c|*.o|*.log|*.trs|tests/check_cli) continue ;; esac
+        case "$t" in *.c|*.o|*.log|*.trs|tests/check_cli|tests/check_cli_*) continue ;; esac
         [ -x "$t" ] || continue
         if CK_FORK=no ./libtool --mode=execute valgrind -q --error-exitcode=3 \
                --leak-check=full --errors-for-leak-kinds=definite,indirect \

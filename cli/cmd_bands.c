@@ -76,11 +76,11 @@ static int wanted(const char *name, const char *const *names, int n)
 
 /* Widest edges of one band across Regions; the footnotes named are those
  * whose segments reach beyond the general allocations. */
-static void widest_row(cli_ctx *ctx, source_list *list, const cxl_bands *bands,
-                       const char *name, int footnotes)
+static int widest_row(cli_ctx *ctx, source_list *list, const cxl_bands *bands,
+                      const char *name, int footnotes)
 {
     double lo, hi, glo = 0.0, ghi = 0.0;
-    if (cxl_bands_edges(bands, name, 0, footnotes, &lo, &hi) != CXL_OK) return;
+    if (cxl_bands_edges(bands, name, 0, footnotes, &lo, &hi) != CXL_OK) return 0;
     int general = cxl_bands_edges(bands, name, 0, 0, &glo, &ghi) == CXL_OK;
     char notes[128] = "";
     const char *src[2] = { NULL, NULL };
@@ -106,6 +106,7 @@ static void widest_row(cli_ctx *ctx, source_list *list, const cxl_bands *bands,
     }
     if (!src[0]) src[0] = "";
     put_row(ctx, list, name, service, "all", lo, hi, notes, src);
+    return 1;
 }
 
 static int bands_run(cli_ctx *ctx, const cli_args *a)
@@ -157,8 +158,7 @@ static int bands_run(cli_ctx *ctx, const cli_args *a)
                strcmp(other, name) != 0)
             first++;
         if (first != r) continue;
-        widest_row(ctx, &list, bands, name, footnotes);
-        shown++;
+        shown += (size_t)widest_row(ctx, &list, bands, name, footnotes);
     }
     if (ctx->format == CLI_TEXT) {
         if (shown == 0) fprintf(ctx->out, "  (no segment)\n");
