@@ -201,18 +201,17 @@ extern const cli_command cli_cmd_demo;
 
 /* ---- measured lines: bands, vf, phase, pair (measured.c) ------------- */
 
-/* A `coaxline vf --format csv` output read by --vf-from, kept for the
- * whole run (standard input can be read only once; a batch reads it once). */
-typedef struct cli_vf_file cli_vf_file;
-void cli_vf_file_free(cli_vf_file *file);
 /* Velocity factor from exactly one of --vf, --cable NAME or --vf-from
- * FILE|- (the fitted row whose label matches this row's --label when the
- * file holds several fits).  *cache keeps the file between rows (start it
- * NULL, free it with cli_vf_file_free()).  from (may be NULL) gets where
- * the value came from for text output: "", "cable NAME" or "FILE".
- * Returns 0, or CLI_EXIT_USAGE after cli_error(). */
-int cli_vf_source(cli_ctx *ctx, const cli_args *a, cli_vf_file **cache,
-                  double *vf, char *from, size_t from_size);
+ * FILE|- (a `coaxline vf --format csv` output: the fitted row, or the one
+ * whose label is this row's --label when the file holds several fits).
+ * The file is read once per run and kept in ctx->state, so a command that
+ * offers --vf-from has no state of its own and sets .end to
+ * cli_vf_source_end.  from (may be NULL) gets where the value came from,
+ * for text output: "", "cable NAME" or "from FILE".  Returns 0, or
+ * CLI_EXIT_USAGE after cli_error(). */
+int cli_vf_source(cli_ctx *ctx, const cli_args *a, double *vf, char *from,
+                  size_t from_size);
+int cli_vf_source_end(cli_ctx *ctx);
 
 /* A number with its sign always shown ("+0.327", "-0.100"), for text. */
 const char *cli_fmt_signed(char *buf, size_t size, double value, int decimals);

@@ -130,9 +130,7 @@ static int pair_run(cli_ctx *ctx, const cli_args *a)
 
     double vf, tol, length_tol_m = 0.0, vf_tol = 0.0;
     char from[256];
-    cli_vf_file *cache = ctx->state;
-    int rc = cli_vf_source(ctx, a, &cache, &vf, ctx->format == CLI_TEXT ? from : NULL, sizeof from);
-    ctx->state = cache;
+    int rc = cli_vf_source(ctx, a, &vf, ctx->format == CLI_TEXT ? from : NULL, sizeof from);
     if (rc || resolve_tolerance(ctx, a, &tol)) return CLI_EXIT_USAGE;
     if (cli_count(a, "length-tol") &&
         cli_length(ctx, "length-tol", cli_get(a, "length-tol", 0), CLI_NONNEG, &length_tol_m))
@@ -177,20 +175,13 @@ static int pair_run(cli_ctx *ctx, const cli_args *a)
     return failed ? CLI_EXIT_TOLERANCE : CLI_EXIT_OK;
 }
 
-static int pair_end(cli_ctx *ctx)
-{
-    cli_vf_file_free(ctx->state);
-    ctx->state = NULL;
-    return CLI_EXIT_OK;
-}
-
 const cli_command cli_cmd_pair = {
     .name = "pair",
     .summary = "lines meant to be equal against a phase tolerance, per band edge",
     .synopsis = "--length LEN --length LEN ... (--vf X | --cable NAME | --vf-from FILE|-) "
                 "--tolerance DEG (--band LIST | --freq F) [OPTIONS]",
     .opts = pair_opts,
-    .end = pair_end,
+    .end = cli_vf_source_end,
     .run = pair_run,
     .batch = 1,
 };

@@ -74,9 +74,7 @@ static int phase_run(cli_ctx *ctx, const cli_args *a)
     if (cli_length(ctx, "length", len, CLI_POSITIVE, &length_m)) return CLI_EXIT_USAGE;
 
     char from[256];
-    cli_vf_file *cache = ctx->state;
-    int rc = cli_vf_source(ctx, a, &cache, &vf, ctx->format == CLI_TEXT ? from : NULL, sizeof from);
-    ctx->state = cache;
+    int rc = cli_vf_source(ctx, a, &vf, ctx->format == CLI_TEXT ? from : NULL, sizeof from);
     if (rc) return CLI_EXIT_USAGE;
     if (reference_length(ctx, a, vf, &reference_m, &ref_deg, &ref_freq_hz)) return CLI_EXIT_USAGE;
 
@@ -133,20 +131,13 @@ static int phase_run(cli_ctx *ctx, const cli_args *a)
     return CLI_EXIT_OK;
 }
 
-static int phase_end(cli_ctx *ctx)
-{
-    cli_vf_file_free(ctx->state);
-    ctx->state = NULL;
-    return CLI_EXIT_OK;
-}
-
 const cli_command cli_cmd_phase = {
     .name = "phase",
     .summary = "phase error of a measured line against its reference, per band edge",
     .synopsis = "--length LEN (--reference LEN | --reference-deg DEG --reference-freq F) "
                 "(--vf X | --cable NAME | --vf-from FILE|-) (--band LIST | --freq F) [OPTIONS]",
     .opts = phase_opts,
-    .end = phase_end,
+    .end = cli_vf_source_end,
     .run = phase_run,
     .batch = 1,
 };

@@ -17,14 +17,14 @@ typedef struct vf_row {
     double vf;
 } vf_row;
 
-struct cli_vf_file {
+typedef struct vf_file {
     char *path;     /* as given; "-" is standard input */
     int failed;     /* reported once; later rows fail quietly */
     vf_row *rows;
     size_t n, cap;
-};
+} vf_file;
 
-void cli_vf_file_free(cli_vf_file *file)
+static void vf_file_free(vf_file *file)
 {
     if (!file) return;
     for (size_t i = 0; i < file->n; i++) free(file->rows[i].label);
@@ -33,7 +33,7 @@ void cli_vf_file_free(cli_vf_file *file)
     free(file);
 }
 
-static int add_row(cli_vf_file *f, const char *label, double vf)
+static int add_row(vf_file *f, const char *label, double vf)
 {
     if (f->n == f->cap) {
         size_t cap = f->cap ? 2 * f->cap : 4;
@@ -57,7 +57,7 @@ static int column(const cxl_csv_reader *rd, const char *name)
 
 /* Read the fitted rows (or the single reading) of a vf CSV.  Problems are
  * reported against the file, not against a batch line. */
-static int load(const cli_ctx *row_ctx, cli_vf_file *f, FILE *fp)
+static int load(const cli_ctx *row_ctx, vf_file *f, FILE *fp)
 {
     cli_ctx top = *row_ctx;
     top.input_name = NULL;
@@ -122,20 +122,20 @@ done:
     return code;
 }
 
-/* The file's data for path, read on first use and kept. */
-static cli_vf_file *open_cached(cli_ctx *ctx, const char *path, cli_vf_file **cache)
+/* The file's data for path, read on first use and kept in ctx->state. */
+static vf_file *open_cached(cli_ctx *ctx, const char *path)
 {
-    if (*cache && strcmp((*cache)->path, path) == 0)
-        return (*cache)->failed ? NULL : *cache;
-    cli_vf_file_free(*cache);
-    *cache = calloc(1, sizeof **cache);
-    if (!*cache || !((*cache)->path = strdup(path))) {
+    vf_file *cached = ctx->state;
+    if (cached && strcmp(cached->path, path) == 0)
+        return cached->failed ? NULL : cached;
+    vf_file_free(cached);
+    vf_file *f = ctx->state = calloc(1, sizeof *f);
+    if (!f || !(f->path = strdup(path))) {
         cli_error(ctx, "vf-from", NULL, "out of memory");
-        cli_vf_file_free(*cache);
-        *cache = NULL;
+        vf_file_free(f);
+        ctx->state = NULL;
         return NULL;
     }
-    cli_vf_file *f = *cache;
     cli_ctx top = *ctx;
     top.input_name = NULL;
     int is_stdin = strcmp(path, "-") == 0;
@@ -165,10 +165,9 @@ static int same_label(const char *in_file, const char *label)
            (in_file[0] == '\'' && strcmp(in_file + 1, label) == 0);
 }
 
-static int vf_from_file(cli_ctx *ctx, const cli_args *a, const char *path,
-                        cli_vf_file **cache, double *vf)
+static int vf_from_file(cli_ctx *ctx, const cli_args *a, const char *path, double *vf)
 {
-    cli_vf_file *f = open_cached(ctx, path, cache);
+    vf_file *f = open_cached(ctx, path);
     if (!f) return CLI_EXIT_USAGE;
     if (f->n == 1) {
         *vf = f->rows[0].vf;
@@ -190,15 +189,15 @@ static int vf_from_file(cli_ctx *ctx, const cli_args *a, const char *path,
     return 0;
 }
 
-int cli_vf_source(cli_ctx *ctx, const cli_args *a, cli_vf_file **cache,
-                  double *vf, char *from, size_t from_size)
+int cli_vf_source(cli_ctx *ctx, const cli_args *a, double *vf, char *from,
+                  size_t from_size)
 {
     const char *path = cli_get(a, "vf-from", 0);
     if (path) {
         if (cli_get(a, "vf", 0) || cli_get(a, "cable", 0))
             return cli_error(ctx, "vf-from", "one of --vf, --cable or --vf-from",
                              "--vf-from is given with --%s", cli_get(a, "vf", 0) ? "vf" : "cable");
-        if (vf_from_file(ctx, a, path, cache, vf)) return CLI_EXIT_USAGE;
+        if (vf_from_file(ctx, a, path, vf)) return CLI_EXIT_USAGE;
         if (from) snprintf(from, from_size, "from %s", strcmp(path, "-") == 0 ? "standard input" : path);
         return 0;
     }
@@ -206,6 +205,13 @@ int cli_vf_source(cli_ctx *ctx, const cli_args *a, cli_vf_file **cache,
     if (cli_vf_or_cable(ctx, a, vf, &cable)) return CLI_EXIT_USAGE;
     if (from) snprintf(from, from_size, "%s%s", cable[0] ? "cable " : "", cable);
     return 0;
+}
+
+int cli_vf_source_end(cli_ctx *ctx)
+{
+    vf_file_free(ctx->state);
+    ctx->state = NULL;
+    return CLI_EXIT_OK;
 }
 
 const char *cli_fmt_signed(char *buf, size_t size, double value, int decimals)
