@@ -32,6 +32,7 @@ static const cli_col pair_cols[] = {
 #define MAX_POINTS (4 * CLI_MAX_ITEMS)
 
 static const char *const verdict_name[3] = { "pass", "uncertain", "fail" };
+static const char *const verdict_text[3] = { "pass", "pass, not certain", "fail" };
 
 /* The phase tolerance in degrees.  Every way of stating it ends here, so
  * another (say, from a wanted null depth) is one more branch. */
@@ -91,14 +92,12 @@ static void text_output(cli_ctx *ctx, const cli_args *a, const double *len, int 
             if (c[j].allowed_m < allowed) allowed = c[j].allowed_m;
         }
         if (worst < 0 || worse_check(&c[worst], &c[w])) worst = w;
-        const char *v = c[w].verdict == CXL_VERDICT_PASS_UNCERTAIN ? "pass, not certain"
-                                                                   : verdict_name[c[w].verdict];
         char name[32];
         snprintf(name, sizeof name, "%s", pts[i].band[0] ? pts[i].band : "freq");
         fprintf(o, "  %-6s %12s MHz  %9s  %11s  %-27s  %s\n", name,
                 cli_fmt(b1, sizeof b1, pts[w].freq_hz / 1e6, 6),
                 cli_fmt(b2, sizeof b2, c[w].err_deg, 3), cli_fmt(b3, sizeof b3, c[w].unc_deg, 3),
-                cli_fmt_length(ctx, b4, sizeof b4, allowed), v);
+                cli_fmt_length(ctx, b4, sizeof b4, allowed), verdict_text[c[w].verdict]);
         i = k;
     }
     const check *wc = &c[worst];
@@ -109,7 +108,7 @@ static void text_output(cli_ctx *ctx, const cli_args *a, const double *len, int 
     fprintf(o, "  worst             %s: %s deg at %s MHz against %s deg: %s\n", b4,
             cli_fmt(b1, sizeof b1, wc->err_deg, 3), cli_fmt(b2, sizeof b2, pts[worst].freq_hz / 1e6, 6),
             cli_fmt(b3, sizeof b3, tol, 3),
-            wc->verdict == CXL_VERDICT_PASS_UNCERTAIN ? "pass, not certain" : verdict_name[wc->verdict]);
+            verdict_text[wc->verdict]);
     if (wc->verdict == CXL_VERDICT_PASS_UNCERTAIN)
         fprintf(o, "                    (error plus uncertainty %s deg exceeds the tolerance)\n",
                 cli_fmt(b1, sizeof b1, wc->err_deg + wc->unc_deg, 3));

@@ -162,6 +162,97 @@ static void warn_inconsistent(const cli_ctx *ctx, const cxl_stub *stub, const re
                       "their orders, --length and --end");
 }
 
+/* What the output needs besides the per-reading results. */
+typedef struct summary {
+    const char *label, *end_text;
+    cxl_stub_end end;
+    int one_length;          /* every reading on length_m */
+    double length_m, fixture_m, fixture_vf;
+    int fixture_fitted;
+    double vf, vf_err, err_fit, err_length, err_freq;
+    double extra_m, extra_err_m; /* fitted fixture, metres of this cable */
+    unsigned flags;
+} summary;
+
+static void write_table(cli_ctx *ctx, const summary *sm, const cxl_stub_result *res)
+{
+    static const struct { unsigned bit; const char *name; } names[] = {
+        { CXL_STUB_FLAG_INCONSISTENT, "inconsistent" },
+        { CXL_STUB_FLAG_VF_RANGE, "vf_out_of_range" },
+        { CXL_STUB_FLAG_ORDERS_ASSUMED, "orders_numbered" },
+        { CXL_STUB_FLAG_FIXTURE_FITTED, "fixture_fitted" },
+    };
+    char order_text[16], flag_text[96] = "";
+    for (size_t k = 0; k < sizeof names / sizeof names[0]; k++)
+        if (sm->flags & names[k].bit) {
+            if (flag_text[0]) strcat(flag_text, " ");
+            strcat(flag_text, names[k].name);
+        }
+    for (size_t i = 0; i < cxl_stub_result_count(res); i++) {
+        double len, f, vi, rhz, rm;
+        int order;
+        cxl_stub_result_reading(res, i, &len, &f, &order, &vi, &rhz, &rm);
+        snprintf(order_text, sizeof order_text, "%d", order);
+        cli_cell cells[NCOLS] = {
+            CLI_TXT(sm->label), CLI_NUM(len), CLI_TXT(sm->end_text), CLI_TXT(order_text),
+            CLI_NUM(f / 1e6), CLI_NUM(vi), CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE,
+            CLI_NUM(rhz), CLI_NUM(rm * 1e3), CLI_NONE, CLI_NONE, CLI_NONE,
+        };
+        cli_table_row(ctx, vf_cols, NCOLS, cells);
+    }
+    cli_cell fit[NCOLS] = {
+        CLI_TXT(sm->label), sm->one_length ? CLI_NUM(sm->length_m) : CLI_NONE,
+        CLI_TXT(sm->end_text), CLI_TXT("fit"), CLI_NONE, CLI_NUM(sm->vf), CLI_NUM(sm->vf_err),
+        CLI_NUM(sm->err_fit), CLI_NUM(sm->err_length), CLI_NUM(sm->err_freq), CLI_NONE, CLI_NONE,
+        sm->fixture_fitted ? CLI_NUM(sm->extra_m) : CLI_NONE,
+        sm->fixture_fitted ? CLI_NUM(sm->extra_err_m) : CLI_NONE, CLI_TXT(flag_text),
+    };
+    cli_table_row(ctx, vf_cols, NCOLS, fit);
+}
+
+static void write_text(cli_ctx *ctx, const summary *sm, const cxl_stub_result *res)
+{
+    char b1[96], b2[96], b3[48], b4[48], b5[48];
+    FILE *o = ctx->out;
+    const char *end = sm->end == CXL_STUB_OPEN ? "open" : "shorted";
+    if (ctx->rows_out++) putc('\n', o);
+    fprintf(o, "vf%s%s\n", sm->label[0] ? ": " : "", sm->label);
+    if (sm->one_length)
+        fprintf(o, "  cable             %s, far end %s\n",
+                cli_fmt_length(ctx, b1, sizeof b1, sm->length_m), end);
+    else
+        fprintf(o, "  cable             read on several lengths, far end %s\n", end);
+    if (sm->fixture_m > 0.0)
+        fprintf(o, "  known fixture     %s at VF %s\n",
+                cli_fmt_length(ctx, b1, sizeof b1, sm->fixture_m),
+                cli_fmt(b2, sizeof b2, sm->fixture_vf, 4));
+    fprintf(o, "  %-5s %16s %11s  %-6s   %s\n", "order", "resonance", "length", "VF", "residual");
+    for (size_t i = 0; i < cxl_stub_result_count(res); i++) {
+        double len, f, vi, rhz, rm;
+        int order;
+        cxl_stub_result_reading(res, i, &len, &f, &order, &vi, &rhz, &rm);
+        fprintf(o, "  %-5d %12s MHz %9s m  %s   %s Hz  %s mm\n", order,
+                cli_fmt(b1, sizeof b1, f / 1e6, 6), cli_fmt(b2, sizeof b2, len, 3),
+                cli_fmt(b3, sizeof b3, vi, 4), cli_fmt_signed(b4, sizeof b4, rhz, 0),
+                cli_fmt_signed(b5, sizeof b5, rm * 1e3, 1));
+    }
+    if (sm->flags & CXL_STUB_FLAG_ORDERS_ASSUMED)
+        fprintf(o, "  orders            numbered 1, 2, ... in ascending frequency on each length\n");
+    fprintf(o, "  fitted VF         %s +/- %s\n", cli_fmt(b1, sizeof b1, sm->vf, 4),
+            cli_fmt(b2, sizeof b2, sm->vf_err, 4));
+    fprintf(o, "  uncertainty       fit %s, length %s, frequency %s (root sum of squares)\n",
+            cli_fmt(b1, sizeof b1, sm->err_fit, 5), cli_fmt(b2, sizeof b2, sm->err_length, 5),
+            cli_fmt(b3, sizeof b3, sm->err_freq, 5));
+    if (sm->fixture_fitted)
+        fprintf(o, "  extra fixture     %s of this cable +/- %s mm, fitted across the lengths\n",
+                cli_fmt_length(ctx, b1, sizeof b1, sm->extra_m),
+                cli_fmt(b2, sizeof b2, sm->extra_err_m * 1e3, 1));
+    else
+        fprintf(o, "  extra fixture     not fitted: all readings are on one length, where the VF\n"
+                   "                    cannot be told from an unknown fixture; trim a known\n"
+                   "                    length, read again and give those readings as F@LEN\n");
+}
+
 static int vf_run(cli_ctx *ctx, const cli_args *a)
 {
     const char *end_text = cli_get(a, "end", 0);
@@ -228,101 +319,37 @@ static int vf_run(cli_ctx *ctx, const cli_args *a)
         return cli_error(ctx, "resonance", res_expected, "%s", cxl_strerror(st));
     }
 
-    double vf, vf_err, e_fit, e_len, e_freq, x_free = 0.0, x_err = 0.0, x_cable = 0.0;
-    unsigned flags = 0;
-    cxl_stub_result_vf(res, &vf, &vf_err);
-    cxl_stub_result_vf_budget(res, &e_fit, &e_len, &e_freq);
-    cxl_stub_result_flags(res, &flags);
-    int fitted_fixture = cxl_stub_result_fixture(res, &x_free, &x_err, &x_cable) == CXL_OK;
-    int one_length = 1;
+    summary sm = { .label = cli_label(a), .end_text = end_text, .end = end, .one_length = 1,
+                   .length_m = r[0].length_m, .fixture_m = fixture_m, .fixture_vf = fixture_vf };
+    double x_free;
+    cxl_stub_result_vf(res, &sm.vf, &sm.vf_err);
+    cxl_stub_result_vf_budget(res, &sm.err_fit, &sm.err_length, &sm.err_freq);
+    cxl_stub_result_flags(res, &sm.flags);
+    sm.fixture_fitted = cxl_stub_result_fixture(res, &x_free, &sm.extra_err_m, &sm.extra_m) == CXL_OK;
+    sm.extra_err_m *= sm.vf; /* free-space metres to metres of this cable */
     for (int i = 1; i < n; i++)
-        if (r[i].length_m != r[0].length_m) one_length = 0;
-    if (flags & CXL_STUB_FLAG_INCONSISTENT)
-        warn_inconsistent(ctx, stub, r, (size_t)n, (flags & CXL_STUB_FLAG_ORDERS_ASSUMED) != 0);
-    if (flags & CXL_STUB_FLAG_VF_RANGE)
-        cli_warn(ctx, "a velocity factor outside 0.50 to 1: check the readings, --length and --end");
-
-    const char *label = cli_label(a);
-    size_t count = cxl_stub_result_count(res);
-    if (ctx->format != CLI_TEXT) {
-        char order_text[16], flag_text[96] = "";
-        static const struct { unsigned bit; const char *name; } names[] = {
-            { CXL_STUB_FLAG_INCONSISTENT, "inconsistent" },
-            { CXL_STUB_FLAG_VF_RANGE, "vf_out_of_range" },
-            { CXL_STUB_FLAG_ORDERS_ASSUMED, "orders_numbered" },
-            { CXL_STUB_FLAG_FIXTURE_FITTED, "fixture_fitted" },
-        };
-        for (size_t k = 0; k < sizeof names / sizeof names[0]; k++)
-            if (flags & names[k].bit) {
-                if (flag_text[0]) strcat(flag_text, " ");
-                strcat(flag_text, names[k].name);
-            }
-        for (size_t i = 0; i < count; i++) {
-            double len, f, vi, rhz, rm;
-            int order;
-            cxl_stub_result_reading(res, i, &len, &f, &order, &vi, &rhz, &rm);
-            snprintf(order_text, sizeof order_text, "%d", order);
-            cli_cell cells[NCOLS] = {
-                CLI_TXT(label), CLI_NUM(len), CLI_TXT(end_text), CLI_TXT(order_text),
-                CLI_NUM(f / 1e6), CLI_NUM(vi), CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE,
-                CLI_NUM(rhz), CLI_NUM(rm * 1e3), CLI_NONE, CLI_NONE, CLI_NONE,
-            };
-            cli_table_row(ctx, vf_cols, NCOLS, cells);
-        }
-        cli_cell fit[NCOLS] = {
-            CLI_TXT(label), one_length ? CLI_NUM(r[0].length_m) : CLI_NONE, CLI_TXT(end_text),
-            CLI_TXT("fit"), CLI_NONE, CLI_NUM(vf), CLI_NUM(vf_err), CLI_NUM(e_fit),
-            CLI_NUM(e_len), CLI_NUM(e_freq), CLI_NONE, CLI_NONE,
-            fitted_fixture ? CLI_NUM(x_cable) : CLI_NONE,
-            fitted_fixture ? CLI_NUM(x_err * vf) : CLI_NONE, CLI_TXT(flag_text),
-        };
-        cli_table_row(ctx, vf_cols, NCOLS, fit);
+        if (r[i].length_m != r[0].length_m) sm.one_length = 0;
+    int finite = isfinite(sm.vf) && isfinite(sm.vf_err) && isfinite(sm.extra_m) &&
+                 isfinite(sm.extra_err_m);
+    for (size_t i = 0; i < cxl_stub_result_count(res); i++) {
+        double vi, rhz, rm;
+        cxl_stub_result_reading(res, i, NULL, NULL, NULL, &vi, &rhz, &rm);
+        finite = finite && isfinite(vi) && isfinite(rhz) && isfinite(rm);
+    }
+    int rc = CLI_EXIT_OK;
+    if (!finite) {
+        rc = cli_error(ctx, "resonance", res_expected, "the readings give no finite result");
     } else {
-        char b1[96], b2[96], b3[48];
-        FILE *o = ctx->out;
-        if (ctx->rows_out++) putc('\n', o);
-        fprintf(o, "vf%s%s\n", label[0] ? ": " : "", label);
-        if (one_length)
-            fprintf(o, "  cable             %s, far end %s\n",
-                    cli_fmt_length(ctx, b1, sizeof b1, r[0].length_m),
-                    end == CXL_STUB_OPEN ? "open" : "shorted");
-        else
-            fprintf(o, "  cable             read on several lengths, far end %s\n",
-                    end == CXL_STUB_OPEN ? "open" : "shorted");
-        if (fixture_m > 0.0)
-            fprintf(o, "  known fixture     %s at VF %s\n", cli_fmt_length(ctx, b1, sizeof b1, fixture_m),
-                    cli_fmt(b2, sizeof b2, fixture_vf, 4));
-        fprintf(o, "  %-5s %16s %11s  %-6s   %s\n", "order", "resonance", "length", "VF",
-                "residual");
-        for (size_t i = 0; i < count; i++) {
-            double len, f, vi, rhz, rm;
-            int order;
-            cxl_stub_result_reading(res, i, &len, &f, &order, &vi, &rhz, &rm);
-            char b4[48], b5[48];
-            fprintf(o, "  %-5d %12s MHz %9s m  %s   %s Hz  %s mm\n", order,
-                    cli_fmt(b1, sizeof b1, f / 1e6, 6), cli_fmt(b2, sizeof b2, len, 3),
-                    cli_fmt(b3, sizeof b3, vi, 4), cli_fmt_signed(b4, sizeof b4, rhz, 0),
-                    cli_fmt_signed(b5, sizeof b5, rm * 1e3, 1));
-        }
-        if (flags & CXL_STUB_FLAG_ORDERS_ASSUMED)
-            fprintf(o, "  orders            numbered 1, 2, ... in ascending frequency on each length\n");
-        fprintf(o, "  fitted VF         %s +/- %s\n", cli_fmt(b1, sizeof b1, vf, 4),
-                cli_fmt(b2, sizeof b2, vf_err, 4));
-        fprintf(o, "  uncertainty       fit %s, length %s, frequency %s (root sum of squares)\n",
-                cli_fmt(b1, sizeof b1, e_fit, 5), cli_fmt(b2, sizeof b2, e_len, 5),
-                cli_fmt(b3, sizeof b3, e_freq, 5));
-        if (fitted_fixture)
-            fprintf(o, "  extra fixture     %s of this cable +/- %s mm, fitted across the lengths\n",
-                    cli_fmt_length(ctx, b1, sizeof b1, x_cable),
-                    cli_fmt(b2, sizeof b2, x_err * vf * 1e3, 1));
-        else
-            fprintf(o, "  extra fixture     not fitted: all readings are on one length, where the VF\n"
-                       "                    cannot be told from an unknown fixture; trim a known\n"
-                       "                    length, read again and give those readings as F@LEN\n");
+        if (sm.flags & CXL_STUB_FLAG_INCONSISTENT)
+            warn_inconsistent(ctx, stub, r, (size_t)n, (sm.flags & CXL_STUB_FLAG_ORDERS_ASSUMED) != 0);
+        if (sm.flags & CXL_STUB_FLAG_VF_RANGE)
+            cli_warn(ctx, "a velocity factor outside 0.50 to 1: check the readings, --length and --end");
+        if (ctx->format == CLI_TEXT) write_text(ctx, &sm, res);
+        else write_table(ctx, &sm, res);
     }
     cxl_stub_result_free(res);
     cxl_stub_free(stub);
-    return CLI_EXIT_OK;
+    return rc;
 }
 
 const cli_command cli_cmd_vf = {

@@ -67,8 +67,11 @@ static int load(const cli_ctx *row_ctx, vf_file *f, FILE *fp)
         return cli_error(ctx, "vf-from", NULL, "out of memory");
     int has_row = 0, code = 0, readings = 0;
     int col_label = -1, col_res = -1, col_vf = -1;
-    char single_label[256] = "";
+    char single_label[256] = "", name[300];
     double single_vf = 0.0;
+    size_t single_line = 0;
+    if (strcmp(f->path, "-") == 0) snprintf(name, sizeof name, "standard input");
+    else snprintf(name, sizeof name, "'%s'", f->path);
     cxl_status st = cxl_csv_reader_next(rd, &has_row);
     if (st == CXL_OK && has_row) {
         col_label = column(rd, "label");
@@ -77,7 +80,7 @@ static int load(const cli_ctx *row_ctx, vf_file *f, FILE *fp)
     }
     if (col_res < 0 || col_vf < 0) {
         code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED,
-                         "'%s' has no resonance and vf columns", f->path);
+                         "%s has no resonance and vf columns", name);
         goto done;
     }
     while ((st = cxl_csv_reader_next(rd, &has_row)) == CXL_OK && has_row) {
@@ -87,36 +90,49 @@ static int load(const cli_ctx *row_ctx, vf_file *f, FILE *fp)
         const char *text = cxl_csv_reader_field(rd, (size_t)col_vf);
         const char *label = col_label >= 0 && (size_t)col_label < nf
                                 ? cxl_csv_reader_field(rd, (size_t)col_label) : "";
-        int fit = strcmp(res, "fit") == 0;
         double vf;
-        if (cxl_units_parse_number(text, &vf, NULL) != CXL_OK || !(vf > 0.0 && vf <= 1.0)) {
+        int valid = cxl_units_parse_number(text, &vf, NULL) == CXL_OK && vf > 0.0 && vf <= 1.0;
+        if (strcmp(res, "fit") != 0) {
+            /* a reading's own VF may lie outside (0, 1] (vf flags it); it
+             * matters only when it is the file's one reading */
+            if (readings++ == 0) {
+                snprintf(single_label, sizeof single_label, "%s", label);
+                single_vf = valid ? vf : 0.0;
+                single_line = cxl_csv_reader_line(rd);
+            }
+            continue;
+        }
+        if (!valid) {
             code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED,
-                             "'%s' line %zu: vf '%s' is not a velocity factor", f->path,
+                             "%s line %zu: vf '%s' is not a velocity factor", name,
                              cxl_csv_reader_line(rd), text);
             goto done;
         }
-        if (fit) {
-            if (add_row(f, label, vf)) {
-                code = cli_error(ctx, "vf-from", NULL, "out of memory");
-                goto done;
-            }
-        } else if (readings++ == 0) {
-            snprintf(single_label, sizeof single_label, "%s", label);
-            single_vf = vf;
+        if (add_row(f, label, vf)) {
+            code = cli_error(ctx, "vf-from", NULL, "out of memory");
+            goto done;
         }
     }
     if (st != CXL_OK) {
-        code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED, "'%s' line %zu: malformed CSV",
-                         f->path, cxl_csv_reader_line(rd));
+        code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED, "%s line %zu: malformed CSV",
+                         name, cxl_csv_reader_line(rd));
         goto done;
     }
-    if (f->n == 0 && readings == 1 && add_row(f, single_label, single_vf)) {
-        code = cli_error(ctx, "vf-from", NULL, "out of memory");
-        goto done;
+    if (f->n == 0 && readings == 1) {
+        if (!(single_vf > 0.0)) {
+            code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED,
+                             "%s line %zu: the vf of its one reading is not a velocity factor",
+                             name, single_line);
+            goto done;
+        }
+        if (add_row(f, single_label, single_vf)) {
+            code = cli_error(ctx, "vf-from", NULL, "out of memory");
+            goto done;
+        }
     }
     if (f->n == 0)
         code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED,
-                         "'%s' holds no fitted row (resonance 'fit')", f->path);
+                         "%s holds no fitted row (resonance 'fit')", name);
 done:
     cxl_csv_reader_free(rd);
     return code;

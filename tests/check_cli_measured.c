@@ -451,6 +451,18 @@ START_TEST(phase_vf_from_labels)
     usage_error(args, "vf-from", NULL);
     unlink(nofit);
     free(nofit);
+    /* a reading whose own VF is above 1 (an inconsistent set) does not
+     * spoil the fit row */
+    const char odd_csv[] = "label,resonance,vf\nx,1,0.6671\nx,2,1.1119\nx,fit,0.9285\n";
+    char *odd = temp_file(odd_csv, strlen(odd_csv));
+    snprintf(args, sizeof args, "phase --vf-from %s --length 20.1m --reference 20m --freq 1.8MHz "
+                                "--format csv", odd);
+    r = run_cli(NULL, args, NULL);
+    ck_assert_int_eq(r.rc, 0);
+    has(r.out, ",0.9285,all\n");
+    cli_result_free(&r);
+    unlink(odd);
+    free(odd);
     const char wrong_csv[] = "label,offset\nx,1m\n";
     char *wrong = temp_file(wrong_csv, strlen(wrong_csv));
     snprintf(args, sizeof args, "phase --vf-from %s --length 20.1m --reference 20m --freq 1.8MHz",
