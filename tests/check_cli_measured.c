@@ -351,6 +351,14 @@ START_TEST(phase_check_value)
         ",160m,centre,1.900000,20.100,20.000,0.100,0.346,0.6600,2\n"
         ",160m,high,2.000000,20.100,20.000,0.100,0.364,0.6600,2\n");
     cli_result_free(&r);
+    /* Region 1 without the No. 5.96 segments: 1810-1850 kHz [RR];
+     * 360 * 1.85e6 * 0.1 / (0.66 c) = 0.33660 deg [hand worked] */
+    r = run_cli(NULL, "phase --length 20.10m --reference 20.00m --vf 0.66 --band 160m --region 1 "
+                      "--exclude-footnotes --format csv", NULL);
+    ck_assert_int_eq(r.rc, 0);
+    has(r.out, "\n,160m,low,1.810000,");
+    has(r.out, "\n,160m,high,1.850000,20.100,20.000,0.100,0.337,0.6600,1\n");
+    cli_result_free(&r);
     /* text, widest edges (1715-2000 kHz [RR]); a shorter line leads */
     r = run_cli(NULL, "phase --length 19.90m --reference 20.00m --vf 0.66 --band 160m --freq 1.83MHz",
                 NULL);
@@ -556,6 +564,18 @@ START_TEST(pair_check_value)
     has(r.out, "\n,40m,low,7.000000,0.300,3.821,2.000,fail,0.157,0.000\n");
     has(r.out, "\n,40m,high,7.300000,0.300,3.985,2.000,fail,0.151,0.000\n");
     cli_result_free(&r);
+    /* the VF from a vf CSV or the catalog works the same way */
+    const char vf_csv[] = "label,resonance,vf\nspool,fit,0.6600\n";
+    char *path = temp_file(vf_csv, strlen(vf_csv));
+    char from_args[512];
+    snprintf(from_args, sizeof from_args, "pair --length 20.00m,20.30m --vf-from %s --tolerance 2 "
+                                          "--band 40m --format csv", path);
+    r = run_cli(NULL, from_args, NULL);
+    ck_assert_int_eq(r.rc, 1);
+    has(r.out, "\n,40m,high,7.300000,0.300,3.985,2.000,fail,0.151,0.000\n");
+    cli_result_free(&r);
+    unlink(path);
+    free(path);
     /* 160 m alone passes: exit 0 */
     r = run_cli(NULL, "pair --length 20.00m,20.30m --vf 0.66 --tolerance 2 --band 160m", NULL);
     ck_assert_int_eq(r.rc, 0);
