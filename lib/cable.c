@@ -408,7 +408,8 @@ static cxl_status commit_points(cxl_catalog *cat, struct staged_point *sp, size_
         sp[k].pt.source = NULL; /* now owned by the cable */
     }
     for (size_t r = 0; r < cat->n; r++)
-        qsort(cat->rows[r].points, cat->rows[r].npoints, sizeof(struct loss_point), point_cmp);
+        if (cat->rows[r].npoints > 1) /* a cable without points has points == NULL */
+            qsort(cat->rows[r].points, cat->rows[r].npoints, sizeof(struct loss_point), point_cmp);
     return CXL_OK;
 }
 
