@@ -325,7 +325,7 @@ START_TEST(vf_batch)
     cli_result r = run_cli(NULL, "vf --input - --end open --format csv", csv);
     ck_assert_int_eq(r.rc, 2);
     ck_assert_int_eq(count_lines(r.out), 1 + 3 + 2);
-    has(r.out, "\n\"spool, A\",10.000,open,fit,,0.6671,");
+    has(r.out, "\n\"spool, A\",10.000,open,fit,,0.6671,"); /* 4 * 10 * 5e6 / c [POZAR] */
     /* 4 * 10 m * 6 MHz / c = 0.80055 [POZAR] */
     has(r.out, "\nspool C,10.000,open,fit,,0.8006,");
     ck_assert_int_eq(count_lines(r.err), 1);
@@ -434,7 +434,8 @@ START_TEST(phase_vf_from_labels)
         "B,10.000,open,fit,,0.8006\n";
     char *path = temp_file(vf_csv, sizeof vf_csv - 1);
     char args[512];
-    /* the fit labelled like the row; a neutralised label still matches */
+    /* the fit labelled like the row; a neutralised label still matches
+     * (the expected VFs are the file's own values) */
     snprintf(args, sizeof args, "phase --vf-from %s --length 20.1m --reference 20m --freq 1.8MHz "
                                 "--format csv --label B", path);
     cli_result r = run_cli(NULL, args, NULL);
@@ -497,7 +498,7 @@ START_TEST(phase_batch)
     cli_result r = run_cli(NULL, args, NULL);
     ck_assert_int_eq(r.rc, 2);
     ck_assert_int_eq(count_lines(r.out), 1 + 3 + 3);
-    has(r.out, "\nn1,160m,low,1.800000,20.100,20.000,0.100,0.327,0.6600,2\n");
+    has(r.out, "\nn1,160m,low,1.800000,20.100,20.000,0.100,0.327,0.6600,2\n"); /* as phase_check_value */
     /* widest low edge 1715 kHz [RR]: 360 * 1.715e6 * 0.1 / (0.8 c) = 0.25743 */
     has(r.out, "\nn4,160m,low,1.715000,20.100,20.000,0.100,0.257,0.8000,all\n");
     ck_assert_int_eq(count_lines(r.err), 3);
@@ -525,6 +526,8 @@ START_TEST(phase_bad_input)
     usage_error("phase --length 20.1m --reference 20m --reference-deg 90 --reference-freq 1MHz "
                 "--vf 0.66 --band 160m", "reference", NULL);
     usage_error("phase --length 20.1m --reference-deg 90 --vf 0.66 --band 160m", "reference-freq", NULL);
+    usage_error("phase --length 20.1m --reference 20m --reference-freq 1MHz --vf 0.66 --band 160m",
+                "reference-freq", NULL);
     usage_error("phase --length 20.1m --reference-deg -90 --reference-freq 1MHz --vf 0.66 --band 160m",
                 "reference-deg", NULL);
     usage_error("phase --length 20.1m --reference 20m --vf 0.66 --cable RG-58 --band 160m", "vf", NULL);
@@ -653,6 +656,7 @@ START_TEST(pair_spreadsheet_csv)
     cli_result r = run_cli(NULL, "pair --input - --format csv", csv);
     ck_assert_int_eq(r.rc, 2);
     ck_assert_int_eq(count_lines(r.out), 1 + 6 + 3);
+    /* the figures of pair_check_value [RR, POZAR, hand worked] */
     has(r.out, "\n\"east, rear\",40m,high,7.300000,0.300,3.985,2.000,fail,0.151,0.000\n");
     /* 0.01 m at 2 MHz: 360 * 2e6 * 0.01 / (0.66 c) = 0.03639 [hand worked] */
     has(r.out, "\n'=west,160m,high,2.000000,0.010,0.036,2.000,pass,0.550,0.000\n");
