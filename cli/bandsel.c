@@ -28,6 +28,43 @@ int cli_region(const cli_ctx *ctx, const cli_args *a, int *region)
     return 0;
 }
 
+/* The table's own name for a band the user typed ("160", "160M" ->
+ * "160m"): the first row whose band has the same widest edges.  Rows
+ * outside those edges are skipped cheaply, so a batch row costs a few
+ * comparisons, not a scan per table row. */
+static const char *canonical_name(const cxl_bands *bands, const char *item)
+{
+    double lo, hi;
+    if (cxl_bands_edges(bands, item, 0, 1, &lo, &hi) != CXL_OK) return NULL;
+    for (size_t r = 0; r < cxl_bands_count(bands); r++) {
+        const char *name;
+        double rl, rh;
+        if (cxl_bands_get(bands, r, &name, NULL, NULL, &rl, &rh, NULL, NULL) != CXL_OK ||
+            rl < lo || rh > hi)
+            continue;
+        if (cxl_bands_edges(bands, name, 0, 1, &rl, &rh) == CXL_OK && rl == lo && rh == hi)
+            return name;
+    }
+    return NULL;
+}
+
+int cli_band_lookup(cli_ctx *ctx, const char *item, int region, int footnotes,
+                    double *low_hz, double *high_hz, const char **name)
+{
+    const cxl_bands *bands = cli_bands(ctx);
+    if (!bands) return CLI_EXIT_USAGE;
+    cxl_status st = cxl_bands_edges(bands, item, region, footnotes, low_hz, high_hz);
+    if (st == CXL_ENOTFOUND)
+        return cli_error(ctx, "band", "a band such as 160m, 80m, 40m or mw (see coaxline bands)",
+                         region ? "no band '%s' in Region %d" : "unknown band '%s'",
+                         item, region);
+    if (st != CXL_OK)
+        return cli_error(ctx, "band", "a band such as 160m", "%s", cxl_strerror(st));
+    const char *canon = canonical_name(bands, item);
+    *name = canon ? canon : item;
+    return 0;
+}
+
 int cli_freq_points(cli_ctx *ctx, const cli_args *a, cli_freq_point *pts, size_t max)
 {
     int region;
@@ -38,39 +75,18 @@ int cli_freq_points(cli_ctx *ctx, const cli_args *a, cli_freq_point *pts, size_t
     size_t n = 0;
     int nb = cli_items(ctx, a, "band", buf, sizeof buf, items, CLI_MAX_ITEMS);
     if (nb < 0) return -1;
-    if (nb > 0) {
-        const cxl_bands *bands = cli_bands(ctx);
-        if (!bands) return -1;
-        for (int i = 0; i < nb; i++) {
-            double lo, hi;
-            cxl_status st = cxl_bands_edges(bands, items[i], region, footnotes, &lo, &hi);
-            if (st == CXL_ENOTFOUND)
-                return cli_error(ctx, "band", "a band such as 160m, 80m, 40m or mw (see coaxline bands)",
-                                 region ? "no band '%s' in Region %d" : "unknown band '%s'",
-                                 items[i], region), -1;
-            if (st != CXL_OK)
-                return cli_error(ctx, "band", "a band such as 160m", "%s", cxl_strerror(st)), -1;
-            if (n + 3 > max)
-                return cli_error(ctx, "band", "fewer bands", "too many bands"), -1;
-            /* canonical name ("160m") from the table row */
-            const char *canon = items[i];
-            for (size_t r = 0; r < cxl_bands_count(bands); r++) {
-                const char *name;
-                double rl, rh;
-                if (cxl_bands_get(bands, r, &name, NULL, NULL, &rl, &rh, NULL, NULL) == CXL_OK &&
-                    cxl_bands_edges(bands, name, region, footnotes, &rl, &rh) == CXL_OK &&
-                    rl == lo && rh == hi) {
-                    canon = name;
-                    break;
-                }
-            }
-            const char *edges[3] = { "low", "centre", "high" };
-            double f[3] = { lo, 0.5 * (lo + hi), hi };
-            for (int k = 0; k < 3; k++, n++) {
-                snprintf(pts[n].band, sizeof pts[n].band, "%s", canon);
-                pts[n].edge = edges[k];
-                pts[n].freq_hz = f[k];
-            }
+    for (int i = 0; i < nb; i++) {
+        double lo, hi;
+        const char *canon;
+        if (cli_band_lookup(ctx, items[i], region, footnotes, &lo, &hi, &canon)) return -1;
+        if (n + 3 > max)
+            return cli_error(ctx, "band", "fewer bands", "too many bands"), -1;
+        const char *edges[3] = { "low", "centre", "high" };
+        double f[3] = { lo, 0.5 * (lo + hi), hi };
+        for (int k = 0; k < 3; k++, n++) {
+            snprintf(pts[n].band, sizeof pts[n].band, "%s", canon);
+            pts[n].edge = edges[k];
+            pts[n].freq_hz = f[k];
         }
     }
     int nf = cli_items(ctx, a, "freq", buf, sizeof buf, items, CLI_MAX_ITEMS);

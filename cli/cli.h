@@ -150,6 +150,11 @@ int cli_region(const cli_ctx *ctx, const cli_args *a, int *region);
  * --exclude-footnotes), then each --freq.  Returns the number of points,
  * or -1 after cli_error() (also when there is none at all). */
 int cli_freq_points(cli_ctx *ctx, const cli_args *a, cli_freq_point *pts, size_t max);
+/* Edges of one band the user typed (for region 1-3, or 0: widest across
+ * Regions) and the table's own name for it (*name: "160m" for "160").
+ * Returns 0, or CLI_EXIT_USAGE after cli_error() for an unknown band. */
+int cli_band_lookup(cli_ctx *ctx, const char *item, int region, int footnotes,
+                    double *low_hz, double *high_hz, const char **name);
 
 /* ---- tabular output (CSV and JSON) ------------------------------------ */
 
@@ -356,5 +361,27 @@ const char *cli_fmt_range_mhz(char *buf, size_t size, double lo_hz, double hi_hz
 cxl_loss_fit *cli_cable_fit(const cxl_catalog *cat, size_t index);
 /* One line describing a fit: points, table range, usable range, residual. */
 const char *cli_fmt_fit(char *buf, size_t size, const cxl_loss_fit *fit);
+
+/* ---- measured lines: bands, vf, phase, pair (measured.c) ------------- */
+
+/* Velocity factor from exactly one of --vf, --cable NAME or --vf-from
+ * FILE|- (a `coaxline vf --format csv` output: the fitted row, or the one
+ * whose label is this row's --label when the file holds several fits).
+ * The file is read once per run and kept in ctx->state, so a command that
+ * offers --vf-from has no state of its own and sets .end to
+ * cli_vf_source_end.  from (may be NULL) gets where the value came from,
+ * for text output: "", "cable NAME" or "from FILE".  Returns 0, or
+ * CLI_EXIT_USAGE after cli_error(). */
+int cli_vf_source(cli_ctx *ctx, const cli_args *a, double *vf, char *from,
+                  size_t from_size);
+int cli_vf_source_end(cli_ctx *ctx);
+
+/* A number with its sign always shown ("+0.327", "-0.100"), for text. */
+const char *cli_fmt_signed(char *buf, size_t size, double value, int decimals);
+
+extern const cli_command cli_cmd_bands;
+extern const cli_command cli_cmd_vf;
+extern const cli_command cli_cmd_phase;
+extern const cli_command cli_cmd_pair;
 
 #endif

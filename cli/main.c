@@ -8,13 +8,17 @@
 
 static const cli_command *const commands[] = {
     &cli_cmd_cut,
+    &cli_cmd_vf,
+    &cli_cmd_trim,
+    &cli_cmd_phase,
+    &cli_cmd_pair,
+    &cli_cmd_bands,
     &cli_cmd_cables,
     &cli_cmd_loss,
-    &cli_cmd_demo,
     &cli_cmd_pattern,
     &cli_cmd_budget,
     &cli_cmd_hybrid,
-    &cli_cmd_trim,
+    &cli_cmd_demo,
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 

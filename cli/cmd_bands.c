@@ -1,0 +1,179 @@
+/* cmd_bands.c - coaxline bands: the band table the per-band commands use,
+ * either one ITU Region's segments or the widest edges across Regions. */
+#include <config.h>
+#include <stdio.h>
+#include <string.h>
+#include "cli.h"
+
+static const cli_optdef bands_opts[] = {
+    { "region", "N", "ITU Region 1, 2 or 3: its segments (default: widest edges across Regions)", 0 },
+    { "band", "LIST", "only these bands, e.g. 160m,80m,mw", 1 },
+    { "exclude-footnotes", NULL, "leave out segments that hold only in countries an RR footnote lists", 0 },
+    { NULL, NULL, NULL, 0 }
+};
+
+/* The columns of data/bands.csv, so a Region's CSV output is itself a
+ * band table. */
+static const cli_col bands_cols[] = {
+    { "band", -1 }, { "service", -1 }, { "region", -1 }, { "low_khz", 1 },
+    { "high_khz", 1 }, { "footnote", -1 }, { "source", -1 },
+};
+#define NCOLS (sizeof bands_cols / sizeof bands_cols[0])
+
+#define MAX_SOURCES 64
+
+/* Distinct sources in order of first use, numbered for the text table. */
+typedef struct source_list {
+    const char *text[MAX_SOURCES];
+    size_t n;
+} source_list;
+
+static size_t source_number(source_list *s, const char *text)
+{
+    for (size_t i = 0; i < s->n; i++)
+        if (strcmp(s->text[i], text) == 0) return i + 1;
+    if (s->n == MAX_SOURCES) return 0;
+    s->text[s->n++] = text;
+    return s->n;
+}
+
+/* One output line, in the chosen format.  sources[] holds one or two
+ * sources (the rows that set the low and the high edge). */
+static void put_row(cli_ctx *ctx, source_list *list, const char *band, cxl_service service,
+                    const char *region, double low_hz, double high_hz, const char *footnote,
+                    const char *const sources[2])
+{
+    const char *service_name = service == CXL_SERVICE_BROADCAST ? "broadcast" : "amateur";
+    int two = sources[1] && strcmp(sources[0], sources[1]) != 0;
+    if (ctx->format != CLI_TEXT) {
+        char joined[2048];
+        snprintf(joined, sizeof joined, "%s%s%s", sources[0], two ? " | " : "",
+                 two ? sources[1] : "");
+        cli_cell cells[NCOLS] = {
+            CLI_TXT(band), CLI_TXT(service_name), CLI_TXT(region), CLI_NUM(low_hz / 1e3),
+            CLI_NUM(high_hz / 1e3), CLI_TXT(footnote), CLI_TXT(joined),
+        };
+        cli_table_row(ctx, bands_cols, NCOLS, cells);
+        return;
+    }
+    char lo[32], hi[32], refs[32];
+    size_t r0 = source_number(list, sources[0]), r1 = two ? source_number(list, sources[1]) : 0;
+    if (r1) snprintf(refs, sizeof refs, "[%zu][%zu]", r0, r1);
+    else snprintf(refs, sizeof refs, "[%zu]", r0);
+    fprintf(ctx->out, "  %-6s %-10s %-6s %10s %10s  %-9s %s\n", band, service_name, region,
+            cli_fmt(lo, sizeof lo, low_hz / 1e3, 1), cli_fmt(hi, sizeof hi, high_hz / 1e3, 1),
+            footnote, refs);
+}
+
+/* Does table row name belong to one of the wanted bands (all when none)? */
+static int wanted(const char *name, const char *const *names, int n)
+{
+    if (n == 0) return 1;
+    for (int i = 0; i < n; i++)
+        if (strcmp(names[i], name) == 0) return 1;
+    return 0;
+}
+
+/* Widest edges of one band across Regions; the footnotes named are those
+ * whose segments reach beyond the general allocations. */
+static int widest_row(cli_ctx *ctx, source_list *list, const cxl_bands *bands,
+                      const char *name, int footnotes)
+{
+    double lo, hi, glo = 0.0, ghi = 0.0;
+    if (cxl_bands_edges(bands, name, 0, footnotes, &lo, &hi) != CXL_OK) return 0;
+    int general = cxl_bands_edges(bands, name, 0, 0, &glo, &ghi) == CXL_OK;
+    char notes[128] = "";
+    const char *src[2] = { NULL, NULL };
+    cxl_service service = CXL_SERVICE_AMATEUR;
+    /* pass 0: general allocations set the edges' sources first; pass 1: footnotes */
+    for (int pass = 0; pass < 2; pass++) {
+        for (size_t r = 0; r < cxl_bands_count(bands); r++) {
+            const char *rname, *fn, *source;
+            double rl, rh;
+            cxl_service sv;
+            cxl_bands_get(bands, r, &rname, &sv, NULL, &rl, &rh, &fn, &source);
+            if (strcmp(rname, name) != 0 || (fn[0] != '\0') != pass) continue;
+            if (pass && !footnotes) continue;
+            service = sv;
+            if (!src[0] && rl == lo) src[0] = source;
+            if (!src[1] && rh == hi) src[1] = source;
+            if (pass && (!general || rl < glo || rh > ghi) && !strstr(notes, fn) &&
+                strlen(notes) + strlen(fn) + 2 < sizeof notes) {
+                if (notes[0]) strcat(notes, " ");
+                strcat(notes, fn);
+            }
+        }
+    }
+    if (!src[0]) src[0] = "";
+    put_row(ctx, list, name, service, "all", lo, hi, notes, src);
+    return 1;
+}
+
+static int bands_run(cli_ctx *ctx, const cli_args *a)
+{
+    int region;
+    if (cli_region(ctx, a, &region)) return CLI_EXIT_USAGE;
+    int footnotes = !cli_flag(a, "exclude-footnotes");
+    char buf[1024];
+    const char *items[CLI_MAX_ITEMS], *names[CLI_MAX_ITEMS];
+    int nb = cli_items(ctx, a, "band", buf, sizeof buf, items, CLI_MAX_ITEMS);
+    if (nb < 0) return CLI_EXIT_USAGE;
+    for (int i = 0; i < nb; i++) {
+        double lo, hi;
+        if (cli_band_lookup(ctx, items[i], region, footnotes, &lo, &hi, &names[i]))
+            return CLI_EXIT_USAGE;
+    }
+    const cxl_bands *bands = cli_bands(ctx);
+    if (!bands) return CLI_EXIT_USAGE;
+
+    if (ctx->format == CLI_TEXT) {
+        char r[48] = "widest edges across ITU Regions 1-3";
+        if (region) snprintf(r, sizeof r, "ITU Region %d", region);
+        fprintf(ctx->out, "bands: %s, footnote segments %s\n", r,
+                footnotes ? "included" : "left out");
+        fprintf(ctx->out, "  %-6s %-10s %-6s %10s %10s  %-9s %s\n", "band", "service", "region",
+                "low kHz", "high kHz", "footnote", "source");
+    }
+    source_list list = { { NULL }, 0 };
+    size_t shown = 0;
+    for (size_t r = 0; r < cxl_bands_count(bands); r++) {
+        const char *name, *fn, *source;
+        int reg;
+        double lo, hi;
+        cxl_service sv;
+        cxl_bands_get(bands, r, &name, &sv, &reg, &lo, &hi, &fn, &source);
+        if (!wanted(name, names, nb)) continue;
+        if (region) {
+            if (reg != region || (!footnotes && fn[0] != '\0')) continue;
+            char rtext[4] = { (char)('0' + reg), '\0' };
+            const char *src[2] = { source, NULL };
+            put_row(ctx, &list, name, sv, rtext, lo, hi, fn, src);
+            shown++;
+            continue;
+        }
+        /* widest view: one line per band, at its first row */
+        size_t first = 0;
+        const char *other;
+        while (cxl_bands_get(bands, first, &other, NULL, NULL, NULL, NULL, NULL, NULL) == CXL_OK &&
+               strcmp(other, name) != 0)
+            first++;
+        if (first != r) continue;
+        shown += (size_t)widest_row(ctx, &list, bands, name, footnotes);
+    }
+    if (ctx->format == CLI_TEXT) {
+        if (shown == 0) fprintf(ctx->out, "  (no segment)\n");
+        fprintf(ctx->out, "sources:\n");
+        for (size_t i = 0; i < list.n; i++)
+            fprintf(ctx->out, "  [%zu] %s\n", i + 1, list.text[i]);
+    }
+    return CLI_EXIT_OK;
+}
+
+const cli_command cli_cmd_bands = {
+    .name = "bands",
+    .summary = "band edges per ITU Region, as the per-band commands use them",
+    .synopsis = "[--region N] [--band LIST] [--exclude-footnotes]",
+    .opts = bands_opts,
+    .run = bands_run,
+    .batch = 0,
+};
