@@ -238,8 +238,9 @@ static void write_text(cli_ctx *ctx, const summary *sm, const cxl_stub_result *r
     }
     if (sm->flags & CXL_STUB_FLAG_ORDERS_ASSUMED)
         fprintf(o, "  orders            numbered 1, 2, ... in ascending frequency on each length\n");
-    fprintf(o, "  fitted VF         %s +/- %s\n", cli_fmt(b1, sizeof b1, sm->vf, 4),
-            cli_fmt(b2, sizeof b2, sm->vf_err, 4));
+    /* 5 decimals: a good fit's uncertainty is often below 0.0001 */
+    fprintf(o, "  fitted VF         %s +/- %s\n", cli_fmt(b1, sizeof b1, sm->vf, 5),
+            cli_fmt(b2, sizeof b2, sm->vf_err, 5));
     fprintf(o, "  uncertainty       fit %s, length %s, frequency %s (root sum of squares)\n",
             cli_fmt(b1, sizeof b1, sm->err_fit, 5), cli_fmt(b2, sizeof b2, sm->err_length, 5),
             cli_fmt(b3, sizeof b3, sm->err_freq, 5));

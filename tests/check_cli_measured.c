@@ -182,7 +182,7 @@ START_TEST(vf_single_reading)
     r = run_cli(NULL, "vf --length 10m --end open --resonance 5MHz --label 'drum 3'", NULL);
     ck_assert_int_eq(r.rc, 0);
     has(r.out, "vf: drum 3\n");
-    has(r.out, "fitted VF         0.6671 +/- 0.0000");
+    has(r.out, "fitted VF         0.66713 +/- 0.00000"); /* 4 L f / c = 0.667128 */
     has(r.out, "not fitted: all readings are on one length");
     cli_result_free(&r);
 }
