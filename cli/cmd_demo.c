@@ -21,6 +21,8 @@ static const double sample_dips_hz[] = { 5.1865e6, 15.5571e6, 25.9292e6 };
 #define FEED_B_M 61.470
 #define TOL_DEG 2.0              /* what the pair must hold on 160 m and 80 m */
 #define DESIGN_HZ 1.83e6
+#define LONG_M 15.076            /* the delay line as first cut, on purpose long */
+static const double long_dips_hz[] = { 4.128e6, 12.383e6, 20.639e6 };
 #define Z_PORT 75.0
 
 #define FAIL(what) return cli_error(ctx, NULL, NULL, "demo: %s failed", what)
@@ -87,8 +89,35 @@ static int demo_run(cli_ctx *ctx, const cli_args *a)
             cli_fmt(b2, sizeof b2, (cut_label_m - cut_m) * 1000.0, 0));
     fprintf(o, "   analyzer check        %s MHz, bare piece, far end open\n",
             cli_fmt(b1, sizeof b1, qw_hz / 1e6, 4));
-    fprintf(o, "   coaxline cut --offset 18m --vf %s --allowance 0.12m --freq 1.83MHz\n\n",
+    fprintf(o, "   coaxline cut --offset 18m --vf %s --allowance 0.12m --freq 1.83MHz\n",
             cli_fmt(b1, sizeof b1, vf, 4));
+
+    /* 2b. Trim the delay line, cut long on purpose, to its target. */
+    cxl_trim *trim = NULL;
+    cxl_trim_result *tres = NULL;
+    double cut_off_m, keep_m, res_m, vf_fit, vf_target, target_hz;
+    cxl_trim_action action;
+    double bare_delay_s = delay_s - ALLOWANCE_M / (vf * CXL_C_M_PER_S);
+    int trim_ok = cxl_trim_new(CXL_STUB_OPEN, LONG_M, &trim) == CXL_OK &&
+                  cxl_trim_set_resolution(trim, 1e3) == CXL_OK;
+    for (size_t i = 0; trim_ok && i < sizeof long_dips_hz / sizeof long_dips_hz[0]; i++)
+        trim_ok = cxl_trim_add_reading(trim, long_dips_hz[i], (int)i + 1) == CXL_OK;
+    trim_ok = trim_ok && cxl_trim_target_delay(trim, bare_delay_s, DESIGN_HZ) == CXL_OK &&
+              cxl_trim_solve(trim, &tres) == CXL_OK &&
+              cxl_trim_result_cut(tres, &cut_off_m, &keep_m, &res_m, &action) == CXL_OK &&
+              cxl_trim_result_vf(tres, &vf_fit, &vf_target, &target_hz) == CXL_OK;
+    cxl_trim_result_free(tres);
+    cxl_trim_free(trim);
+    if (!trim_ok) FAIL("trim");
+    fprintf(o, "   Cut it long on purpose, %s, then trim: the analyzer shows dips at\n"
+               "   4.128, 12.383 and 20.639 MHz; the VF they give at 1.83 MHz is %s, so\n"
+               "   cut off %s and keep %s (+/- %s mm)\n",
+            cli_fmt_length(ctx, b1, sizeof b1, LONG_M), cli_fmt(b2, sizeof b2, vf_target, 4),
+            cli_fmt_length(ctx, b3, sizeof b3, cut_off_m), cli_fmt_length(ctx, b4, sizeof b4, keep_m),
+            cli_fmt(b5, sizeof b5, res_m * 1000.0, 1));
+    fprintf(o, "   coaxline trim --length 15.076m --resonance 4.128MHz,12.383MHz,20.639MHz \\\n"
+               "                 --resolution 1kHz --delay %sns --freq 1.83MHz\n\n",
+            cli_fmt(b1, sizeof b1, bare_delay_s * 1e9, 3));
 
     /* 3. The feed-line pair. */
     const double feeds[2] = { FEED_A_M, FEED_B_M };
@@ -133,9 +162,11 @@ static int demo_run(cli_ctx *ctx, const cli_args *a)
     fprintf(o, "4. Loss of one run at 1.83 MHz (physical model of %s geometry, copper)\n"
                "   matched %s dB, %s dB into a preamp input with SWR 1.5;\n"
                "   skin effect alone takes the model's VF at 1.83 MHz to %s, below the\n"
-               "   catalog's nominal %s: one more reason to measure at the band you use\n\n",
+               "   catalog's nominal %s: one more reason to measure at the band you use\n",
             CABLE, cli_fmt(b1, sizeof b1, matched, 2), cli_fmt(b2, sizeof b2, total, 2),
             cli_fmt(b3, sizeof b3, model_vf, 4), cli_fmt(b4, sizeof b4, nominal_vf, 2));
+    fprintf(o, "   coaxline loss --cable %s --length 61.52m --freq 1.83MHz --swr 1.5 --model physical\n\n",
+            CABLE);
 
     /* 5. What the errors cost. */
     cxl_array_pair *ideal = NULL, *built = NULL;
@@ -171,8 +202,14 @@ static int demo_run(cli_ctx *ctx, const cli_args *a)
     fprintf(o, "   as built:    straight behind only %s dB below the front; the null has\n"
                "                moved to azimuth %s deg\n",
             cli_fmt(b1, sizeof b1, fb_built, 1), cli_fmt(b2, sizeof b2, null_az, 1));
-    fprintf(o, "   (delay line cut with the label VF, and the %s mm feed-run difference)\n\n",
-            cli_fmt(b1, sizeof b1, (FEED_A_M - FEED_B_M) * 1000.0, 0));
+    fprintf(o, "   (delay line cut with the label VF, and the %s mm feed-run difference:\n"
+               "   together %s deg of extra lag on the rear element)\n",
+            cli_fmt(b1, sizeof b1, (FEED_A_M - FEED_B_M) * 1000.0, 0),
+            cli_fmt(b2, sizeof b2, (extra_s - feed_skew_s) * 360.0 * DESIGN_HZ, 2));
+    fprintf(o, "   coaxline pattern --spacing 6m --stagger 18m --feed crossfire --vf %s \\\n"
+               "                    --freq 1.83MHz --phase-error %s\n\n",
+            cli_fmt(b1, sizeof b1, vf, 4),
+            cli_fmt(b2, sizeof b2, (extra_s - feed_skew_s) * 360.0 * DESIGN_HZ, 2));
 
     /* 6. The combiner. */
     double iso, common, presented, swr, rl;
@@ -184,7 +221,8 @@ static int demo_run(cli_ctx *ctx, const cli_args *a)
         FAIL("combiner");
     fprintf(o, "6. The in-phase combiner for %s ohm lines\n"
                "   isolation resistor %s ohm, common port %s ohm; a %u:%u transformer shows\n"
-               "   %s ohm to the %s ohm lead-in (SWR %s, return loss %s dB)\n\n",
+               "   %s ohm to the %s ohm lead-in (SWR %s, return loss %s dB)\n"
+               "   coaxline hybrid --impedance 75\n\n",
             cli_fmt(b1, sizeof b1, Z_PORT, 0), cli_fmt(b2, sizeof b2, iso, 0),
             cli_fmt(b3, sizeof b3, common, 1), p[0], q[0],
             cli_fmt(b4, sizeof b4, presented, 1), "75", cli_fmt(b5, sizeof b5, swr, 2),
