@@ -4,7 +4,7 @@
  * Run by `make bench` (never by make check):
  *   bench_batch --builddir DIR --srcdir DIR --python PY [--rows N]
  *               [--reference-fraction F] [--repeat N] [--startup-runs N]
- *               [--commands LIST] [--keep]
+ *               [--commands LIST] [--startup-binary PATH] [--keep]
  *
  * For each batch command (phase, pair, cut) it generates a CSV of N rows
  * (1,000,000 by default), then
@@ -56,6 +56,7 @@ static struct {
     char wrapper[4096];    /* libtool wrapper script (cli/coaxline) */
     int real_binary;       /* coaxline is cli/.libs/coaxline */
     char floor_bin[4096], reference[4096], bands[4096];
+    char extra_binary[4096]; /* --startup-binary: another build to time */
     char tmp[4096];
 } cfg;
 
@@ -384,6 +385,16 @@ static void mib(char *buf, size_t size, long kib)
     snprintf(buf, size, "%.1f MiB", (double)kib / 1024.0);
 }
 
+/* One timing line; ratio = this time over coaxline's (cx_s, 0: none). */
+static void print_timing(const char *label, const run_result *r, long bytes, double cx_s)
+{
+    char mem[32], ratio[32] = "-";
+    mib(mem, sizeof mem, r->maxrss_kib);
+    if (cx_s > 0.0) snprintf(ratio, sizeof ratio, "%.2f", r->wall_s / cx_s);
+    printf("  %-36s %8.3f %8.3f %10.0f %8.1f %12s %10s\n", label, r->wall_s, r->cpu_s,
+           cfg.rows / r->wall_s, bytes / 1e6 / r->wall_s, mem, ratio);
+}
+
 static void bench_command(const char *cmd)
 {
     char full[4096], sample[4096], part[4096], empty[4096], tenth[4096];
@@ -431,7 +442,8 @@ static void bench_command(const char *cmd)
 
     char *ref_sample[] = { (char *)cfg.python, cfg.reference, (char *)cmd, cfg.bands, sample, NULL };
     char *floor_sample[] = { cfg.floor_bin, (char *)cmd, cfg.bands, sample, NULL };
-    run_result rr = run(ref_sample, out_ref, err);
+    run_result rr = { expect, 0.0, 0.0, 0 };
+    if (cfg.python) rr = run(ref_sample, out_ref, err);
     run_result rf = run(floor_sample, out_floor, NULL);
     if (rr.status != expect || rf.status != expect) {
         printf("    reference exit %d, floor exit %d on the sample (expected %d)\n",
@@ -439,13 +451,14 @@ static void bench_command(const char *cmd)
         check_failed = 1;
     }
     printf("  check on the first %d rows:\n", SAMPLE_ROWS);
-    if (available) {
-        check_failed |= compare("coaxline vs reference:", out_cx, out_ref);
-        check_failed |= compare("coaxline vs floor:", out_cx, out_floor);
-    } else {
+    if (!available)
         printf("    coaxline %s: skipped: command not available\n", cmd);
+    if (available && cfg.python)
+        check_failed |= compare("coaxline vs reference:", out_cx, out_ref);
+    if (available)
+        check_failed |= compare("coaxline vs floor:", out_cx, out_floor);
+    if (!available && cfg.python)
         check_failed |= compare("reference vs floor:", out_ref, out_floor);
-    }
     long out_bytes_per_row = 0;
     if (available) {
         long sb = file_size(out_cx);
@@ -453,58 +466,58 @@ static void bench_command(const char *cmd)
     }
 
     /* timings */
-    char a[32], b2[32];
-    printf("  %-34s %9s %10s %9s %12s %11s\n", "", "wall s", "rows/s", "MB/s", "peak memory",
-           "vs coaxline");
-    double t_cx = 0.0;
+    printf("  %-36s %8s %8s %10s %8s %12s %10s\n", "", "wall s", "cpu s", "rows/s", "MB/s",
+           "peak memory", "time/cx");
+    run_result m = { 0, 0.0, 0.0, 0 };
     if (available) {
         char *cx_full[] = { cfg.coaxline, (char *)cmd, "--input", full, "--format", "csv", NULL };
         char *cx_tenth[] = { cfg.coaxline, (char *)cmd, "--input", tenth, "--format", "csv", NULL };
-        run_result m = run_median(cx_full, cfg.repeat, expect);
+        m = run_median(cx_full, cfg.repeat, expect);
         run_result m10 = run(cx_tenth, NULL, NULL);
-        t_cx = m.wall_s;
-        mib(a, sizeof a, m.maxrss_kib);
-        printf("  %-34s %9.3f %10.0f %9.1f %12s %11s\n", "coaxline", m.wall_s,
-               cfg.rows / m.wall_s, bytes / 1e6 / m.wall_s, a, "1.00");
-        mib(b2, sizeof b2, m10.maxrss_kib);
-        printf("  %-34s %9s %10s %9s %12s   (output about %ld bytes per input row)\n",
-               "  (peak memory at a tenth of rows)", "", "", "", b2, out_bytes_per_row);
+        print_timing("coaxline", &m, bytes, m.wall_s);
+        char a[32];
+        mib(a, sizeof a, m10.maxrss_kib);
+        printf("  %-36s %8s %8s %10s %8s %12s   (output about %ld bytes per input row)\n",
+               "  (peak memory at a tenth of rows)", "", "", "", "", a, out_bytes_per_row);
     } else {
-        printf("  %-34s skipped: command not available\n", "coaxline");
+        printf("  %-36s skipped: command not available\n", "coaxline");
     }
 
     char *floor_full[] = { cfg.floor_bin, (char *)cmd, cfg.bands, full, NULL };
     run_result mf = run_median(floor_full, cfg.repeat, expect);
-    mib(a, sizeof a, mf.maxrss_kib);
-    char ratio[32] = "-";
-    if (t_cx > 0.0) snprintf(ratio, sizeof ratio, "%.2fx", t_cx / mf.wall_s);
-    printf("  %-34s %9.3f %10.0f %9.1f %12s %11s\n", "floor (C, stdio)", mf.wall_s,
-           cfg.rows / mf.wall_s, bytes / 1e6 / mf.wall_s, a, ratio);
+    print_timing("floor (C, stdio)", &mf, bytes, m.wall_s);
 
-    char *ref_part[] = { (char *)cfg.python, cfg.reference, (char *)cmd, cfg.bands, part, NULL };
-    char *ref_empty[] = { (char *)cfg.python, cfg.reference, (char *)cmd, cfg.bands, empty, NULL };
-    run_result re = run_median(ref_empty, 3, expect);
-    run_result rp = run(ref_part, NULL, NULL);
-    if (rp.status != expect) die("reference exited with %d", rp.status);
-    double t_ref = rp.wall_s;
-    char label[64] = "reference (Python)";
-    if (part_rows < cfg.rows) {
-        /* start-up once, the per-row part scaled to all rows */
-        t_ref = re.wall_s + (rp.wall_s - re.wall_s) * (double)cfg.rows / (double)part_rows;
-        snprintf(label, sizeof label, "reference (Python), extrapolated*");
+    run_result rp = { 0, 0.0, 0.0, 0 };
+    if (cfg.python) {
+        char *ref_part[] = { (char *)cfg.python, cfg.reference, (char *)cmd, cfg.bands, part, NULL };
+        char *ref_empty[] = { (char *)cfg.python, cfg.reference, (char *)cmd, cfg.bands, empty,
+                              NULL };
+        run_result re = run_median(ref_empty, 3, expect);
+        rp = run(ref_part, NULL, NULL);
+        if (rp.status != expect) die("reference exited with %d", rp.status);
+        double measured_s = rp.wall_s;
+        if (part_rows < cfg.rows) {
+            /* start-up once, the per-row part scaled to all rows */
+            double scale = (double)cfg.rows / (double)part_rows;
+            rp.wall_s = re.wall_s + (rp.wall_s - re.wall_s) * scale;
+            rp.cpu_s = re.cpu_s + (rp.cpu_s - re.cpu_s) * scale;
+        }
+        print_timing(part_rows < cfg.rows ? "reference (Python), extrapolated*"
+                                          : "reference (Python)", &rp, bytes, m.wall_s);
+        if (part_rows < cfg.rows)
+            printf("    * timed on the first %ld rows (%.3f s wall; peak memory is at that "
+                   "size), its start-up\n      (%.3f s, a header-only file) counted once and "
+                   "the rest scaled by %.1f\n", part_rows, measured_s, re.wall_s,
+                   (double)cfg.rows / (double)part_rows);
+    } else {
+        printf("  %-36s skipped: no Python 3 with numpy\n", "reference (Python)");
     }
-    mib(a, sizeof a, rp.maxrss_kib);
-    snprintf(ratio, sizeof ratio, "-");
-    if (t_cx > 0.0) snprintf(ratio, sizeof ratio, "%.2fx", t_ref / t_cx);
-    printf("  %-34s %9.3f %10.0f %9.1f %12s %11s\n", label, t_ref, cfg.rows / t_ref,
-           bytes / 1e6 / t_ref, a, ratio);
-    if (part_rows < cfg.rows)
-        printf("    * measured on the first %ld rows (%.3f s, peak memory at that size), "
-               "start-up %.3f s counted once, rest scaled by %.1f\n", part_rows, rp.wall_s,
-               re.wall_s, (double)cfg.rows / (double)part_rows);
-    if (t_cx > 0.0)
-        printf("  => coaxline %s is %.1fx faster than the reference and %.2fx the floor's time\n",
-               cmd, t_ref / t_cx, t_cx / mf.wall_s);
+    if (available) {
+        printf("  => coaxline %s takes %.2fx the floor's time", cmd, m.wall_s / mf.wall_s);
+        if (rp.wall_s > 0.0)
+            printf(" and is %.1fx faster than the reference script", rp.wall_s / m.wall_s);
+        printf("\n");
+    }
 
     if (!cfg.keep) {
         const char *files[] = { full, sample, part, empty, tenth, out_cx, out_ref, out_floor, err };
@@ -514,43 +527,71 @@ static void bench_command(const char *cmd)
 
 /* ---- start-up --------------------------------------------------------- */
 
-static void startup_one(const char *label, char *const argv[])
-{
-    int n = cfg.startup_runs;
-    double *t = malloc((size_t)n * sizeof *t);
-    if (!t) die("out of memory");
-    run(argv, NULL, NULL); /* warm the page cache */
-    for (int i = 0; i < n; i++) {
-        run_result r = run(argv, NULL, NULL);
-        if (r.status != 0) die("%s exited with %d", argv[0], r.status);
-        t[i] = r.wall_s * 1e3;
-    }
-    double med = median(t, n);
-    printf("  %-44s %8.3f %8.3f %8.3f\n", label, med, percentile(t, n, 0.1),
-           percentile(t, n, 0.9));
-    free(t);
-}
+/* The variants run in turn, round after round, so a change in the
+ * machine's load falls on all of them alike. */
+#define MAX_VARIANTS 8
+typedef struct variant {
+    char label[128];
+    char *argv[8];
+} variant;
 
 static void bench_startup(void)
 {
-    printf("\nstart-up: %d runs each, fork/exec + wait, ms\n", cfg.startup_runs);
-    printf("  %-44s %8s %8s %8s\n", "", "median", "p10", "p90");
-    char *tru[] = { "/bin/true", NULL };
-    startup_one("/bin/true (process floor)", tru);
-    struct { const char *bin, *kind; } bins[2] = {
+    variant v[MAX_VARIANTS];
+    int nv = 0;
+    memset(v, 0, sizeof v);
+    snprintf(v[nv].label, sizeof v[nv].label, "/bin/true (the process floor)");
+    v[nv].argv[0] = "/bin/true";
+    nv++;
+    struct { const char *bin, *kind; } bins[3] = {
         { cfg.real_binary ? cfg.coaxline : NULL, "real binary" },
         { cfg.wrapper, "libtool wrapper" },
+        { cfg.extra_binary[0] ? cfg.extra_binary : NULL, cfg.extra_binary },
     };
-    for (int k = 0; k < 2; k++) {
+    for (int k = 0; k < 3; k++) {
         if (!bins[k].bin) continue;
-        char label[128];
-        char *ver[] = { (char *)bins[k].bin, "--version", NULL };
+        snprintf(v[nv].label, sizeof v[nv].label, "--version, %s", bins[k].kind);
+        v[nv].argv[0] = (char *)bins[k].bin;
+        v[nv].argv[1] = "--version";
+        nv++;
+        snprintf(v[nv].label, sizeof v[nv].label, "cut --offset 10m --vf 0.8, %s", bins[k].kind);
         char *cut[] = { (char *)bins[k].bin, "cut", "--offset", "10m", "--vf", "0.8", NULL };
-        snprintf(label, sizeof label, "coaxline --version (%s)", bins[k].kind);
-        startup_one(label, ver);
-        snprintf(label, sizeof label, "coaxline cut --offset 10m --vf 0.8 (%s)", bins[k].kind);
-        startup_one(label, cut);
+        memcpy(v[nv].argv, cut, sizeof cut);
+        nv++;
     }
+    int n = cfg.startup_runs;
+    double *t = malloc((size_t)n * (size_t)nv * sizeof *t);
+    if (!t) die("out of memory");
+    for (int k = 0; k < nv; k++) run(v[k].argv, NULL, NULL); /* warm the page cache */
+    for (int i = 0; i < n; i++)
+        for (int k = 0; k < nv; k++) {
+            run_result r = run(v[k].argv, NULL, NULL);
+            if (r.status != 0) die("%s exited with %d", v[k].argv[0], r.status);
+            t[k * n + i] = r.wall_s * 1e3;
+        }
+    printf("\nstart-up: %d runs of each, taken in turn; posix_spawn + wait4, ms\n", n);
+    printf("  %-58s %8s %8s %8s\n", "", "median", "p10", "p90");
+    for (int k = 0; k < nv; k++) {
+        double *tk = t + k * n;
+        double med = median(tk, n); /* sorts tk */
+        printf("  %-58s %8.3f %8.3f %8.3f\n", v[k].label, med, percentile(tk, n, 0.1),
+               percentile(tk, n, 0.9));
+    }
+    free(t);
+}
+
+/* Other work on the machine shows in wall times (not much in cpu times). */
+static void print_load(const char *when)
+{
+    char buf[128] = "?";
+    FILE *fp = fopen("/proc/loadavg", "r");
+    if (fp) {
+        if (!fgets(buf, sizeof buf, fp)) snprintf(buf, sizeof buf, "?");
+        fclose(fp);
+    }
+    buf[strcspn(buf, "\n")] = '\0';
+    printf("load average %s: %s (%ld processors online)\n", when, buf,
+           sysconf(_SC_NPROCESSORS_ONLN));
 }
 
 /* ---- main ------------------------------------------------------------- */
@@ -559,7 +600,7 @@ static void usage(void)
 {
     fprintf(stderr, "usage: bench_batch --builddir DIR --srcdir DIR --python PY [--rows N]\n"
                     "       [--reference-fraction F] [--repeat N] [--startup-runs N]\n"
-                    "       [--commands phase,pair,cut] [--keep]\n");
+                    "       [--commands phase,pair,cut] [--startup-binary PATH] [--keep]\n");
     exit(2);
 }
 
@@ -583,6 +624,8 @@ int main(int argc, char **argv)
         else if (strcmp(o, "--reference-fraction") == 0) cfg.ref_fraction = atof(v);
         else if (strcmp(o, "--repeat") == 0) cfg.repeat = atoi(v);
         else if (strcmp(o, "--startup-runs") == 0) cfg.startup_runs = atoi(v);
+        else if (strcmp(o, "--startup-binary") == 0)
+            snprintf(cfg.extra_binary, sizeof cfg.extra_binary, "%s", v);
         else if (strcmp(o, "--commands") == 0) snprintf(cfg.commands, sizeof cfg.commands, "%s", v);
         else usage();
     }
@@ -613,12 +656,18 @@ int main(int argc, char **argv)
     path(cfg.reference, sizeof cfg.reference, cfg.srcdir, "tests/bench/reference.py");
     path(cfg.bands, sizeof cfg.bands, cfg.srcdir, "data/bands.csv");
     if (!exists(cfg.floor_bin, 1)) die("%s is not built", cfg.floor_bin);
-    if (!exists(cfg.python, 1)) die("no Python at %s", cfg.python);
+    /* the reference needs numpy, which Debian installs for /usr/bin/python3 */
+    char *probe[] = { (char *)cfg.python, "-c", "import numpy", NULL };
+    if (!cfg.python[0] || !exists(cfg.python, 1) || run(probe, NULL, NULL).status != 0) {
+        printf("reference: skipped: no Python 3 with numpy at '%s'\n", cfg.python);
+        cfg.python = NULL;
+    }
 
     const char *tmpdir = getenv("TMPDIR");
     snprintf(cfg.tmp, sizeof cfg.tmp, "%s/coaxline-bench-XXXXXX", tmpdir && *tmpdir ? tmpdir : "/tmp");
     if (!mkdtemp(cfg.tmp)) die("mkdtemp: %s", strerror(errno));
 
+    print_load("at start");
     printf("batch: coaxline = %s (%s)\n", cfg.coaxline,
            cfg.real_binary ? "the real binary, LD_LIBRARY_PATH set to the build's lib/.libs"
                            : "the libtool wrapper: no cli/.libs/coaxline");
@@ -635,6 +684,7 @@ int main(int argc, char **argv)
     bench_startup();
     if (!cfg.keep) rmdir(cfg.tmp);
     else printf("\nfiles kept in %s\n", cfg.tmp);
+    print_load("at end");
     printf("\nbench_batch: %.0f s in all%s\n", now_s() - t_start,
            check_failed ? "; AN OUTPUT CHECK FAILED (see above)" : "");
     return check_failed ? 1 : 0;

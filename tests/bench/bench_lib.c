@@ -16,21 +16,12 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
-#include <time.h>
 #include <gsl/gsl_errno.h>
 #include "coaxline.h"
+#include "timing.h"
 
 static double target_s = 0.02;
 static int repeats = 11;
-
-static volatile double sink;
-
-static double now_s(void)
-{
-    struct timespec t;
-    clock_gettime(CLOCK_MONOTONIC, &t);
-    return (double)t.tv_sec + 1e-9 * (double)t.tv_nsec;
-}
 
 static void check(cxl_status st, const char *what)
 {
@@ -49,15 +40,13 @@ typedef struct fixture {
     cxl_bands *bands_owned;
 } fixture;
 
-/* A timed body: n calls, returns the sum of the results. */
-typedef double (*body_fn)(const fixture *fx, long n);
 
 /* A small input change per call: 0 .. 0.255 in steps of 0.001. */
 #define WIGGLE(i) ((double)((i) & 255) * 1e-3)
 
-static double empty_loop(const fixture *fx, long n)
+static double empty_loop(void *ctx, long n)
 {
-    (void)fx;
+    (void)ctx;
     double acc = 0.0;
     for (long i = 0; i < n; i++) acc += 20.0 + WIGGLE(i);
     return acc;
@@ -65,8 +54,9 @@ static double empty_loop(const fixture *fx, long n)
 
 /* A timed body: n calls of CALL, which leaves its result in `out`. */
 #define BENCH_BODY(name, what, call)                                  \
-    static double name(const fixture *fx, long n)                     \
+    static double name(void *ctx, long n)                             \
     {                                                                 \
+        const fixture *fx = ctx;                                      \
         double acc = 0.0, out;                                        \
         (void)fx;                                                     \
         for (long i = 0; i < n; i++) {                                \
@@ -100,9 +90,9 @@ static cxl_status band_low(const fixture *fx, long i, double *low_hz)
 }
 BENCH_BODY(band_edges, "edges", band_low(fx, i, &out))
 
-static double stub_fit(const fixture *fx, long n)
+static double stub_fit(void *ctx, long n)
 {
-    (void)fx;
+    (void)ctx;
     double acc = 0.0;
     for (long i = 0; i < n; i++) {
         /* 10 m open stub, VF about 0.66: resonances at 1, 3 and 5 times
@@ -123,9 +113,9 @@ static double stub_fit(const fixture *fx, long n)
     return acc;
 }
 
-static double format_fixed(const fixture *fx, long n)
+static double format_fixed(void *ctx, long n)
 {
-    (void)fx;
+    (void)ctx;
     char buf[64];
     double acc = 0.0;
     for (long i = 0; i < n; i++) {
@@ -135,9 +125,9 @@ static double format_fixed(const fixture *fx, long n)
     return acc;
 }
 
-static double bands_new(const fixture *fx, long n)
+static double bands_new(void *ctx, long n)
 {
-    (void)fx;
+    (void)ctx;
     double acc = 0.0;
     for (long i = 0; i < n; i++) {
         cxl_bands *b;
@@ -148,9 +138,9 @@ static double bands_new(const fixture *fx, long n)
     return acc;
 }
 
-static double catalog_new(const fixture *fx, long n)
+static double catalog_new(void *ctx, long n)
 {
-    (void)fx;
+    (void)ctx;
     double acc = 0.0;
     for (long i = 0; i < n; i++) {
         cxl_catalog *c;
@@ -163,9 +153,9 @@ static double catalog_new(const fixture *fx, long n)
     return acc;
 }
 
-static double fit_new(const fixture *fx, long n)
+static double fit_new(void *ctx, long n)
 {
-    (void)fx;
+    (void)ctx;
     double acc = 0.0, a, b;
     cxl_catalog *c;
     size_t idx;
@@ -182,43 +172,12 @@ static double fit_new(const fixture *fx, long n)
     return acc;
 }
 
-static int cmp_double(const void *a, const void *b)
+static void measure(const char *name, const char *note, bench_body fn, const fixture *fx)
 {
-    double x = *(const double *)a, y = *(const double *)b;
-    return (x > y) - (x < y);
-}
-
-/* Median and minimum ns per call. */
-static void measure(const char *name, const char *note, body_fn fn, const fixture *fx)
-{
-    long n = 1;
-    double t;
-    /* calibrate: double n until one loop lasts a tenth of the target */
-    for (;;) {
-        double t0 = now_s();
-        sink += fn(fx, n);
-        t = now_s() - t0;
-        if (t >= target_s / 10.0 || n >= (1L << 40)) break;
-        n *= 2;
-    }
-    n = (long)((double)n * target_s / (t > 0.0 ? t : 1e-9)) + 1;
-    double ns[64];
-    for (int r = 0; r < repeats; r++) {
-        double t0 = now_s();
-        sink += fn(fx, n);
-        ns[r] = (now_s() - t0) * 1e9 / (double)n;
-    }
-    qsort(ns, (size_t)repeats, sizeof ns[0], cmp_double);
-    double med = repeats % 2 ? ns[repeats / 2] : 0.5 * (ns[repeats / 2 - 1] + ns[repeats / 2]);
-    char med_s[32], min_s[32];
-    if (med >= 1e4) {
-        snprintf(med_s, sizeof med_s, "%.1f us", med / 1e3);
-        snprintf(min_s, sizeof min_s, "%.1f us", ns[0] / 1e3);
-    } else {
-        snprintf(med_s, sizeof med_s, "%.1f ns", med);
-        snprintf(min_s, sizeof min_s, "%.1f ns", ns[0]);
-    }
-    printf("  %-34s %11s %11s %11ld  %s\n", name, med_s, min_s, n, note);
+    char med[32], min[32];
+    bench_timing t = bench_time(fn, (void *)fx, target_s, repeats);
+    printf("  %-34s %11s %11s %11ld  %s\n", name, bench_fmt_ns(med, sizeof med, t.median_ns),
+           bench_fmt_ns(min, sizeof min, t.min_ns), t.calls, note);
     fflush(stdout);
 }
 
