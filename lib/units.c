@@ -368,13 +368,23 @@ static int format_fixed_fast(double value, int decimals, char *buf, size_t size)
 {
     double p = fabs(value) * exact_pow10[decimals];
     if (!(p < 4503599627370496.0) || fegetround() != FE_TONEAREST) return 0; /* 2^52 */
-    double whole = floor(p), frac = p - whole; /* both exact below 2^52 */
+    uint64_t n = (uint64_t)p; /* floor: p >= 0 */
+    double frac = p - (double)n; /* exact below 2^52 */
     if (frac == 0.5) return 0; /* s may be on either side: let snprintf decide */
-    uint64_t n = (uint64_t)whole + (frac > 0.5);
+    n += frac > 0.5;
     int negative = value < 0.0 && n > 0; /* no "-0.000" */
+    static const char pairs[] = "00010203040506070809101112131415161718192021222324252627282930"
+                                "31323334353637383940414243444546474849505152535455565758596061"
+                                "6263646566676869707172737475767778798081828384858687888990919293"
+                                "949596979899";
     char digits[24]; /* n <= 2^52: at most 16 digits, reversed; decimals <= 17 */
     int nd = 0;
-    do { digits[nd++] = (char)('0' + n % 10); n /= 10; } while (n > 0);
+    for (; n >= 100; n /= 100) { /* two digits per division */
+        digits[nd++] = pairs[2 * (n % 100) + 1];
+        digits[nd++] = pairs[2 * (n % 100)];
+    }
+    if (n >= 10) digits[nd++] = pairs[2 * n + 1];
+    digits[nd++] = n >= 10 ? pairs[2 * n] : (char)('0' + n);
     while (nd < decimals + 1) digits[nd++] = '0'; /* "0.001", not ".001" */
     size_t len = (size_t)negative + (size_t)nd + (decimals > 0);
     if (len >= size) return -1;

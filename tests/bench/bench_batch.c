@@ -516,7 +516,9 @@ static void bench_command(const char *cmd)
         printf("  => coaxline %s takes %.2fx the floor's time", cmd, m.wall_s / mf.wall_s);
         if (rp.wall_s > 0.0)
             printf(" and is %.1fx faster than the reference script", rp.wall_s / m.wall_s);
-        printf("\n");
+        printf("\n     (by cpu time: %.2fx", m.cpu_s / mf.cpu_s);
+        if (rp.cpu_s > 0.0) printf(" and %.1fx", rp.cpu_s / m.cpu_s);
+        printf(")\n");
     }
 
     if (!cfg.keep) {
