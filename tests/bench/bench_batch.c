@@ -419,7 +419,8 @@ static void bench_command(const char *cmd)
     if (part_rows > cfg.rows) part_rows = cfg.rows;
     double t0 = now_s();
     generate(cmd, cfg.rows, full);
-    generate(cmd, SAMPLE_ROWS < cfg.rows ? SAMPLE_ROWS : cfg.rows, sample);
+    long sample_rows = SAMPLE_ROWS < cfg.rows ? SAMPLE_ROWS : cfg.rows;
+    generate(cmd, sample_rows, sample);
     generate(cmd, part_rows, part);
     generate(cmd, 0, empty);
     generate(cmd, cfg.rows / 10 > 0 ? cfg.rows / 10 : 1, tenth);
@@ -450,7 +451,7 @@ static void bench_command(const char *cmd)
                rr.status, rf.status, expect);
         check_failed = 1;
     }
-    printf("  check on the first %d rows:\n", SAMPLE_ROWS);
+    printf("  check on the first %ld rows:\n", sample_rows);
     if (!available)
         printf("    coaxline %s: skipped: command not available\n", cmd);
     if (available && cfg.python)
@@ -462,7 +463,7 @@ static void bench_command(const char *cmd)
     long out_bytes_per_row = 0;
     if (available) {
         long sb = file_size(out_cx);
-        out_bytes_per_row = sb > 0 ? sb / SAMPLE_ROWS : 0;
+        out_bytes_per_row = sb > 0 ? (sb + sample_rows / 2) / sample_rows : 0;
     }
 
     /* timings */
@@ -485,7 +486,14 @@ static void bench_command(const char *cmd)
 
     char *floor_full[] = { cfg.floor_bin, (char *)cmd, cfg.bands, full, NULL };
     run_result mf = run_median(floor_full, cfg.repeat, expect);
-    print_timing("floor (C, stdio)", &mf, bytes, m.wall_s);
+    print_timing("floor (C: fgets, strtod, printf)", &mf, bytes, m.wall_s);
+    if (out_bytes_per_row > 0) {
+        char nbytes[32];
+        snprintf(nbytes, sizeof nbytes, "%ld", out_bytes_per_row);
+        char *io_full[] = { cfg.floor_bin, "io", nbytes, full, NULL };
+        run_result mi = run_median(io_full, cfg.repeat, 0);
+        print_timing("I/O only (read rows, write bytes)", &mi, bytes, m.wall_s);
+    }
 
     run_result rp = { 0, 0.0, 0.0, 0 };
     if (cfg.python) {

@@ -2,6 +2,7 @@
  * `make bench` compares coaxline's batch path with.
  *
  *   floor phase|pair|cut BANDS_CSV INPUT_CSV   (output on stdout)
+ *   floor io BYTES_PER_ROW INPUT_CSV
  *
  * It reads the generated benchmark files line by line with fgets, splits
  * on commas (the generator writes no quotes), converts with strtod, does
@@ -9,7 +10,10 @@
  * printf.  No validation, no units other than the trailing "m" the
  * generator writes, no locale handling beyond the "C" locale every C
  * program starts in: whatever coaxline spends above this is the price of
- * checking and parsing real input.  Not installed, not part of make check.
+ * checking and parsing real input.  `floor io` is the plain I/O limit:
+ * it reads the rows the same way and writes BYTES_PER_ROW bytes for each,
+ * with no parsing or formatting at all.  Not installed, not part of make
+ * check.
  */
 #include <stdio.h>
 #include <stdlib.h>
@@ -70,10 +74,24 @@ static const char *const edge_names[3] = { "low", "centre", "high" };
 int main(int argc, char **argv)
 {
     if (argc != 4) {
-        fprintf(stderr, "usage: floor phase|pair|cut BANDS_CSV INPUT_CSV\n");
+        fprintf(stderr, "usage: floor phase|pair|cut BANDS_CSV INPUT_CSV\n"
+                        "       floor io BYTES_PER_ROW INPUT_CSV\n");
         return 2;
     }
     const char *mode = argv[1];
+    if (strcmp(mode, "io") == 0) {
+        static char out[4096];
+        size_t n = (size_t)atol(argv[2]);
+        FILE *in = fopen(argv[3], "r");
+        if (!in || n < 1 || n > sizeof out) return 2;
+        memset(out, 'x', n - 1);
+        out[n - 1] = '\n';
+        char line[4096];
+        if (!fgets(line, sizeof line, in)) return 2;
+        while (fgets(line, sizeof line, in)) fwrite(out, 1, n, stdout);
+        fclose(in);
+        return ferror(stdout) ? 2 : 0;
+    }
     load_bands(argv[2]);
     FILE *in = fopen(argv[3], "r");
     if (!in) { perror(argv[3]); return 2; }
