@@ -507,8 +507,8 @@ static void bench_command(const char *cmd)
         if (part_rows < cfg.rows) {
             /* start-up once, the per-row part scaled to all rows */
             double scale = (double)cfg.rows / (double)part_rows;
-            rp.wall_s = re.wall_s + (rp.wall_s - re.wall_s) * scale;
-            rp.cpu_s = re.cpu_s + (rp.cpu_s - re.cpu_s) * scale;
+            rp.wall_s = re.wall_s + fmax(rp.wall_s - re.wall_s, 0.0) * scale;
+            rp.cpu_s = re.cpu_s + fmax(rp.cpu_s - re.cpu_s, 0.0) * scale;
         }
         print_timing(part_rows < cfg.rows ? "reference (Python), extrapolated*"
                                           : "reference (Python)", &rp, bytes, m.wall_s);
