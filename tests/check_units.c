@@ -4,6 +4,7 @@
 #include <float.h>
 #include <locale.h>
 #include <math.h>
+#include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 #include "coaxline.h"
@@ -193,6 +194,113 @@ START_TEST(comma_locale_does_not_matter)
 }
 END_TEST
 
+/* ---- format_fixed fast path (tests/bench) ----
+ * cxl_units_format_fixed prints most values from an integer instead of
+ * snprintf; the bytes must stay those of "%.*f" (ISO C11 7.21.6.1, the f
+ * conversion; the check values come from the C library's own snprintf in
+ * the "C" locale), with "-0.000" shown as "0.000" as before. */
+static void expect_printf(double v, int d)
+{
+    char want[512], got[512];
+    snprintf(want, sizeof want, "%.*f", d, v);
+    const char *w = want;
+    if (w[0] == '-' && strspn(w + 1, "0.") == strlen(w + 1)) w++;
+    ck_assert_int_eq(cxl_units_format_fixed(v, d, got, sizeof got), CXL_OK);
+    ck_assert_msg(strcmp(got, w) == 0, "%.17g with %d decimals: got %s, printf %s", v, d,
+                  got, w);
+}
+
+START_TEST(format_fixed_matches_printf)
+{
+    /* exact binary ties (0.125, 2.5), values just off a tie (1.0005 is
+     * 1.000499999...), the 2^52 limit of the fast path, tiny, huge,
+     * negative and negative zero */
+    const double special[] = { 0.0, -0.0, 0.125, 2.5, 3.5, -2.5, 0.0005, 1.0005, 3.5815,
+                               5.51 * 0.65, 0.1, 0.7, 999.9995, 1e-320, -1e-320, 0.49999999999999994,
+                               4503599627370495.5, 4503599627370496.0, 9007199254740993.0,
+                               1e15 + 0.5, 123456789.0125, 1e22, -7.25e-5, 299792458.0 };
+    for (size_t i = 0; i < sizeof special / sizeof special[0]; i++)
+        for (int d = 0; d <= 17; d++) expect_printf(special[i], d);
+    /* many pseudo-random values (xorshift64*, fixed seed): any magnitude,
+     * and decimal numbers whose next digit is a 5, where rounding is
+     * closest to a tie */
+    unsigned long long x = 88172645463325252ULL;
+    for (int i = 0; i < 200000; i++) {
+        x ^= x >> 12; x ^= x << 25; x ^= x >> 27;
+        unsigned long long r = x * 2685821657736338717ULL;
+        double u = (double)(r >> 11) / 9007199254740992.0;
+        int d = (int)(r % 10);
+        double v = ldexp(u, (int)((r >> 4) % 80) - 30);
+        if (r & 1) v = -v;
+        expect_printf(v, d);
+        double tie = (double)(r >> 24 & 0xFFFFF) * 10.0 + 5.0;
+        expect_printf(tie / pow(10.0, d + 1), d);
+    }
+    /* the same bytes under a comma-decimal locale, for the fast path and
+     * for a tie that takes the snprintf path */
+    const char *old = setlocale(LC_ALL, NULL);
+    char saved[128], b[64];
+    snprintf(saved, sizeof saved, "%s", old ? old : "C");
+    if (setlocale(LC_ALL, "de_DE.UTF-8")) {
+        ck_assert_int_eq(cxl_units_format_fixed(3.14159, 3, b, sizeof b), CXL_OK);
+        ck_assert_str_eq(b, "3.142"); /* pi to 3 decimals, from memory */
+        ck_assert_int_eq(cxl_units_format_fixed(0.125, 2, b, sizeof b), CXL_OK);
+        ck_assert_str_eq(b, "0.12"); /* exact tie, even digit: glibc "%.2f" in the C locale */
+        setlocale(LC_ALL, saved);
+    }
+    ck_assert_int_eq(cxl_units_format_fixed(123.456, 3, b, 7), CXL_ETOOLONG);
+    ck_assert_int_eq(cxl_units_format_fixed(123.456, 3, b, 8), CXL_OK);
+    ck_assert_str_eq(b, "123.456");
+}
+END_TEST
+
+/* ---- parse fast path (tests/bench) ----
+ * Decimal numbers with few digits are converted without strtod; the
+ * result must be the same double as the C library's strtod (ISO C11
+ * 7.22.1.3; glibc rounds correctly), bit for bit. */
+static void expect_strtod(const char *text)
+{
+    double got = -1.0;
+    ck_assert_int_eq(cxl_units_parse_number(text, &got, NULL), CXL_OK);
+    double want = strtod(text, NULL);
+    ck_assert_msg(memcmp(&got, &want, sizeof got) == 0, "%s: got %.17g, strtod %.17g", text,
+                  got, want);
+}
+
+START_TEST(parse_number_matches_strtod)
+{
+    /* around the limits of the fast path: 2^53 and 2^53 + 1, 10^22 and
+     * 10^23, many digits, many leading and trailing zeros */
+    const char *special[] = { "0", "0.0", "20.10", "0.1", "0.3", "1e22", "1e23", "1e-22",
+                              "1e-23", "9007199254740992", "9007199254740993",
+                              "9007199254740993e-5", "123456789012345678901234567890",
+                              "0.000000000000000000000000000001", "4.9e-324", "2.5e-300",
+                              "1.7976931348623157e308", "299792458", "0.66", "1.0005",
+                              "00000000000000000000000000000000001.5", "1E5", "1e+5",
+                              "18446744073709551615", "18446744073709551616" };
+    for (size_t i = 0; i < sizeof special / sizeof special[0]; i++) expect_strtod(special[i]);
+    /* pseudo-random decimals (xorshift64*, fixed seed): 1 to 20 digits, a
+     * point anywhere, and sometimes an exponent */
+    unsigned long long x = 0x2545F4914F6CDD1DULL;
+    char text[64];
+    for (int n = 0; n < 200000; n++) {
+        size_t k = 0;
+        x ^= x >> 12; x ^= x << 25; x ^= x >> 27;
+        unsigned long long r = x * 2685821657736338717ULL;
+        int ndig = 1 + (int)(r % 20), point = (int)((r >> 8) % (unsigned)(ndig + 1));
+        for (int d = 0; d < ndig; d++) {
+            if (d == point && d > 0) text[k++] = '.';
+            x ^= x >> 12; x ^= x << 25; x ^= x >> 27;
+            text[k++] = (char)('0' + (x * 2685821657736338717ULL >> 60) % 10);
+        }
+        if ((r >> 16) % 4 == 0)
+            k += (size_t)snprintf(text + k, sizeof text - k, "e%d", (int)((r >> 20) % 61) - 30);
+        text[k] = '\0';
+        expect_strtod(text);
+    }
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("units");
@@ -204,6 +312,8 @@ int main(void)
     tcase_add_test(tc, format_fixed_and_roundtrip);
     tcase_add_test(tc, format_imperial);
     tcase_add_test(tc, comma_locale_does_not_matter);
+    tcase_add_test(tc, format_fixed_matches_printf);
+    tcase_add_test(tc, parse_number_matches_strtod);
     suite_add_tcase(s, tc);
     SRunner *sr = srunner_create(s);
     srunner_run_all(sr, CK_NORMAL);

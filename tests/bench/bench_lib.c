@@ -1,0 +1,260 @@
+/* bench_lib.c - what one call of the core library functions costs on this
+ * machine (run by `make bench`, never by make check).
+ *
+ * Each figure is the median over REPEATS timed loops (CLOCK_MONOTONIC) of
+ * the loop time divided by its number of calls; the loop length is chosen
+ * so that one loop lasts about TARGET_S.  Inputs change from call to call
+ * (so nothing can be hoisted out of the loop), every result is added into
+ * an accumulator that ends in a volatile sink (so the work cannot be
+ * removed), and every status is checked (so an error path is never what
+ * gets timed).  Calls go through the shared library, as a host program's
+ * would.
+ *
+ *   bench_lib [--quick]     (--quick: shorter loops, fewer repeats)
+ */
+#include <config.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <gsl/gsl_errno.h>
+#include "coaxline.h"
+#include "timing.h"
+
+static double target_s = 0.02;
+static int repeats = 11;
+
+static void check(cxl_status st, const char *what)
+{
+    if (st != CXL_OK) {
+        fprintf(stderr, "bench_lib: %s: %s\n", what, cxl_strerror(st));
+        exit(2);
+    }
+}
+
+/* The objects the timed functions use, made once. */
+typedef struct fixture {
+    cxl_loss_fit *fit;
+    cxl_loss_model *model;
+    cxl_array_pair *pair;
+    const cxl_bands *bands;
+    cxl_bands *bands_owned;
+} fixture;
+
+
+/* A small input change per call: 0 .. 0.255 in steps of 0.001. */
+#define WIGGLE(i) ((double)((i) & 255) * 1e-3)
+
+static double empty_loop(void *ctx, long n)
+{
+    (void)ctx;
+    double acc = 0.0;
+    for (long i = 0; i < n; i++) acc += 20.0 + WIGGLE(i);
+    return acc;
+}
+
+/* A timed body: n calls of CALL, which leaves its result in `out`. */
+#define BENCH_BODY(name, what, call)                                  \
+    static double name(void *ctx, long n)                             \
+    {                                                                 \
+        const fixture *fx = ctx;                                      \
+        double acc = 0.0, out;                                        \
+        (void)fx;                                                     \
+        for (long i = 0; i < n; i++) {                                \
+            check(call, what);                                        \
+            acc += out;                                               \
+        }                                                             \
+        return acc;                                                   \
+    }
+
+BENCH_BODY(line_degrees, "degrees",
+           cxl_line_degrees_from_length(20.0 + WIGGLE(i), 0.66, 1.83e6, &out))
+/* 33.356 ns (a 10 m stagger) with 5 cm of connectors at VF 0.66 */
+BENCH_BODY(line_cut, "cut",
+           cxl_line_cut_length(33.356e-9 + WIGGLE(i) * 1e-9, 0.8, 0.05, 0.66, &out))
+BENCH_BODY(pair_phase, "phase",
+           cxl_pair_phase_error(20.1 + WIGGLE(i), 20.0, 0.66, 1.83e6, &out))
+/* inside the table's range (30 MHz and up for RG-213) */
+BENCH_BODY(loss_fit, "fit eval",
+           cxl_loss_fit_eval(fx->fit, 50e6 + WIGGLE(i) * 1e6, 0, &out))
+BENCH_BODY(loss_model, "model attenuation",
+           cxl_loss_model_attenuation(fx->model, 1.83e6 + WIGGLE(i) * 1e5, 0, &out))
+BENCH_BODY(array_rdf, "rdf", cxl_array_rdf(fx->pair, 1.83e6 + WIGGLE(i) * 1e4, &out))
+static const char *const length_text[4] = { "20.10m", "41ft 6in", "1250mm", "20.00m" };
+BENCH_BODY(parse_length, "parse",
+           cxl_units_parse_length(length_text[i & 3], CXL_UNITS_METRIC, &out, NULL))
+static const char *const band_names[4] = { "160m", "80m", "mw", "40m" };
+static cxl_status band_low(const fixture *fx, long i, double *low_hz)
+{
+    double hi;
+    return cxl_bands_edges(fx->bands, band_names[i & 3], (int)(i % 3) + 1, 1, low_hz, &hi);
+}
+BENCH_BODY(band_edges, "edges", band_low(fx, i, &out))
+
+static double stub_fit(void *ctx, long n)
+{
+    (void)ctx;
+    double acc = 0.0;
+    for (long i = 0; i < n; i++) {
+        /* 10 m open stub, VF about 0.66: resonances at 1, 3 and 5 times
+         * VF c / (4 L) (quarter, three-quarter and five-quarter waves) */
+        double f1 = 0.66 * CXL_C_M_PER_S / 40.0 * (1.0 + WIGGLE(i) * 1e-2);
+        cxl_stub *s;
+        cxl_stub_result *res;
+        double vf, vf_err;
+        check(cxl_stub_new(CXL_STUB_OPEN, &s), "stub new");
+        for (int k = 1; k <= 3; k++)
+            check(cxl_stub_add_reading(s, 10.0, (2 * k - 1) * f1, k), "stub reading");
+        check(cxl_stub_fit(s, &res), "stub fit");
+        check(cxl_stub_result_vf(res, &vf, &vf_err), "stub vf");
+        cxl_stub_result_free(res);
+        cxl_stub_free(s);
+        acc += vf;
+    }
+    return acc;
+}
+
+static double format_fixed(void *ctx, long n)
+{
+    (void)ctx;
+    char buf[64];
+    double acc = 0.0;
+    for (long i = 0; i < n; i++) {
+        check(cxl_units_format_fixed(20.0 + WIGGLE(i) * 3.7, 3, buf, sizeof buf), "format");
+        acc += (double)buf[3];
+    }
+    return acc;
+}
+
+static double bands_new(void *ctx, long n)
+{
+    (void)ctx;
+    double acc = 0.0;
+    for (long i = 0; i < n; i++) {
+        cxl_bands *b;
+        check(cxl_bands_new(&b), "bands new");
+        acc += (double)cxl_bands_count(b);
+        cxl_bands_free(b);
+    }
+    return acc;
+}
+
+static double catalog_new(void *ctx, long n)
+{
+    (void)ctx;
+    double acc = 0.0;
+    for (long i = 0; i < n; i++) {
+        cxl_catalog *c;
+        size_t count;
+        check(cxl_catalog_new(&c), "catalog new");
+        check(cxl_catalog_count(c, &count), "catalog count");
+        acc += (double)count;
+        cxl_catalog_free(c);
+    }
+    return acc;
+}
+
+static double fit_new(void *ctx, long n)
+{
+    (void)ctx;
+    double acc = 0.0, a, b;
+    cxl_catalog *c;
+    size_t idx;
+    check(cxl_catalog_new(&c), "catalog new");
+    check(cxl_catalog_find(c, "RG-213", &idx), "find RG-213");
+    for (long i = 0; i < n; i++) {
+        cxl_loss_fit *f;
+        check(cxl_loss_fit_new_cable(c, idx, &f), "fit new");
+        check(cxl_loss_fit_coefficients(f, &a, &b), "fit coefficients");
+        acc += a;
+        cxl_loss_fit_free(f);
+    }
+    cxl_catalog_free(c);
+    return acc;
+}
+
+static void measure(const char *name, const char *note, bench_body fn, const fixture *fx)
+{
+    char med[32], min[32];
+    bench_timing t = bench_time(fn, (void *)fx, target_s, repeats);
+    printf("  %-34s %11s %11s %11ld  %s\n", name, bench_fmt_ns(med, sizeof med, t.median_ns),
+           bench_fmt_ns(min, sizeof min, t.min_ns), t.calls, note);
+    fflush(stdout);
+}
+
+static void cpu_model(char *buf, size_t size)
+{
+    FILE *fp = fopen("/proc/cpuinfo", "r");
+    char line[512];
+    snprintf(buf, size, "unknown CPU");
+    if (!fp) return;
+    while (fgets(line, sizeof line, fp))
+        if (strncmp(line, "model name", 10) == 0) {
+            char *p = strchr(line, ':');
+            if (p) {
+                p += 1 + strspn(p + 1, " \t");
+                p[strcspn(p, "\n")] = '\0';
+                snprintf(buf, size, "%s", p);
+            }
+            break;
+        }
+    fclose(fp);
+}
+
+int main(int argc, char **argv)
+{
+    if (argc > 1 && strcmp(argv[1], "--quick") == 0) {
+        target_s = 0.002;
+        repeats = 3;
+    } else if (argc > 1) {
+        fprintf(stderr, "usage: bench_lib [--quick]\n");
+        return 2;
+    }
+    /* this process owns GSL's error handler, as the CLI does */
+    gsl_set_error_handler_off();
+    fixture fx;
+    cxl_catalog *cat;
+    size_t idx;
+    check(cxl_catalog_new(&cat), "catalog");
+    check(cxl_catalog_find(cat, "RG-213", &idx), "find RG-213");
+    check(cxl_loss_fit_new_cable(cat, idx, &fx.fit), "fit RG-213");
+    check(cxl_loss_model_new_cable(cat, idx, &fx.model), "model RG-213");
+    check(cxl_bands_new(&fx.bands_owned), "bands");
+    fx.bands = fx.bands_owned;
+    /* end-fire pair, a quarter wave apart at 1.83 MHz along the forward
+     * axis, the front element delayed by the stagger's travel time: the
+     * textbook cardioid (common practice, no source) */
+    double lambda_m = CXL_C_M_PER_S / 1.83e6, delay_s;
+    check(cxl_array_pair_new(&fx.pair), "pair");
+    check(cxl_array_pair_set_geometry(fx.pair, 0.0, 0.25 * lambda_m), "geometry");
+    check(cxl_line_delay_from_offset(0.25 * lambda_m, &delay_s), "delay");
+    check(cxl_array_pair_set_delay(fx.pair, 0, delay_s), "set delay");
+
+    char cpu[256];
+    cpu_model(cpu, sizeof cpu);
+    printf("library cost per call: libcoaxline %s, %s\n", cxl_version(), cpu);
+    printf("  median of %d loops of about %.0f ms each (CLOCK_MONOTONIC); "
+           "results summed into a volatile sink\n\n", repeats, target_s * 1e3);
+    printf("  %-34s %11s %11s %11s  %s\n", "function", "median", "min", "calls/loop", "input");
+    measure("(empty loop, for scale)", "the input arithmetic alone", empty_loop, &fx);
+    measure("cxl_line_degrees_from_length", "20 m, VF 0.66, 1.83 MHz", line_degrees, &fx);
+    measure("cxl_line_cut_length", "33.4 ns, VF 0.8, 5 cm allowance", line_cut, &fx);
+    measure("cxl_pair_phase_error", "20.1 m vs 20.0 m, 1.83 MHz", pair_phase, &fx);
+    measure("cxl_loss_fit_eval", "RG-213 table fit, 50 MHz", loss_fit, &fx);
+    measure("cxl_loss_model_attenuation", "RG-213 geometry, 1.83 MHz", loss_model, &fx);
+    measure("cxl_stub_fit (3 readings)", "new, 3 readings, fit, vf, free", stub_fit, &fx);
+    measure("cxl_array_rdf", "end-fire cardioid pair, 1.83 MHz", array_rdf, &fx);
+    printf("  -- the batch path and per-process set-up --\n");
+    measure("cxl_units_parse_length", "20.10m, 41ft 6in, 1250mm", parse_length, &fx);
+    measure("cxl_units_format_fixed", "3 decimals", format_fixed, &fx);
+    measure("cxl_bands_edges", "160m/80m/mw/40m, Regions 1-3", band_edges, &fx);
+    measure("cxl_bands_new + free", "built-in band table", bands_new, &fx);
+    measure("cxl_catalog_new + free", "built-in cable catalog", catalog_new, &fx);
+    measure("cxl_loss_fit_new_cable + free", "RG-213 (GSL least squares)", fit_new, &fx);
+
+    cxl_array_pair_free(fx.pair);
+    cxl_bands_free(fx.bands_owned);
+    cxl_loss_model_free(fx.model);
+    cxl_loss_fit_free(fx.fit);
+    cxl_catalog_free(cat);
+    return 0;
+}
