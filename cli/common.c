@@ -152,43 +152,46 @@ static int check_sign(const cli_ctx *ctx, const char *field, const char *text,
     return 0;
 }
 
+/* The steps every quantity shares: parse, report a parse error, check
+ * the sign, store. */
+static int finish_quantity(const cli_ctx *ctx, const char *field, const char *text,
+                           cxl_status st, size_t pos, double v, int sign_rule,
+                           const char *kind, const char *expected, double *out)
+{
+    if (st != CXL_OK) return report_parse(ctx, field, text, st, pos, kind, expected);
+    if (check_sign(ctx, field, text, v, sign_rule, expected)) return CLI_EXIT_USAGE;
+    *out = v;
+    return 0;
+}
+
 int cli_length(const cli_ctx *ctx, const char *field, const char *text,
                int sign_rule, double *length_m)
 {
-    static const char expected[] = "a length such as 12.5m, 1250mm, 41ft 6in or 41' 6 3/8\"";
     size_t pos = 0;
-    double v;
+    double v = 0.0;
     cxl_status st = cxl_units_parse_length(text, ctx->units, &v, &pos);
-    if (st != CXL_OK) return report_parse(ctx, field, text, st, pos, "length", expected);
-    if (check_sign(ctx, field, text, v, sign_rule, expected)) return CLI_EXIT_USAGE;
-    *length_m = v;
-    return 0;
+    return finish_quantity(ctx, field, text, st, pos, v, sign_rule, "length",
+                           "a length such as 12.5m, 1250mm, 41ft 6in or 41' 6 3/8\"", length_m);
 }
 
 int cli_freq(const cli_ctx *ctx, const char *field, const char *text,
              double *freq_hz)
 {
-    static const char expected[] = "a frequency such as 1.83MHz, 1830kHz or 1830000Hz";
     size_t pos = 0;
-    double v;
+    double v = 0.0;
     cxl_status st = cxl_units_parse_freq(text, &v, &pos);
-    if (st != CXL_OK) return report_parse(ctx, field, text, st, pos, "frequency", expected);
-    if (check_sign(ctx, field, text, v, CLI_POSITIVE, expected)) return CLI_EXIT_USAGE;
-    *freq_hz = v;
-    return 0;
+    return finish_quantity(ctx, field, text, st, pos, v, CLI_POSITIVE, "frequency",
+                           "a frequency such as 1.83MHz, 1830kHz or 1830000Hz", freq_hz);
 }
 
 int cli_time(const cli_ctx *ctx, const char *field, const char *text,
              int sign_rule, double *delay_s)
 {
-    static const char expected[] = "a time such as 33.4ns or 0.0334us";
     size_t pos = 0;
-    double v;
+    double v = 0.0;
     cxl_status st = cxl_units_parse_time(text, &v, &pos);
-    if (st != CXL_OK) return report_parse(ctx, field, text, st, pos, "time", expected);
-    if (check_sign(ctx, field, text, v, sign_rule, expected)) return CLI_EXIT_USAGE;
-    *delay_s = v;
-    return 0;
+    return finish_quantity(ctx, field, text, st, pos, v, sign_rule, "time",
+                           "a time such as 33.4ns or 0.0334us", delay_s);
 }
 
 int cli_number(const cli_ctx *ctx, const char *field, const char *text,
