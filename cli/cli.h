@@ -384,4 +384,80 @@ extern const cli_command cli_cmd_vf;
 extern const cli_command cli_cmd_phase;
 extern const cli_command cli_cmd_pair;
 
+/* ---- phase and pair: input limits, a line into a load, error plots
+ *      (linelimits.c, intoload.c, errplot.c) ---------------------------- */
+
+/* Limits that keep every number phase and pair print finite and readable
+ * (the same as cut's, common practice, no source): a line from 1 mm to
+ * 1000 km, frequencies up to 1 THz, a velocity factor of at least 0.01
+ * (slow-wave delay lines go down to a few hundredths).  Each returns 0, or
+ * CLI_EXIT_USAGE after cli_error(). */
+#define CLI_LINE_MIN_M 1e-3
+#define CLI_LINE_MAX_M 1e6
+#define CLI_LINE_MAX_HZ 1e12
+#define CLI_LINE_MIN_VF 0.01
+int cli_line_length(const cli_ctx *ctx, const char *field, const char *text,
+                    double *length_m);
+/* A length worked out from other values (e.g. --reference-deg). */
+int cli_line_length_check(const cli_ctx *ctx, const char *field, const char *text,
+                          double length_m);
+int cli_line_freq(const cli_ctx *ctx, const char *field, const char *text,
+                  double *freq_hz);
+/* Every --freq item up to 1 THz (before cli_freq_points reads them). */
+int cli_line_freq_items(const cli_ctx *ctx, const cli_args *a);
+int cli_line_vf_check(const cli_ctx *ctx, const cli_args *a, double vf);
+
+/* --load R[+-jX] and --z0 OHM: the lines are judged by the phase of the
+ * voltage they deliver into the load (cxl_transfer_*), not by electrical
+ * length alone.  With --cable NAME whose catalog row has diameters, the
+ * cable's physical model (complex Z0, loss); otherwise a lossless line of
+ * the velocity factor and --z0 (or the catalog row's z0). */
+#define CLI_LOAD_OPTDEFS \
+    { "load", "R[+-jX]", "judge by the voltage into this load (ohm), e.g. 21+j20, 21-j20, 50 or 1e9", 0 }, \
+    { "z0", "OHM", "impedance of a --vf line for --load, e.g. 50 or 75", 0 }
+
+typedef struct cli_load {
+    int given;                /* --load was given */
+    double re_ohm, im_ohm;    /* the load */
+    double vf;                /* lossless form */
+    double z0_ohm;            /* lossless form */
+    cxl_loss_model *model;    /* owned; the physical form, or NULL */
+    const char *cable;        /* catalog name, "" for --vf / --vf-from */
+} cli_load;
+
+/* Parse --load and --z0 for a line of velocity factor vf.  Without --load
+ * load->given is 0 and nothing else is needed.  Returns 0, or
+ * CLI_EXIT_USAGE after cli_error(); free with cli_load_free() either way. */
+int cli_load_parse(cli_ctx *ctx, const cli_args *a, double vf, cli_load *load);
+void cli_load_free(cli_load *load);
+/* length_m of the line into the load at freq_hz: transfer in dB, delay in
+ * degrees (the phase lag of V_load behind V_in) and the electrical length
+ * in degrees.  Returns 0, or CLI_EXIT_USAGE after cli_error(). */
+int cli_load_transfer(const cli_ctx *ctx, const cli_load *load, double length_m,
+                      double freq_hz, double *transfer_db, double *delay_deg,
+                      double *electrical_deg);
+/* "21.000+j20.000 ohm into a lossless line, Z0 50.000 ohm" and the like. */
+const char *cli_fmt_load(char *buf, size_t size, const cli_load *load);
+
+/* Phase error against frequency (errplot.c): each band of pts (as
+ * cli_freq_points gives them) sampled CLI_ERRPLOT_SAMPLES times and
+ * shaded, each --freq point a marker.  fn gives the error at a frequency
+ * (and, when the plot has a second curve, its value); it returns 0 or
+ * CLI_EXIT_USAGE after cli_error(). */
+#define CLI_ERRPLOT_SAMPLES 50
+typedef int (*cli_err_fn)(cli_ctx *ctx, void *user, double freq_hz,
+                          double *err_deg, double *second_deg);
+typedef struct cli_errplot {
+    const char *title;
+    const char *name;         /* the curve */
+    const char *second;       /* a dashed second curve, or NULL */
+    const char *note[3];
+    int has_tolerance;        /* draw +-tolerance_deg */
+    double tolerance_deg;
+} cli_errplot;
+int cli_errplot_save(cli_ctx *ctx, const char *field, const char *path,
+                     const cli_freq_point *pts, int n, cli_err_fn fn, void *user,
+                     const cli_errplot *plot);
+
+
 #endif

@@ -1,6 +1,7 @@
 /* cmd_pair.c - coaxline pair: two or more lines meant to be equal, checked
  * against a phase tolerance at each band edge.  The worst pair is the
- * longest line against the shortest; exit 1 when any band fails. */
+ * longest line against the shortest (with --load: the largest delay into
+ * the load against the smallest); exit 1 when any band fails. */
 #include <config.h>
 #include <math.h>
 #include <stdio.h>
@@ -13,12 +14,15 @@ static const cli_optdef pair_opts[] = {
     { "cable", "NAME", "take the velocity factor from the catalog", 0 },
     { "vf-from", "FILE|-", "take the fitted VF from coaxline vf --format csv output", 0 },
     { "tolerance", "DEG", "largest phase difference allowed between the lines", 0 },
+    CLI_BUDGET_OPTDEFS,
     { "band", "LIST", "bands to check, e.g. 160m,80m", 1 },
     { "region", "N", "ITU Region 1, 2 or 3 (default: widest edges across Regions)", 0 },
     { "exclude-footnotes", NULL, "band edges without footnote segments", 0 },
     { "freq", "F", "a single frequency to check", 1 },
     { "length-tol", "LEN", "how far each measured length may be off", 0 },
     { "vf-tol", "X", "how far the velocity factor may be off", 0 },
+    CLI_LOAD_OPTDEFS,
+    { "plot", "FILE", "write the phase error across the bands, with the tolerance, as an SVG file", 0 },
     { "label", "TEXT", "name of the set, kept in every output row", 0 },
     { NULL, NULL, NULL, 0 }
 };
@@ -27,6 +31,9 @@ static const cli_col pair_cols[] = {
     { "label", -1 }, { "band", -1 }, { "edge", -1 }, { "freq_mhz", 6 },
     { "delta_m", 3 }, { "phase_error_deg", 3 }, { "tolerance_deg", 3 }, { "verdict", -1 },
     { "allowed_mismatch_m", 3 }, { "uncertainty_deg", 3 },
+    /* the electrical-length difference, and with --load the spread of the
+     * lines' gains into it */
+    { "electrical_error_deg", 3 }, { "transfer_imbalance_db", 3 },
 };
 #define NCOLS (sizeof pair_cols / sizeof pair_cols[0])
 #define MAX_POINTS (4 * CLI_MAX_ITEMS)
@@ -34,22 +41,56 @@ static const cli_col pair_cols[] = {
 static const char *const verdict_name[3] = { "pass", "uncertain", "fail" };
 static const char *const verdict_text[3] = { "pass", "pass, not certain", "fail" };
 
-/* The phase tolerance in degrees.  Every way of stating it ends here, so
- * another (say, from a wanted null depth) is one more branch. */
-static int resolve_tolerance(const cli_ctx *ctx, const cli_args *a, double *tolerance_deg)
+/* One invocation's set of lines, tolerance and load. */
+typedef struct pair_set {
+    double len[CLI_MAX_ITEMS];
+    int nlen;
+    double lo_m, hi_m;          /* shortest and longest line */
+    double vf, length_tol_m, vf_tol;
+    double tol;                 /* degrees; 0 when unreachable */
+    int reachable;              /* 0: even a perfect pair misses --null-depth */
+    cli_load load;
+} pair_set;
+
+/* The phase tolerance in degrees: --tolerance, or what --null-depth (with
+ * --imbalance) allows (cli_budget_tolerance).  *reachable is 0 when even
+ * an error-free pair misses the wanted null. */
+static int resolve_tolerance(cli_ctx *ctx, const cli_args *a, double freq_hz,
+                             double *tolerance_deg, int *reachable)
 {
-    static const char expected[] = "a phase tolerance in degrees above 0, such as 2";
+    static const char expected[] = "a phase tolerance from 0.001 to 360 degrees, such as 2";
     const char *t = cli_get(a, "tolerance", 0);
-    if (!t) return cli_error(ctx, "tolerance", expected, "the tolerance is needed");
+    int goal = cli_count(a, "null-depth") > 0;
+    *reachable = 1;
+    if (t && goal)
+        return cli_error(ctx, "tolerance", "--tolerance 2 or --null-depth -30, not both",
+                         "give the tolerance or the null depth");
+    if (!goal && cli_count(a, "imbalance"))
+        return cli_error(ctx, "imbalance", "--imbalance 0.5 with --null-depth -30",
+                         "goes with --null-depth only");
+    if (goal) {
+        int code = cli_budget_tolerance(ctx, a, freq_hz, tolerance_deg);
+        if (code != CLI_EXIT_TOLERANCE) return code;
+        *reachable = 0;
+        *tolerance_deg = 0.0;
+        return 0;
+    }
+    if (!t)
+        return cli_error(ctx, "tolerance", "--tolerance 2 or --null-depth -30",
+                         "the tolerance is needed");
     if (cli_number(ctx, "tolerance", t, -1e9, 360.0, expected, tolerance_deg)) return CLI_EXIT_USAGE;
     if (!(*tolerance_deg > 0.0))
         return cli_error(ctx, "tolerance", expected, "'%s' must be greater than zero", t);
+    /* below what the output shows, a tolerance would print as 0.000 */
+    if (*tolerance_deg < 0.001)
+        return cli_error(ctx, "tolerance", expected, "'%s' is below 0.001 degrees", t);
     return 0;
 }
 
 /* Per point results. */
 typedef struct check {
-    double delta_m, err_deg, unc_deg, allowed_m;
+    double delta_m, err_deg, unc_deg, allowed_m, elec_deg, imbalance_db;
+    int has_allowed;
     cxl_verdict verdict;
 } check;
 
@@ -60,55 +101,263 @@ static int worse_check(const check *a, const check *b)
     return b->err_deg + b->unc_deg > a->err_deg + a->unc_deg;
 }
 
-static void text_output(cli_ctx *ctx, const cli_args *a, const double *len, int nlen,
-                        double vf, const char *from, double tol, double length_tol_m,
-                        double vf_tol, const cli_freq_point *pts, const check *c, int np)
+/* The delay into the load of each corner of the tolerance box (each
+ * length within length_tol_m, the VF within vf_tol, taken as the same
+ * electrical length on a line scaled by VF / VF'; exact for the lossless
+ * form, Z0 and loss held for the physical one): the worst spread. */
+static int load_worst_spread(cli_ctx *ctx, const pair_set *s, double f, double *worst_deg)
 {
-    char b1[96], b2[96], b3[96], b4[96];
+    double db, e, da, db_;
+    *worst_deg = 0.0;
+    for (int v = -1; v <= 1; v += 2) {
+        double k = s->vf / (s->vf + v * s->vf_tol);
+        for (int sign = -1; sign <= 1; sign += 2) {
+            double a = (s->hi_m + sign * s->length_tol_m) * k;
+            double b = fmax(s->lo_m - sign * s->length_tol_m, 0.0) * k;
+            if (cli_load_transfer(ctx, &s->load, fmax(a, 0.0), f, &db, &da, &e) ||
+                cli_load_transfer(ctx, &s->load, b, f, &db, &db_, &e))
+                return CLI_EXIT_USAGE;
+            *worst_deg = fmax(*worst_deg, fabs(da - db_));
+        }
+    }
+    return 0;
+}
+
+/* How much longer than the shortest line a line may be before its delay
+ * into the load is the tolerance more: the delay grows with length, by
+ * exactly 180 degrees per half wavelength on a lossless line, so the
+ * answer lies within ceil(tol / 180) + 1 half wavelengths (bisection).
+ * 0 with *found 0 when the bracket fails (a very lossy model). */
+static int load_allowed(cli_ctx *ctx, const pair_set *s, double f, double *allowed_m, int *found)
+{
+    double db, d0, e0, d, e;
+    *found = 0;
+    if (cli_load_transfer(ctx, &s->load, s->lo_m, f, &db, &d0, &e0)) return CLI_EXIT_USAGE;
+    if (!(e0 > 0.0)) return 0;
+    double lo = 0.0, hi = s->lo_m * 180.0 / e0 * (ceil(s->tol / 180.0) + 1.0);
+    if (cli_load_transfer(ctx, &s->load, s->lo_m + hi, f, &db, &d, &e)) return CLI_EXIT_USAGE;
+    if (!(d - d0 >= s->tol)) return 0;
+    for (int i = 0; i < 200 && hi - lo > 1e-12 * (s->lo_m + hi); i++) {
+        double mid = 0.5 * (lo + hi);
+        if (cli_load_transfer(ctx, &s->load, s->lo_m + mid, f, &db, &d, &e)) return CLI_EXIT_USAGE;
+        if (d - d0 >= s->tol) hi = mid;
+        else lo = mid;
+    }
+    *allowed_m = 0.5 * (lo + hi);
+    *found = 1;
+    return 0;
+}
+
+/* Error, spread of gains and uncertainty of the lines into the load. */
+static int load_check(cli_ctx *ctx, const pair_set *s, double f, int want_allowed, check *c)
+{
+    double dmin = INFINITY, dmax = -INFINITY, gmin = INFINITY, gmax = -INFINITY;
+    double elo = 0.0, ehi = 0.0;
+    for (int i = 0; i < s->nlen; i++) {
+        double g, d, e;
+        if (cli_load_transfer(ctx, &s->load, s->len[i], f, &g, &d, &e)) return CLI_EXIT_USAGE;
+        dmin = fmin(dmin, d);
+        dmax = fmax(dmax, d);
+        gmin = fmin(gmin, g);
+        gmax = fmax(gmax, g);
+        if (s->len[i] == s->lo_m) elo = e;
+        if (s->len[i] == s->hi_m) ehi = e;
+    }
+    c->err_deg = dmax - dmin;
+    c->imbalance_db = gmax - gmin;
+    c->elec_deg = ehi - elo;
+    c->unc_deg = 0.0;
+    if (s->length_tol_m > 0.0 || s->vf_tol > 0.0) {
+        double worst;
+        if (load_worst_spread(ctx, s, f, &worst)) return CLI_EXIT_USAGE;
+        c->unc_deg = fmax(worst - c->err_deg, 0.0);
+    }
+    c->has_allowed = 0;
+    if (want_allowed && s->reachable &&
+        load_allowed(ctx, s, f, &c->allowed_m, &c->has_allowed))
+        return CLI_EXIT_USAGE;
+    return 0;
+}
+
+static int check_point(cli_ctx *ctx, const pair_set *s, double f, int want_allowed, check *c)
+{
+    cxl_verdict v;
+    /* the library's verdict needs a tolerance; an unreachable goal fails */
+    if (cxl_pair_check(s->len, (size_t)s->nlen, s->vf, f, s->reachable ? s->tol : 360.0,
+                       s->length_tol_m, s->vf_tol, &c->delta_m, &c->err_deg, &c->unc_deg,
+                       &v) != CXL_OK ||
+        !isfinite(c->err_deg) || !isfinite(c->unc_deg))
+        return cli_error(ctx, "freq", "a smaller frequency", "gives no finite phase error");
+    c->elec_deg = c->err_deg;
+    c->imbalance_db = 0.0;
+    c->has_allowed = want_allowed && s->reachable &&
+                     cxl_pair_max_mismatch(s->tol, s->vf, f, &c->allowed_m) == CXL_OK &&
+                     isfinite(c->allowed_m);
+    if (s->load.given && load_check(ctx, s, f, want_allowed, c)) return CLI_EXIT_USAGE;
+    if (!s->reachable || c->err_deg > s->tol) c->verdict = CXL_VERDICT_FAIL;
+    else if (c->err_deg + c->unc_deg > s->tol) c->verdict = CXL_VERDICT_PASS_UNCERTAIN;
+    else c->verdict = CXL_VERDICT_PASS;
+    return 0;
+}
+
+static int plot_point(cli_ctx *ctx, void *user, double freq_hz, double *err_deg,
+                      double *second_deg)
+{
+    const pair_set *s = user;
+    check c;
+    if (check_point(ctx, s, freq_hz, 0, &c)) return CLI_EXIT_USAGE;
+    *err_deg = c.err_deg;
+    *second_deg = s->load.given ? c.elec_deg : c.err_deg + c.unc_deg;
+    return 0;
+}
+
+static int plot(cli_ctx *ctx, const cli_args *a, pair_set *s, const cli_freq_point *pts, int np)
+{
+    char title[300], n1[160], n2[200], b1[48], b2[48], b3[48];
+    const char *label = cli_label(a);
+    int unc = s->length_tol_m > 0.0 || s->vf_tol > 0.0;
+    snprintf(title, sizeof title, "%s%sPhase error, longest line against shortest", label,
+             label[0] ? ": " : "");
+    snprintf(n1, sizeof n1, "Lines %s m to %s m, VF %s.", cli_fmt(b1, sizeof b1, s->lo_m, 3),
+             cli_fmt(b2, sizeof b2, s->hi_m, 3), cli_fmt(b3, sizeof b3, s->vf, 4));
+    cli_errplot spec = {
+        .title = title,
+        .name = s->load.given ? "into the load" : "electrical length",
+        .second = s->load.given ? "electrical length only (a matched load)"
+                  : unc ? "error + uncertainty (worst case)" : NULL,
+        .note = { n1, NULL, NULL },
+        .has_tolerance = s->reachable,
+        .tolerance_deg = s->tol,
+    };
+    if (s->load.given) {
+        char l[160];
+        snprintf(n2, sizeof n2, "Load %s.", cli_fmt_load(l, sizeof l, &s->load));
+        spec.note[1] = n2;
+    }
+    char n3[160];
+    if (!s->reachable) {
+        spec.note[2] = "No tolerance: even an error-free pair misses the null depth.";
+    } else if (cli_count(a, "null-depth")) {
+        snprintf(n3, sizeof n3, "Tolerance from a wanted rear null of %s dB (closed form).",
+                 cli_get(a, "null-depth", 0));
+        spec.note[2] = n3;
+    }
+    return cli_errplot_save(ctx, "plot", cli_get(a, "plot", 0), pts, np, plot_point, s, &spec);
+}
+
+static void tolerance_text(cli_ctx *ctx, const cli_args *a, const pair_set *s)
+{
+    char b1[96], b2[96], b3[96];
+    FILE *o = ctx->out;
+    fprintf(o, "  tolerance         ");
+    if (cli_count(a, "null-depth")) {
+        double depth = 0.0, imb = 0.0, free_db = 0.0;
+        /* resolve_tolerance has checked both numbers */
+        cxl_units_parse_number(cli_get(a, "null-depth", 0), &depth, NULL);
+        if (cli_count(a, "imbalance")) cxl_units_parse_number(cli_get(a, "imbalance", 0), &imb, NULL);
+        if (!s->reachable) {
+            cxl_array_null_depth(0.0, imb, &free_db);
+            fprintf(o, "none: with %s dB imbalance even an error-free pair nulls only to %s dB,"
+                       " not %s dB\n", cli_fmt(b1, sizeof b1, imb, 2),
+                    cli_fmt(b2, sizeof b2, free_db, 2), cli_fmt(b3, sizeof b3, depth, 2));
+            return;
+        }
+        fprintf(o, "%s deg, for a rear null of %s dB", cli_fmt(b1, sizeof b1, s->tol, 3),
+                cli_fmt(b2, sizeof b2, depth, 2));
+        fprintf(o, " with %s dB imbalance\n", cli_fmt(b1, sizeof b1, imb, 2));
+        fprintf(o, "                    (closed form: two signals with a phase error)\n");
+    } else {
+        fprintf(o, "%s deg\n", cli_fmt(b1, sizeof b1, s->tol, 3));
+    }
+    if (s->length_tol_m > 0.0 || s->vf_tol > 0.0)
+        fprintf(o, "  measured within   each length %s m, VF %s\n", cli_fmt(b1, sizeof b1, s->length_tol_m, 3),
+                cli_fmt(b2, sizeof b2, s->vf_tol, 4));
+}
+
+/* Every line into the load at each band's worst edge. */
+static void load_text(cli_ctx *ctx, const pair_set *s, const cli_freq_point *pts,
+                      const int *worst, const char *const *names, int ngroups)
+{
+    char b1[96], b2[96], b3[96], b4[96], b5[96], b6[96];
+    FILE *o = ctx->out;
+    fprintf(o, "  into the load at each worst edge (departure = into load - electrical)\n");
+    fprintf(o, "  %-6s %-14s %10s %10s %10s %9s %10s\n", "band", "line", "electrical", "into load",
+            "departure", "transfer", "MHz");
+    fprintf(o, "  %-6s %-14s %10s %10s %10s %9s\n", "", "", "deg", "deg", "deg", "dB");
+    for (int g = 0; g < ngroups; g++) {
+        double f = pts[worst[g]].freq_hz;
+        for (int i = 0; i < s->nlen; i++) {
+            double db, d, e;
+            if (cli_load_transfer(ctx, &s->load, s->len[i], f, &db, &d, &e)) return; /* done before */
+            snprintf(b1, sizeof b1, "%s m", cli_fmt(b2, sizeof b2, s->len[i], 3));
+            fprintf(o, "  %-6s %-14s %10s %10s %10s %9s", i ? "" : names[g], b1,
+                    cli_fmt(b2, sizeof b2, e, 3), cli_fmt(b3, sizeof b3, d, 3),
+                    cli_fmt_signed(b4, sizeof b4, d - e, 3), cli_fmt(b5, sizeof b5, db, 3));
+            if (i == 0) fprintf(o, " %10s", cli_fmt(b6, sizeof b6, f / 1e6, 6));
+            putc('\n', o);
+        }
+    }
+}
+
+static void text_output(cli_ctx *ctx, const cli_args *a, const pair_set *s, const char *from,
+                        const cli_freq_point *pts, const check *c, int np)
+{
+    char b1[200], b2[96], b3[96], b4[96];
     FILE *o = ctx->out;
     const char *label = cli_label(a);
     if (ctx->rows_out++) putc('\n', o);
     fprintf(o, "pair%s%s\n", label[0] ? ": " : "", label);
     fprintf(o, "  lines            ");
-    for (int i = 0; i < nlen; i++)
-        fprintf(o, "%s %s m", i ? "," : "", cli_fmt(b1, sizeof b1, len[i], 3));
+    for (int i = 0; i < s->nlen; i++)
+        fprintf(o, "%s %s m", i ? "," : "", cli_fmt(b1, sizeof b1, s->len[i], 3));
     fprintf(o, "\n  longest-shortest  %s\n", cli_fmt_length(ctx, b1, sizeof b1, c[0].delta_m));
-    fprintf(o, "  velocity factor   %s%s%s\n", cli_fmt(b1, sizeof b1, vf, 4), from[0] ? "  " : "", from);
-    fprintf(o, "  tolerance         %s deg", cli_fmt(b1, sizeof b1, tol, 3));
-    if (length_tol_m > 0.0 || vf_tol > 0.0)
-        fprintf(o, " (each length within %s m, VF within %s)", cli_fmt(b1, sizeof b1, length_tol_m, 3),
-                cli_fmt(b2, sizeof b2, vf_tol, 4));
-    fprintf(o, "\n  %-6s %16s  %9s  %11s  %-27s  %s\n", "band", "worst at", "error deg",
+    fprintf(o, "  velocity factor   %s%s%s\n", cli_fmt(b1, sizeof b1, s->vf, 4), from[0] ? "  " : "", from);
+    if (s->load.given)
+        fprintf(o, "  load              %s\n"
+                   "                    error = largest delay into it - smallest\n",
+                cli_fmt_load(b1, sizeof b1, &s->load));
+    tolerance_text(ctx, a, s);
+    fprintf(o, "  %-6s %16s  %9s  %11s  %-27s  %s\n", "band", "worst at", "error deg",
             "uncert. deg", "allowed mismatch", "verdict");
-    int worst = -1;
+    int worst = -1, ngroups = 0;
+    int group_worst[MAX_POINTS];
+    char group_name[MAX_POINTS][32];
+    const char *names[MAX_POINTS];
     for (int i = 0; i < np;) {
         /* a band's edges form one group; each --freq point its own */
         int k = i + 1;
         while (k < np && pts[i].band[0] && strcmp(pts[k].band, pts[i].band) == 0) k++;
-        int w = i;
+        int w = i, has_allowed = c[i].has_allowed;
         double allowed = c[i].allowed_m;
         for (int j = i + 1; j < k; j++) {
             if (worse_check(&c[w], &c[j])) w = j;
-            if (c[j].allowed_m < allowed) allowed = c[j].allowed_m;
+            if (!c[j].has_allowed) has_allowed = 0;
+            else if (c[j].allowed_m < allowed) allowed = c[j].allowed_m;
         }
         if (worst < 0 || worse_check(&c[worst], &c[w])) worst = w;
-        char name[32];
-        snprintf(name, sizeof name, "%s", pts[i].band[0] ? pts[i].band : "freq");
-        fprintf(o, "  %-6s %12s MHz  %9s  %11s  %-27s  %s\n", name,
+        snprintf(group_name[ngroups], sizeof group_name[0], "%s", pts[i].band[0] ? pts[i].band : "freq");
+        names[ngroups] = group_name[ngroups];
+        group_worst[ngroups] = w;
+        fprintf(o, "  %-6s %12s MHz  %9s  %11s  %-27s  %s\n", group_name[ngroups],
                 cli_fmt(b1, sizeof b1, pts[w].freq_hz / 1e6, 6),
                 cli_fmt(b2, sizeof b2, c[w].err_deg, 3), cli_fmt(b3, sizeof b3, c[w].unc_deg, 3),
-                cli_fmt_length(ctx, b4, sizeof b4, allowed), verdict_text[c[w].verdict]);
+                has_allowed ? cli_fmt_length(ctx, b4, sizeof b4, allowed) : "-",
+                verdict_text[c[w].verdict]);
+        ngroups++;
         i = k;
     }
+    if (s->load.given) load_text(ctx, s, pts, group_worst, names, ngroups);
     const check *wc = &c[worst];
     if (pts[worst].band[0])
         snprintf(b4, sizeof b4, "%s", pts[worst].band);
     else
         snprintf(b4, sizeof b4, "%s MHz", cli_fmt(b3, sizeof b3, pts[worst].freq_hz / 1e6, 6));
-    fprintf(o, "  worst             %s: %s deg at %s MHz against %s deg: %s\n", b4,
-            cli_fmt(b1, sizeof b1, wc->err_deg, 3), cli_fmt(b2, sizeof b2, pts[worst].freq_hz / 1e6, 6),
-            cli_fmt(b3, sizeof b3, tol, 3),
-            verdict_text[wc->verdict]);
+    fprintf(o, "  worst             %s: %s deg at %s MHz ", b4, cli_fmt(b1, sizeof b1, wc->err_deg, 3),
+            cli_fmt(b2, sizeof b2, pts[worst].freq_hz / 1e6, 6));
+    if (s->reachable)
+        fprintf(o, "against %s deg: %s\n", cli_fmt(b3, sizeof b3, s->tol, 3), verdict_text[wc->verdict]);
+    else
+        fprintf(o, "with no tolerance left: %s\n", verdict_text[wc->verdict]);
     if (wc->verdict == CXL_VERDICT_PASS_UNCERTAIN)
         fprintf(o, "                    (error plus uncertainty %s deg exceeds the tolerance)\n",
                 cli_fmt(b1, sizeof b1, wc->err_deg + wc->unc_deg, 3));
@@ -118,59 +367,70 @@ static int pair_run(cli_ctx *ctx, const cli_args *a)
 {
     char buf[1024];
     const char *items[CLI_MAX_ITEMS];
-    double len[CLI_MAX_ITEMS];
-    int nlen = cli_items(ctx, a, "length", buf, sizeof buf, items, CLI_MAX_ITEMS);
-    if (nlen < 0) return CLI_EXIT_USAGE;
-    if (nlen < 2)
+    pair_set s;
+    s.nlen = cli_items(ctx, a, "length", buf, sizeof buf, items, CLI_MAX_ITEMS);
+    if (s.nlen < 0) return CLI_EXIT_USAGE;
+    if (s.nlen < 2)
         return cli_error(ctx, "length", "--length 20.00m --length 20.30m, or 20.00m;20.30m in a batch cell",
-                         "at least two lengths are needed, %d given", nlen);
-    for (int i = 0; i < nlen; i++)
-        if (cli_length(ctx, "length", items[i], CLI_POSITIVE, &len[i])) return CLI_EXIT_USAGE;
+                         "at least two lengths are needed, %d given", s.nlen);
+    for (int i = 0; i < s.nlen; i++) {
+        if (cli_line_length(ctx, "length", items[i], &s.len[i])) return CLI_EXIT_USAGE;
+        s.lo_m = i ? fmin(s.lo_m, s.len[i]) : s.len[i];
+        s.hi_m = i ? fmax(s.hi_m, s.len[i]) : s.len[i];
+    }
 
-    double vf, tol, length_tol_m = 0.0, vf_tol = 0.0;
     char from[256];
-    int rc = cli_vf_source(ctx, a, &vf, ctx->format == CLI_TEXT ? from : NULL, sizeof from);
-    if (rc || resolve_tolerance(ctx, a, &tol)) return CLI_EXIT_USAGE;
-    if (cli_count(a, "length-tol") &&
-        cli_length(ctx, "length-tol", cli_get(a, "length-tol", 0), CLI_NONNEG, &length_tol_m))
-        return CLI_EXIT_USAGE;
+    s.length_tol_m = s.vf_tol = 0.0;
+    int rc = cli_vf_source(ctx, a, &s.vf, ctx->format == CLI_TEXT ? from : NULL, sizeof from);
+    if (rc || cli_line_vf_check(ctx, a, s.vf)) return CLI_EXIT_USAGE;
+    if (cli_count(a, "length-tol")) {
+        const char *t = cli_get(a, "length-tol", 0);
+        if (cli_length(ctx, "length-tol", t, CLI_NONNEG, &s.length_tol_m)) return CLI_EXIT_USAGE;
+        if (s.length_tol_m > CLI_LINE_MAX_M)
+            return cli_error(ctx, "length-tol", "a length tolerance up to 1000 km, such as 5mm",
+                             "'%s' is above 1000 km", t);
+    }
     if (cli_count(a, "vf-tol")) {
         const char *t = cli_get(a, "vf-tol", 0);
-        if (cli_number(ctx, "vf-tol", t, 0.0, 1.0, "a VF tolerance below the VF, such as 0.01", &vf_tol))
-            return CLI_EXIT_USAGE;
-        if (!(vf_tol < vf))
-            return cli_error(ctx, "vf-tol", "a VF tolerance below the VF, such as 0.01",
-                             "'%s' is not below the VF", t);
+        static const char expected[] = "a VF tolerance that leaves the VF at least 0.01, such as 0.01";
+        if (cli_number(ctx, "vf-tol", t, 0.0, 1.0, expected, &s.vf_tol)) return CLI_EXIT_USAGE;
+        if (!(s.vf - s.vf_tol >= CLI_LINE_MIN_VF))
+            return cli_error(ctx, "vf-tol", expected, "'%s' leaves the VF below 0.01", t);
     }
 
     cli_freq_point pts[MAX_POINTS];
     check c[MAX_POINTS];
+    if (cli_line_freq_items(ctx, a)) return CLI_EXIT_USAGE;
     int np = cli_freq_points(ctx, a, pts, MAX_POINTS);
-    if (np < 0) return CLI_EXIT_USAGE;
-    int failed = 0;
-    for (int i = 0; i < np; i++) {
-        if (cxl_pair_check(len, (size_t)nlen, vf, pts[i].freq_hz, tol, length_tol_m, vf_tol,
-                           &c[i].delta_m, &c[i].err_deg, &c[i].unc_deg, &c[i].verdict) != CXL_OK ||
-            cxl_pair_max_mismatch(tol, vf, pts[i].freq_hz, &c[i].allowed_m) != CXL_OK ||
-            !isfinite(c[i].err_deg) || !isfinite(c[i].unc_deg))
-            return cli_error(ctx, "freq", "a smaller frequency", "gives no finite phase error");
-        if (c[i].verdict == CXL_VERDICT_FAIL) failed = 1;
+    if (np < 0 || resolve_tolerance(ctx, a, pts[0].freq_hz, &s.tol, &s.reachable))
+        return CLI_EXIT_USAGE;
+    int code = cli_load_parse(ctx, a, s.vf, &s.load), failed = 0;
+    for (int i = 0; !code && i < np; i++) {
+        code = check_point(ctx, &s, pts[i].freq_hz, 1, &c[i]);
+        if (!code && c[i].verdict == CXL_VERDICT_FAIL) failed = 1;
+    }
+    if (!code && cli_count(a, "plot")) code = plot(ctx, a, &s, pts, np);
+    if (code) {
+        cli_load_free(&s.load);
+        return code;
     }
 
     if (ctx->format == CLI_TEXT) {
-        text_output(ctx, a, len, nlen, vf, from, tol, length_tol_m, vf_tol, pts, c, np);
+        text_output(ctx, a, &s, from, pts, c, np);
     } else {
         const char *label = cli_label(a);
         for (int i = 0; i < np; i++) {
             cli_cell cells[NCOLS] = {
                 CLI_TXT(label), CLI_TXT(pts[i].band), CLI_TXT(pts[i].edge),
                 CLI_NUM(pts[i].freq_hz / 1e6), CLI_NUM(c[i].delta_m), CLI_NUM(c[i].err_deg),
-                CLI_NUM(tol), CLI_TXT(verdict_name[c[i].verdict]), CLI_NUM(c[i].allowed_m),
-                CLI_NUM(c[i].unc_deg),
+                s.reachable ? CLI_NUM(s.tol) : CLI_NONE, CLI_TXT(verdict_name[c[i].verdict]),
+                c[i].has_allowed ? CLI_NUM(c[i].allowed_m) : CLI_NONE, CLI_NUM(c[i].unc_deg),
+                CLI_NUM(c[i].elec_deg), s.load.given ? CLI_NUM(c[i].imbalance_db) : CLI_NONE,
             };
             cli_table_row(ctx, pair_cols, NCOLS, cells);
         }
     }
+    cli_load_free(&s.load);
     return failed ? CLI_EXIT_TOLERANCE : CLI_EXIT_OK;
 }
 
@@ -178,7 +438,8 @@ const cli_command cli_cmd_pair = {
     .name = "pair",
     .summary = "lines meant to be equal against a phase tolerance, per band edge",
     .synopsis = "--length LEN --length LEN ... (--vf X | --cable NAME | --vf-from FILE|-) "
-                "--tolerance DEG (--band LIST | --freq F) [OPTIONS]",
+                "(--tolerance DEG | --null-depth DB [--imbalance DB]) (--band LIST | --freq F) "
+                "[--load R+jX [--z0 OHM]] [--plot FILE.svg] [OPTIONS]",
     .opts = pair_opts,
     .end = cli_vf_source_end,
     .run = pair_run,

@@ -345,11 +345,16 @@ START_TEST(phase_check_value)
                                  "--region 2 --format csv", NULL);
     ck_assert_int_eq(r.rc, 0);
     ck_assert_str_eq(r.err, "");
+    /* electrical lengths 360 f L / (VF c): 20.1 m 65.827, 69.484, 73.142
+     * deg; 20.0 m 65.500, 69.139, 72.778 [POZAR, hand worked]; the
+     * transfer columns stay empty without --load */
     ck_assert_str_eq(r.out,
-        "label,band,edge,freq_mhz,length_m,reference_m,delta_m,phase_error_deg,vf,region\n"
-        ",160m,low,1.800000,20.100,20.000,0.100,0.327,0.6600,2\n"
-        ",160m,centre,1.900000,20.100,20.000,0.100,0.346,0.6600,2\n"
-        ",160m,high,2.000000,20.100,20.000,0.100,0.364,0.6600,2\n");
+        "label,band,edge,freq_mhz,length_m,reference_m,delta_m,phase_error_deg,vf,region,"
+        "transfer_deg,electrical_deg,transfer_db,reference_transfer_deg,reference_electrical_deg,"
+        "reference_transfer_db\n"
+        ",160m,low,1.800000,20.100,20.000,0.100,0.327,0.6600,2,,65.827,,,65.500,\n"
+        ",160m,centre,1.900000,20.100,20.000,0.100,0.346,0.6600,2,,69.484,,,69.139,\n"
+        ",160m,high,2.000000,20.100,20.000,0.100,0.364,0.6600,2,,73.142,,,72.778,\n");
     cli_result_free(&r);
     /* Region 1 without the No. 5.96 segments: 1810-1850 kHz [RR];
      * 360 * 1.85e6 * 0.1 / (0.66 c) = 0.33660 deg [hand worked] */
@@ -357,7 +362,7 @@ START_TEST(phase_check_value)
                       "--exclude-footnotes --format csv", NULL);
     ck_assert_int_eq(r.rc, 0);
     has(r.out, "\n,160m,low,1.810000,");
-    has(r.out, "\n,160m,high,1.850000,20.100,20.000,0.100,0.337,0.6600,1\n");
+    has(r.out, "\n,160m,high,1.850000,20.100,20.000,0.100,0.337,0.6600,1,");
     cli_result_free(&r);
     /* text, widest edges (1715-2000 kHz [RR]); a shorter line leads */
     r = run_cli(NULL, "phase --length 19.90m --reference 20.00m --vf 0.66 --band 160m --freq 1.83MHz",
@@ -380,7 +385,7 @@ START_TEST(phase_reference_degrees)
     cli_result r = run_cli(NULL, "phase --length 27.130m --reference-deg 90 --reference-freq 1.83MHz "
                                  "--vf 0.66 --freq 1.83MHz --format csv", NULL);
     ck_assert_int_eq(r.rc, 0);
-    has(r.out, "\n,,freq,1.830000,27.130,27.030,0.100,0.331,0.6600,all\n");
+    has(r.out, "\n,,freq,1.830000,27.130,27.030,0.100,0.331,0.6600,all,");
     cli_result_free(&r);
     r = run_cli(NULL, "phase --length 27.130m --reference-deg 90 --reference-freq 1.83MHz "
                       "--vf 0.66 --freq 1.83MHz", NULL);
@@ -407,7 +412,7 @@ START_TEST(phase_vf_from_pipe)
     size_t n = fread(text, 1, sizeof text - 1, fp);
     text[n] = '\0';
     fclose(fp);
-    has(text, "\n,160m,low,1.800000,20.100,20.000,0.100,0.324,0.6671,2\n");
+    has(text, "\n,160m,low,1.800000,20.100,20.000,0.100,0.324,0.6671,2,");
     unlink(out);
     free(out);
     /* the same from a file; a single reading without a fit row counts too */
@@ -418,7 +423,7 @@ START_TEST(phase_vf_from_pipe)
     cli_result r = run_cli(NULL, cmd, NULL);
     ck_assert_int_eq(r.rc, 0);
     /* 360 * 1.8e6 * 0.1 / (0.8 c) = 0.27019 [hand worked] */
-    has(r.out, ",0.270,0.8000,all\n");
+    has(r.out, ",0.270,0.8000,all,");
     cli_result_free(&r);
     unlink(one);
     free(one);
@@ -440,13 +445,13 @@ START_TEST(phase_vf_from_labels)
                                 "--format csv --label B", path);
     cli_result r = run_cli(NULL, args, NULL);
     ck_assert_int_eq(r.rc, 0);
-    has(r.out, ",0.8006,all\n");
+    has(r.out, ",0.8006,all,");
     cli_result_free(&r);
     snprintf(args, sizeof args, "phase --vf-from %s --length 20.1m --reference 20m --freq 1.8MHz "
                                 "--format csv --label =A", path);
     r = run_cli(NULL, args, NULL);
     ck_assert_int_eq(r.rc, 0);
-    has(r.out, ",0.6671,all\n");
+    has(r.out, ",0.6671,all,");
     cli_result_free(&r);
     snprintf(args, sizeof args, "phase --vf-from %s --length 20.1m --reference 20m --freq 1.8MHz",
              path);
@@ -468,7 +473,7 @@ START_TEST(phase_vf_from_labels)
                                 "--format csv", odd);
     r = run_cli(NULL, args, NULL);
     ck_assert_int_eq(r.rc, 0);
-    has(r.out, ",0.9285,all\n");
+    has(r.out, ",0.9285,all,");
     cli_result_free(&r);
     unlink(odd);
     free(odd);
@@ -498,9 +503,9 @@ START_TEST(phase_batch)
     cli_result r = run_cli(NULL, args, NULL);
     ck_assert_int_eq(r.rc, 2);
     ck_assert_int_eq(count_lines(r.out), 1 + 3 + 3);
-    has(r.out, "\nn1,160m,low,1.800000,20.100,20.000,0.100,0.327,0.6600,2\n"); /* as phase_check_value */
+    has(r.out, "\nn1,160m,low,1.800000,20.100,20.000,0.100,0.327,0.6600,2,"); /* as phase_check_value */
     /* widest low edge 1715 kHz [RR]: 360 * 1.715e6 * 0.1 / (0.8 c) = 0.25743 */
-    has(r.out, "\nn4,160m,low,1.715000,20.100,20.000,0.100,0.257,0.8000,all\n");
+    has(r.out, "\nn4,160m,low,1.715000,20.100,20.000,0.100,0.257,0.8000,all,");
     ck_assert_int_eq(count_lines(r.err), 3);
     has(r.err, "line 3: region:");
     has(r.err, "line 4: band:");
@@ -561,11 +566,13 @@ START_TEST(pair_check_value)
     snprintf(csv_args, sizeof csv_args, "%s --format csv", args);
     r = run_cli(NULL, csv_args, NULL);
     ck_assert_int_eq(r.rc, 1);
+    /* without --load electrical_error_deg is the phase error itself and
+     * transfer_imbalance_db stays empty */
     has(r.out, "label,band,edge,freq_mhz,delta_m,phase_error_deg,tolerance_deg,verdict,"
-               "allowed_mismatch_m,uncertainty_deg\n");
-    has(r.out, "\n,160m,high,2.000000,0.300,1.092,2.000,pass,0.550,0.000\n");
-    has(r.out, "\n,40m,low,7.000000,0.300,3.821,2.000,fail,0.157,0.000\n");
-    has(r.out, "\n,40m,high,7.300000,0.300,3.985,2.000,fail,0.151,0.000\n");
+               "allowed_mismatch_m,uncertainty_deg,electrical_error_deg,transfer_imbalance_db\n");
+    has(r.out, "\n,160m,high,2.000000,0.300,1.092,2.000,pass,0.550,0.000,1.092,\n");
+    has(r.out, "\n,40m,low,7.000000,0.300,3.821,2.000,fail,0.157,0.000,3.821,\n");
+    has(r.out, "\n,40m,high,7.300000,0.300,3.985,2.000,fail,0.151,0.000,3.985,\n");
     cli_result_free(&r);
     /* the VF from a vf CSV or the catalog works the same way */
     const char vf_csv[] = "label,resonance,vf\nspool,fit,0.6600\n";
@@ -575,7 +582,7 @@ START_TEST(pair_check_value)
                                           "--band 40m --format csv", path);
     r = run_cli(NULL, from_args, NULL);
     ck_assert_int_eq(r.rc, 1);
-    has(r.out, "\n,40m,high,7.300000,0.300,3.985,2.000,fail,0.151,0.000\n");
+    has(r.out, "\n,40m,high,7.300000,0.300,3.985,2.000,fail,0.151,0.000,3.985,\n");
     cli_result_free(&r);
     unlink(path);
     free(path);
@@ -596,7 +603,7 @@ START_TEST(pair_uncertain)
     cli_result r = run_cli(NULL, "pair --length 20.00m --length 20.30m --vf 0.66 --tolerance 1.1 "
                                  "--band 160m --length-tol 0.01m --vf-tol 0.01 --format csv", NULL);
     ck_assert_int_eq(r.rc, 0);
-    has(r.out, "\n,160m,high,2.000000,0.300,1.092,1.100,uncertain,0.302,0.091\n");
+    has(r.out, "\n,160m,high,2.000000,0.300,1.092,1.100,uncertain,0.302,0.091,1.092,\n");
     cli_result_free(&r);
     r = run_cli(NULL, "pair --length 20.00m --length 20.30m --vf 0.66 --tolerance 1.1 "
                       "--band 160m --length-tol 0.01m --vf-tol 0.01", NULL);
@@ -632,9 +639,9 @@ START_TEST(pair_batch_many)
     ck_assert_int_eq(r.rc, 1); /* some pairs fail */
     ck_assert_str_eq(r.err, "");
     ck_assert_int_eq(count_lines(r.out), (int)(3 * n + 1));
-    has(r.out, "\np150,40m,high,7.300000,0.150,1.992,2.000,pass,0.151,0.000\n");
-    has(r.out, "\np151,40m,high,7.300000,0.151,2.006,2.000,fail,0.151,0.000\n");
-    has(r.out, "\np151,40m,low,7.000000,0.151,1.923,2.000,pass,0.157,0.000\n");
+    has(r.out, "\np150,40m,high,7.300000,0.150,1.992,2.000,pass,0.151,0.000,1.992,\n");
+    has(r.out, "\np151,40m,high,7.300000,0.151,2.006,2.000,fail,0.151,0.000,2.006,\n");
+    has(r.out, "\np151,40m,low,7.000000,0.151,1.923,2.000,pass,0.157,0.000,1.923,\n");
     has(r.out, "\np1999,40m,high,7.300000,0.399,5.299,2.000,fail,");
     cli_result_free(&r);
     unlink(path);
@@ -657,9 +664,9 @@ START_TEST(pair_spreadsheet_csv)
     ck_assert_int_eq(r.rc, 2);
     ck_assert_int_eq(count_lines(r.out), 1 + 6 + 3);
     /* the figures of pair_check_value [RR, POZAR, hand worked] */
-    has(r.out, "\n\"east, rear\",40m,high,7.300000,0.300,3.985,2.000,fail,0.151,0.000\n");
+    has(r.out, "\n\"east, rear\",40m,high,7.300000,0.300,3.985,2.000,fail,0.151,0.000,3.985,\n");
     /* 0.01 m at 2 MHz: 360 * 2e6 * 0.01 / (0.66 c) = 0.03639 [hand worked] */
-    has(r.out, "\n'=west,160m,high,2.000000,0.010,0.036,2.000,pass,0.550,0.000\n");
+    has(r.out, "\n'=west,160m,high,2.000000,0.010,0.036,2.000,pass,0.550,0.000,0.036,\n");
     ck_assert_int_eq(count_lines(r.err), 2);
     has(r.err, "stdin line 4: length: at least two lengths");
     has(r.err, "stdin line 5: tolerance:");
