@@ -20,7 +20,6 @@
  * independent implementation, and parses JSON and SVG (xml.etree). */
 #include <config.h>
 #include <check.h>
-#include <locale.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -28,19 +27,6 @@
 #include <unistd.h>
 #include "coaxline.h"
 #include "testutil.h"
-
-static void has(const char *text, const char *want)
-{
-    ck_assert_msg(strstr(text, want) != NULL, "missing '%s' in:\n%s", want, text);
-}
-
-/* Run a Python snippet; sys.argv[1] is path.  0 when it exits 0. */
-static int python_ok(const char *code, const char *path)
-{
-    char cmd[8192];
-    snprintf(cmd, sizeof cmd, "/usr/bin/python3 -c '%s' %s", code, path);
-    return system(cmd) == 0;
-}
 
 /* Python: V_load/V_in of a lossless line [POZAR] as (delay deg, dB, beta l
  * deg), the delay taken within half a turn of beta l. */
@@ -51,27 +37,23 @@ static int python_ok(const char *code, const char *path)
     " el=math.degrees(b*L); ph=-math.degrees(cmath.phase(r))\n" \
     " return ph+360*round((el-ph)/360), 20*math.log10(abs(r)), el\n"
 
-/* Run args (JSON output), then check with Python: d is the document, and
- * prelude (may be "") runs first. */
-static void json_prelude_holds(const char *args, int rc, const char *prelude, const char *check)
+/* Run args (JSON output, exit status rc), then check with Python
+ * (json_prelude_holds, testutil.h): d is the document, and prelude (may be
+ * "") runs first. */
+static void json_run_prelude_holds(const char *args, int rc, const char *prelude,
+                                   const char *check)
 {
     char full[2048];
     snprintf(full, sizeof full, "%s --format json", args);
     cli_result r = run_cli(NULL, full, NULL);
     ck_assert_msg(r.rc == rc, "'%s' exit %d: %s", full, r.rc, r.err);
-    char *path = temp_file(r.out, strlen(r.out));
-    char code[6144];
-    snprintf(code, sizeof code, "import json,sys,math,cmath\n%sd=json.load(open(sys.argv[1]))\n"
-                                "sys.exit(0 if (%s) else 1)", prelude, check);
-    ck_assert_msg(python_ok(code, path), "JSON check failed: %s\n%s", check, r.out);
-    unlink(path);
-    free(path);
+    json_prelude_holds(r.out, prelude, check);
     cli_result_free(&r);
 }
 
 static void json_run_holds(const char *args, int rc, const char *check)
 {
-    json_prelude_holds(args, rc, "", check);
+    json_run_prelude_holds(args, rc, "", check);
 }
 
 /* ---- phase into a load ------------------------------------------------ */
@@ -147,21 +129,21 @@ START_TEST(phase_and_pair_against_python)
      * 40 m (7.0-7.3 MHz [ITU RR Art. 5]): the delay difference, gain
      * spread and electrical difference from [POZAR] in Python; at 7.3 MHz
      * 1.623 deg against 3.985 electrical (hand checked) */
-    json_prelude_holds("pair --length 20.00m,20.30m --vf 0.66 --tolerance 2 --band 40m --z0 50 "
-                       "--load 21+j20", 0, PY_TR,
-                       "all(abs(r[\"phase_error_deg\"]-(tr(20.3,r[\"freq_mhz\"]*1e6,0.66,50,21+20j)[0]"
-                       "-tr(20.0,r[\"freq_mhz\"]*1e6,0.66,50,21+20j)[0]))<1e-6 and "
-                       "abs(r[\"transfer_imbalance_db\"]-abs(tr(20.3,r[\"freq_mhz\"]*1e6,0.66,50,21+20j)[1]"
-                       "-tr(20.0,r[\"freq_mhz\"]*1e6,0.66,50,21+20j)[1]))<1e-6 and "
-                       "abs(r[\"electrical_error_deg\"]-360*r[\"freq_mhz\"]*1e6*0.3/(0.66*C))<1e-6 "
-                       "for r in d) and len(d)==3 and abs(d[2][\"phase_error_deg\"]-1.623)<5e-4");
+    json_run_prelude_holds("pair --length 20.00m,20.30m --vf 0.66 --tolerance 2 --band 40m --z0 50 "
+                           "--load 21+j20", 0, PY_TR,
+                           "all(abs(r[\"phase_error_deg\"]-(tr(20.3,r[\"freq_mhz\"]*1e6,0.66,50,21+20j)[0]"
+                           "-tr(20.0,r[\"freq_mhz\"]*1e6,0.66,50,21+20j)[0]))<1e-6 and "
+                           "abs(r[\"transfer_imbalance_db\"]-abs(tr(20.3,r[\"freq_mhz\"]*1e6,0.66,50,21+20j)[1]"
+                           "-tr(20.0,r[\"freq_mhz\"]*1e6,0.66,50,21+20j)[1]))<1e-6 and "
+                           "abs(r[\"electrical_error_deg\"]-360*r[\"freq_mhz\"]*1e6*0.3/(0.66*C))<1e-6 "
+                           "for r in d) and len(d)==3 and abs(d[2][\"phase_error_deg\"]-1.623)<5e-4");
     /* phase gives the same error for the same two lines */
-    json_prelude_holds("phase --length 20.30m --reference 20.00m --vf 0.66 --band 40m --z0 50 "
-                       "--load 21+j20", 0, PY_TR,
-                       "all(abs(r[\"phase_error_deg\"]-(tr(20.3,r[\"freq_mhz\"]*1e6,0.66,50,21+20j)[0]"
-                       "-tr(20.0,r[\"freq_mhz\"]*1e6,0.66,50,21+20j)[0]))<1e-6 and "
-                       "abs(r[\"transfer_db\"]-tr(20.3,r[\"freq_mhz\"]*1e6,0.66,50,21+20j)[1])<1e-6 "
-                       "for r in d) and len(d)==3");
+    json_run_prelude_holds("phase --length 20.30m --reference 20.00m --vf 0.66 --band 40m --z0 50 "
+                           "--load 21+j20", 0, PY_TR,
+                           "all(abs(r[\"phase_error_deg\"]-(tr(20.3,r[\"freq_mhz\"]*1e6,0.66,50,21+20j)[0]"
+                           "-tr(20.0,r[\"freq_mhz\"]*1e6,0.66,50,21+20j)[0]))<1e-6 and "
+                           "abs(r[\"transfer_db\"]-tr(20.3,r[\"freq_mhz\"]*1e6,0.66,50,21+20j)[1])<1e-6 "
+                           "for r in d) and len(d)==3");
 }
 END_TEST
 
@@ -279,12 +261,6 @@ END_TEST
 
 /* ---- plots ------------------------------------------------------------- */
 
-static const char svg_check[] =
-    "import sys, xml.etree.ElementTree as E; t=E.parse(sys.argv[1]); n=\"{http://www.w3.org/2000/svg}\"; "
-    "r=t.getroot(); paths=r.findall(n+\"path\"); texts=[x.text or \"\" for x in t.iter(n+\"text\")]; "
-    "dashed=[x for x in r.findall(n+\"line\") if x.get(\"stroke-dasharray\")]; "
-    "rects=[x for x in r.findall(n+\"rect\") if x.get(\"fill\")==\"#e6e6e6\"]; ";
-
 /* Run "ARGS --plot FILE" (exit code rc) into a new file and return its
  * path (caller unlinks and frees); run again under a comma locale, the
  * file must be the same bytes. */
@@ -296,16 +272,13 @@ static char *plot_same_bytes(const char *args, int rc)
     cli_result r = run_cli(NULL, full, NULL);
     ck_assert_msg(r.rc == rc, "'%s' exit %d: %s", full, r.rc, r.err);
     cli_result_free(&r);
-    if (setlocale(LC_ALL, "de_DE.UTF-8")) {
-        setlocale(LC_ALL, "C");
+    if (have_comma_locale()) {
         snprintf(full, sizeof full, "%s --plot %s", args, path2);
         r = run_cli("LC_ALL=de_DE.UTF-8", full, NULL);
         ck_assert_int_eq(r.rc, rc);
         cli_result_free(&r);
         snprintf(full, sizeof full, "cmp -s %s %s", path, path2);
         ck_assert_msg(system(full) == 0, "'%s': the plot differs under de_DE", args);
-    } else {
-        fprintf(stderr, "note: de_DE.UTF-8 not available, locale check skipped\n");
     }
     unlink(path2);
     free(path2);
@@ -314,28 +287,25 @@ static char *plot_same_bytes(const char *args, int rc)
 
 START_TEST(pair_plot)
 {
-    char code[2048];
     /* two bands of 50 samples each: 49 segments each, one break between;
      * the tolerance 10.005 deg of pair_null_depth [NULL] */
     char *path = plot_same_bytes("pair --length 20m,20.3m --vf 0.66 --null-depth -21.19 "
                                  "--band 160m,40m --label 'east <&> set'", 0);
-    snprintf(code, sizeof code, "%s assert len(paths)==1, len(paths); d=paths[0].get(\"d\"); "
-             "assert d.count(\"L\")==2*49 and d.count(\"M\")==2, d; "
-             "assert len(rects)==2 and \"160m\" in texts and \"40m\" in texts; "
-             "assert len(dashed)==2 and \"+10.005 deg tolerance\" in texts and \"-10.005 deg\" in texts; "
-             "assert any(x.startswith(\"east <&> set: \") for x in texts); "
-             "assert \"phase error (deg)\" in texts and \"frequency (MHz)\" in texts", svg_check);
-    ck_assert(python_ok(code, path));
+    svg_holds(path, "assert len(paths)==1, len(paths); d=paths[0].get(\"d\"); "
+              "assert d.count(\"L\")==2*49 and d.count(\"M\")==2, d; "
+              "assert len(rects)==2 and \"160m\" in texts and \"40m\" in texts; "
+              "assert len(dashed)==2 and \"+10.005 deg tolerance\" in texts and \"-10.005 deg\" in texts; "
+              "assert any(x.startswith(\"east <&> set: \") for x in texts); "
+              "assert \"phase error (deg)\" in texts and \"frequency (MHz)\" in texts");
     unlink(path);
     free(path);
     /* uncertainty: a second, dashed curve; --freq points are markers */
     path = plot_same_bytes("pair --length 20m,20.3m --vf 0.66 --tolerance 3 --band 80m "
                            "--freq 1.83MHz,2.5MHz --length-tol 1cm", 0);
-    snprintf(code, sizeof code, "%s assert len(paths)==3, len(paths); "
-             "assert paths[1].get(\"stroke-dasharray\"); "
-             "assert len(r.findall(n+\"circle\"))==2; "
-             "assert \"error + uncertainty (worst case)\" in texts", svg_check);
-    ck_assert(python_ok(code, path));
+    svg_holds(path, "assert len(paths)==3, len(paths); "
+              "assert paths[1].get(\"stroke-dasharray\"); "
+              "assert len(r.findall(n+\"circle\"))==2; "
+              "assert \"error + uncertainty (worst case)\" in texts");
     unlink(path);
     free(path);
     expect_usage_error(NULL, "pair --length 20m,20.3m --vf 0.66 --tolerance 2 --band 80m "
@@ -345,16 +315,14 @@ END_TEST
 
 START_TEST(phase_plot)
 {
-    char code[2048];
     /* into the load and, dashed, the electrical length; no tolerance */
     char *path = plot_same_bytes("phase --length 20.3m --reference 20m --vf 0.66 --z0 50 "
                                  "--load 21+j20 --band 160m,80m,40m", 0);
-    snprintf(code, sizeof code, "%s assert len(paths)==2; "
-             "assert all(p.get(\"d\").count(\"L\")==3*49 for p in paths); "
-             "assert len(rects)==3 and len(dashed)==1; "  /* the legend's */
-             "assert \"into the load\" in texts; "
-             "assert \"Load 21+j20 ohm, lossless line, Z0 50 ohm.\" in texts", svg_check);
-    ck_assert(python_ok(code, path));
+    svg_holds(path, "assert len(paths)==2; "
+              "assert all(p.get(\"d\").count(\"L\")==3*49 for p in paths); "
+              "assert len(rects)==3 and len(dashed)==1; "  /* the legend's */
+              "assert \"into the load\" in texts; "
+              "assert \"Load 21+j20 ohm, lossless line, Z0 50 ohm.\" in texts");
     unlink(path);
     free(path);
     expect_usage_error(NULL, "phase --length 20.3m --reference 20m --vf 0.66 --band 80m "
@@ -495,11 +463,8 @@ START_TEST(batch_with_load_and_goal)
     ck_assert_msg(r.rc == 0, "%s", r.err);
     ck_assert_int_eq(count_lines(r.out), 1 + 2 * 3);
     cli_result_free(&r);
-    char code[1024];
-    snprintf(code, sizeof code, "%s assert \"160m\" in texts and \"into the load\" in texts", svg_check);
-    ck_assert(python_ok(code, p1));
-    snprintf(code, sizeof code, "%s assert \"80m\" in texts and \"electrical length\" in texts", svg_check);
-    ck_assert(python_ok(code, p2));
+    svg_holds(p1, "assert \"160m\" in texts and \"into the load\" in texts");
+    svg_holds(p2, "assert \"80m\" in texts and \"electrical length\" in texts");
     unlink(p1);
     unlink(p2);
     free(p1);
@@ -509,11 +474,6 @@ END_TEST
 
 START_TEST(comma_locale_same_bytes)
 {
-    if (!setlocale(LC_ALL, "de_DE.UTF-8")) {
-        fprintf(stderr, "note: de_DE.UTF-8 not available, locale check skipped\n");
-        return;
-    }
-    setlocale(LC_ALL, "C");
     const char *cases[] = {
         "phase --length 20.3m --reference 20m --vf 0.66 --z0 50 --load 21.5-j20.25 --band 160m",
         "phase --length 20.3m --reference 20m --vf 0.66 --z0 50 --load 21.5-j20.25 --band 160m --format csv",
@@ -523,15 +483,7 @@ START_TEST(comma_locale_same_bytes)
         "pair --length 20m,20.3m --vf 0.66 --null-depth -21.19 --band 40m --format csv",
         "pair --length 20m,20.3m --cable RG-58 --tolerance 2.5 --band 40m --load 1e9 --format json",
     };
-    for (size_t i = 0; i < sizeof cases / sizeof cases[0]; i++) {
-        cli_result c = run_cli("LC_ALL=C", cases[i], NULL);
-        cli_result d = run_cli("LC_ALL=de_DE.UTF-8", cases[i], NULL);
-        ck_assert_msg(c.rc == 0 || c.rc == 1, "'%s' exit %d: %s", cases[i], c.rc, c.err);
-        ck_assert_msg(strlen(c.out) > 0, "'%s' printed nothing", cases[i]);
-        ck_assert_msg(strcmp(c.out, d.out) == 0, "'%s' differs under de_DE", cases[i]);
-        cli_result_free(&c);
-        cli_result_free(&d);
-    }
+    expect_same_bytes_in_comma_locale(cases, sizeof cases / sizeof cases[0], 1);
 }
 END_TEST
 
@@ -578,9 +530,5 @@ int main(void)
     tcase_add_test(tb, comma_locale_same_bytes);
     tcase_add_test(tb, help_lists_options);
     suite_add_tcase(s, tb);
-    SRunner *sr = srunner_create(s);
-    srunner_run_all(sr, CK_NORMAL);
-    int nf = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return nf ? EXIT_FAILURE : EXIT_SUCCESS;
+    return run_suite(s);
 }
