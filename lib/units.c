@@ -157,17 +157,30 @@ static double scan_sign(const char *s, size_t *i)
     return 1.0;
 }
 
+/* Leading spaces, an optional sign and an unsigned decimal at the start of
+ * text: *i is where the digits begin, *end just past them, *sign -1 or +1
+ * and *v the magnitude. */
+static cxl_status scan_leading(const char *text, size_t *i, size_t *end, double *sign,
+                               double *v, size_t *error_pos)
+{
+    *i = skip_spaces(text, 0);
+    *sign = scan_sign(text, i);
+    *v = 0.0;
+    int range_error = 0;
+    *end = scan_unsigned(text, *i, v, &range_error);
+    if (*end == *i) return fail(error_pos, *i, CXL_EPARSE);
+    if (range_error) return fail(error_pos, *i, CXL_ERANGE);
+    return CXL_OK;
+}
+
 cxl_status cxl_units_parse_number(const char *text, double *value,
                                   size_t *error_pos)
 {
     if (!text || !value) return CXL_EINVAL;
-    size_t i = skip_spaces(text, 0);
-    double sign = scan_sign(text, &i);
-    double v = 0.0;
-    int range_error = 0;
-    size_t end = scan_unsigned(text, i, &v, &range_error);
-    if (end == i) return fail(error_pos, i, CXL_EPARSE);
-    if (range_error) return fail(error_pos, i, CXL_ERANGE);
+    size_t i, end;
+    double sign, v;
+    cxl_status st = scan_leading(text, &i, &end, &sign, &v, error_pos);
+    if (st != CXL_OK) return st;
     end = skip_spaces(text, end);
     if (text[end] != '\0') return fail(error_pos, end, CXL_EPARSE);
     *value = sign * v;
@@ -298,13 +311,10 @@ static cxl_status parse_scaled(const char *text, const char *const *words,
                                size_t *error_pos)
 {
     if (!text || !out) return CXL_EINVAL;
-    size_t i = skip_spaces(text, 0);
-    double sign = scan_sign(text, &i);
-    double v = 0.0;
-    int range_error = 0;
-    size_t end = scan_unsigned(text, i, &v, &range_error);
-    if (end == i) return fail(error_pos, i, CXL_EPARSE);
-    if (range_error) return fail(error_pos, i, CXL_ERANGE);
+    size_t i, end;
+    double sign, v;
+    cxl_status st = scan_leading(text, &i, &end, &sign, &v, error_pos);
+    if (st != CXL_OK) return st;
     size_t u = skip_spaces(text, end);
     double scale = bare_scale;
     if (text[u] != '\0') {
