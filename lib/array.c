@@ -435,6 +435,17 @@ cxl_status cxl_array_response(const cxl_array_pair *pair, double freq_hz,
     return CXL_OK;
 }
 
+/* prepare, and the mean response over the whole sphere (the reference of
+ * a gain in dBi). */
+static cxl_status prepare_sphere(const cxl_array_pair *pair, double freq_hz,
+                                 pair_eval *e, double *mean)
+{
+    cxl_status st = prepare(pair, freq_hz, 0.0, e);
+    if (st)
+        return st;
+    return mean_power(e, -M_PI / 2.0, M_PI / 2.0, mean);
+}
+
 cxl_status cxl_array_pattern(const cxl_array_pair *pair, double freq_hz,
                              double elevation_deg, size_t n,
                              double *gain_dbi)
@@ -443,10 +454,7 @@ cxl_status cxl_array_pattern(const cxl_array_pair *pair, double freq_hz,
     double mean;
     if (!gain_dbi || n == 0 || !valid_elevation(elevation_deg))
         return CXL_EINVAL;
-    cxl_status st = prepare(pair, freq_hz, 0.0, &e);
-    if (st)
-        return st;
-    st = mean_power(&e, -M_PI / 2.0, M_PI / 2.0, &mean);
+    cxl_status st = prepare_sphere(pair, freq_hz, &e, &mean);
     if (st)
         return st;
     for (size_t i = 0; i < n; i++)
@@ -464,10 +472,7 @@ cxl_status cxl_array_gain(const cxl_array_pair *pair, double freq_hz,
     if (!gain_dbi || !isfinite(azimuth_deg) ||
         !valid_elevation(elevation_deg))
         return CXL_EINVAL;
-    cxl_status st = prepare(pair, freq_hz, 0.0, &e);
-    if (st)
-        return st;
-    st = mean_power(&e, -M_PI / 2.0, M_PI / 2.0, &mean);
+    cxl_status st = prepare_sphere(pair, freq_hz, &e, &mean);
     if (st)
         return st;
     *gain_dbi = cxl__power_db(
