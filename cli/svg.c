@@ -30,6 +30,14 @@ static void xy(FILE *fp, double x, double y)
     num(fp, y, 2);
 }
 
+/* An attribute with a coordinate or size: ' name="v"'. */
+static void attr(FILE *fp, const char *name, double v)
+{
+    fprintf(fp, " %s=\"", name);
+    num(fp, v, 2);
+    putc('"', fp);
+}
+
 /* Text content or attribute value: XML escapes; control bytes and bytes
  * that are not UTF-8 become U+FFFD, which XML always accepts. */
 static void text(FILE *fp, const char *s)
@@ -59,11 +67,10 @@ static void text(FILE *fp, const char *s)
 static void label_at(FILE *fp, double x, double y, const char *anchor, int size,
                      int halo, const char *s)
 {
-    fputs("<text x=\"", fp);
-    num(fp, x, 2);
-    fputs("\" y=\"", fp);
-    num(fp, y, 2);
-    fprintf(fp, "\" font-size=\"%d\" text-anchor=\"%s\"%s>", size, anchor,
+    fputs("<text", fp);
+    attr(fp, "x", x);
+    attr(fp, "y", y);
+    fprintf(fp, " font-size=\"%d\" text-anchor=\"%s\"%s>", size, anchor,
             halo ? " stroke=\"#ffffff\" stroke-width=\"3\" paint-order=\"stroke\"" : "");
     text(fp, s);
     fputs("</text>\n", fp);
@@ -78,18 +85,15 @@ static void label(FILE *fp, double x, double y, const char *anchor, int size,
 static void line(FILE *fp, double x0, double y0, double x1, double y1,
                  const char *stroke, double width, const char *dash)
 {
-    fputs("<line x1=\"", fp);
-    num(fp, x0, 2);
-    fputs("\" y1=\"", fp);
-    num(fp, y0, 2);
-    fputs("\" x2=\"", fp);
-    num(fp, x1, 2);
-    fputs("\" y2=\"", fp);
-    num(fp, y1, 2);
-    fprintf(fp, "\" stroke=\"%s\" stroke-width=\"", stroke);
-    num(fp, width, 2);
-    if (dash) fprintf(fp, "\" stroke-dasharray=\"%s", dash);
-    fputs("\"/>\n", fp);
+    fputs("<line", fp);
+    attr(fp, "x1", x0);
+    attr(fp, "y1", y0);
+    attr(fp, "x2", x1);
+    attr(fp, "y2", y1);
+    fprintf(fp, " stroke=\"%s\"", stroke);
+    attr(fp, "stroke-width", width);
+    if (dash) fprintf(fp, " stroke-dasharray=\"%s\"", dash);
+    fputs("/>\n", fp);
 }
 
 static void open_svg(FILE *fp, int width, int height, const char *title)
@@ -119,6 +123,13 @@ static void legend_and_notes(FILE *fp, double x, double y, const cli_svg_curve *
             label(fp, x, y, "start", 11, note[i]);
             y += 16.0;
         }
+}
+
+/* The end of a curve's <path d="...: its stroke, solid or dashed. */
+static void end_curve(FILE *fp, const char *colour, int dashed)
+{
+    fprintf(fp, "\" fill=\"none\" stroke=\"%s\" stroke-width=\"2\"%s/>\n", colour,
+            dashed ? " stroke-dasharray=\"7 4\"" : "");
 }
 
 static int close_svg(FILE *fp)
@@ -152,13 +163,11 @@ int cli_svg_polar_write(FILE *fp, const cli_svg_polar *p)
     /* rings, labelled in dB along the lower right diagonal */
     for (double v = top; v > floor_db + 1e-9; v -= step) {
         double r = radius * (v - floor_db) / range;
-        fputs("<circle cx=\"", fp);
-        num(fp, cx, 2);
-        fputs("\" cy=\"", fp);
-        num(fp, cy, 2);
-        fputs("\" r=\"", fp);
-        num(fp, r, 2);
-        fputs("\" fill=\"none\" stroke=\"#b0b0b0\" stroke-width=\"1\"/>\n", fp);
+        fputs("<circle", fp);
+        attr(fp, "cx", cx);
+        attr(fp, "cy", cy);
+        attr(fp, "r", r);
+        fputs(" fill=\"none\" stroke=\"#b0b0b0\" stroke-width=\"1\"/>\n", fp);
         char t[64], n[48];
         snprintf(t, sizeof t, "%s %s", cli_fmt(n, sizeof n, v, step < 1.0 ? 1 : 0),
                  p->unit ? p->unit : "dB");
@@ -186,8 +195,7 @@ int cli_svg_polar_write(FILE *fp, const cli_svg_polar *p)
             started = 1;
         }
         if (started) fputs(" Z", fp);
-        fprintf(fp, "\" fill=\"none\" stroke=\"%s\" stroke-width=\"2\"%s/>\n",
-                palette[k % NPALETTE], cv->dashed ? " stroke-dasharray=\"7 4\"" : "");
+        end_curve(fp, palette[k % NPALETTE], cv->dashed);
     }
     legend_and_notes(fp, 40.0, cy + radius + 56.0, p->curves, p->ncurves, p->note);
     return close_svg(fp);
@@ -250,11 +258,11 @@ int cli_svg_xy_write(FILE *fp, const cli_svg_xy *p)
     open_svg(fp, 720, height, p->title);
     for (size_t i = 0; i < p->nspans; i++) {
         double a = SX(fmax(p->spans[i].x0, x0)), b = SX(fmin(p->spans[i].x1, x1));
-        fputs("<rect x=\"", fp);
-        num(fp, a, 2);
-        fprintf(fp, "\" y=\"%d\" width=\"", (int)top);
-        num(fp, fmax(b - a, 1.0), 2);
-        fprintf(fp, "\" height=\"%d\" fill=\"#e6e6e6\"/>\n", (int)(bottom - top));
+        fputs("<rect", fp);
+        attr(fp, "x", a);
+        fprintf(fp, " y=\"%d\"", (int)top);
+        attr(fp, "width", fmax(b - a, 1.0));
+        fprintf(fp, " height=\"%d\" fill=\"#e6e6e6\"/>\n", (int)(bottom - top));
         label(fp, 0.5 * (a + b), top - 5.0, "middle", 11, p->spans[i].name);
     }
     int xd = tick_decimals(xs), yd = tick_decimals(ys);
@@ -286,15 +294,13 @@ int cli_svg_xy_write(FILE *fp, const cli_svg_xy *p)
             xy(fp, SX(cv->x[i]), SY(cv->y[i]));
             pen = 1;
         }
-        fprintf(fp, "\" fill=\"none\" stroke=\"%s\" stroke-width=\"2\"%s/>\n", colour,
-                cv->dashed ? " stroke-dasharray=\"7 4\"" : "");
+        end_curve(fp, colour, cv->dashed);
         for (size_t i = 0; cv->markers && i < cv->n; i++) {
             if (!isfinite(cv->x[i]) || !isfinite(cv->y[i])) continue;
-            fputs("<circle cx=\"", fp);
-            num(fp, SX(cv->x[i]), 2);
-            fputs("\" cy=\"", fp);
-            num(fp, SY(cv->y[i]), 2);
-            fprintf(fp, "\" r=\"3\" fill=\"%s\"/>\n", colour);
+            fputs("<circle", fp);
+            attr(fp, "cx", SX(cv->x[i]));
+            attr(fp, "cy", SY(cv->y[i]));
+            fprintf(fp, " r=\"3\" fill=\"%s\"/>\n", colour);
         }
     }
     label(fp, 0.5 * (left + right), bottom + 40.0, "middle", 13, p->x_label);
