@@ -137,7 +137,7 @@ START_TEST(batch_bad_files)
 {
     bad_with_file("cut --input %s", "", 0, "input", NULL);
     bad_with_file("cut --input %s", "label,offset,vf\n", 16, "input", NULL);
-    bad_with_file("cut --input %s", "label,length\nx,1m\n", 19, "input", NULL);
+    bad_with_file("cut --input %s", "label,length\nx,1m\n", 18, "input", NULL);
     bad("cut --input /nonexistent/file.csv", "input");
 }
 END_TEST
