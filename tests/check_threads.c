@@ -77,17 +77,23 @@ static void *thread_main(void *arg)
     return (void *)mismatches;
 }
 
-START_TEST(same_results_in_threads)
+/* NTHREADS threads of fn at once; each returns its count of mismatches. */
+static void run_threads(void *(*fn)(void *))
 {
-    for (int i = 0; i < ROUNDS; i++) work(i, expected[i], sizeof expected[i]);
     pthread_t th[NTHREADS];
     for (long t = 0; t < NTHREADS; t++)
-        ck_assert_int_eq(pthread_create(&th[t], NULL, thread_main, (void *)t), 0);
+        ck_assert_int_eq(pthread_create(&th[t], NULL, fn, (void *)t), 0);
     for (int t = 0; t < NTHREADS; t++) {
         void *res = NULL;
         pthread_join(th[t], &res);
         ck_assert_int_eq((long)res, 0);
     }
+}
+
+START_TEST(same_results_in_threads)
+{
+    for (int i = 0; i < ROUNDS; i++) work(i, expected[i], sizeof expected[i]);
+    run_threads(thread_main);
     ck_assert_str_ne(expected[0], "error");
 }
 END_TEST
@@ -103,14 +109,7 @@ START_TEST(same_results_under_thread_locale)
         return;
     }
     for (int i = 0; i < ROUNDS; i++) work(i, expected[i], sizeof expected[i]);
-    pthread_t th[NTHREADS];
-    for (long t = 0; t < NTHREADS; t++)
-        ck_assert_int_eq(pthread_create(&th[t], NULL, thread_main, (void *)t), 0);
-    for (int t = 0; t < NTHREADS; t++) {
-        void *res = NULL;
-        pthread_join(th[t], &res);
-        ck_assert_int_eq((long)res, 0);
-    }
+    run_threads(thread_main);
     ck_assert_str_ne(expected[0], "error");
     freelocale(thread_locale);
     thread_locale = (locale_t)0;
@@ -288,14 +287,7 @@ START_TEST(catalogs_in_threads)
         for (int k = 0; k < catalog_expected[i].nv; k++)
             ck_assert_msg(isfinite(catalog_expected[i].v[k]), "seed %d result %d", i, k);
     }
-    pthread_t th[NTHREADS];
-    for (long t = 0; t < NTHREADS; t++)
-        ck_assert_int_eq(pthread_create(&th[t], NULL, catalog_thread, (void *)t), 0);
-    for (int t = 0; t < NTHREADS; t++) {
-        void *res = NULL;
-        pthread_join(th[t], &res);
-        ck_assert_int_eq((long)res, 0);
-    }
+    run_threads(catalog_thread);
 }
 END_TEST
 
