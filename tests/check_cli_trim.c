@@ -208,7 +208,8 @@ END_TEST
 
 START_TEST(cable_without_geometry)
 {
-    char *cables = temp_file("name,vf\nspool7,0.83\n", 22);
+    static const char text[] = "name,vf\nspool7,0.83\n";
+    char *cables = temp_file(text, sizeof text - 1);
     char args[400];
     snprintf(args, sizeof args, "trim --cables %s --cable spool7 --length 20m --resonance 2.47MHz"
              TARGET, cables);
