@@ -34,11 +34,14 @@ static int null_tolerance(const cli_ctx *ctx, const cli_args *a, double *toleran
 
 static int fb_tolerance(cli_ctx *ctx, const cli_args *a, double freq_hz, double *tolerance_deg)
 {
-    static const char expected[] = "a ratio in dB, such as 20";
+    static const char expected[] = "a ratio in dB above 0, such as 20";
+    const char *text = cli_get(a, "front-to-back", 0);
     double goal_db, fb0, tol;
-    if (cli_number(ctx, "front-to-back", cli_get(a, "front-to-back", 0),
-                   -(CXL_DB_LIMIT - 1.0), CXL_DB_LIMIT - 1.0, expected, &goal_db))
+    if (cli_number(ctx, "front-to-back", text, 0.0, CXL_DB_LIMIT - 1.0, expected, &goal_db))
         return CLI_EXIT_USAGE;
+    /* a goal of 0 dB or less asks for nothing: any pair meets it */
+    if (!(goal_db > 0.0))
+        return cli_error(ctx, "front-to-back", expected, "'%s' must be above 0 dB", text);
     cli_pair_spec spec;
     cxl_array_pair *pair = NULL;
     if (cli_pair_spec_parse(ctx, a, &spec)) return CLI_EXIT_USAGE;

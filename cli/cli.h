@@ -98,8 +98,21 @@ int cli_flag(const cli_args *a, const char *name);
 int cli_items(const cli_ctx *ctx, const cli_args *a, const char *name,
               char *buf, size_t bufsize, const char **items, size_t max);
 
+/* Bounds every value typed on the command line or in a batch cell must
+ * keep, so that every number derived from it stays finite and printable
+ * in text, CSV and as a tape reading (common practice, no source): no line,
+ * stagger or run is longer than 10 000 km, no delay longer than 1 s, coax
+ * is used from 1 Hz to 1 THz, and no transmission line is slower than a
+ * thousandth of the speed of light. */
+#define CLI_MAX_LENGTH_M 1e7
+#define CLI_MAX_TIME_S 1.0
+#define CLI_MIN_FREQ_HZ 1.0
+#define CLI_MAX_FREQ_HZ 1e12
+#define CLI_MIN_VF 1e-3
+
 /* Parsers that report a one-line error naming the field.  Each returns 0
- * on success, CLI_EXIT_USAGE after cli_error(). */
+ * on success, CLI_EXIT_USAGE after cli_error(); each applies the bounds
+ * above. */
 enum { CLI_ANY = 0, CLI_POSITIVE = 1, CLI_NONNEG = 2 };
 int cli_length(const cli_ctx *ctx, const char *field, const char *text,
                int sign_rule, double *length_m);

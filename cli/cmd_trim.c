@@ -108,6 +108,10 @@ static int read_piece(cli_ctx *ctx, const cli_args *a, trim_in *in)
     if ((t = cli_get(a, "fixture", 0)) &&
         cli_length(ctx, "fixture", t, CLI_NONNEG, &in->fixture_m))
         return CLI_EXIT_USAGE;
+    /* a fixture's VF is not silently dropped without a fixture (its
+     * tolerance alone is meaningful: where the reference plane is) */
+    if (cli_count(a, "fixture-vf") && !cli_count(a, "fixture"))
+        return cli_error(ctx, "fixture-vf", "--fixture 0.15m with it", "given without --fixture");
     if ((t = cli_get(a, "fixture-vf", 0)) && cli_vf(ctx, "fixture-vf", t, &in->fixture_vf))
         return CLI_EXIT_USAGE;
     if ((t = cli_get(a, "fixture-tol", 0)) &&
@@ -118,6 +122,8 @@ static int read_piece(cli_ctx *ctx, const cli_args *a, trim_in *in)
         size_t pos = 0;
         if (cxl_units_parse_freq(t, &in->res_hz, &pos) != CXL_OK || !(in->res_hz >= 0.0))
             return cli_error(ctx, "resolution", expected, "'%s' is not a frequency step", t);
+        if (in->res_hz > CLI_MAX_FREQ_HZ)
+            return cli_error(ctx, "resolution", expected, "'%s' is above 1 THz", t);
     }
     return read_readings(ctx, a, in);
 }
@@ -136,6 +142,11 @@ static int set_target(cli_ctx *ctx, const cli_args *a, const trim_in *in, cxl_tr
                          kinds ? "give only one target" : "a target is needed");
     double f = 0.0, v;
     char b1[64], b2[64];
+    static const char *const match_opts[] = { "match-end", "match-order" };
+    for (int i = 0; i < 2; i++)
+        if (!mr && cli_count(a, match_opts[i]))
+            return cli_error(ctx, match_opts[i], "--match-resonance 2.471MHz with it",
+                             "given without --match-resonance");
     if (ft && cli_freq(ctx, "freq", ft, &f)) return CLI_EXIT_USAGE;
     if (ft && mr)
         return cli_error(ctx, "freq", "--freq with --degrees or --delay",
@@ -295,6 +306,36 @@ static int result_finite(const cxl_trim_result *r)
     return ok;
 }
 
+/* A finite result can still hold lengths no tape or column shows (a
+ * target of 1e-300 degrees keeps no piece at all, a 1 Hz target a piece
+ * the size of a planet): the piece to keep is from 1 mm to the longest
+ * length the command takes, and so are the cut and the resolutions
+ * (common practice, no source). */
+static int result_printable(cli_ctx *ctx, const cli_args *a, const cxl_trim_result *r)
+{
+    double cut, keep, res;
+    char b1[48];
+    cxl_trim_result_cut(r, &cut, &keep, &res, NULL);
+    if (!(keep >= 1e-3 && keep <= CLI_MAX_LENGTH_M && fabs(cut) <= CLI_MAX_LENGTH_M)) {
+        const char *field = cli_count(a, "degrees") ? "degrees"
+                          : cli_count(a, "delay") ? "delay" : "match-resonance";
+        return cli_error(ctx, field, "a target that keeps from 1 mm to 10000 km of the piece",
+                         "the target keeps %s m", keep < 1e-3 ? "less than 0.001"
+                         : cli_fmt(b1, sizeof b1, keep, 0));
+    }
+    int bad = !(res <= CLI_MAX_LENGTH_M);
+    for (size_t i = 0; i < cxl_trim_result_count(r); i++) {
+        double rm;
+        cxl_trim_result_reading(r, i, NULL, NULL, NULL, NULL, &rm);
+        bad = bad || !(rm <= CLI_MAX_LENGTH_M);
+    }
+    if (bad)
+        return cli_error(ctx, cli_count(a, "fixture-tol") ? "fixture-tol" : "resolution",
+                         "a resolution and fixture tolerance that resolve under 10000 km",
+                         "the measurement resolves no better than 10000 km");
+    return 0;
+}
+
 static int solve_error(cli_ctx *ctx, cxl_status st)
 {
     if (st == CXL_EINCONSISTENT)
@@ -344,6 +385,7 @@ static int trim_run(cli_ctx *ctx, const cli_args *a)
         cli_error(ctx, "resonance", "readings of an ordinary piece of cable", "no finite result");
         goto done;
     }
+    if (result_printable(ctx, a, r)) goto done;
     double cut, res;
     cxl_trim_action act;
     unsigned flags;

@@ -170,8 +170,13 @@ int cli_length(const cli_ctx *ctx, const char *field, const char *text,
     size_t pos = 0;
     double v = 0.0;
     cxl_status st = cxl_units_parse_length(text, ctx->units, &v, &pos);
-    return finish_quantity(ctx, field, text, st, pos, v, sign_rule, "length",
-                           "a length such as 12.5m, 1250mm, 41ft 6in or 41' 6 3/8\"", length_m);
+    if (finish_quantity(ctx, field, text, st, pos, v, sign_rule, "length",
+                        "a length such as 12.5m, 1250mm, 41ft 6in or 41' 6 3/8\"", &v))
+        return CLI_EXIT_USAGE;
+    if (fabs(v) > CLI_MAX_LENGTH_M)
+        return cli_error(ctx, field, "a length up to 10000 km", "'%s' is longer than 10000 km", text);
+    *length_m = v;
+    return 0;
 }
 
 int cli_freq(const cli_ctx *ctx, const char *field, const char *text,
@@ -180,8 +185,14 @@ int cli_freq(const cli_ctx *ctx, const char *field, const char *text,
     size_t pos = 0;
     double v = 0.0;
     cxl_status st = cxl_units_parse_freq(text, &v, &pos);
-    return finish_quantity(ctx, field, text, st, pos, v, CLI_POSITIVE, "frequency",
-                           "a frequency such as 1.83MHz, 1830kHz or 1830000Hz", freq_hz);
+    if (finish_quantity(ctx, field, text, st, pos, v, CLI_POSITIVE, "frequency",
+                        "a frequency such as 1.83MHz, 1830kHz or 1830000Hz", &v))
+        return CLI_EXIT_USAGE;
+    if (v < CLI_MIN_FREQ_HZ || v > CLI_MAX_FREQ_HZ)
+        return cli_error(ctx, field, "a frequency from 1 Hz to 1 THz, such as 1.83MHz",
+                         "'%s' is %s", text, v < CLI_MIN_FREQ_HZ ? "below 1 Hz" : "above 1 THz");
+    *freq_hz = v;
+    return 0;
 }
 
 int cli_time(const cli_ctx *ctx, const char *field, const char *text,
@@ -190,8 +201,13 @@ int cli_time(const cli_ctx *ctx, const char *field, const char *text,
     size_t pos = 0;
     double v = 0.0;
     cxl_status st = cxl_units_parse_time(text, &v, &pos);
-    return finish_quantity(ctx, field, text, st, pos, v, sign_rule, "time",
-                           "a time such as 33.4ns or 0.0334us", delay_s);
+    if (finish_quantity(ctx, field, text, st, pos, v, sign_rule, "time",
+                        "a time such as 33.4ns or 0.0334us", &v))
+        return CLI_EXIT_USAGE;
+    if (fabs(v) > CLI_MAX_TIME_S)
+        return cli_error(ctx, field, "a time up to 1 s, such as 33.4ns", "'%s' is longer than 1 s", text);
+    *delay_s = v;
+    return 0;
 }
 
 int cli_number(const cli_ctx *ctx, const char *field, const char *text,
@@ -222,6 +238,8 @@ int cli_vf(const cli_ctx *ctx, const char *field, const char *text, double *vf)
                          v > 40.0 ? " (a percentage? write it as a ratio)" : "");
     if (!(v > 0.0) || v > 1.0)
         return cli_error(ctx, field, expected, "%s is out of range", text);
+    if (v < CLI_MIN_VF)
+        return cli_error(ctx, field, expected, "%s is below 0.001, slower than any line", text);
     *vf = v;
     return 0;
 }
@@ -318,6 +336,9 @@ int cli_vf_or_cable(cli_ctx *ctx, const cli_args *a, double *vf, const char **ca
     cxl_catalog_name(cli_catalog(ctx), i, &name);
     if (cxl_catalog_value(cli_catalog(ctx), i, CXL_CABLE_VF, vf) != CXL_OK)
         return cli_error(ctx, "cable", "a cable with a vf value", "cable '%s' has no velocity factor", c);
+    if (*vf < CLI_MIN_VF) /* a user file's row: the same floor as --vf */
+        return cli_error(ctx, "cable", "a cable with a velocity factor of 0.001 or more",
+                         "cable '%s' has a velocity factor below 0.001", c);
     if (cable_name) *cable_name = name;
     return 0;
 }

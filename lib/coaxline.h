@@ -331,7 +331,8 @@ cxl_status cxl_pair_phase_error(double length_m, double reference_m,
                                 double vf, double freq_hz,
                                 double *phase_error_deg);
 /* The same with the reference given as an electrical length reference_deg
- * at reference_freq_hz on the same cable. */
+ * at reference_freq_hz on the same cable (CXL_ERANGE when that rounds to no
+ * length). */
 cxl_status cxl_pair_phase_error_ref_deg(double length_m, double vf,
                                         double reference_deg,
                                         double reference_freq_hz,
@@ -821,7 +822,8 @@ cxl_status cxl_transfer_delay(double ratio_re, double ratio_im,
                               double *delay_deg);
 /* A lossless line of real impedance z0_ohm and velocity factor vf at
  * freq_hz: transfer in dB, delay in degrees, and the electrical length
- * 360 f l / (vf c) in degrees (electrical_deg may be NULL). */
+ * 360 f l / (vf c) in degrees (electrical_deg may be NULL; CXL_ERANGE when
+ * the phase constant or that length over- or underflows). */
 cxl_status cxl_transfer_lossless(double z0_ohm, double vf, double length_m,
                                  double freq_hz, double load_re_ohm,
                                  double load_im_ohm, double *transfer_db,
@@ -871,7 +873,7 @@ cxl_status cxl_drift_new(const double *freq_hz, const double *vf,
                          const double *vf_err, size_t n, cxl_drift **drift);
 /* From the per-reading VFs of a stub fit; freq_res_hz (>= 0) the analyzer's
  * resolution, which weights each reading by its VF error VF df / f (equal
- * weights when 0). */
+ * weights when 0; CXL_ERANGE when that error under- or overflows). */
 cxl_status cxl_drift_new_stub(const cxl_stub_result *result,
                               double freq_res_hz, cxl_drift **drift);
 void cxl_drift_free(cxl_drift *drift);
@@ -951,9 +953,9 @@ cxl_status cxl_trim_target_delay(cxl_trim *trim, double delay_s,
 cxl_status cxl_trim_target_resonance(cxl_trim *trim, cxl_stub_end end,
                                      int order, double freq_hz);
 /* Fit the readings and compute the cut.  CXL_EINVAL without readings or
- * target; CXL_ERANGE when a reading implies no plausible VF (0.5 to 1) or
- * the target is not positive after the fixture; CXL_EINCONSISTENT when
- * given orders do not rise with frequency. */
+ * target; CXL_ERANGE when a reading implies no plausible VF (0.5 to 1), the
+ * target is not positive after the fixture or a resolution overflows;
+ * CXL_EINCONSISTENT when given orders do not rise with frequency. */
 cxl_status cxl_trim_solve(const cxl_trim *trim, cxl_trim_result **result);
 void cxl_trim_result_free(cxl_trim_result *result);
 /* Length to cut off (negative: the piece is short), the length that will

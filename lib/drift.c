@@ -114,6 +114,9 @@ cxl_status cxl_drift_new_stub(const cxl_stub_result *result, double freq_res_hz,
         st = cxl_stub_result_reading(result, i, NULL, &f[i], NULL, &v[i], NULL, NULL);
         /* a frequency step df moves a reading's VF by VF df / f */
         e[i] = v[i] * freq_res_hz / f[i];
+        /* a resolution so fine or so coarse that the error under- or
+         * overflows is out of range, not an invalid argument */
+        if (st == CXL_OK && freq_res_hz > 0.0 && !cxl__finite_pos(e[i])) st = CXL_ERANGE;
     }
     if (st == CXL_OK) st = cxl_drift_new(f, v, freq_res_hz > 0.0 ? e : NULL, n, drift);
     free(buf);

@@ -56,6 +56,8 @@ cxl_status cxl_pair_phase_error_ref_deg(double length_m, double vf,
     cxl_status st = cxl_line_length_from_degrees(reference_deg, reference_freq_hz,
                                                  vf, &reference_m);
     if (st != CXL_OK) return st;
+    /* a reference of a few subnormal degrees rounds to no length at all */
+    if (!(reference_m > 0.0)) return CXL_ERANGE;
     return cxl_pair_phase_error(length_m, reference_m, vf, freq_hz, phase_error_deg);
 }
 

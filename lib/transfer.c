@@ -30,6 +30,7 @@
 /* e^{-gamma l} and Gamma of a load, with the arguments checked. */
 typedef struct terminated {
     gsl_complex z0, g, e1; /* Z0, Gamma_L, e^{-gamma l} */
+    gsl_complex g1;        /* 1 + Gamma_L, as 2 ZL / (ZL + Z0) */
 } terminated;
 
 static int valid_line(double z0_re, double z0_im, double alpha, double beta,
@@ -53,6 +54,9 @@ static cxl_status terminate(double z0_re, double z0_im, double alpha, double bet
     gsl_complex den = gsl_complex_add(zl, t->z0);
     /* Re Z0 > 0 and Re ZL >= 0, so |ZL + Z0| > 0 */
     t->g = gsl_complex_div(gsl_complex_sub(zl, t->z0), den);
+    /* not 1 + G: for a shorted load that leaves a rounding residue of
+     * 1e-17 with a meaningless phase instead of an exact 0 */
+    t->g1 = gsl_complex_div(gsl_complex_mul_real(zl, 2.0), den);
     t->e1 = gsl_complex_polar(exp(-a_l), -b_l);
     return CXL_OK;
 }
@@ -69,7 +73,7 @@ cxl_status cxl_transfer_ratio(double z0_re_ohm, double z0_im_ohm,
                               length_m, load_re_ohm, load_im_ohm, &t);
     if (st != CXL_OK) return st;
     /* (1 + G) e^{-gl} / (1 + G e^{-2gl}) */
-    gsl_complex num = gsl_complex_mul(gsl_complex_add_real(t.g, 1.0), t.e1);
+    gsl_complex num = gsl_complex_mul(t.g1, t.e1);
     gsl_complex den = gsl_complex_add_real(
         gsl_complex_mul(t.g, gsl_complex_mul(t.e1, t.e1)), 1.0);
     double dn = gsl_complex_abs(den), nn = gsl_complex_abs(num);
@@ -111,6 +115,8 @@ static cxl_status transfer_all(double z0_re, double z0_im, double alpha, double 
     if (!transfer_db || !delay_deg) return CXL_EINVAL;
     cxl_status st = cxl_transfer_ratio(z0_re, z0_im, alpha, beta, length_m, load_re,
                                        load_im, &rr, &ri);
+    /* a line so long that its length in degrees overflows */
+    if (st == CXL_OK && !isfinite(el)) st = CXL_ERANGE;
     if (st == CXL_OK) st = cxl_transfer_delay(rr, ri, el, &db, &dl);
     if (st != CXL_OK) return st;
     *transfer_db = db;
@@ -124,8 +130,13 @@ cxl_status cxl_transfer_lossless(double z0_ohm, double vf, double length_m,
                                  double load_im_ohm, double *transfer_db,
                                  double *delay_deg, double *electrical_deg)
 {
-    if (!cxl__valid_vf(vf) || !cxl__finite_pos(freq_hz)) return CXL_EINVAL;
+    if (!cxl__valid_vf(vf) || !cxl__finite_pos(freq_hz) ||
+        !valid_line(z0_ohm, 0.0, 0.0, 1.0, length_m) || !cxl__finite_nonneg(load_re_ohm) ||
+        !isfinite(load_im_ohm))
+        return CXL_EINVAL;
     double beta = 2.0 * M_PI * freq_hz / (vf * CXL_C_M_PER_S);
+    /* valid arguments whose phase constant over- or underflows */
+    if (!cxl__finite_pos(beta)) return CXL_ERANGE;
     return transfer_all(z0_ohm, 0.0, 0.0, beta, length_m, load_re_ohm, load_im_ohm,
                         transfer_db, delay_deg, electrical_deg);
 }

@@ -373,7 +373,8 @@ cxl_status cxl_trim_solve(const cxl_trim *trim, cxl_trim_result **result)
         cxl_stub_wavelengths(trim->end, r->order[i], &k);
         /* dE = k c df / f^2 free-space metres, times VF as cable */
         r->resolution_m[i] = r->vf[i] * k * CXL_C_M_PER_S * trim->freq_res_hz /
-                             (r->freq_hz[i] * r->freq_hz[i]);
+                             r->freq_hz[i] / r->freq_hz[i];
+        if (!isfinite(r->resolution_m[i])) { st = CXL_ERANGE; goto done; }
         st = expected_freq(trim, drift, r->order[i], r->remaining_m, r->freq_hz[i], r->vf[i],
                            &r->expected_hz[i]);
         if (st != CXL_OK) goto done;
@@ -381,7 +382,9 @@ cxl_status cxl_trim_solve(const cxl_trim *trim, cxl_trim_result **result)
     double fix_tol = trim->fixture_tol_m *
                      (trim->fixture_vf > 0.0 ? vf_t / trim->fixture_vf : 1.0);
     double res_vf = r->remaining_m * vf_err / vf_t;
-    r->resolution_m_all = sqrt(res_vf * res_vf + fix_tol * fix_tol);
+    /* hypot: a huge fixture tolerance must not square to infinity */
+    r->resolution_m_all = hypot(res_vf, fix_tol);
+    if (!isfinite(r->resolution_m_all)) { st = CXL_ERANGE; goto done; }
     if (r->cut_m > r->resolution_m_all) r->action = CXL_TRIM_CUT;
     else if (r->cut_m < -r->resolution_m_all) r->action = CXL_TRIM_SHORT;
     else r->action = CXL_TRIM_WITHIN;

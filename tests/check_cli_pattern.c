@@ -316,7 +316,8 @@ START_TEST(bad_input)
     bad("pattern --freq 1.83MHz --plot-range 3 --plot /tmp/x.svg", "plot-range");
     bad("pattern --freq 1.83MHz --plot-freq 0Hz --plot /tmp/x.svg", "plot-freq");
     bad("pattern --freq 1.83MHz --plot-freq 1.9MHz", "plot-freq");
-    bad("pattern --stagger 1e9m --freq 30MHz", "freq");   /* beyond the model's size */
+    bad("pattern --stagger 1e7m --freq 30MHz", "freq");   /* beyond the model's size */
+    bad("pattern --stagger 1e9m --freq 30MHz", "stagger"); /* beyond any length taken */
     bad("budget --band 160m", "null-depth");
     bad("budget --null-depth -20 --front-to-back 20 --band 160m", "null-depth");
     bad("budget --null-depth 5 --band 160m", "null-depth");
