@@ -152,14 +152,38 @@ static int check_sign(const cli_ctx *ctx, const char *field, const char *text,
     return 0;
 }
 
-/* The steps every quantity shares: parse, report a parse error, check
- * the sign, store. */
+/* What one kind of quantity needs for its messages and bounds. */
+typedef struct quantity {
+    const char *kind;            /* "length" */
+    const char *expected;        /* example for a parse or sign error */
+    double min_abs, max_abs;     /* bounds on the magnitude (0: none below) */
+    const char *bound_expected;  /* example for a bound error */
+    const char *too_small, *too_big;
+} quantity;
+
+static const quantity LENGTH = {
+    "length", "a length such as 12.5m, 1250mm, 41ft 6in or 41' 6 3/8\"",
+    0.0, CLI_MAX_LENGTH_M, "a length up to 10000 km", NULL, "longer than 10000 km" };
+static const quantity FREQUENCY = {
+    "frequency", "a frequency such as 1.83MHz, 1830kHz or 1830000Hz",
+    CLI_MIN_FREQ_HZ, CLI_MAX_FREQ_HZ, "a frequency from 1 Hz to 1 THz, such as 1.83MHz",
+    "below 1 Hz", "above 1 THz" };
+static const quantity TIME = {
+    "time", "a time such as 33.4ns or 0.0334us",
+    0.0, CLI_MAX_TIME_S, "a time up to 1 s, such as 33.4ns", NULL, "longer than 1 s" };
+
+/* The steps every quantity shares: report a parse error, check the sign
+ * and the bounds, store. */
 static int finish_quantity(const cli_ctx *ctx, const char *field, const char *text,
                            cxl_status st, size_t pos, double v, int sign_rule,
-                           const char *kind, const char *expected, double *out)
+                           const quantity *q, double *out)
 {
-    if (st != CXL_OK) return report_parse(ctx, field, text, st, pos, kind, expected);
-    if (check_sign(ctx, field, text, v, sign_rule, expected)) return CLI_EXIT_USAGE;
+    if (st != CXL_OK) return report_parse(ctx, field, text, st, pos, q->kind, q->expected);
+    if (check_sign(ctx, field, text, v, sign_rule, q->expected)) return CLI_EXIT_USAGE;
+    if (fabs(v) > q->max_abs)
+        return cli_error(ctx, field, q->bound_expected, "'%s' is %s", text, q->too_big);
+    if (fabs(v) < q->min_abs)
+        return cli_error(ctx, field, q->bound_expected, "'%s' is %s", text, q->too_small);
     *out = v;
     return 0;
 }
@@ -170,13 +194,7 @@ int cli_length(const cli_ctx *ctx, const char *field, const char *text,
     size_t pos = 0;
     double v = 0.0;
     cxl_status st = cxl_units_parse_length(text, ctx->units, &v, &pos);
-    if (finish_quantity(ctx, field, text, st, pos, v, sign_rule, "length",
-                        "a length such as 12.5m, 1250mm, 41ft 6in or 41' 6 3/8\"", &v))
-        return CLI_EXIT_USAGE;
-    if (fabs(v) > CLI_MAX_LENGTH_M)
-        return cli_error(ctx, field, "a length up to 10000 km", "'%s' is longer than 10000 km", text);
-    *length_m = v;
-    return 0;
+    return finish_quantity(ctx, field, text, st, pos, v, sign_rule, &LENGTH, length_m);
 }
 
 int cli_freq(const cli_ctx *ctx, const char *field, const char *text,
@@ -185,14 +203,7 @@ int cli_freq(const cli_ctx *ctx, const char *field, const char *text,
     size_t pos = 0;
     double v = 0.0;
     cxl_status st = cxl_units_parse_freq(text, &v, &pos);
-    if (finish_quantity(ctx, field, text, st, pos, v, CLI_POSITIVE, "frequency",
-                        "a frequency such as 1.83MHz, 1830kHz or 1830000Hz", &v))
-        return CLI_EXIT_USAGE;
-    if (v < CLI_MIN_FREQ_HZ || v > CLI_MAX_FREQ_HZ)
-        return cli_error(ctx, field, "a frequency from 1 Hz to 1 THz, such as 1.83MHz",
-                         "'%s' is %s", text, v < CLI_MIN_FREQ_HZ ? "below 1 Hz" : "above 1 THz");
-    *freq_hz = v;
-    return 0;
+    return finish_quantity(ctx, field, text, st, pos, v, CLI_POSITIVE, &FREQUENCY, freq_hz);
 }
 
 int cli_time(const cli_ctx *ctx, const char *field, const char *text,
@@ -201,13 +212,7 @@ int cli_time(const cli_ctx *ctx, const char *field, const char *text,
     size_t pos = 0;
     double v = 0.0;
     cxl_status st = cxl_units_parse_time(text, &v, &pos);
-    if (finish_quantity(ctx, field, text, st, pos, v, sign_rule, "time",
-                        "a time such as 33.4ns or 0.0334us", &v))
-        return CLI_EXIT_USAGE;
-    if (fabs(v) > CLI_MAX_TIME_S)
-        return cli_error(ctx, field, "a time up to 1 s, such as 33.4ns", "'%s' is longer than 1 s", text);
-    *delay_s = v;
-    return 0;
+    return finish_quantity(ctx, field, text, st, pos, v, sign_rule, &TIME, delay_s);
 }
 
 int cli_number(const cli_ctx *ctx, const char *field, const char *text,
