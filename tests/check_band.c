@@ -124,7 +124,7 @@ START_TEST(test_every_band_every_region)
     }
     /* every row names its source and its service; footnote rows are R1 */
     size_t n = cxl_bands_count(bands);
-    ck_assert_uint_eq(n, 45);
+    ck_assert_uint_eq(n, 45);   /* the rows of data/bands.csv (self-consistency) */
     for (size_t i = 0; i < n; i++) {
         const char *name, *footnote, *source;
         cxl_service service;

@@ -152,13 +152,13 @@ START_TEST(test_measured_spool_cut_length)
     double vf, z0, cut;
     int builtin;
     ck_assert_int_eq(cxl_catalog_value(cat, i, CXL_CABLE_VF, &vf), CXL_OK);
-    ck_assert_double_eq(vf, 0.831);
+    ck_assert_double_eq(vf, 0.831);   /* as written in the file */
     ck_assert_int_eq(cxl_catalog_value(cat, i, CXL_CABLE_Z0_OHM, &z0), CXL_ENOTFOUND);
     ck_assert_int_eq(cxl_catalog_is_builtin(cat, i, &builtin), CXL_OK);
     ck_assert_int_eq(builtin, 0);
     /* L = VF c t (DESIGN.md, electrical length): 0.831 * 299792458 m/s * 100 ns */
     ck_assert_int_eq(cxl_line_cut_length(100e-9, vf, 0.0, 1.0, &cut), CXL_OK);
-    ck_assert_double_eq_tol(cut, 24.91275326, 1e-7);
+    ck_assert_double_eq_tol(cut, 24.91275326, 1e-7);   /* = 24.91275326 m by hand */
     /* no geometry: no physical model */
     cxl_loss_model *m;
     ck_assert_int_eq(cxl_loss_model_new_cable(cat, i, &m), CXL_ENOTFOUND);
@@ -177,11 +177,11 @@ START_TEST(test_user_cable_full_row_and_loss)
     ck_assert_int_eq(cxl_catalog_find(cat, "drop 75", &i), CXL_OK); /* trimmed */
     double v;
     ck_assert_int_eq(cxl_catalog_value(cat, i, CXL_CABLE_INNER_DIAMETER_M, &v), CXL_OK);
-    ck_assert_double_eq_tol(v, 1.02e-3, 1e-15);
+    ck_assert_double_eq_tol(v, 1.02e-3, 1e-15);   /* 1.02 mm in the file, in metres */
     ck_assert_int_eq(cxl_catalog_value(cat, i, CXL_CABLE_CLAD_THICKNESS_M, &v), CXL_OK);
-    ck_assert_double_eq_tol(v, 0.03e-3, 1e-15);
+    ck_assert_double_eq_tol(v, 0.03e-3, 1e-15);   /* 0.03 mm in the file */
     ck_assert_int_eq(cxl_catalog_value(cat, i, CXL_CABLE_CONDUCTOR_LOSS_FACTOR, &v), CXL_OK);
-    ck_assert_double_eq(v, 1.2);
+    ck_assert_double_eq(v, 1.2);   /* as written in the file */
     const char *src;
     ck_assert_int_eq(cxl_catalog_source(cat, i, &src), CXL_OK);
     ck_assert_str_eq(src, "bench, drum 3");
@@ -192,8 +192,8 @@ START_TEST(test_user_cable_full_row_and_loss)
     ck_assert_uint_eq(n, 3);
     double f, l;
     ck_assert_int_eq(cxl_catalog_loss_point(cat, i, 0, &f, &l, NULL), CXL_OK);
-    ck_assert_double_eq_tol(f, 3.5e6, 1e-6);
-    ck_assert_double_eq_tol(l, 0.021, 1e-15);
+    ck_assert_double_eq_tol(f, 3.5e6, 1e-6);    /* lowest of the three, sorted */
+    ck_assert_double_eq_tol(l, 0.021, 1e-15);   /* 2.1 dB/100 m in dB/m */
     ck_assert_int_eq(cxl_catalog_loss_point(cat, i, 3, &f, &l, NULL), CXL_ERANGE);
     /* a later point for the same cable at a new frequency is accepted ... */
     ck_assert_int_eq(load("name,freq_mhz,loss_db_per_100m\ndrop 75,30,7\n", 0, NULL, NULL, 0), CXL_OK);
@@ -273,7 +273,7 @@ START_TEST(test_comma_locale)
     ck_assert_int_eq(cxl_catalog_new(&c2), CXL_OK);
     ck_assert_int_eq(cxl_catalog_find(c2, "RG-58", &i), CXL_OK);
     ck_assert_int_eq(cxl_catalog_value(c2, i, CXL_CABLE_VF, &vf), CXL_OK);
-    ck_assert_double_eq(vf, 0.66);
+    ck_assert_double_eq(vf, 0.66);   /* RG-58's row in data/cables.csv */
     ck_assert_str_eq(localeconv()->decimal_point, ",");
     cxl_catalog_free(c2);
     setlocale(LC_ALL, "C");

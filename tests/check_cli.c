@@ -27,6 +27,7 @@ END_TEST
 START_TEST(cut_text)
 {
     /* 8 m = 26 ft 2.9606 in, to the nearest sixteenth 2 15/16 (1 in = 25.4 mm exact) */
+    /* 8.000 m, 7.4948 MHz and 21.975 deg: the hand working in cut_csv_values */
     cli_result r = run_cli(NULL, CUT_10M " --label 'east delay'", NULL);
     ck_assert_int_eq(r.rc, 0);
     has(r.out, "cut: east delay");
@@ -55,7 +56,8 @@ START_TEST(cut_other_inputs)
     r = run_cli(NULL, "cut --degrees 90 --freq 1.83MHz --vf 0.66 --format csv", NULL);
     has(r.out, ",27.030,");
     cli_result_free(&r);
-    /* imperial input: 32 ft 9.7 in is 10.0 m to the mm */
+    /* imperial input: 32 ft 9 11/16 in = 393.6875 in * 25.4 mm = 9.9997 m,
+     * 10.000 m to the mm (1 in = 25.4 mm exact) */
     r = run_cli(NULL, "cut --offset \"32' 9 11/16\\\"\" --vf 0.8 --format csv", NULL);
     ck_assert_int_eq(r.rc, 0);
     has(r.out, ",10.000,");

@@ -7,7 +7,8 @@
  *
  * Also here: CSV output cannot carry a spreadsheet formula in a label.
  * Expected values come from the command's documented contract
- * (man/coaxline.1, DESIGN.md); no numeric reference values are checked. */
+ * (man/coaxline.1, DESIGN.md); the few computed numbers a case expects
+ * (column 9) have their working in the header of tests/bad_inputs.tsv. */
 #include <config.h>
 #include <check.h>
 #include <ctype.h>

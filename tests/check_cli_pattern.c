@@ -400,7 +400,9 @@ START_TEST(hybrid_values)
     r = run_cli(NULL, "hybrid --impedance 50 --to 75 --format csv --pairs 1", NULL);
     has(r.out, "\n,50.00,100.00,25.00,75.00,1.7321,1,4,7,76.56,");
     cli_result_free(&r);
-    /* --ratio 4: 25 -> 100 ohm is exactly 1:2 */
+    /* --ratio 4: 25 -> 100 ohm is exactly 1:2; a perfect match prints the
+     * clamp CXL_DB_LIMIT (300 dB, coaxline.h) for return loss and isolation,
+     * and the single input loses 10 log10 2 = 3.010 dB */
     r = run_cli(NULL, "hybrid --impedance 50 --ratio 4 --format csv --pairs 1", NULL);
     has(r.out, "\n,50.00,100.00,25.00,100.00,2.0000,1,1,2,100.00,1.000,300.00,3.010,300.00\n");
     cli_result_free(&r);

@@ -20,14 +20,14 @@ START_TEST(exact_law_is_recovered)
     ck_assert_int_eq(cxl_drift_new(f, v, NULL, 4, &d), CXL_OK);
     double hf, drop, vf, err, lo, hi;
     ck_assert_int_eq(cxl_drift_coefficients(d, &hf, &drop), CXL_OK);
-    ck_assert_double_eq_tol(hf, 0.66, 1e-12);
-    ck_assert_double_eq_tol(drop, 0.5, 1e-9);
+    ck_assert_double_eq_tol(hf, 0.66, 1e-12);   /* the law's constant */
+    ck_assert_double_eq_tol(drop, 0.5, 1e-9);   /* the law's 1/sqrt(f) term */
     ck_assert_int_eq(cxl_drift_vf(d, 1.83e6, &vf, &err), CXL_OK);
     ck_assert_double_eq_tol(vf, 0.66 - 3.696e-4, 1e-7);
     ck_assert_double_eq_tol(err, 0.0, 1e-9); /* no scatter */
     ck_assert_int_eq(cxl_drift_range(d, &lo, &hi), CXL_OK);
-    ck_assert_double_eq(lo, 2.0e6);
-    ck_assert_double_eq(hi, 14.0e6);
+    ck_assert_double_eq(lo, 2.0e6);    /* lowest reading */
+    ck_assert_double_eq(hi, 14.0e6);   /* highest reading */
     cxl_drift_free(d);
     /* with stated errors the prediction carries one, larger away from the
      * readings (variance [1 x] Cov [1 x]^T grows with x) */

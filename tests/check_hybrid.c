@@ -121,7 +121,7 @@ START_TEST(test_response)
     /* Shorted common port: same magnitude. */
     ck_assert_int_eq(cxl_hybrid_response(-1.0, 0.0, 0.0, 0.0, &c, &iso),
                      CXL_OK);
-    ck_assert_double_eq_tol(iso, 6.0206, 1e-4);
+    ck_assert_double_eq_tol(iso, 6.0206, 1e-4);   /* 20 log10 2, |b3| = 1/2 */
     /* Common port return loss 20 dB (|Gamma| = 0.1): isolation
      * 6.02 + 20 = 26.02 dB (same derivation). */
     ck_assert_int_eq(cxl_hybrid_response(0.0, 0.1, 0.0, 0.0, &c, &iso),

@@ -82,7 +82,8 @@ END_TEST
 START_TEST(test_pair_160m_passes_40m_fails)
 {
     /* 20.00 and 20.30 m, VF 0.66, tolerance 2 deg.  By the identity:
-     * 1.8 MHz 0.982 deg, 2.0 MHz 1.092 deg (160 m, ITU RR Art. 5 Regions 2
+     * 1.8 MHz 0.982 deg, 1.9 MHz 1.037 deg, 2.0 MHz 1.092 deg
+     * (360 f 0.30 / (0.66 c); 160 m, ITU RR Art. 5 Regions 2
      * and 3: 1800-2000 kHz) -> pass; 7.0 MHz 3.821 deg -> fail. */
     const double len[] = { 20.00, 20.30 };
     const double f160[] = { 1.8e6, 1.9e6, 2.0e6 };
@@ -92,8 +93,8 @@ START_TEST(test_pair_160m_passes_40m_fails)
     for (int i = 0; i < 3; i++) {
         ck_assert_int_eq(cxl_pair_check(len, 2, 0.66, f160[i], 2.0, 0.0, 0.0, &d, &ph, &u, &v),
                          CXL_OK);
-        ck_assert_double_eq_tol(d, 0.30, 1e-12);
-        ck_assert_double_eq_tol(ph, want160[i], 5e-4);
+        ck_assert_double_eq_tol(d, 0.30, 1e-12);          /* 20.30 - 20.00 */
+        ck_assert_double_eq_tol(ph, want160[i], 5e-4);    /* hand values above */
         ck_assert_double_eq_tol(u, 0.0, 1e-12);
         ck_assert_int_eq(v, CXL_VERDICT_PASS);
     }
@@ -117,7 +118,8 @@ START_TEST(test_pair_many_lines)
     cxl_verdict v;
     ck_assert_int_eq(cxl_pair_check(len, 4, 0.66, 1.83e6, 2.0, 0.0, 0.0, &d, &ph, &u, &v),
                      CXL_OK);
-    ck_assert_double_eq_tol(d, 0.12, 1e-12);
+    ck_assert_double_eq_tol(d, 0.12, 1e-12);   /* 20.10 - 19.98 */
+    /* the identity in the file header comment (Pozar sec. 2.1) */
     ck_assert_double_eq_tol(ph, 360.0 * 1.83e6 * 0.12 / (0.66 * C0), 1e-12);
 }
 END_TEST

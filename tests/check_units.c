@@ -25,6 +25,10 @@ static double len(const char *s, cxl_units u)
 
 START_TEST(lengths_metric)
 {
+    /* SI prefixes m, c (SI Brochure, 9th ed., BIPM 2019, table of SI
+     * prefixes, table number not checked); a bare
+     * number is metres in metric and feet in imperial (the library's own
+     * convention, coaxline.h) */
     ck_assert_double_eq_tol(len("12.5m", CXL_UNITS_METRIC), 12.5, TOL(12.5));
     ck_assert_double_eq_tol(len("1250mm", CXL_UNITS_METRIC), 1.25, TOL(1.25));
     ck_assert_double_eq_tol(len("125 cm", CXL_UNITS_METRIC), 1.25, TOL(1.25));
@@ -83,6 +87,10 @@ END_TEST
 
 START_TEST(frequencies_and_times)
 {
+    /* SI prefixes k, M, G, n, u (SI Brochure, 9th ed., BIPM 2019, table of SI
+     * prefixes, table number not checked);
+     * unit names case-insensitive and a bare frequency in MHz are the
+     * library's own conventions (coaxline.h): self-consistency */
     double v;
     ck_assert_int_eq(cxl_units_parse_freq("1830kHz", &v, NULL), CXL_OK);
     ck_assert_double_eq_tol(v, 1.83e6, TOL(1.83e6));
