@@ -17,7 +17,7 @@ import scipy.constants as sc
 import skrf
 from skrf.media import Coaxial
 
-TOL = 0.01  # 1 % on attenuation and Z0 (task requirement)
+TOL = 0.01  # 1 % on attenuation and Z0: the agreement the project asks of the model (common practice, no source)
 SIGMA_CU = 58.0e6  # S/m, annealed copper, IEC 60028
 
 # (label, inner diameter m, dielectric diameter m, eps_r): miniature, RG-58
