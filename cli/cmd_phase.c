@@ -66,7 +66,7 @@ static int reference_length(const cli_ctx *ctx, const cli_args *a, double vf,
         return cli_error(ctx, "reference-deg", "electrical degrees above 0, such as 90",
                          "'%s' must be greater than zero", d);
     if (!f) return cli_error(ctx, "reference-freq", expected, "--reference-deg needs its frequency");
-    if (cli_line_freq(ctx, "reference-freq", f, deg_freq_hz)) return CLI_EXIT_USAGE;
+    if (cli_freq(ctx, "reference-freq", f, deg_freq_hz)) return CLI_EXIT_USAGE;
     if (cxl_line_length_from_degrees(*deg, *deg_freq_hz, vf, reference_m) != CXL_OK ||
         !isfinite(*reference_m) || !(*reference_m > 0.0))
         return cli_error(ctx, "reference-deg", "a smaller value", "gives no usable length");
