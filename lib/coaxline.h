@@ -202,8 +202,9 @@ cxl_status cxl_bands_get(const cxl_bands *bands, size_t index,
                          int *region, double *low_hz, double *high_hz,
                          const char **footnote, const char **source);
 /* The table's own name for a band as a user may type it ("160", "160M"
- * -> "160m"): same matching as cxl_bands_edges; the string lives as long
- * as the table.  CXL_ENOTFOUND for a band with no row. */
+ * -> "160m"): same matching as cxl_bands_edges.  *name is the name string
+ * of the band's first row (the one cxl_bands_get gives for that index),
+ * living as long as the table.  CXL_ENOTFOUND for a band with no row. */
 cxl_status cxl_bands_name(const cxl_bands *bands, const char *band,
                           const char **name);
 /* Edges of a band: the lowest low edge and highest high edge of its rows
