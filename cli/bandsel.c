@@ -44,10 +44,12 @@ int cli_band_lookup(cli_ctx *ctx, const char *item, int region, int footnotes,
     return 0;
 }
 
-int cli_freq_points(cli_ctx *ctx, const cli_args *a, cli_freq_point *pts, size_t max)
+int cli_freq_points(cli_ctx *ctx, const cli_args *a, cli_freq_point *pts, size_t max,
+                    int *region_out)
 {
     int region;
     if (cli_region(ctx, a, &region)) return -1;
+    if (region_out) *region_out = region;
     int footnotes = !cli_flag(a, "exclude-footnotes");
     char buf[1024];
     const char *items[CLI_MAX_ITEMS];

@@ -160,9 +160,11 @@ const cxl_bands *cli_bands(cli_ctx *ctx);
 int cli_region(const cli_ctx *ctx, const cli_args *a, int *region);
 /* Low edge, centre and high edge of each --band (for --region, or the
  * widest across Regions; footnote segments counted unless
- * --exclude-footnotes), then each --freq.  Returns the number of points,
- * or -1 after cli_error() (also when there is none at all). */
-int cli_freq_points(cli_ctx *ctx, const cli_args *a, cli_freq_point *pts, size_t max);
+ * --exclude-footnotes), then each --freq.  *region (may be NULL) gets
+ * --region as cli_region() reads it.  Returns the number of points, or -1
+ * after cli_error() (also when there is none at all). */
+int cli_freq_points(cli_ctx *ctx, const cli_args *a, cli_freq_point *pts, size_t max,
+                    int *region);
 /* Edges of one band the user typed (for region 1-3, or 0: widest across
  * Regions) and the table's own name for it (*name: "160m" for "160").
  * Returns 0, or CLI_EXIT_USAGE after cli_error() for an unknown band. */

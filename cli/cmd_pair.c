@@ -405,7 +405,7 @@ static int pair_run(cli_ctx *ctx, const cli_args *a)
     cli_freq_point pts[MAX_POINTS];
     check c[MAX_POINTS];
     if (cli_line_freq_items(ctx, a)) return CLI_EXIT_USAGE;
-    int np = cli_freq_points(ctx, a, pts, MAX_POINTS);
+    int np = cli_freq_points(ctx, a, pts, MAX_POINTS, NULL);
     if (np < 0 || resolve_tolerance(ctx, a, pts[0].freq_hz, &s.tol, &s.reachable))
         return CLI_EXIT_USAGE;
     int code = cli_load_parse(ctx, a, s.vf, &s.load), failed = 0;

@@ -212,8 +212,8 @@ static int phase_run(cli_ctx *ctx, const cli_args *a)
     int region;
     cli_freq_point pts[MAX_POINTS];
     if (cli_line_freq_items(ctx, a)) return CLI_EXIT_USAGE;
-    int np = cli_freq_points(ctx, a, pts, MAX_POINTS);
-    if (np < 0 || cli_region(ctx, a, &region)) return CLI_EXIT_USAGE;
+    int np = cli_freq_points(ctx, a, pts, MAX_POINTS, &region);
+    if (np < 0) return CLI_EXIT_USAGE;
 
     phase_point r[MAX_POINTS];
     int code = cli_load_parse(ctx, a, p.vf, &p.load);
