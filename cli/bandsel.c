@@ -28,26 +28,6 @@ int cli_region(const cli_ctx *ctx, const cli_args *a, int *region)
     return 0;
 }
 
-/* The table's own name for a band the user typed ("160", "160M" ->
- * "160m"): the first row whose band has the same widest edges.  Rows
- * outside those edges are skipped cheaply, so a batch row costs a few
- * comparisons, not a scan per table row. */
-static const char *canonical_name(const cxl_bands *bands, const char *item)
-{
-    double lo, hi;
-    if (cxl_bands_edges(bands, item, 0, 1, &lo, &hi) != CXL_OK) return NULL;
-    for (size_t r = 0; r < cxl_bands_count(bands); r++) {
-        const char *name;
-        double rl, rh;
-        if (cxl_bands_get(bands, r, &name, NULL, NULL, &rl, &rh, NULL, NULL) != CXL_OK ||
-            rl < lo || rh > hi)
-            continue;
-        if (cxl_bands_edges(bands, name, 0, 1, &rl, &rh) == CXL_OK && rl == lo && rh == hi)
-            return name;
-    }
-    return NULL;
-}
-
 int cli_band_lookup(cli_ctx *ctx, const char *item, int region, int footnotes,
                     double *low_hz, double *high_hz, const char **name)
 {
@@ -60,15 +40,16 @@ int cli_band_lookup(cli_ctx *ctx, const char *item, int region, int footnotes,
                          item, region);
     if (st != CXL_OK)
         return cli_error(ctx, "band", "a band such as 160m", "%s", cxl_strerror(st));
-    const char *canon = canonical_name(bands, item);
-    *name = canon ? canon : item;
+    if (cxl_bands_name(bands, item, name) != CXL_OK) *name = item;
     return 0;
 }
 
-int cli_freq_points(cli_ctx *ctx, const cli_args *a, cli_freq_point *pts, size_t max)
+int cli_freq_points(cli_ctx *ctx, const cli_args *a, cli_freq_point *pts, size_t max,
+                    int *region_out)
 {
     int region;
     if (cli_region(ctx, a, &region)) return -1;
+    if (region_out) *region_out = region;
     int footnotes = !cli_flag(a, "exclude-footnotes");
     char buf[1024];
     const char *items[CLI_MAX_ITEMS];

@@ -160,9 +160,11 @@ const cxl_bands *cli_bands(cli_ctx *ctx);
 int cli_region(const cli_ctx *ctx, const cli_args *a, int *region);
 /* Low edge, centre and high edge of each --band (for --region, or the
  * widest across Regions; footnote segments counted unless
- * --exclude-footnotes), then each --freq.  Returns the number of points,
- * or -1 after cli_error() (also when there is none at all). */
-int cli_freq_points(cli_ctx *ctx, const cli_args *a, cli_freq_point *pts, size_t max);
+ * --exclude-footnotes), then each --freq.  *region (may be NULL) gets
+ * --region as cli_region() reads it.  Returns the number of points, or -1
+ * after cli_error() (also when there is none at all). */
+int cli_freq_points(cli_ctx *ctx, const cli_args *a, cli_freq_point *pts, size_t max,
+                    int *region);
 /* Edges of one band the user typed (for region 1-3, or 0: widest across
  * Regions) and the table's own name for it (*name: "160m" for "160").
  * Returns 0, or CLI_EXIT_USAGE after cli_error() for an unknown band. */
@@ -402,21 +404,19 @@ extern const cli_command cli_cmd_pair;
 
 /* Limits that keep every number phase and pair print finite and readable
  * (the same as cut's, common practice, no source): a line from 1 mm to
- * 1000 km, frequencies up to 1 THz, a velocity factor of at least 0.01
- * (slow-wave delay lines go down to a few hundredths).  Each returns 0, or
- * CLI_EXIT_USAGE after cli_error(). */
+ * 1000 km, frequencies as cli_freq() bounds them (up to 1 THz), a velocity
+ * factor of at least 0.01 (slow-wave delay lines go down to a few
+ * hundredths).  Each returns 0, or CLI_EXIT_USAGE after cli_error(). */
 #define CLI_LINE_MIN_M 1e-3
 #define CLI_LINE_MAX_M 1e6
-#define CLI_LINE_MAX_HZ 1e12
 #define CLI_LINE_MIN_VF 0.01
 int cli_line_length(const cli_ctx *ctx, const char *field, const char *text,
                     double *length_m);
 /* A length worked out from other values (e.g. --reference-deg). */
 int cli_line_length_check(const cli_ctx *ctx, const char *field, const char *text,
                           double length_m);
-int cli_line_freq(const cli_ctx *ctx, const char *field, const char *text,
-                  double *freq_hz);
-/* Every --freq item up to 1 THz (before cli_freq_points reads them). */
+/* Every --freq item through cli_freq(), before cli_freq_points() reads
+ * them, so a bad --freq is reported ahead of a bad --band. */
 int cli_line_freq_items(const cli_ctx *ctx, const cli_args *a);
 int cli_line_vf_check(const cli_ctx *ctx, const cli_args *a, double vf);
 

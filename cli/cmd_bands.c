@@ -151,13 +151,10 @@ static int bands_run(cli_ctx *ctx, const cli_args *a)
             shown++;
             continue;
         }
-        /* widest view: one line per band, at its first row */
-        size_t first = 0;
-        const char *other;
-        while (cxl_bands_get(bands, first, &other, NULL, NULL, NULL, NULL, NULL, NULL) == CXL_OK &&
-               strcmp(other, name) != 0)
-            first++;
-        if (first != r) continue;
+        /* widest view: one line per band, at its first row (the row
+         * whose name string cxl_bands_name hands back) */
+        const char *first;
+        if (cxl_bands_name(bands, name, &first) != CXL_OK || first != name) continue;
         shown += (size_t)widest_row(ctx, &list, bands, name, footnotes);
     }
     if (ctx->format == CLI_TEXT) {

@@ -38,7 +38,7 @@ static int budget_run(cli_ctx *ctx, const cli_args *a)
     cli_pair_spec spec;
 
     if (cli_pair_spec_parse(ctx, a, &spec)) return CLI_EXIT_USAGE;
-    int n = cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0]);
+    int n = cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0], NULL);
     if (n < 0) {
         cli_pair_spec_free(&spec);
         return CLI_EXIT_USAGE;

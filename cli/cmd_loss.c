@@ -223,7 +223,7 @@ static int loss_run(cli_ctx *ctx, const cli_args *a)
     }
 
     cli_freq_point pts[MAX_POINTS];
-    int n = cli_freq_points(ctx, a, pts, MAX_POINTS);
+    int n = cli_freq_points(ctx, a, pts, MAX_POINTS, NULL);
     if (n < 0) return CLI_EXIT_USAGE;
 
     loss_setup s = { 0 };

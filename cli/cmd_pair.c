@@ -188,12 +188,16 @@ static int check_point(cli_ctx *ctx, const pair_set *s, double f, int want_allow
                        &v) != CXL_OK ||
         !isfinite(c->err_deg) || !isfinite(c->unc_deg))
         return cli_error(ctx, "freq", "a smaller frequency", "gives no finite phase error");
-    c->elec_deg = c->err_deg;
-    c->imbalance_db = 0.0;
-    c->has_allowed = want_allowed && s->reachable &&
-                     cxl_pair_max_mismatch(s->tol, s->vf, f, &c->allowed_m) == CXL_OK &&
-                     isfinite(c->allowed_m);
-    if (s->load.given && load_check(ctx, s, f, want_allowed, c)) return CLI_EXIT_USAGE;
+    if (s->load.given) {
+        /* into the load: error, uncertainty and allowance replaced */
+        if (load_check(ctx, s, f, want_allowed, c)) return CLI_EXIT_USAGE;
+    } else {
+        c->elec_deg = c->err_deg;
+        c->imbalance_db = 0.0;
+        c->has_allowed = want_allowed && s->reachable &&
+                         cxl_pair_max_mismatch(s->tol, s->vf, f, &c->allowed_m) == CXL_OK &&
+                         isfinite(c->allowed_m);
+    }
     if (!s->reachable || c->err_deg > s->tol) c->verdict = CXL_VERDICT_FAIL;
     else if (c->err_deg + c->unc_deg > s->tol) c->verdict = CXL_VERDICT_PASS_UNCERTAIN;
     else c->verdict = CXL_VERDICT_PASS;
@@ -401,7 +405,7 @@ static int pair_run(cli_ctx *ctx, const cli_args *a)
     cli_freq_point pts[MAX_POINTS];
     check c[MAX_POINTS];
     if (cli_line_freq_items(ctx, a)) return CLI_EXIT_USAGE;
-    int np = cli_freq_points(ctx, a, pts, MAX_POINTS);
+    int np = cli_freq_points(ctx, a, pts, MAX_POINTS, NULL);
     if (np < 0 || resolve_tolerance(ctx, a, pts[0].freq_hz, &s.tol, &s.reachable))
         return CLI_EXIT_USAGE;
     int code = cli_load_parse(ctx, a, s.vf, &s.load), failed = 0;

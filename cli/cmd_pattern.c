@@ -235,7 +235,7 @@ static int pattern_run(cli_ctx *ctx, const cli_args *a)
     cli_pair_spec s;
     double plot_hz = 0.0;
     if (cli_pair_spec_parse(ctx, a, &s)) return CLI_EXIT_USAGE;
-    int n = cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0]);
+    int n = cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0], NULL);
     int code = n < 0 ? CLI_EXIT_USAGE : 0;
     if (!code && (cli_count(a, "plot-freq") || cli_count(a, "plot-range")) && !cli_count(a, "plot"))
         code = cli_error(ctx, cli_count(a, "plot-freq") ? "plot-freq" : "plot-range",

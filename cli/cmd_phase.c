@@ -66,7 +66,7 @@ static int reference_length(const cli_ctx *ctx, const cli_args *a, double vf,
         return cli_error(ctx, "reference-deg", "electrical degrees above 0, such as 90",
                          "'%s' must be greater than zero", d);
     if (!f) return cli_error(ctx, "reference-freq", expected, "--reference-deg needs its frequency");
-    if (cli_line_freq(ctx, "reference-freq", f, deg_freq_hz)) return CLI_EXIT_USAGE;
+    if (cli_freq(ctx, "reference-freq", f, deg_freq_hz)) return CLI_EXIT_USAGE;
     if (cxl_line_length_from_degrees(*deg, *deg_freq_hz, vf, reference_m) != CXL_OK ||
         !isfinite(*reference_m) || !(*reference_m > 0.0))
         return cli_error(ctx, "reference-deg", "a smaller value", "gives no usable length");
@@ -172,23 +172,18 @@ static void text_output(cli_ctx *ctx, const cli_args *a, const phase_line *p, co
     fprintf(o, ", footnote segments %s\n", cli_flag(a, "exclude-footnotes") ? "left out" : "included");
     if (!p->load.given) {
         fprintf(o, "  %-6s %-7s %16s  %s\n", "band", "edge", "frequency", "phase error");
-        for (int i = 0; i < np; i++) {
-            int first = i == 0 || strcmp(pts[i].band, pts[i - 1].band) != 0 || !pts[i].band[0];
-            fprintf(o, "  %-6s %-7s %12s MHz  %s deg\n", first ? pts[i].band : "", pts[i].edge,
-                    cli_fmt(b1, sizeof b1, pts[i].freq_hz / 1e6, 6),
-                    cli_fmt_signed(b2, sizeof b2, r[i].err_deg, 3));
-        }
-        return;
+    } else {
+        fprintf(o, "  %-6s %-7s %16s  %-15s %10s %10s %10s %9s\n", "band", "edge", "frequency",
+                "phase error", "electrical", "into load", "departure", "transfer");
+        fprintf(o, "  %-6s %-7s %16s  %-15s %10s %10s %10s %9s\n", "", "", "", "", "deg", "deg",
+                "deg", "dB");
     }
-    fprintf(o, "  %-6s %-7s %16s  %-15s %10s %10s %10s %9s\n", "band", "edge", "frequency",
-            "phase error", "electrical", "into load", "departure", "transfer");
-    fprintf(o, "  %-6s %-7s %16s  %-15s %10s %10s %10s %9s\n", "", "", "", "", "deg", "deg", "deg",
-            "dB");
     for (int i = 0; i < np; i++) {
         int first = i == 0 || strcmp(pts[i].band, pts[i - 1].band) != 0 || !pts[i].band[0];
         fprintf(o, "  %-6s %-7s %12s MHz  %s deg\n", first ? pts[i].band : "", pts[i].edge,
                 cli_fmt(b1, sizeof b1, pts[i].freq_hz / 1e6, 6),
                 cli_fmt_signed(b2, sizeof b2, r[i].err_deg, 3));
+        if (!p->load.given) continue;
         fprintf(o, "%35s%-15s %10s %10s %10s %9s\n", "", "  line", cli_fmt(b2, sizeof b2, r[i].elec_deg, 3),
                 cli_fmt(b3, sizeof b3, r[i].xfer_deg, 3),
                 cli_fmt_signed(b4, sizeof b4, r[i].xfer_deg - r[i].elec_deg, 3),
@@ -217,8 +212,8 @@ static int phase_run(cli_ctx *ctx, const cli_args *a)
     int region;
     cli_freq_point pts[MAX_POINTS];
     if (cli_line_freq_items(ctx, a)) return CLI_EXIT_USAGE;
-    int np = cli_freq_points(ctx, a, pts, MAX_POINTS);
-    if (np < 0 || cli_region(ctx, a, &region)) return CLI_EXIT_USAGE;
+    int np = cli_freq_points(ctx, a, pts, MAX_POINTS, &region);
+    if (np < 0) return CLI_EXIT_USAGE;
 
     phase_point r[MAX_POINTS];
     int code = cli_load_parse(ctx, a, p.vf, &p.load);

@@ -6,7 +6,6 @@
 #include "cli.h"
 
 #define LENGTH_EXPECTED "a line length from 1 mm to 1000 km, such as 20.10m"
-#define FREQ_EXPECTED "a frequency up to 1 THz, such as 1.83MHz"
 
 int cli_line_length_check(const cli_ctx *ctx, const char *field, const char *text,
                           double length_m)
@@ -29,17 +28,6 @@ int cli_line_length(const cli_ctx *ctx, const char *field, const char *text,
     return 0;
 }
 
-int cli_line_freq(const cli_ctx *ctx, const char *field, const char *text,
-                  double *freq_hz)
-{
-    double v;
-    if (cli_freq(ctx, field, text, &v)) return CLI_EXIT_USAGE;
-    if (!(v <= CLI_LINE_MAX_HZ))
-        return cli_error(ctx, field, FREQ_EXPECTED, "'%s' is above 1 THz", text);
-    *freq_hz = v;
-    return 0;
-}
-
 int cli_line_freq_items(const cli_ctx *ctx, const cli_args *a)
 {
     char buf[1024];
@@ -48,7 +36,7 @@ int cli_line_freq_items(const cli_ctx *ctx, const cli_args *a)
     int n = cli_items(ctx, a, "freq", buf, sizeof buf, items, CLI_MAX_ITEMS);
     if (n < 0) return CLI_EXIT_USAGE;
     for (int i = 0; i < n; i++)
-        if (cli_line_freq(ctx, "freq", items[i], &f)) return CLI_EXIT_USAGE;
+        if (cli_freq(ctx, "freq", items[i], &f)) return CLI_EXIT_USAGE;
     return 0;
 }
 

@@ -236,6 +236,20 @@ cxl_status cxl_bands_get(const cxl_bands *bands, size_t index,
     return CXL_OK;
 }
 
+cxl_status cxl_bands_name(const cxl_bands *bands, const char *band,
+                          const char **name)
+{
+    char want[NAME_MAX_CHARS + 1];
+    if (!bands || !band || !name) return CXL_EINVAL;
+    if (!canonical_name(band, want)) return CXL_ENOTFOUND;
+    for (size_t i = 0; i < bands->count; i++)
+        if (strcmp(bands->rows[i].name, want) == 0) {
+            *name = bands->rows[i].name;
+            return CXL_OK;
+        }
+    return CXL_ENOTFOUND;
+}
+
 cxl_status cxl_bands_edges(const cxl_bands *bands, const char *band,
                            int region, int include_footnotes,
                            double *low_hz, double *high_hz)

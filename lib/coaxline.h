@@ -201,6 +201,12 @@ cxl_status cxl_bands_get(const cxl_bands *bands, size_t index,
                          const char **name, cxl_service *service,
                          int *region, double *low_hz, double *high_hz,
                          const char **footnote, const char **source);
+/* The table's own name for a band as a user may type it ("160", "160M"
+ * -> "160m"): same matching as cxl_bands_edges.  *name is the name string
+ * of the band's first row (the one cxl_bands_get gives for that index),
+ * living as long as the table.  CXL_ENOTFOUND for a band with no row. */
+cxl_status cxl_bands_name(const cxl_bands *bands, const char *band,
+                          const char **name);
 /* Edges of a band: the lowest low edge and highest high edge of its rows
  * in region (1-3), or across all Regions for region 0, footnote segments
  * counted when include_footnotes is non-zero.  Names are case-insensitive

@@ -355,6 +355,14 @@ ADAPTER(bands_get)
     o[6] = ptr_out(src);
     return st;
 }
+ADAPTER(bands_name)
+{
+    (void)a;
+    const char *name = sentinel_text;
+    cxl_status st = cxl_bands_name(P(0, g_bands), P(1, "160"), P(2, &name));
+    o[0] = ptr_out(name);
+    return st;
+}
 ADAPTER(bands_edges)
 {
     return cxl_bands_edges(P(0, g_bands), P(1, "160m"), to_int(a[0]), to_int(a[1]),
@@ -1011,6 +1019,7 @@ static api_case cases[] = {
     { "cxl_bands_new", call_bands_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
     { "cxl_bands_new_stream", call_bands_new_stream, 0, {0}, {0}, 3, 0x4, 1, 0, {{0}} },
     { "cxl_bands_get", call_bands_get, 1, {0}, {&K_INDEX}, 8, 0xFE, 7, 0, {{0}} },
+    { "cxl_bands_name", call_bands_name, 0, {0}, {0}, 3, 0, 1, 0, {{0}} },
     { "cxl_bands_edges", call_bands_edges, 2, {0, 1}, {&K_REGION, &K_ANYINT}, 4, 0, 2, 0, {{0}} },
     /* stub.c */
     { "cxl_stub_wavelengths", call_stub_wavelengths, 2, {CXL_STUB_OPEN, 3}, {&K_ENUM2, &K_ORDER}, 1, 0, 1, 0, {{0}} },
