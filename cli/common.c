@@ -22,16 +22,17 @@ static void put_clean(FILE *fp, const char *s)
     for (; *s; s++) putc((unsigned char)*s < 0x20 || *s == 0x7f ? '?' : *s, fp);
 }
 
-int cli_error(const cli_ctx *ctx, const char *field, const char *expected,
-              const char *fmt, ...)
+/* One line on stderr: prefix, optional "warning: " or "FIELD: ", the
+ * message, optional "(expected ...)".  Pending stdout goes first so the
+ * two streams stay in order. */
+static void vreport(const cli_ctx *ctx, const char *tag, const char *field,
+                    const char *expected, const char *fmt, va_list ap)
 {
     char msg[512];
-    va_list ap;
-    va_start(ap, fmt);
     vsnprintf(msg, sizeof msg, fmt, ap);
-    va_end(ap);
     fflush(ctx && ctx->out ? ctx->out : stdout);
     prefix(ctx, stderr);
+    if (tag) fputs(tag, stderr);
     if (field) fprintf(stderr, "%s: ", field);
     put_clean(stderr, msg);
     if (expected) {
@@ -40,21 +41,24 @@ int cli_error(const cli_ctx *ctx, const char *field, const char *expected,
         putc(')', stderr);
     }
     putc('\n', stderr);
+}
+
+int cli_error(const cli_ctx *ctx, const char *field, const char *expected,
+              const char *fmt, ...)
+{
+    va_list ap;
+    va_start(ap, fmt);
+    vreport(ctx, NULL, field, expected, fmt, ap);
+    va_end(ap);
     return CLI_EXIT_USAGE;
 }
 
 void cli_warn(const cli_ctx *ctx, const char *fmt, ...)
 {
-    char msg[512];
     va_list ap;
     va_start(ap, fmt);
-    vsnprintf(msg, sizeof msg, fmt, ap);
+    vreport(ctx, "warning: ", NULL, NULL, fmt, ap);
     va_end(ap);
-    fflush(ctx && ctx->out ? ctx->out : stdout);
-    prefix(ctx, stderr);
-    fputs("warning: ", stderr);
-    put_clean(stderr, msg);
-    putc('\n', stderr);
 }
 
 /* ---- option values ---------------------------------------------------- */
