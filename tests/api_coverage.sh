@@ -15,7 +15,7 @@ if [ ! -f "$src" ]; then
 fi
 pass=0
 fail=0
-for sym in $(nm -D --defined-only "$lib" | awk '$2 == "T" && $3 ~ /^cxl_[a-z]/ {print $3}' | sort -u); do
+for sym in $(nm -D --defined-only "$lib" | awk '$2 == "T" && $3 ~ /^cxl_[a-z]/ {sub(/@.*/, "", $3); print $3}' | sort -u); do
     # a call: the name followed by an opening parenthesis
     if grep -Eq "(^|[^A-Za-z0-9_])$sym[[:space:]]*\(" "$src"; then
         pass=$((pass + 1))

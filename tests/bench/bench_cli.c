@@ -75,7 +75,7 @@ static double freq_points(void *ctx, long n)
     cli_freq_point pts[8];
     double acc = 0.0;
     for (long i = 0; i < n; i++) {
-        int np = cli_freq_points(&b->ctx, &b->args, pts, 8);
+        int np = cli_freq_points(&b->ctx, &b->args, pts, 8, NULL);
         if (np != 3) { fprintf(stderr, "bench_cli: cli_freq_points failed\n"); exit(2); }
         acc += pts[0].freq_hz;
     }
@@ -108,7 +108,7 @@ static double phase_row(void *ctx, long n)
             cli_length(&b->ctx, "reference", cli_get(a, "reference", 0), CLI_POSITIVE, &ref) ||
             cli_vf_or_cable(&b->ctx, a, &vf, NULL))
             exit(2);
-        int np = cli_freq_points(&b->ctx, a, pts, 8);
+        int np = cli_freq_points(&b->ctx, a, pts, 8, NULL);
         if (np != 3) exit(2);
         const char *label = cli_label(a);
         for (int k = 0; k < np; k++) {
