@@ -1,27 +1,32 @@
 /* bench_batch.c - batch throughput and start-up time of the coaxline CLI
- * on this machine, against a plain Python script and a minimal C floor.
+ * on this machine, against C floors and a plain numpy script.
  *
- * Run by `make bench` (never by make check):
- *   bench_batch --builddir DIR --srcdir DIR --python PY [--rows N]
+ * Run by `make bench` (and, short, by `make bench-quick`):
+ *   bench_batch --builddir DIR --srcdir DIR --python PY [--quick] [--rows N]
  *               [--reference-fraction F] [--repeat N] [--startup-runs N]
  *               [--commands LIST] [--startup-binary PATH] [--keep]
  *
  * For each batch command (phase, pair, cut) it generates a CSV of N rows
  * (1,000,000 by default), then
- *   - checks, on the first 300 rows, that coaxline, the reference script
- *     (tests/bench/reference.py) and the floor (tests/bench/floor.c) print
- *     the same numbers (within one unit of the last printed decimal);
- *   - times `coaxline CMD --input FILE --format csv > /dev/null`, the floor
- *     and the reference script (on a fraction of the rows, extrapolated);
- *   - reports rows/s, input MB/s and peak resident memory of each child
- *     (ru_maxrss from wait4(), i.e. getrusage for that one child), and the
- *     memory at a tenth of the rows to show whether it grows.
+ *   - checks, on the first 2,000 rows, that coaxline, the floor and the
+ *     printf floor (tests/bench/floor.c) and the numpy reference
+ *     (tests/bench/reference.py) write the same bytes;
+ *   - times `coaxline CMD --input FILE --format csv > /dev/null`, the two
+ *     floors, a plain read-rows-write-bytes loop and the reference (on a
+ *     fraction of the rows, extrapolated), each once per round, --repeat
+ *     rounds, so that every ratio comes from runs taken side by side;
+ *   - reports CPU time (user + system, from wait4) and wall time, best and
+ *     median of the rounds, rows/s, input MB/s, peak resident memory of
+ *     each child (ru_maxrss), and coaxline's memory at a tenth of the rows
+ *     to show whether it grows; then the ratios, best to best and median
+ *     to median.
  * A command the binary does not have yet (exit 2, "unknown command") is
  * reported as skipped.  Then the start-up time of `coaxline --version`
  * and of one `coaxline cut`, for the real binary and the libtool wrapper.
  *
- * Timings are wall-clock (CLOCK_MONOTONIC) around posix_spawn + wait4;
- * medians of --repeat runs.
+ * --quick: 2,000 rows, 3 rounds, the reference on every row, 5 start-up
+ * runs: a few seconds, for CI.  The exit status is 1 when outputs differ,
+ * 2 when a program fails; never anything about speed.
  */
 #define _GNU_SOURCE
 #include <errno.h>
@@ -43,7 +48,7 @@
 
 extern char **environ;
 
-#define SAMPLE_ROWS 300
+#define SAMPLE_ROWS 2000
 #define MAX_REPEAT 50
 
 static struct {
@@ -176,27 +181,6 @@ static run_result run(char *const argv[], const char *out_path, const char *err_
     return r;
 }
 
-/* Median of n runs; *worst_rss gets the largest peak memory seen. */
-static run_result run_median(char *const argv[], int n, int expect_status)
-{
-    double wall[MAX_REPEAT], cpu[MAX_REPEAT];
-    run_result r = { 0, 0.0, 0.0, 0 };
-    long rss = 0;
-    for (int i = 0; i < n; i++) {
-        run_result one = run(argv, NULL, NULL);
-        if (one.status != expect_status)
-            die("%s exited with %d (expected %d)", argv[0], one.status, expect_status);
-        wall[i] = one.wall_s;
-        cpu[i] = one.cpu_s;
-        if (one.maxrss_kib > rss) rss = one.maxrss_kib;
-    }
-    r.status = expect_status;
-    r.wall_s = median(wall, n);
-    r.cpu_s = median(cpu, n);
-    r.maxrss_kib = rss;
-    return r;
-}
-
 /* ---- generated input -------------------------------------------------- */
 
 /* xorshift64*: a fixed sequence, so every run times the same file. */
@@ -261,121 +245,35 @@ static void generate(const char *cmd, long rows, const char *p)
     if (fclose(fp) != 0) die("write error on %s", p);
 }
 
-/* ---- comparing outputs ------------------------------------------------ */
+/* ---- comparing outputs: the same bytes -------------------------------- */
 
-#define MAX_COLS 32
-
-typedef struct table {
-    char *text;
-    char *hdr[MAX_COLS];
-    int ncols;
-    char **cell;   /* row-major, nrows * ncols */
-    long nrows;
-} table;
-
-static int split_line(char *s, char **f, int max)
+/* Length of the line starting at s (without its newline). */
+static int line_len(const char *s, size_t left)
 {
-    int n = 0;
-    f[n++] = s;
-    for (; *s && n < max; s++)
-        if (*s == ',') { *s = '\0'; f[n++] = s + 1; }
-    return n;
+    const char *nl = memchr(s, '\n', left);
+    size_t n = nl ? (size_t)(nl - s) : left;
+    return n > 200 ? 200 : (int)n;
 }
 
-/* The outputs compared hold no quoted fields (generated labels, band and
- * edge names, numbers). */
-static int load_table(const char *p, table *t)
+/* Prints one line; returns 0 when the two files hold the same bytes. */
+static int same_bytes(const char *what, const char *pa, const char *pb)
 {
-    memset(t, 0, sizeof *t);
-    t->text = slurp(p, NULL);
-    if (!t->text) return -1;
-    long lines = 0;
-    for (char *s = t->text; *s; s++) lines += *s == '\n';
-    char *line = strtok(t->text, "\n");
-    if (!line) return -1;
-    t->ncols = split_line(line, t->hdr, MAX_COLS);
-    t->cell = calloc((size_t)(lines + 1) * (size_t)t->ncols, sizeof *t->cell);
-    if (!t->cell) die("out of memory");
-    while ((line = strtok(NULL, "\n")) != NULL) {
-        char *f[MAX_COLS];
-        line[strcspn(line, "\r")] = '\0';
-        int n = split_line(line, f, MAX_COLS);
-        for (int i = 0; i < t->ncols; i++) t->cell[t->nrows * t->ncols + i] = i < n ? f[i] : "";
-        t->nrows++;
-    }
-    return 0;
-}
-
-static void free_table(table *t)
-{
-    free(t->text);
-    free(t->cell);
-}
-
-static int decimals(const char *s)
-{
-    const char *dot = strchr(s, '.');
-    return dot ? (int)strspn(dot + 1, "0123456789") : 0;
-}
-
-static int number(const char *s, double *v)
-{
-    char *end;
-    if (!*s) return 0;
-    *v = strtod(s, &end);
-    return *end == '\0';
-}
-
-/* Compare every column the two outputs share: text exactly, numbers
- * within one unit of the coarser last printed decimal (two programs that
- * compute the same value in a different order may round a value that
- * lies on a half differently).  Prints one line; returns 0 when they
- * agree. */
-static int compare(const char *what, const char *pa, const char *pb)
-{
-    table a, b;
-    if (load_table(pa, &a) || load_table(pb, &b)) {
-        printf("    %-28s CHECK FAILED: an output is empty\n", what);
-        return 1;
-    }
-    int bad = 0;
-    long same = 0, last_digit = 0, cells = 0;
-    char unmatched[256] = "", first_bad[512] = "";
-    if (a.nrows != b.nrows) {
-        snprintf(first_bad, sizeof first_bad, "%ld rows against %ld", a.nrows, b.nrows);
-        bad = 1;
-    }
-    for (int i = 0; i < a.ncols && !bad; i++) {
-        int j = 0;
-        while (j < b.ncols && strcmp(a.hdr[i], b.hdr[j]) != 0) j++;
-        if (j == b.ncols) {
-            size_t u = strlen(unmatched);
-            snprintf(unmatched + u, sizeof unmatched - u, "%s%s", u ? "," : "", a.hdr[i]);
-            continue;
-        }
-        for (long r = 0; r < a.nrows && !bad; r++) {
-            const char *x = a.cell[r * a.ncols + i], *y = b.cell[r * b.ncols + j];
-            double vx, vy;
-            cells++;
-            if (strcmp(x, y) == 0) { same++; continue; }
-            if (number(x, &vx) && number(y, &vy)) {
-                int d = decimals(x) < decimals(y) ? decimals(x) : decimals(y);
-                if (fabs(vx - vy) <= pow(10.0, -d) * (1.0 + 1e-9)) { last_digit++; continue; }
-            }
-            snprintf(first_bad, sizeof first_bad, "row %ld column %s: '%s' against '%s'",
-                     r + 1, a.hdr[i], x, y);
-            bad = 1;
-        }
-    }
-    if (bad)
-        printf("    %-28s CHECK FAILED: %s\n", what, first_bad);
+    size_t na, nb, i = 0, start = 0;
+    long line = 1;
+    char *a = slurp(pa, &na), *b = slurp(pb, &nb);
+    if (!a || !b) die("cannot read %s or %s", pa, pb);
+    for (; i < na && i < nb && a[i] == b[i]; i++)
+        if (a[i] == '\n') { line++; start = i + 1; }
+    int differ = !(na == nb && i == na);
+    if (differ)
+        printf("    %-40s DIFFER at line %ld (%zu and %zu bytes):\n      < %.*s\n      > %.*s\n",
+               what, line, na, nb, line_len(a + start, na - start), a + start,
+               line_len(b + start, nb - start), b + start);
     else
-        printf("    %-28s agree: %ld rows, %ld cells, %ld identical, %ld one unit apart in the "
-               "last decimal%s%s%s\n", what, a.nrows, cells, same, last_digit,
-               unmatched[0] ? " (not in both: " : "", unmatched, unmatched[0] ? ")" : "");
-    free_table(&a);
-    free_table(&b);
-    return bad;
+        printf("    %-40s the same bytes (%zu bytes, %ld lines)\n", what, na, line - 1);
+    free(a);
+    free(b);
+    return differ;
 }
 
 /* ---- one batch command ------------------------------------------------ */
@@ -385,41 +283,82 @@ static void mib(char *buf, size_t size, long kib)
     snprintf(buf, size, "%.1f MiB", (double)kib / 1024.0);
 }
 
-/* One timing line; ratio = this time over coaxline's (cx_s, 0: none). */
-static void print_timing(const char *label, const run_result *r, long bytes, double cx_s)
+/* One program timed in rounds with the others. */
+typedef struct timed {
+    const char *label;
+    char *argv[8];
+    int expect;
+    int n;
+    double wall[MAX_REPEAT], cpu[MAX_REPEAT];
+    double wall_best, wall_med, cpu_best, cpu_med;
+    long rss_kib;
+} timed;
+
+static void summarise(timed *t)
 {
-    char mem[32], ratio[32] = "-";
-    mib(mem, sizeof mem, r->maxrss_kib);
-    if (cx_s > 0.0) snprintf(ratio, sizeof ratio, "%.2f", r->wall_s / cx_s);
-    printf("  %-36s %8.3f %8.3f %10.0f %8.1f %12s %10s\n", label, r->wall_s, r->cpu_s,
-           cfg.rows / r->wall_s, bytes / 1e6 / r->wall_s, mem, ratio);
+    t->wall_med = median(t->wall, t->n); /* sorts */
+    t->cpu_med = median(t->cpu, t->n);
+    t->wall_best = t->wall[0];
+    t->cpu_best = t->cpu[0];
+}
+
+/* The variants run in turn, round after round, so a change in the
+ * machine's load falls on all of them alike. */
+static void time_rounds(timed *t, int nt, int rounds)
+{
+    for (int r = 0; r < rounds; r++)
+        for (int k = 0; k < nt; k++) {
+            run_result one = run(t[k].argv, NULL, NULL);
+            if (one.status != t[k].expect)
+                die("%s exited with %d (expected %d)", t[k].argv[0], one.status, t[k].expect);
+            t[k].wall[t[k].n] = one.wall_s;
+            t[k].cpu[t[k].n] = one.cpu_s;
+            t[k].n++;
+            if (one.maxrss_kib > t[k].rss_kib) t[k].rss_kib = one.maxrss_kib;
+        }
+}
+
+static void print_timed(const timed *t, long bytes)
+{
+    char mem[32];
+    mib(mem, sizeof mem, t->rss_kib);
+    printf("  %-42s %7.3f %7.3f  %7.3f %7.3f %10.0f %7.1f %11s\n", t->label, t->cpu_best,
+           t->cpu_med, t->wall_best, t->wall_med, cfg.rows / t->wall_best,
+           bytes / 1e6 / t->wall_best, mem);
+}
+
+/* "a / b: cpu Xx best, Yx median; wall ..." */
+static void print_ratio(const char *what, const timed *a, const timed *b)
+{
+    printf("     %-40s cpu %6.2fx best %6.2fx median   wall %6.2fx best %6.2fx median\n", what,
+           a->cpu_best / b->cpu_best, a->cpu_med / b->cpu_med, a->wall_best / b->wall_best,
+           a->wall_med / b->wall_med);
 }
 
 static void bench_command(const char *cmd)
 {
-    char full[4096], sample[4096], part[4096], empty[4096], tenth[4096];
-    char out_cx[4096], out_ref[4096], out_floor[4096], err[4096], name[64];
-    snprintf(name, sizeof name, "%s.csv", cmd);
-    path(full, sizeof full, cfg.tmp, name);
-    snprintf(name, sizeof name, "%s-sample.csv", cmd);
-    path(sample, sizeof sample, cfg.tmp, name);
-    snprintf(name, sizeof name, "%s-part.csv", cmd);
-    path(part, sizeof part, cfg.tmp, name);
-    snprintf(name, sizeof name, "%s-empty.csv", cmd);
-    path(empty, sizeof empty, cfg.tmp, name);
-    snprintf(name, sizeof name, "%s-tenth.csv", cmd);
-    path(tenth, sizeof tenth, cfg.tmp, name);
+    char full[4096], sample[4096], part[4096], empty[4096], tenth[4096], name[64];
+    char out_cx[4096], out_ref[4096], out_floor[4096], out_printf[4096], err[4096];
+    char printf_mode[32];
+    snprintf(printf_mode, sizeof printf_mode, "printf-%s", cmd);
+    const char *kind[5] = { "", "-sample", "-part", "-empty", "-tenth" };
+    char *files[5] = { full, sample, part, empty, tenth };
+    for (int k = 0; k < 5; k++) {
+        snprintf(name, sizeof name, "%s%s.csv", cmd, kind[k]);
+        path(files[k], 4096, cfg.tmp, name);
+    }
     path(out_cx, sizeof out_cx, cfg.tmp, "out-coaxline.csv");
     path(out_ref, sizeof out_ref, cfg.tmp, "out-reference.csv");
     path(out_floor, sizeof out_floor, cfg.tmp, "out-floor.csv");
+    path(out_printf, sizeof out_printf, cfg.tmp, "out-printf.csv");
     path(err, sizeof err, cfg.tmp, "stderr.txt");
 
     long part_rows = (long)ceil(cfg.rows * cfg.ref_fraction);
     if (part_rows < 1) part_rows = 1;
     if (part_rows > cfg.rows) part_rows = cfg.rows;
+    long sample_rows = SAMPLE_ROWS < cfg.rows ? SAMPLE_ROWS : cfg.rows;
     double t0 = now_s();
     generate(cmd, cfg.rows, full);
-    long sample_rows = SAMPLE_ROWS < cfg.rows ? SAMPLE_ROWS : cfg.rows;
     generate(cmd, sample_rows, sample);
     generate(cmd, part_rows, part);
     generate(cmd, 0, empty);
@@ -429,7 +368,7 @@ static void bench_command(const char *cmd)
     printf("\n%s: %ld rows, %.1f MB of input (generated in %.1f s)\n", cmd, cfg.rows,
            (double)bytes / 1e6, now_s() - t0);
 
-    /* availability, and the sample run for the checks */
+    /* availability, and the sample runs for the checks */
     char *cx_sample[] = { cfg.coaxline, (char *)cmd, "--input", sample, "--format", "csv", NULL };
     run_result r = run(cx_sample, out_cx, err);
     char *errtext = slurp(err, NULL);
@@ -440,98 +379,112 @@ static void bench_command(const char *cmd)
         check_failed = 1;
     }
     free(errtext);
-
     char *ref_sample[] = { (char *)cfg.python, cfg.reference, (char *)cmd, cfg.bands, sample, NULL };
     char *floor_sample[] = { cfg.floor_bin, (char *)cmd, cfg.bands, sample, NULL };
+    char *printf_sample[] = { cfg.floor_bin, printf_mode, cfg.bands, sample, NULL };
     run_result rr = { expect, 0.0, 0.0, 0 };
     if (cfg.python) rr = run(ref_sample, out_ref, err);
-    run_result rf = run(floor_sample, out_floor, NULL);
-    if (rr.status != expect || rf.status != expect) {
-        printf("    reference exit %d, floor exit %d on the sample (expected %d)\n",
-               rr.status, rf.status, expect);
+    run_result rf = run(floor_sample, out_floor, NULL), rp = run(printf_sample, out_printf, NULL);
+    if (rr.status != expect || rf.status != expect || rp.status != expect) {
+        printf("    reference exit %d, floor exit %d, printf floor exit %d on the sample "
+               "(expected %d)\n", rr.status, rf.status, rp.status, expect);
         check_failed = 1;
     }
-    printf("  check on the first %ld rows:\n", sample_rows);
+    printf("  check on the first %ld rows, byte for byte:\n", sample_rows);
+    const char *base = available ? out_cx : out_floor;
     if (!available)
         printf("    coaxline %s: skipped: command not available\n", cmd);
-    if (available && cfg.python)
-        check_failed |= compare("coaxline vs reference:", out_cx, out_ref);
-    if (available)
-        check_failed |= compare("coaxline vs floor:", out_cx, out_floor);
-    if (!available && cfg.python)
-        check_failed |= compare("reference vs floor:", out_ref, out_floor);
-    long out_bytes_per_row = 0;
+    else
+        check_failed |= same_bytes("coaxline vs floor:", out_cx, out_floor);
+    check_failed |= same_bytes(available ? "coaxline vs printf floor:" : "floor vs printf floor:",
+                               base, out_printf);
+    if (cfg.python)
+        check_failed |= same_bytes(available ? "coaxline vs numpy reference:"
+                                             : "floor vs numpy reference:", base, out_ref);
+    long sb = file_size(base), out_bytes_per_row = sb > 0 ? (sb + sample_rows / 2) / sample_rows : 1;
+
+    /* timings: every variant once per round, cfg.repeat rounds */
+    char nbytes[32];
+    snprintf(nbytes, sizeof nbytes, "%ld", out_bytes_per_row);
+    timed t[6];
+    int nt = 0, cx = -1, fl, pf, io, py = -1, pye = -1;
+    memset(t, 0, sizeof t);
     if (available) {
-        long sb = file_size(out_cx);
-        out_bytes_per_row = sb > 0 ? (sb + sample_rows / 2) / sample_rows : 0;
+        cx = nt++;
+        t[cx] = (timed){ .label = "coaxline",
+                         .argv = { cfg.coaxline, (char *)cmd, "--input", full, "--format", "csv" } };
     }
-
-    /* timings */
-    printf("  %-36s %8s %8s %10s %8s %12s %10s\n", "", "wall s", "cpu s", "rows/s", "MB/s",
-           "peak memory", "time/cx");
-    run_result m = { 0, 0.0, 0.0, 0 };
-    if (available) {
-        char *cx_full[] = { cfg.coaxline, (char *)cmd, "--input", full, "--format", "csv", NULL };
-        char *cx_tenth[] = { cfg.coaxline, (char *)cmd, "--input", tenth, "--format", "csv", NULL };
-        m = run_median(cx_full, cfg.repeat, expect);
-        run_result m10 = run(cx_tenth, NULL, NULL);
-        print_timing("coaxline", &m, bytes, m.wall_s);
-        char a[32];
-        mib(a, sizeof a, m10.maxrss_kib);
-        printf("  %-36s %8s %8s %10s %8s %12s   (output about %ld bytes per input row)\n",
-               "  (peak memory at a tenth of rows)", "", "", "", "", a, out_bytes_per_row);
-    } else {
-        printf("  %-36s skipped: command not available\n", "coaxline");
-    }
-
-    char *floor_full[] = { cfg.floor_bin, (char *)cmd, cfg.bands, full, NULL };
-    run_result mf = run_median(floor_full, cfg.repeat, expect);
-    print_timing("floor (C: fgets, strtod, printf)", &mf, bytes, m.wall_s);
-    if (out_bytes_per_row > 0) {
-        char nbytes[32];
-        snprintf(nbytes, sizeof nbytes, "%ld", out_bytes_per_row);
-        char *io_full[] = { cfg.floor_bin, "io", nbytes, full, NULL };
-        run_result mi = run_median(io_full, cfg.repeat, 0);
-        print_timing("I/O only (read rows, write bytes)", &mi, bytes, m.wall_s);
-    }
-
-    run_result rp = { 0, 0.0, 0.0, 0 };
+    fl = nt++;
+    t[fl] = (timed){ .label = "floor (strtod, own formatting, same bytes)",
+                     .argv = { cfg.floor_bin, (char *)cmd, cfg.bands, full } };
+    pf = nt++;
+    t[pf] = (timed){ .label = "printf floor (strtod, printf, same bytes)",
+                     .argv = { cfg.floor_bin, printf_mode, cfg.bands, full } };
+    io = nt++;
+    t[io] = (timed){ .label = "I/O only (read rows, write bytes)",
+                     .argv = { cfg.floor_bin, "io", nbytes, full } };
     if (cfg.python) {
-        char *ref_part[] = { (char *)cfg.python, cfg.reference, (char *)cmd, cfg.bands, part, NULL };
-        char *ref_empty[] = { (char *)cfg.python, cfg.reference, (char *)cmd, cfg.bands, empty,
-                              NULL };
-        run_result re = run_median(ref_empty, 3, expect);
-        rp = run(ref_part, NULL, NULL);
-        if (rp.status != expect) die("reference exited with %d", rp.status);
-        double measured_s = rp.wall_s;
+        py = nt++;
+        t[py] = (timed){ .label = part_rows < cfg.rows ? "numpy reference, extrapolated*"
+                                                       : "numpy reference (same bytes)",
+                         .argv = { (char *)cfg.python, cfg.reference, (char *)cmd, cfg.bands, part } };
         if (part_rows < cfg.rows) {
-            /* start-up once, the per-row part scaled to all rows */
-            double scale = (double)cfg.rows / (double)part_rows;
-            rp.wall_s = re.wall_s + fmax(rp.wall_s - re.wall_s, 0.0) * scale;
-            rp.cpu_s = re.cpu_s + fmax(rp.cpu_s - re.cpu_s, 0.0) * scale;
+            pye = nt++;
+            t[pye] = (timed){ .label = "numpy reference start-up (header only)",
+                              .argv = { (char *)cfg.python, cfg.reference, (char *)cmd, cfg.bands,
+                                        empty } };
         }
-        print_timing(part_rows < cfg.rows ? "reference (Python), extrapolated*"
-                                          : "reference (Python)", &rp, bytes, m.wall_s);
-        if (part_rows < cfg.rows)
-            printf("    * timed on the first %ld rows (%.3f s wall; peak memory is at that "
-                   "size), its start-up\n      (%.3f s, a header-only file) counted once and "
-                   "the rest scaled by %.1f\n", part_rows, measured_s, re.wall_s,
-                   (double)cfg.rows / (double)part_rows);
-    } else {
-        printf("  %-36s skipped: no Python 3 with numpy\n", "reference (Python)");
     }
-    if (available) {
-        printf("  => coaxline %s takes %.2fx the floor's time", cmd, m.wall_s / mf.wall_s);
-        if (rp.wall_s > 0.0)
-            printf(" and is %.1fx faster than the reference script", rp.wall_s / m.wall_s);
-        printf("\n     (by cpu time: %.2fx", m.cpu_s / mf.cpu_s);
-        if (rp.cpu_s > 0.0) printf(" and %.1fx", rp.cpu_s / m.cpu_s);
-        printf(")\n");
+    time_rounds(t, nt, cfg.repeat);
+    if (pye >= 0) {
+        /* start-up once, the per-row part scaled to all rows */
+        double scale = (double)cfg.rows / (double)part_rows;
+        double w0 = median(t[pye].wall, t[pye].n), c0 = median(t[pye].cpu, t[pye].n);
+        for (int i = 0; i < t[py].n; i++) {
+            t[py].wall[i] = w0 + fmax(t[py].wall[i] - w0, 0.0) * scale;
+            t[py].cpu[i] = c0 + fmax(t[py].cpu[i] - c0, 0.0) * scale;
+        }
     }
+    for (int k = 0; k < nt; k++) summarise(&t[k]);
+
+    printf("  %-42s %7s %7s  %7s %7s %10s %7s %11s\n", "", "cpu s", "", "wall s", "", "", "",
+           "");
+    printf("  %-42s %7s %7s  %7s %7s %10s %7s %11s\n", "", "best", "median", "best", "median",
+           "rows/s", "MB/s", "peak memory");
+    for (int k = 0; k < nt; k++)
+        if (k != pye) print_timed(&t[k], bytes);
+    if (cx >= 0) {
+        run_result m10;
+        char *cx_tenth[] = { cfg.coaxline, (char *)cmd, "--input", tenth, "--format", "csv", NULL };
+        char a[32];
+        m10 = run(cx_tenth, NULL, NULL);
+        mib(a, sizeof a, m10.maxrss_kib);
+        printf("  %-42s %7s %7s  %7s %7s %10s %7s %11s   (output %ld bytes per input row)\n",
+               "  (coaxline's peak memory at a tenth of rows)", "", "", "", "", "", "", a,
+               out_bytes_per_row);
+    }
+    if (pye >= 0)
+        printf("    * timed on the first %ld rows (peak memory is at that size), its start-up\n"
+               "      (median %.3f s wall, a header-only file) counted once and the rest scaled "
+               "by %.1f\n", part_rows, t[pye].wall_med, (double)cfg.rows / (double)part_rows);
+    printf("  ratios, from this run (%d rounds):\n", cfg.repeat);
+    if (cx >= 0) {
+        char what[64];
+        snprintf(what, sizeof what, "coaxline %s / floor", cmd);
+        print_ratio(what, &t[cx], &t[fl]);
+        snprintf(what, sizeof what, "coaxline %s / printf floor", cmd);
+        print_ratio(what, &t[cx], &t[pf]);
+        if (py >= 0) {
+            snprintf(what, sizeof what, "numpy reference / coaxline %s", cmd);
+            print_ratio(what, &t[py], &t[cx]);
+        }
+    }
+    print_ratio("printf floor / floor", &t[pf], &t[fl]);
 
     if (!cfg.keep) {
-        const char *files[] = { full, sample, part, empty, tenth, out_cx, out_ref, out_floor, err };
-        for (size_t i = 0; i < sizeof files / sizeof files[0]; i++) unlink(files[i]);
+        const char *rm[] = { full, sample, part, empty, tenth, out_cx, out_ref, out_floor,
+                             out_printf, err };
+        for (size_t i = 0; i < sizeof rm / sizeof rm[0]; i++) unlink(rm[i]);
     }
 }
 
@@ -608,7 +561,7 @@ static void print_load(const char *when)
 
 static void usage(void)
 {
-    fprintf(stderr, "usage: bench_batch --builddir DIR --srcdir DIR --python PY [--rows N]\n"
+    fprintf(stderr, "usage: bench_batch --builddir DIR --srcdir DIR --python PY [--quick] [--rows N]\n"
                     "       [--reference-fraction F] [--repeat N] [--startup-runs N]\n"
                     "       [--commands phase,pair,cut] [--startup-binary PATH] [--keep]\n");
     exit(2);
@@ -625,6 +578,13 @@ int main(int argc, char **argv)
     for (int i = 1; i < argc; i++) {
         const char *o = argv[i], *v = i + 1 < argc ? argv[i + 1] : NULL;
         if (strcmp(o, "--keep") == 0) { cfg.keep = 1; continue; }
+        if (strcmp(o, "--quick") == 0) {
+            cfg.rows = 2000;
+            cfg.repeat = 3;
+            cfg.ref_fraction = 1.0;
+            cfg.startup_runs = 5;
+            continue;
+        }
         if (!v) usage();
         i++;
         if (strcmp(o, "--builddir") == 0) cfg.builddir = v;
@@ -682,8 +642,8 @@ int main(int argc, char **argv)
            cfg.real_binary ? "the real binary, LD_LIBRARY_PATH set to the build's lib/.libs"
                            : "the libtool wrapper: no cli/.libs/coaxline");
     printf("       reference = %s %s; floor = %s\n", cfg.python, cfg.reference, cfg.floor_bin);
-    printf("       output to /dev/null; wall time median of %d runs; peak memory = ru_maxrss "
-           "of the child (wait4)\n", cfg.repeat);
+    printf("       output to /dev/null; %d rounds, each program once per round; cpu = user + "
+           "system and peak memory = ru_maxrss of the child (wait4)\n", cfg.repeat);
 
     char list[64];
     snprintf(list, sizeof list, "%s", cfg.commands);

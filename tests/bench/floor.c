@@ -1,20 +1,36 @@
-/* floor.c - the least a program can do for a batch: the I/O floor that
- * `make bench` compares coaxline's batch path with.
+/* floor.c - the least a program can do for a batch: the floors that
+ * `make bench` times coaxline's batch path against.
  *
- *   floor phase|pair|cut BANDS_CSV INPUT_CSV   (output on stdout)
+ *   floor phase|pair|cut BANDS_CSV INPUT_CSV          the same-bytes floor
+ *   floor printf-phase|printf-pair|printf-cut BANDS_CSV INPUT_CSV
  *   floor io BYTES_PER_ROW INPUT_CSV
  *
- * It reads the generated benchmark files line by line with fgets, splits
- * on commas (the generator writes no quotes), converts with strtod, does
- * the same arithmetic as coaxline and prints the same CSV columns with
- * printf.  No validation, no units other than the trailing "m" the
- * generator writes, no locale handling beyond the "C" locale every C
- * program starts in: whatever coaxline spends above this is the price of
- * checking and parsing real input.  `floor io` is the plain I/O limit:
- * it reads the rows the same way and writes BYTES_PER_ROW bytes for each,
- * with no parsing or formatting at all.  Not installed, not part of make
- * check.
+ * All read the generated benchmark files (tests/bench/bench_batch.c) line
+ * by line with fgets, split on commas (the generator writes no quotes),
+ * convert with strtod, do the same arithmetic as coaxline in the same
+ * order, and write exactly the bytes `coaxline CMD --input FILE --format
+ * csv` writes: bench_batch checks that with a byte comparison.  No
+ * validation, no units other than the trailing "m" the generator writes,
+ * no locale handling beyond the "C" locale every C program starts in:
+ * whatever coaxline spends above this is the price of checking and
+ * parsing real input.
+ *
+ * - "phase", "pair", "cut": the floor.  Numbers are formatted by
+ *   put_fixed() below (an integer conversion, printf only where a value
+ *   lies within 1e-6 of a rounding tie) into one output buffer written
+ *   with fwrite; the band edges of each band name and Region are looked
+ *   up once.
+ * - "printf-*": the same rows printed field by field with printf("%.*f")
+ *   and a scan of the band table per row, the way a first version of such
+ *   a loop is written; glibc's printf is slow, so this is a second,
+ *   named reference, not the floor.
+ * - "io": the plain I/O limit: reads the rows the same way and writes
+ *   BYTES_PER_ROW bytes for each, with no parsing or formatting at all.
+ *
+ * Not installed; compiled by make check, run by make bench.
  */
+#include <math.h>
+#include <stdint.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -22,6 +38,7 @@
 #define C_M_PER_S 299792458.0
 #define MAX_BANDS 128
 #define MAX_FIELDS 16
+#define MAX_CACHED 64
 
 struct band { char name[16]; int region; double lo_hz, hi_hz; };
 static struct band bands[MAX_BANDS];
@@ -55,7 +72,8 @@ static void load_bands(const char *path)
     fclose(fp);
 }
 
-/* Widest edges of a band in a region (0: all regions). */
+/* Widest edges of a band in a region (0: all regions): low, centre, high,
+ * the centre computed as coaxline's band selection does. */
 static void edges(const char *name, int region, double f[3])
 {
     double lo = 0.0, hi = 0.0;
@@ -69,28 +87,234 @@ static void edges(const char *name, int region, double f[3])
     f[0] = lo; f[1] = 0.5 * (lo + hi); f[2] = hi;
 }
 
+/* The same, looked up once per band name and region. */
+static const double *edges_cached(const char *name, int region)
+{
+    static struct { char name[16]; int region; double f[3]; } cache[MAX_CACHED];
+    static int ncached;
+    for (int i = 0; i < ncached; i++)
+        if (cache[i].region == region && strcmp(cache[i].name, name) == 0) return cache[i].f;
+    int i = ncached < MAX_CACHED ? ncached++ : MAX_CACHED - 1;
+    snprintf(cache[i].name, sizeof cache[i].name, "%s", name);
+    cache[i].region = region;
+    edges(name, region, cache[i].f);
+    return cache[i].f;
+}
+
 static const char *const edge_names[3] = { "low", "centre", "high" };
+static const char *const region_text[4] = { "all", "1", "2", "3" };
+
+/* ---- output buffer and the fixed-point formatter ---------------------- */
+
+static char obuf[1 << 16];
+static size_t olen;
+
+static void flush_out(void)
+{
+    if (olen && fwrite(obuf, 1, olen, stdout) != olen) exit(2);
+    olen = 0;
+}
+
+/* Room for one output line (a line is well under 1 KiB). */
+static char *out_line(void)
+{
+    if (olen > sizeof obuf - 1024) flush_out();
+    return obuf + olen;
+}
+
+static char *put_str(char *p, const char *s)
+{
+    while (*s) *p++ = *s++;
+    return p;
+}
+
+static const double pow10_tab[10] = { 1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9 };
+
+/* v with d decimals (0 <= d <= 9), the bytes of printf("%.*f", d, v).
+ * v * 10^d is rounded once by the multiplication, by at most half a unit
+ * in its last place, 2^-21 below 2^32: where its fraction lies further
+ * than 1e-6 from one half, rounding it to the nearest integer gives the
+ * digits of the exact decimal value, as printf does.  Nearer a tie (about
+ * two values in a million), and for large values, printf decides. */
+static char *put_fixed(char *p, double v, int d)
+{
+    double a = fabs(v), scaled = a * pow10_tab[d];
+    if (!(scaled < 4294967296.0)) return p + sprintf(p, "%.*f", d, v);
+    uint64_t i = (uint64_t)scaled;
+    double frac = scaled - (double)i;
+    if (fabs(frac - 0.5) < 1e-6) return p + sprintf(p, "%.*f", d, v);
+    if (frac > 0.5) i++;
+    if (signbit(v)) *p++ = '-';
+    char tmp[24];
+    int n = 0;
+    do { tmp[n++] = (char)('0' + i % 10); i /= 10; } while (i > 0 || n <= d);
+    while (n > d) *p++ = tmp[--n];
+    if (d > 0) {
+        *p++ = '.';
+        while (n > 0) *p++ = tmp[--n];
+    }
+    return p;
+}
+
+/* ---- the rows ----------------------------------------------------------- */
+
+static double phase_deg(double delta_m, double vf, double f)
+{
+    return 360.0 * f * delta_m / (vf * C_M_PER_S);
+}
+
+static const char phase_header[] =
+    "label,band,edge,freq_mhz,length_m,reference_m,delta_m,phase_error_deg,vf,region,"
+    "transfer_deg,electrical_deg,transfer_db,reference_transfer_deg,reference_electrical_deg,"
+    "reference_transfer_db\n";
+static const char pair_header[] =
+    "label,band,edge,freq_mhz,delta_m,phase_error_deg,tolerance_deg,verdict,allowed_mismatch_m,"
+    "uncertainty_deg,electrical_error_deg,transfer_imbalance_db\n";
+static const char cut_header[] =
+    "label,offset_m,delay_ns,vf,cut_length_m,cut_length_ft,freq_mhz,electrical_deg,"
+    "quarter_wave_mhz,allowance_m\n";
+
+/* label,length,reference,vf,band,region */
+static void phase_row(char **f, int use_printf)
+{
+    double len = strtod(f[1], NULL), ref = strtod(f[2], NULL), vf = strtod(f[3], NULL);
+    int region = atoi(f[5]);
+    double fr_buf[3];
+    const double *fr = fr_buf;
+    if (use_printf) edges(f[4], region, fr_buf);
+    else fr = edges_cached(f[4], region);
+    for (int k = 0; k < 3; k++) {
+        double err = phase_deg(len - ref, vf, fr[k]);
+        double elec = 360.0 * fr[k] * len / (vf * C_M_PER_S);
+        double ref_elec = 360.0 * fr[k] * ref / (vf * C_M_PER_S);
+        if (use_printf) {
+            printf("%s,%s,%s,%.6f,%.3f,%.3f,%.3f,%.3f,%.4f,%s,,%.3f,,,%.3f,\n", f[0], f[4],
+                   edge_names[k], fr[k] / 1e6, len, ref, len - ref, err, vf, region_text[region],
+                   elec, ref_elec);
+            continue;
+        }
+        char *p = out_line(), *s = p;
+        p = put_str(p, f[0]); *p++ = ',';
+        p = put_str(p, f[4]); *p++ = ',';
+        p = put_str(p, edge_names[k]); *p++ = ',';
+        p = put_fixed(p, fr[k] / 1e6, 6); *p++ = ',';
+        p = put_fixed(p, len, 3); *p++ = ',';
+        p = put_fixed(p, ref, 3); *p++ = ',';
+        p = put_fixed(p, len - ref, 3); *p++ = ',';
+        p = put_fixed(p, err, 3); *p++ = ',';
+        p = put_fixed(p, vf, 4); *p++ = ',';
+        p = put_str(p, region_text[region]);
+        p = put_str(p, ",,");
+        p = put_fixed(p, elec, 3);
+        p = put_str(p, ",,,");
+        p = put_fixed(p, ref_elec, 3);
+        p = put_str(p, ",\n");
+        olen += (size_t)(p - s);
+    }
+}
+
+/* label,length,vf,tolerance,band; the lengths separated by ';'.  Returns
+ * 1 when a band edge fails the tolerance. */
+static int pair_row(char **f, int use_printf)
+{
+    double lo = 0.0, hi = 0.0;
+    int n = 0, failed = 0;
+    for (char *p = f[1]; *p; n++) {
+        double v = strtod(p, &p);
+        if (n == 0 || v < lo) lo = v;
+        if (n == 0 || v > hi) hi = v;
+        p += strcspn(p, ";");
+        if (*p) p++;
+    }
+    double vf = strtod(f[2], NULL), tol = strtod(f[3], NULL), fr_buf[3];
+    const double *fr = fr_buf;
+    if (use_printf) edges(f[4], 0, fr_buf);
+    else fr = edges_cached(f[4], 0);
+    double delta = hi - lo;
+    for (int k = 0; k < 3; k++) {
+        double err = phase_deg(delta, vf, fr[k]);
+        double unc = phase_deg(fabs(delta) + 2 * 0.0, vf - 0.0, fr[k]) - fabs(err);
+        double allowed = tol * vf * C_M_PER_S / (360.0 * fr[k]);
+        const char *verdict = err > tol ? "fail" : err + unc > tol ? "uncertain" : "pass";
+        if (err > tol) failed = 1;
+        if (use_printf) {
+            printf("%s,%s,%s,%.6f,%.3f,%.3f,%.3f,%s,%.3f,%.3f,%.3f,\n", f[0], f[4],
+                   edge_names[k], fr[k] / 1e6, delta, err, tol, verdict, allowed, unc, err);
+            continue;
+        }
+        char *p = out_line(), *s = p;
+        p = put_str(p, f[0]); *p++ = ',';
+        p = put_str(p, f[4]); *p++ = ',';
+        p = put_str(p, edge_names[k]); *p++ = ',';
+        p = put_fixed(p, fr[k] / 1e6, 6); *p++ = ',';
+        p = put_fixed(p, delta, 3); *p++ = ',';
+        p = put_fixed(p, err, 3); *p++ = ',';
+        p = put_fixed(p, tol, 3); *p++ = ',';
+        p = put_str(p, verdict); *p++ = ',';
+        p = put_fixed(p, allowed, 3); *p++ = ',';
+        p = put_fixed(p, unc, 3); *p++ = ',';
+        p = put_fixed(p, err, 3);
+        p = put_str(p, ",\n");
+        olen += (size_t)(p - s);
+    }
+    return failed;
+}
+
+/* label,offset,vf */
+static void cut_row(char **f, int use_printf)
+{
+    double off = strtod(f[1], NULL), vf = strtod(f[2], NULL);
+    double delay = off / C_M_PER_S, cut = delay * vf * C_M_PER_S;
+    double qw = vf * C_M_PER_S / (4.0 * cut);
+    if (use_printf) {
+        printf("%s,%.3f,%.3f,%.4f,%.3f,%.4f,,,%.4f,%.3f\n", f[0], off, delay * 1e9, vf, cut,
+               cut / 0.3048, qw / 1e6, 0.0);
+        return;
+    }
+    char *p = out_line(), *s = p;
+    p = put_str(p, f[0]); *p++ = ',';
+    p = put_fixed(p, off, 3); *p++ = ',';
+    p = put_fixed(p, delay * 1e9, 3); *p++ = ',';
+    p = put_fixed(p, vf, 4); *p++ = ',';
+    p = put_fixed(p, cut, 3); *p++ = ',';
+    p = put_fixed(p, cut / 0.3048, 4);
+    p = put_str(p, ",,,");
+    p = put_fixed(p, qw / 1e6, 4);
+    p = put_str(p, ",0.000\n");
+    olen += (size_t)(p - s);
+}
+
+static int io_only(const char *bytes, const char *input)
+{
+    static char out[4096];
+    size_t n = (size_t)atol(bytes);
+    FILE *in = fopen(input, "r");
+    if (!in || n < 1 || n > sizeof out) return 2;
+    memset(out, 'x', n - 1);
+    out[n - 1] = '\n';
+    char line[4096];
+    if (!fgets(line, sizeof line, in)) return 2;
+    while (fgets(line, sizeof line, in)) fwrite(out, 1, n, stdout);
+    fclose(in);
+    return ferror(stdout) ? 2 : 0;
+}
 
 int main(int argc, char **argv)
 {
     if (argc != 4) {
-        fprintf(stderr, "usage: floor phase|pair|cut BANDS_CSV INPUT_CSV\n"
+        fprintf(stderr, "usage: floor [printf-]phase|[printf-]pair|[printf-]cut BANDS_CSV INPUT_CSV\n"
                         "       floor io BYTES_PER_ROW INPUT_CSV\n");
         return 2;
     }
     const char *mode = argv[1];
-    if (strcmp(mode, "io") == 0) {
-        static char out[4096];
-        size_t n = (size_t)atol(argv[2]);
-        FILE *in = fopen(argv[3], "r");
-        if (!in || n < 1 || n > sizeof out) return 2;
-        memset(out, 'x', n - 1);
-        out[n - 1] = '\n';
-        char line[4096];
-        if (!fgets(line, sizeof line, in)) return 2;
-        while (fgets(line, sizeof line, in)) fwrite(out, 1, n, stdout);
-        fclose(in);
-        return ferror(stdout) ? 2 : 0;
+    if (strcmp(mode, "io") == 0) return io_only(argv[2], argv[3]);
+    int use_printf = strncmp(mode, "printf-", 7) == 0;
+    if (use_printf) mode += 7;
+    int cmd = strcmp(mode, "phase") == 0 ? 0 : strcmp(mode, "pair") == 0 ? 1
+            : strcmp(mode, "cut") == 0 ? 2 : -1;
+    if (cmd < 0) {
+        fprintf(stderr, "floor: unknown mode '%s'\n", argv[1]);
+        return 2;
     }
     load_bands(argv[2]);
     FILE *in = fopen(argv[3], "r");
@@ -98,54 +322,14 @@ int main(int argc, char **argv)
     char line[4096], *f[MAX_FIELDS];
     int code = 0;
     if (!fgets(line, sizeof line, in)) return 2; /* header: columns in the generator's order */
-    if (strcmp(mode, "phase") == 0) {
-        puts("label,band,edge,freq_mhz,length_m,reference_m,delta_m,phase_error_deg");
-        while (fgets(line, sizeof line, in)) {
-            split(line, f); /* label,length,reference,vf,band,region */
-            double len = strtod(f[1], NULL), ref = strtod(f[2], NULL), vf = strtod(f[3], NULL);
-            double fr[3];
-            edges(f[4], atoi(f[5]), fr);
-            for (int k = 0; k < 3; k++)
-                printf("%s,%s,%s,%.6f,%.3f,%.3f,%.3f,%.3f\n", f[0], f[4], edge_names[k],
-                       fr[k] / 1e6, len, ref, len - ref,
-                       360.0 * fr[k] * (len - ref) / (vf * C_M_PER_S));
-        }
-    } else if (strcmp(mode, "pair") == 0) {
-        puts("label,band,edge,freq_mhz,delta_m,phase_error_deg,tolerance_deg,verdict");
-        while (fgets(line, sizeof line, in)) {
-            split(line, f); /* label,length,vf,tolerance,band; lengths split by ';' */
-            double lo = 0.0, hi = 0.0;
-            int n = 0;
-            for (char *p = f[1]; *p; n++) {
-                double v = strtod(p, &p);
-                if (n == 0 || v < lo) lo = v;
-                if (n == 0 || v > hi) hi = v;
-                p += strcspn(p, ";");
-                if (*p) p++;
-            }
-            double vf = strtod(f[2], NULL), tol = strtod(f[3], NULL), fr[3];
-            edges(f[4], 0, fr);
-            for (int k = 0; k < 3; k++) {
-                double err = 360.0 * fr[k] * (hi - lo) / (vf * C_M_PER_S);
-                if (err > tol) code = 1;
-                printf("%s,%s,%s,%.6f,%.3f,%.3f,%.3f,%s\n", f[0], f[4], edge_names[k],
-                       fr[k] / 1e6, hi - lo, err, tol, err <= tol ? "pass" : "fail");
-            }
-        }
-    } else if (strcmp(mode, "cut") == 0) {
-        puts("label,offset_m,delay_ns,vf,cut_length_m,cut_length_ft,freq_mhz,electrical_deg,"
-             "quarter_wave_mhz,allowance_m");
-        while (fgets(line, sizeof line, in)) {
-            split(line, f); /* label,offset,vf */
-            double off = strtod(f[1], NULL), vf = strtod(f[2], NULL);
-            double delay = off / C_M_PER_S, cut = vf * C_M_PER_S * delay;
-            printf("%s,%.3f,%.3f,%.4f,%.3f,%.4f,,,%.4f,0.000\n", f[0], off, delay * 1e9, vf,
-                   cut, cut / 0.3048, vf * C_M_PER_S / (4.0 * cut) / 1e6);
-        }
-    } else {
-        fprintf(stderr, "floor: unknown mode '%s'\n", mode);
-        return 2;
+    fputs(cmd == 0 ? phase_header : cmd == 1 ? pair_header : cut_header, stdout);
+    while (fgets(line, sizeof line, in)) {
+        split(line, f);
+        if (cmd == 0) phase_row(f, use_printf);
+        else if (cmd == 1) code |= pair_row(f, use_printf);
+        else cut_row(f, use_printf);
     }
+    flush_out();
     fclose(in);
     return ferror(stdout) ? 2 : code;
 }

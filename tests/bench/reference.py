@@ -4,8 +4,10 @@ The same batch as `coaxline phase|pair|cut --input FILE --format csv`,
 done the usual way in Python: the csv module reads the rows, a small
 regular expression parses the units, band edges come from data/bands.csv,
 numpy does the arithmetic on whole columns, and csv.writer writes the
-result with fixed decimals.  Nothing here is tuned; it is the yardstick
-that `make bench` times coaxline against (tests/bench/bench_batch.c).
+result with fixed decimals.  It writes the same columns as coaxline, and
+computes in the same order, so on the generated files its output is the
+same bytes (tests/bench/bench_batch.c compares them).  Nothing here is
+tuned; it is the yardstick that `make bench` times coaxline against.
 
 Usage: reference.py phase|pair|cut BANDS_CSV INPUT_CSV   (output on stdout)
 Exit status: 0, or 1 when a pair row fails its tolerance (as coaxline).
@@ -89,11 +91,18 @@ def phase(edges, rows, out):
     vf = np.array([float(r["vf"]) for r in rows])
     f = band_freqs(edges, bands, regions)
     delta = length - ref
-    err = 360.0 * f * (delta / (vf * C))[:, None]
+    speed = (vf * C)[:, None]
+    err = 360.0 * f * delta[:, None] / speed
+    elec = 360.0 * f * length[:, None] / speed
+    ref_elec = 360.0 * f * ref[:, None] / speed
+    region_text = ["all" if r == 0 else str(r) for r in regions]
     write_csv(out, ["label", "band", "edge", "freq_mhz", "length_m", "reference_m",
-                    "delta_m", "phase_error_deg"],
+                    "delta_m", "phase_error_deg", "vf", "region", "transfer_deg",
+                    "electrical_deg", "transfer_db", "reference_transfer_deg",
+                    "reference_electrical_deg", "reference_transfer_db"],
               ([labels[i], bands[i], EDGES[k], "%.6f" % (f[i, k] / 1e6), "%.3f" % length[i],
-                "%.3f" % ref[i], "%.3f" % delta[i], "%.3f" % err[i, k]]
+                "%.3f" % ref[i], "%.3f" % delta[i], "%.3f" % err[i, k], "%.4f" % vf[i],
+                region_text[i], "", "%.3f" % elec[i, k], "", "", "%.3f" % ref_elec[i, k], ""]
                for i in range(len(rows)) for k in range(3)))
     return 0
 
@@ -107,12 +116,16 @@ def pair(edges, rows, out):
     vf = np.array([float(r["vf"]) for r in rows])
     tol = np.array([float(r["tolerance"]) for r in rows])
     f = band_freqs(edges, bands, [0] * len(rows))
-    err = 360.0 * f * (delta / (vf * C))[:, None]
+    err = 360.0 * f * delta[:, None] / (vf * C)[:, None]
     ok = err <= tol[:, None]
+    # no length or VF tolerance: no uncertainty
+    allowed = (tol * vf * C)[:, None] / (360.0 * f)
     write_csv(out, ["label", "band", "edge", "freq_mhz", "delta_m", "phase_error_deg",
-                    "tolerance_deg", "verdict"],
+                    "tolerance_deg", "verdict", "allowed_mismatch_m", "uncertainty_deg",
+                    "electrical_error_deg", "transfer_imbalance_db"],
               ([labels[i], bands[i], EDGES[k], "%.6f" % (f[i, k] / 1e6), "%.3f" % delta[i],
-                "%.3f" % err[i, k], "%.3f" % tol[i], "pass" if ok[i, k] else "fail"]
+                "%.3f" % err[i, k], "%.3f" % tol[i], "pass" if ok[i, k] else "fail",
+                "%.3f" % allowed[i, k], "0.000", "%.3f" % err[i, k], ""]
                for i in range(len(rows)) for k in range(3)))
     return 0 if ok.all() else 1
 
@@ -122,7 +135,7 @@ def cut(edges, rows, out):
     offset = np.array([parse_length(r["offset"]) for r in rows])
     vf = np.array([float(r["vf"]) for r in rows])
     delay = offset / C
-    length = vf * C * delay
+    length = delay * vf * C
     qw = vf * C / (4.0 * length)
     write_csv(out, ["label", "offset_m", "delay_ns", "vf", "cut_length_m", "cut_length_ft",
                     "freq_mhz", "electrical_deg", "quarter_wave_mhz", "allowance_m"],
