@@ -92,11 +92,12 @@ run_case() {
     rm -rf "$tmp/run" && mkdir "$tmp/run" && cp "$gold"/input/* "$tmp/run/"
     (cd "$tmp/run" && env -u COAXLINE_CABLE_DIR LC_ALL=C TZ=UTC HOME="$tmp/home" \
         PATH="$tmp/bin:$PATH" sh -c "$1" </dev/null >"$tmp/stdout" 2>"$tmp/stderr")
+    status=$?
     echo "==== \$ $1"
-    echo "---- exit $?"
+    echo "---- exit $status"
     put stdout "$tmp/stdout"
     put stderr "$tmp/stderr"
-    for f in $(cd "$tmp/run" && LC_ALL=C ls); do
+    (cd "$tmp/run" && LC_ALL=C ls) | while IFS= read -r f; do
         [ -f "$gold/input/$f" ] && cmp -s "$gold/input/$f" "$tmp/run/$f" && continue
         put "file $f" "$tmp/run/$f"
     done
