@@ -662,6 +662,10 @@ int main(void)
 {
     Suite *s = suite_create("cli_measured");
     TCase *tb = tcase_create("bands");
+    /* each test runs the binary several times (through the libtool
+     * wrapper, about 0.5 s a run on a loaded 2-core machine): the
+     * default 4 s is too short there, as for the cases below */
+    tcase_set_timeout(tb, 60);
     tcase_add_test(tb, bands_widest);
     tcase_add_test(tb, bands_region);
     tcase_add_test(tb, bands_csv_is_a_band_table);
