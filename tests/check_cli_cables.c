@@ -87,7 +87,7 @@ START_TEST(cables_csv_and_json)
     r = run_cli(NULL, "cables --cable rg-213 --format json", NULL);
     ck_assert_int_eq(r.rc, 0);
     python_holds_text("import json,sys; d=json.load(open(sys.argv[1])); "
-                      "assert len(d)==1 and d[0][\"name\"]==\"RG-213\" and d[0][\"inner_diameter_mm\"]==2.073",
+                      "assert len(d)==1 and d[0][\"name\"]==\"RG-213\" and abs(d[0][\"inner_diameter_mm\"]-2.073)<1e-9",
                       r.out);
     cli_result_free(&r);
 }
