@@ -36,6 +36,7 @@ typedef struct loss_setup {
     int defaulted;          /* the user did not choose the model */
     size_t npoints;         /* the cable's loss-table points */
     unsigned flags;         /* CXL_LOSS_* */
+    int model_clad;         /* physical model with a copper-clad centre */
     cxl_loss_fit *fit;
     cxl_loss_model *model;
 } loss_setup;
@@ -93,6 +94,8 @@ static int setup_model(cli_ctx *ctx, const cli_args *a, const cxl_catalog *cat, 
     if (st != CXL_OK)
         return cli_error(ctx, "cable", "a cable with a consistent geometry",
                          "cable '%s': physical model: %s", name, cxl_strerror(st));
+    double fx;
+    s->model_clad = cxl_loss_model_clad_crossover(s->model, &fx) != CXL_ENOTFOUND;
     return 0;
 }
 
@@ -128,8 +131,9 @@ static int eval_point(cli_ctx *ctx, const loss_setup *s, const char *name,
         cli_fmt_range_mhz(range, sizeof range, lo, hi);
         if (s->physical)
             return cli_error(ctx, field,
-                             "a frequency in that range: from 3 skin depths in the centre "
-                             "conductor up to the first higher-order mode",
+                             "a frequency in that range: from one skin depth in the centre "
+                             "conductor's radius (three for a copper-clad centre) up to the "
+                             "first higher-order mode",
                              "%s MHz%s is outside the range of the physical model of '%s', %s",
                              f, where, name, range);
         cli_fmt_range_mhz(usable, sizeof usable, use_lo, use_hi);
@@ -168,8 +172,10 @@ static void text_output(cli_ctx *ctx, const cli_args *a, const char *name, size_
     fprintf(o, "  length     %s\n", cli_fmt_length(ctx, b1, sizeof b1, length_m));
     model_range(s, &lo, &hi);
     if (s->physical) {
-        fprintf(o, "  model      physical: skin-effect R%s, dielectric G, exact propagation "
+        fprintf(o, "  model      physical: %s R%s, dielectric G, exact propagation "
                    "constant; holds %s\n",
+                s->model_clad ? "layered-surface (clad centre) and thick-wall Bessel"
+                              : "round-wire and thick-wall Bessel",
                 s->flags & CXL_LOSS_EXTERNAL_L_ONLY ? " (external inductance only)"
                                                     : " with internal inductance",
                 cli_fmt_range_mhz(b1, sizeof b1, lo, hi));

@@ -6,6 +6,7 @@
 
 #include <math.h>
 #include <stddef.h>
+#include <gsl/gsl_complex.h>
 #include "coaxline.h"
 
 static inline int cxl__finite_pos(double x) { return isfinite(x) && x > 0.0; }
@@ -31,6 +32,24 @@ extern const char cxl__data_cables[];
 extern const size_t cxl__data_cables_size;
 extern const char cxl__data_cable_loss[];
 extern const size_t cxl__data_cable_loss_size;
+/* bessel.c: scaled ratios of modified Bessel functions of complex
+ * argument, z I0(z)/(2 I1(z)) and z K0(z)/K1(z), for the internal impedance
+ * of round conductors.  The plain functions switch from the ascending
+ * series to the asymptotic expansion at |z| = CXL__BESSEL_I_ASYMPT_MIN
+ * (I) and CXL__BESSEL_K_ASYMPT_MIN (K), where both forms agree with
+ * scipy's ive/kve to 1e-10 or better on the 45-degree ray the conductors
+ * use (measured by tests/bessel_compare.py: the K series loses digits to
+ * cancellation as e^(2|z|), the I asymptotic form misses a term of
+ * relative size e^(-2 Re z)).  The _series and _asympt forms are there for
+ * the tests of both branches. */
+#define CXL__BESSEL_I_ASYMPT_MIN 20.0
+#define CXL__BESSEL_K_ASYMPT_MIN 10.0
+gsl_complex cxl__bessel_i_ratio(gsl_complex z);
+gsl_complex cxl__bessel_k_ratio(gsl_complex z);
+gsl_complex cxl__bessel_i_ratio_series(gsl_complex z);
+gsl_complex cxl__bessel_k_ratio_series(gsl_complex z);
+gsl_complex cxl__bessel_i_ratio_asympt(gsl_complex z);
+gsl_complex cxl__bessel_k_ratio_asympt(gsl_complex z);
 /* array.c: a power ratio in dB, clamped to +-CXL_DB_LIMIT. */
 double cxl__power_db(double ratio);
 /* array.c: front-to-back ratio with extra_phase_rad added to element 1. */

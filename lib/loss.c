@@ -22,13 +22,27 @@
 #define MU0 GSL_CONST_MKSA_VACUUM_PERMEABILITY
 #define EPS0 GSL_CONST_MKSA_VACUUM_PERMITTIVITY
 #define DB_PER_NEPER (20.0 / M_LN10)
-/* The inner radius must hold this many skin depths for the surface-impedance
- * form of R to hold: the round wire's resistance, a/(2 delta) + 1/4 + ...
- * times its DC value (asymptotic series, from memory), exceeds the
- * surface-impedance value by about delta/(2a), some 17 % at 3 depths. */
-#define MIN_RADIUS_IN_SKIN_DEPTHS 3.0
+/* Lower end of the physical model's range: the frequency at which the
+ * skin depth equals the inner radius.  The internal impedance of a solid
+ * centre is exact at any frequency (Bessel form below), but the outer
+ * conductor is taken as thick (a wall from b outward): once the skin depth
+ * approaches the inner radius it is comparable to a braid's thickness,
+ * which the catalog does not give, and the thick-wall form no longer
+ * describes a real braid.  Measured: tests/bessel_compare.py checks the
+ * model against scipy's Bessel functions over this whole range. */
+#define MIN_RADIUS_IN_SKIN_DEPTHS 1.0
+/* A copper-clad centre keeps the planar layered surface impedance, which
+ * needs the skin depth small against the wire radius: the same rule as the
+ * earlier thin-skin model, 3 depths (the round wire's resistance exceeds
+ * the planar value by about delta/(2a), some 17 % at 3 depths, from the
+ * asymptotic series a/(2 delta) + 1/4 + ... of R/R_dc, from memory). */
+#define CLAD_MIN_RADIUS_IN_SKIN_DEPTHS 3.0
 
-static const unsigned known_flags = CXL_LOSS_EXTRAPOLATE | CXL_LOSS_EXTERNAL_L_ONLY;
+/* the fitted model takes the flags it always took; CXL_LOSS_THIN_SKIN
+ * means something to the physical model only */
+static const unsigned fit_flags = CXL_LOSS_EXTRAPOLATE | CXL_LOSS_EXTERNAL_L_ONLY;
+static const unsigned known_flags = CXL_LOSS_EXTRAPOLATE | CXL_LOSS_EXTERNAL_L_ONLY |
+                                    CXL_LOSS_THIN_SKIN;
 
 /* ---- skin depth and total loss ------------------------------------------ */
 
@@ -248,7 +262,7 @@ cxl_status cxl_loss_fit_max_relative_residual(const cxl_loss_fit *fit,
 cxl_status cxl_loss_fit_eval(const cxl_loss_fit *fit, double freq_hz,
                              unsigned flags, double *loss_db_per_m)
 {
-    if (!fit || !loss_db_per_m || !cxl__finite_pos(freq_hz) || (flags & ~known_flags))
+    if (!fit || !loss_db_per_m || !cxl__finite_pos(freq_hz) || (flags & ~fit_flags))
         return CXL_EINVAL;
     double lo = fit->freq_hz[0] / (1.0 + CXL_LOSS_FIT_MARGIN);
     double hi = fit->freq_hz[fit->n - 1] * (1.0 + CXL_LOSS_FIT_MARGIN);
@@ -376,7 +390,8 @@ cxl_status cxl_loss_model_range(const cxl_loss_model *model, double *min_freq_hz
                                 double *max_freq_hz)
 {
     if (!model || !min_freq_hz || !max_freq_hz) return CXL_EINVAL;
-    double delta_max = model->a / MIN_RADIUS_IN_SKIN_DEPTHS;
+    double delta_max = model->a / (model->clad ? CLAD_MIN_RADIUS_IN_SKIN_DEPTHS
+                                               : MIN_RADIUS_IN_SKIN_DEPTHS);
     /* delta = 1/sqrt(pi f mu0 mu_r sigma)  =>  f = 1/(pi mu0 mu_r sigma delta^2);
      * under a cladding the metal with the deeper skin depth sets the limit */
     double mu_sigma = model->sigma;
@@ -418,6 +433,45 @@ static gsl_complex clad_surface_impedance(const cxl_loss_model *m, double omega)
     return gsl_complex_mul(eta1, gsl_complex_div(num, den));
 }
 
+/* Internal impedance per metre of both conductors, ohm/m.
+ *
+ * Solid round centre of radius a (Ramo, Whinnery and Van Duzer, Fields and
+ * Waves in Communication Electronics, 3rd ed., ch. 5, internal impedance of
+ * a round wire, from memory):
+ *   Z_a = (eta_s / (2 pi a)) I0(tau a) / I1(tau a),
+ *   tau = (1 + j)/delta, eta_s = (1 + j)/(sigma delta) = tau/sigma,
+ * written as R_dc x [tau a I0 / (2 I1)] with R_dc = 1/(sigma pi a^2), so it
+ * tends to R_dc + j omega mu0/(8 pi) at low frequency and to the thin-skin
+ * (1 + j) Rs/(2 pi a) at high frequency.
+ * Thick outer conductor from radius b outward (same source):
+ *   Z_b = (eta_s / (2 pi b)) K0(tau b) / K1(tau b)
+ *       = [tau b K0 / K1] / (2 pi sigma b^2).
+ * A copper-clad centre keeps the planar layered surface impedance over the
+ * circumference, Zs/(2 pi a).  CXL_LOSS_THIN_SKIN gives the thin-skin form
+ * (1 + j) Rs/(2 pi) (1/a + 1/b) for comparison (Pozar, Microwave
+ * Engineering, 4th ed., Table 2.1). */
+static gsl_complex internal_impedance(const cxl_loss_model *m, double omega,
+                                      unsigned flags)
+{
+    double delta = sqrt(2.0 / (omega * MU0 * m->sigma));
+    gsl_complex z_in, z_out;
+    if (flags & CXL_LOSS_THIN_SKIN) {
+        gsl_complex zs = surface_impedance(omega, m->sigma, 1.0);
+        z_in = gsl_complex_div_real(zs, 2.0 * M_PI * m->a);
+        z_out = gsl_complex_div_real(zs, 2.0 * M_PI * m->b);
+    } else {
+        z_in = gsl_complex_mul_real(
+            cxl__bessel_i_ratio(gsl_complex_rect(m->a / delta, m->a / delta)),
+            1.0 / (m->sigma * M_PI * m->a * m->a));
+        z_out = gsl_complex_mul_real(
+            cxl__bessel_k_ratio(gsl_complex_rect(m->b / delta, m->b / delta)),
+            1.0 / (m->sigma * 2.0 * M_PI * m->b * m->b));
+    }
+    if (m->clad)
+        z_in = gsl_complex_div_real(clad_surface_impedance(m, omega), 2.0 * M_PI * m->a);
+    return gsl_complex_add(z_in, z_out);
+}
+
 struct rlgc { double r, l, g, c, omega; };
 
 static cxl_status model_rlgc(const cxl_loss_model *m, double freq_hz, unsigned flags,
@@ -431,13 +485,7 @@ static cxl_status model_rlgc(const cxl_loss_model *m, double freq_hz, unsigned f
     }
     double omega = 2.0 * M_PI * freq_hz, ln_ba = log(m->b / m->a);
     if (!isfinite(omega)) return CXL_ERANGE;
-    gsl_complex zs_in = m->clad ? clad_surface_impedance(m, omega)
-                                : surface_impedance(omega, m->sigma, 1.0);
-    gsl_complex zs_out = surface_impedance(omega, m->sigma, 1.0);
-    /* series impedance of both conductors' surfaces, per metre */
-    gsl_complex z_int = gsl_complex_add(gsl_complex_div_real(zs_in, 2.0 * M_PI * m->a),
-                                        gsl_complex_div_real(zs_out, 2.0 * M_PI * m->b));
-    z_int = gsl_complex_mul_real(z_int, m->factor);
+    gsl_complex z_int = gsl_complex_mul_real(internal_impedance(m, omega, flags), m->factor);
     out->omega = omega;
     out->r = GSL_REAL(z_int);
     out->l = MU0 / (2.0 * M_PI) * ln_ba;

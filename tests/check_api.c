@@ -103,6 +103,8 @@ static const kind K_DECIMALS = { "decimals", LIST(-1, 18, INT_MIN, INT_MAX), LIS
 static const kind K_PROP = { "cable property", LIST(-1, 11, INT_MIN, INT_MAX), NONE };
 static const kind K_ANYINT = { "any int", NONE, LIST(0, -1, INT_MIN, INT_MAX) };
 static const kind K_FLAGS = { "loss flags", LIST(4, 8, 0x80000000u, UINT_MAX), LIST(0, 1, 2, 3) };
+/* the physical model also takes CXL_LOSS_THIN_SKIN (4) */
+static const kind K_MFLAGS = { "model flags", LIST(8, 16, 0x80000000u, UINT_MAX), LIST(0, 1, 2, 3, 4, 7) };
 static const kind K_TURNS = { "turns", LIST(0), LIST(1, 1000, UINT_MAX) };
 static const kind K_MAXTURNS = { "max turns", LIST(0, 257, UINT_MAX), LIST(1, 256) };
 static const kind K_COUNT1 = { "count >= 1 (within the test's buffer)", LIST(0), NONE };
@@ -1090,16 +1092,16 @@ static api_case cases[] = {
     { "cxl_loss_model_set_clad", call_loss_model_set_clad, 3, {0.02e-3, 5e6, 100},
       {&K_NONNEG, &K_POS, &K_EPS_R}, 1, 0, 2, 1, {{0.5e-3, 5e6, 100}} /* thicker than the radius; 0 = bare core */ },
     { "cxl_loss_model_range", call_loss_model_range, 0, {0}, {0}, 3, 0, 2, 0, {{0}} },
-    { "cxl_loss_model_rlgc", call_loss_model_rlgc, 2, {10e6, 0}, {&K_POS, &K_FLAGS}, 5, 0, 4, 0, {{0}} },
-    { "cxl_loss_model_rlgc", call_loss_model_rlgc, 2, {10e6, 3}, {&K_POS, &K_FLAGS}, 5, 0, 4, 0, {{0}} },
-    { "cxl_loss_model_gamma", call_loss_model_gamma, 2, {10e6, 0}, {&K_POS, &K_FLAGS}, 3, 0, 2, 0, {{0}} },
-    { "cxl_loss_model_gamma", call_loss_model_gamma, 2, {10e6, 1}, {&K_POS, &K_FLAGS}, 3, 0, 2, 0, {{0}} },
-    { "cxl_loss_model_attenuation", call_loss_model_attenuation, 2, {10e6, 0}, {&K_POS, &K_FLAGS}, 2, 0, 1, 0, {{0}} },
-    { "cxl_loss_model_attenuation", call_loss_model_attenuation, 2, {10e6, 1}, {&K_POS, &K_FLAGS}, 2, 0, 1, 0, {{0}} },
-    { "cxl_loss_model_z0", call_loss_model_z0, 2, {10e6, 0}, {&K_POS, &K_FLAGS}, 3, 0, 2, 0, {{0}} },
-    { "cxl_loss_model_z0", call_loss_model_z0, 2, {10e6, 1}, {&K_POS, &K_FLAGS}, 3, 0, 2, 0, {{0}} },
-    { "cxl_loss_model_vf", call_loss_model_vf, 2, {10e6, 0}, {&K_POS, &K_FLAGS}, 2, 0, 1, 0, {{0}} },
-    { "cxl_loss_model_vf", call_loss_model_vf, 2, {10e6, 1}, {&K_POS, &K_FLAGS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_loss_model_rlgc", call_loss_model_rlgc, 2, {10e6, 0}, {&K_POS, &K_MFLAGS}, 5, 0, 4, 0, {{0}} },
+    { "cxl_loss_model_rlgc", call_loss_model_rlgc, 2, {10e6, 3}, {&K_POS, &K_MFLAGS}, 5, 0, 4, 0, {{0}} },
+    { "cxl_loss_model_gamma", call_loss_model_gamma, 2, {10e6, 0}, {&K_POS, &K_MFLAGS}, 3, 0, 2, 0, {{0}} },
+    { "cxl_loss_model_gamma", call_loss_model_gamma, 2, {10e6, 1}, {&K_POS, &K_MFLAGS}, 3, 0, 2, 0, {{0}} },
+    { "cxl_loss_model_attenuation", call_loss_model_attenuation, 2, {10e6, 0}, {&K_POS, &K_MFLAGS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_loss_model_attenuation", call_loss_model_attenuation, 2, {10e6, 1}, {&K_POS, &K_MFLAGS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_loss_model_z0", call_loss_model_z0, 2, {10e6, 0}, {&K_POS, &K_MFLAGS}, 3, 0, 2, 0, {{0}} },
+    { "cxl_loss_model_z0", call_loss_model_z0, 2, {10e6, 1}, {&K_POS, &K_MFLAGS}, 3, 0, 2, 0, {{0}} },
+    { "cxl_loss_model_vf", call_loss_model_vf, 2, {10e6, 0}, {&K_POS, &K_MFLAGS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_loss_model_vf", call_loss_model_vf, 2, {10e6, 1}, {&K_POS, &K_MFLAGS}, 2, 0, 1, 0, {{0}} },
     { "cxl_loss_skin_depth_m", call_loss_skin_depth, 3, {F, 58e6, 1.0}, {&K_POS, &K_POS, &K_POS}, 1, 0, 1, 0, {{0}} },
     { "cxl_loss_total_db", call_loss_total_db, 2, {1.5, 2.0}, {&K_NONNEG, &K_SWR}, 1, 0, 1, 0, {{0}} },
     { "cxl_loss_run_db", call_loss_run_db, 3, {0.02, 50, 2.0}, {&K_NONNEG, &K_POS, &K_SWR}, 2, 0, 2, 0, {{0}} },
@@ -1153,19 +1155,19 @@ static api_case cases[] = {
       {&K_POS, &K_VF, &K_NONNEG, &K_POS, &K_NONNEG, &K_FIN}, 3, 0x4, 3,
       1, {{50, 0.66, 30, F, 0, 0}} },
     { "cxl_transfer_model", call_transfer_model, 5, {10e6, 0, 30, 75, 10},
-      {&K_POS, &K_FLAGS, &K_NONNEG, &K_NONNEG, &K_FIN}, 4, 0x8, 3,
+      {&K_POS, &K_MFLAGS, &K_NONNEG, &K_NONNEG, &K_FIN}, 4, 0x8, 3,
       2, {{1e3, 0, 30, 75, 10}, /* below the model's range */ {10e6, 0, 30, 0, 0}} },
     { "cxl_transfer_model", call_transfer_model, 5, {10e6, CXL_LOSS_EXTRAPOLATE, 30, 75, 10},
-      {&K_POS, &K_FLAGS, &K_NONNEG, &K_NONNEG, &K_FIN}, 4, 0x8, 3, 0, {{0}} },
+      {&K_POS, &K_MFLAGS, &K_NONNEG, &K_NONNEG, &K_FIN}, 4, 0x8, 3, 0, {{0}} },
     { "cxl_transfer_input_impedance", call_transfer_input_impedance, 7, {50, -2, 0.01, 0.05, 30, 75, 10},
       {&K_POS, &K_FIN, &K_NONNEG, &K_POS, &K_NONNEG, &K_NONNEG, &K_FIN}, 2, 0, 2,
       1, {{50, 0, 0, 1, 0.5 * M_PI, 0, 0}} /* a shorted quarter wave: open at the input */ },
     { "cxl_transfer_stub_resonance", call_transfer_stub_resonance, 4, {0, CXL_STUB_OPEN, 1, 30},
-      {&K_FLAGS, &K_ENUM2, &K_ORDER, &K_POS}, 2, 0, 1,
+      {&K_MFLAGS, &K_ENUM2, &K_ORDER, &K_POS}, 2, 0, 1,
       1, {{0, CXL_STUB_OPEN, 1, 1e5}} /* resonance below the model's range */ },
     { "cxl_transfer_stub_resonance", call_transfer_stub_resonance, 4,
       {CXL_LOSS_EXTRAPOLATE, CXL_STUB_SHORT, 3, 30},
-      {&K_FLAGS, &K_ENUM2, &K_ORDER, &K_POS}, 2, 0, 1, 0, {{0}} },
+      {&K_MFLAGS, &K_ENUM2, &K_ORDER, &K_POS}, 2, 0, 1, 0, {{0}} },
     /* loss.c: clad crossover */
     { "cxl_loss_model_clad_crossover", call_loss_model_clad_crossover, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
     /* drift.c */

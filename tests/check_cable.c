@@ -91,8 +91,11 @@ START_TEST(test_builtin_geometry_matches_nominal_z0)
 {
     /* Lossless coax: Z0 = (eta0 / (2 pi sqrt(eps_r))) ln(D/d), eta0/(2 pi) =
      * 59.9585 ohm (Pozar, Microwave Engineering, 4th ed., sec. 2.1, from
-     * memory).  Stranded centres and braid make the nominal value differ
-     * from the ideal one; 10 % is common practice, no source.  VF = 1/sqrt(eps_r)
+     * memory).  The catalog gives stranded centres at their effective
+     * (solid-equivalent) diameter, so every row's geometry must give its
+     * nominal Z0 within 2 % (the physical loss model and --cable into a
+     * nominal load use these diameters; 2 % is common practice, no
+     * source).  VF = 1/sqrt(eps_r)
      * for a TEM line (Pozar sec. 2.1); solid PE's 0.66 vs 1/1.5: 2 %. */
     size_t n = count();
     for (size_t i = 0; i < n; i++) {
@@ -105,7 +108,9 @@ START_TEST(test_builtin_geometry_matches_nominal_z0)
         ck_assert_int_eq(cxl_catalog_value(cat, i, CXL_CABLE_Z0_OHM, &z0), CXL_OK);
         ck_assert_int_eq(cxl_catalog_value(cat, i, CXL_CABLE_VF, &vf), CXL_OK);
         double ideal = 59.9585 / sqrt(eps) * log(dd / d);
-        ck_assert_msg(fabs(ideal - z0) / z0 < 0.10, "%s: %.1f ohm from geometry, %.1f nominal",
+        printf("%-16s %.2f ohm from geometry, %.0f nominal (%+.2f %%)\n", name, ideal, z0,
+               100.0 * (ideal / z0 - 1.0));
+        ck_assert_msg(fabs(ideal - z0) / z0 < 0.02, "%s: %.1f ohm from geometry, %.1f nominal",
                       name, ideal, z0);
         ck_assert_msg(fabs(1.0 / sqrt(eps) - vf) / vf < 0.02, "%s: vf %.3f eps_r %.3f",
                       name, vf, eps);

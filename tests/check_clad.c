@@ -16,7 +16,12 @@
 #define D_IN 1.024e-3  /* 0.0403 in wire, ASTM B869-04 Table 1 */
 #define D_DIEL 4.57e-3
 #define EPS_R 1.4516
-#define X_ONLY CXL_LOSS_EXTRAPOLATE
+/* The clad centre keeps the planar layered surface impedance; with
+ * CXL_LOSS_THIN_SKIN the outer conductor and a plain copper centre use the
+ * same planar (thin-skin) form, so the identities below are exact.  The
+ * default Bessel forms of copper are checked against scipy in
+ * tests/bessel_compare.py. */
+#define X_ONLY (CXL_LOSS_EXTRAPOLATE | CXL_LOSS_THIN_SKIN)
 
 static cxl_loss_model *copper(void)
 {
@@ -58,8 +63,8 @@ START_TEST(thick_cladding_is_copper)
     ck_assert_double_eq_tol(r_cl, r_cu, 1e-11 * r_cu);
     /* and the internal inductance with it (Zs = (1 + j) Rs for both) */
     double r, l_cu, l_cl, g, c;
-    ck_assert_int_eq(cxl_loss_model_rlgc(cu, 10e6, 0, &r, &l_cu, &g, &c), CXL_OK);
-    ck_assert_int_eq(cxl_loss_model_rlgc(cl, 10e6, 0, &r, &l_cl, &g, &c), CXL_OK);
+    ck_assert_int_eq(cxl_loss_model_rlgc(cu, 10e6, X_ONLY, &r, &l_cu, &g, &c), CXL_OK);
+    ck_assert_int_eq(cxl_loss_model_rlgc(cl, 10e6, X_ONLY, &r, &l_cl, &g, &c), CXL_OK);
     ck_assert_double_eq_tol(l_cl, l_cu, 1e-11 * l_cu);
     cxl_loss_model_free(cu);
     cxl_loss_model_free(cl);

@@ -65,10 +65,10 @@ START_TEST(cables_csv_and_json)
     /* the RG-213 rows of data/cables.csv and data/cable_loss.csv (4 points,
      * 1 to 150 MHz); copper default 58 MS/m (IEC 60028) */
     has(r.out,
-        "\nRG-213,50.0,0.6600,solid-PE,2.260,7.240,2.2500,0.000200,yes,4,1.000,150.000,\"nominal values;");
+        "\nRG-213,50.0,0.6600,solid-PE,2.073,7.240,2.2500,0.000200,yes,4,1.000,150.000,\"inner_diameter_mm is the effective");
     has(r.out, ",58000000,1.000,,,\n");
     /* a row without a loss table leaves its range empty */
-    has(r.out, "\nRG-316,50.0,0.6900,PTFE,0.510,1.520,2.1000,0.000300,yes,0,,,");
+    has(r.out, "\nRG-316,50.0,0.6900,PTFE,0.454,1.520,2.1000,0.000300,yes,0,,,");
     cli_result_free(&r);
 
     r = run_cli(NULL, "cables --format json", NULL);
@@ -87,7 +87,7 @@ START_TEST(cables_csv_and_json)
     r = run_cli(NULL, "cables --cable rg-213 --format json", NULL);
     ck_assert_int_eq(r.rc, 0);
     python_holds_text("import json,sys; d=json.load(open(sys.argv[1])); "
-                      "assert len(d)==1 and d[0][\"name\"]==\"RG-213\" and d[0][\"inner_diameter_mm\"]==2.26",
+                      "assert len(d)==1 and d[0][\"name\"]==\"RG-213\" and abs(d[0][\"inner_diameter_mm\"]-2.073)<1e-9",
                       r.out);
     cli_result_free(&r);
 }
@@ -167,14 +167,18 @@ START_TEST(loss_physical_vs_fitted)
      * Engineering, 4th ed., sec. 2.7, from memory; REFERENCES.md):
      * alpha_c = R/(2 Z0), R = Rs/(2 pi) (1/a + 1/b), Rs = sqrt(pi f mu0/sigma),
      * Z0 = 59.9585/sqrt(eps_r) ln(b/a), alpha_d = pi sqrt(eps_r) f tan(d)/c,
-     * 8.6859 dB/Np.  Geometry of the RG-213 row of data/cables.csv: 2.26 mm
-     * centre, 7.24 mm dielectric, eps_r 2.25, tan(d) 2e-4, copper 58.0 MS/m
-     * (IEC 60028).  The exact propagation constant agrees to 1 % where
-     * R << omega L (tests/check_loss.c, same comparison). */
-    const double f = 10e6, a = 1.13e-3, b = 3.62e-3, eps = 2.25, tan_d = 2e-4;
+     * 8.6859 dB/Np; R with the first curvature terms of the round conductors,
+     * + 1/(4 sigma pi a^2) - 1/(4 sigma pi b^2), from z I0/(2 I1) = z/2 + 1/4
+     * + ... and z K0/K1 = z - 1/2 + ... (Abramowitz and Stegun 9.7.1, 9.7.2;
+     * tests/check_loss.c).  Geometry of the RG-213 row of data/cables.csv:
+     * 2.073 mm effective centre, 7.24 mm dielectric, eps_r 2.25, tan(d) 2e-4,
+     * copper 58.0 MS/m (IEC 60028).  The exact propagation constant agrees
+     * to 1 % where R << omega L (tests/check_loss.c, same comparison). */
+    const double f = 10e6, a = 1.0365e-3, b = 3.62e-3, eps = 2.25, tan_d = 2e-4;
     const double mu0 = 4e-7 * M_PI, sigma = 58.0e6, c0 = 299792458.0;
     double rs = sqrt(M_PI * f * mu0 / sigma);
-    double r_ohm = rs / (2 * M_PI) * (1 / a + 1 / b);
+    double r_ohm = rs / (2 * M_PI) * (1 / a + 1 / b) +
+                   (1 / (a * a) - 1 / (b * b)) / (4 * sigma * M_PI);
     double z0 = 59.9585 / sqrt(eps) * log(b / a);
     double alpha = r_ohm / (2 * z0) + M_PI * sqrt(eps) * f * tan_d / c0;
     double want_db_100m = 100.0 * 20.0 * log10(exp(1.0)) * alpha; /* about 1.45 */
@@ -304,9 +308,10 @@ START_TEST(loss_bad_input)
         "extrapolate");
     bad("loss --cable RG-6-foam --length 10m --band 160m --external-inductance-only",
         "external-inductance-only");
-    /* the physical model's range: 3 skin depths in a 0.51 mm-diameter
-     * centre is about 0.6 MHz (skin depth 66.1 um at 1 MHz, REFERENCES.md) */
-    bad_also("loss --cable RG-316 --length 10m --freq 100kHz", "freq", "physical model");
+    /* the physical model's range: one skin depth in a 0.454 mm-diameter
+     * (effective) centre is about 85 kHz (skin depth 66.1 um at 1 MHz,
+     * REFERENCES.md, scaled by 1/sqrt(f)) */
+    bad_also("loss --cable RG-316 --length 10m --freq 50kHz", "freq", "physical model");
     bad_with_file("loss --cables %s --cable myspool --length 10m --band 80m", spool_csv,
                   sizeof spool_csv - 1, "cable", "no loss table and no diameters");
 }

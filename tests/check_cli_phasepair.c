@@ -364,9 +364,10 @@ START_TEST(bad_load)
         snprintf(args, sizeof args, "%s %s", base, cases[i][0]);
         expect_usage_error(NULL, args, cases[i][1], NULL);
     }
-    /* outside the physical model's range (3 skin depths in RG-174's thin
-     * centre at the 525 kHz edge of medium wave) */
-    expect_usage_error(NULL, "phase --length 20.1m --reference 20m --band mw --cable RG-174 "
+    /* outside the physical model's range: RG-174's 0.435 mm effective
+     * centre is one skin depth in radius at 92 kHz (skin depth 66.1 um at
+     * 1 MHz, REFERENCES.md, scaled by 1/sqrt(f)) */
+    expect_usage_error(NULL, "phase --length 20.1m --reference 20m --freq 60kHz --cable RG-174 "
                              "--load 50", "cable", "range");
     /* a shorted load has no voltage to take a phase from */
     expect_usage_error(NULL, "pair --length 20m,20.1m --vf 0.66 --z0 50 --tolerance 2 --freq 1MHz "

@@ -216,17 +216,22 @@ static void bench(const char *cable, double len, double fixture_m, int orders,
     double vf_model;
     ck_assert_int_eq(cxl_loss_model_vf(m, target_hz, 0, &vf_model), CXL_OK);
     printf("    VF at target: trim %.6f, model %.6f (%+.1e)\n", vf_t, vf_model, vf_t / vf_model - 1);
+    double misfit = 0.0; /* the drift law's largest VF error at the readings */
     for (size_t i = 0; i < cxl_trim_result_count(r); i++) {
         double f, v, vm;
         ck_assert_int_eq(cxl_trim_result_reading(r, i, &f, NULL, &v, NULL, NULL), CXL_OK);
         ck_assert_int_eq(cxl_loss_model_vf(m, f, 0, &vm), CXL_OK);
         printf("    reading %.6f MHz: VF %.6f, model %.6f (%+.1e)\n", f / 1e6, v, vm, v / vm - 1);
+        if (fabs(v / vm - 1) > misfit) misfit = fabs(v / vm - 1);
     }
     if (must_land) ck_assert(fabs(rem - truth) <= res);
     /* read the trimmed piece again: each order within two steps of the
      * frequency the trim said the analyzer would show (each reading was
      * rounded by up to half a step, and the prediction rests on them:
-     * common practice, no source) */
+     * common practice, no source), plus twice the drift law's own VF error
+     * at the readings: vf_hf - drop/sqrt(f) is not the exact shape of the
+     * Bessel internal impedance's VF(f), some 1e-5 on RG-58 near 2 MHz,
+     * which at 100 Hz steps is as large as the rounding */
     for (size_t i = 0; i < cxl_trim_result_count(r); i++) {
         double expected, again;
         int order;
@@ -236,7 +241,7 @@ static void bench(const char *cable, double len, double fixture_m, int orders,
                                                      &again), CXL_OK);
         printf("    order %d: expected %.6f MHz, read after the cut %.6f MHz\n", order,
                expected / 1e6, again / 1e6);
-        if (how & REREAD) ck_assert(fabs(again - expected) <= 2.0 * df);
+        if (how & REREAD) ck_assert(fabs(again - expected) <= 2.0 * df + 2.0 * misfit * again);
     }
     cxl_trim_result_free(r);
     cxl_trim_free(t);

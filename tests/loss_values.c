@@ -1,12 +1,18 @@
 /* loss_values - print the physical loss model's values for a geometry, for
  * tests/skrf_compare.py.
- * Usage: loss_values DINT_M DOUT_M EPS_R TAN_D SIGMA_S_PER_M INTERNAL_L FREQ_HZ...
- * INTERNAL_L is 1 (with internal inductance) or 0 (external only).
- * One line per frequency: freq_hz alpha_np_per_m beta_rad_per_m z0_re z0_im vf
+ * Usage: loss_values DINT_M DOUT_M EPS_R TAN_D SIGMA_S_PER_M MODE FREQ_HZ...
+ *        loss_values DINT_M DOUT_M EPS_R TAN_D SIGMA_S_PER_M MODE range
+ * MODE: bit 0 set = with internal inductance (else external only), bit 1
+ * set = thin-skin conductor impedance (CXL_LOSS_THIN_SKIN) instead of the
+ * Bessel forms; so 0, 1, 2 or 3.  Frequencies outside the model's range
+ * are evaluated too (CXL_LOSS_EXTRAPOLATE).
+ * One line per frequency: freq_hz alpha_np_per_m beta_rad_per_m z0_re z0_im
+ * vf r_ohm_per_m l_h_per_m; with "range", one line: min_freq_hz max_freq_hz.
  */
 #include <config.h>
 #include <stdio.h>
 #include <stdlib.h>
+#include <string.h>
 #include "coaxline.h"
 
 static int number(const char *text, double *v)
@@ -27,7 +33,7 @@ int main(int argc, char **argv)
 {
     double p[6];
     if (argc < 8) {
-        fprintf(stderr, "usage: loss_values DINT DOUT EPS_R TAN_D SIGMA INTERNAL_L FREQ_HZ...\n");
+        fprintf(stderr, "usage: loss_values DINT DOUT EPS_R TAN_D SIGMA MODE FREQ_HZ...|range\n");
         return 2;
     }
     for (int i = 0; i < 6; i++)
@@ -38,20 +44,32 @@ int main(int argc, char **argv)
         fprintf(stderr, "loss_values: %s\n", cxl_strerror(st));
         return 1;
     }
-    unsigned flags = p[5] != 0.0 ? 0u : CXL_LOSS_EXTERNAL_L_ONLY;
+    int mode = (int)p[5];
+    unsigned flags = CXL_LOSS_EXTRAPOLATE | ((mode & 1) ? 0u : CXL_LOSS_EXTERNAL_L_ONLY) |
+                     ((mode & 2) ? CXL_LOSS_THIN_SKIN : 0u);
     int rc = 0;
+    if (strcmp(argv[7], "range") == 0) {
+        double lo, hi;
+        cxl_loss_model_range(m, &lo, &hi);
+        put(lo, " ");
+        put(hi, "\n");
+        cxl_loss_model_free(m);
+        return 0;
+    }
     for (int i = 7; i < argc && rc == 0; i++) {
-        double f, alpha, beta, zr, zi, vf;
+        double f, alpha, beta, zr, zi, vf, r, l, g, c;
         if (!number(argv[i], &f)) { rc = 2; break; }
         st = cxl_loss_model_gamma(m, f, flags, &alpha, &beta);
         if (st == CXL_OK) st = cxl_loss_model_z0(m, f, flags, &zr, &zi);
         if (st == CXL_OK) st = cxl_loss_model_vf(m, f, flags, &vf);
+        if (st == CXL_OK) st = cxl_loss_model_rlgc(m, f, flags, &r, &l, &g, &c);
         if (st != CXL_OK) {
             fprintf(stderr, "loss_values: %s at %s Hz\n", cxl_strerror(st), argv[i]);
             rc = 1;
             break;
         }
-        put(f, " "); put(alpha, " "); put(beta, " "); put(zr, " "); put(zi, " "); put(vf, "\n");
+        put(f, " "); put(alpha, " "); put(beta, " "); put(zr, " "); put(zi, " "); put(vf, " ");
+        put(r, " "); put(l, "\n");
     }
     cxl_loss_model_free(m);
     return rc;

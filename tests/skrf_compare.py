@@ -43,11 +43,14 @@ def check(ok, what):
 
 
 def c_model(helper, dint, dout, eps, tan_d, internal_l, freqs):
+    # mode 2: external inductance only, thin-skin R (CXL_LOSS_THIN_SKIN),
+    # the form scikit-rf uses; the library's default Bessel form is checked
+    # against scipy by tests/bessel_compare.py
     args = [helper, repr(dint), repr(dout), repr(eps), repr(tan_d), repr(SIGMA_CU),
-            "1" if internal_l else "0"] + [repr(float(f)) for f in freqs]
+            "3" if internal_l else "2"] + [repr(float(f)) for f in freqs]
     out = subprocess.run(args, check=True, capture_output=True, text=True).stdout
     rows = np.array([[float(x) for x in line.split()] for line in out.splitlines()])
-    return rows  # freq, alpha, beta, z0 re, z0 im, vf
+    return rows  # freq, alpha, beta, z0 re, z0 im, vf, r, l
 
 
 def main():

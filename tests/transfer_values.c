@@ -15,7 +15,8 @@
 #include <string.h>
 #include "coaxline.h"
 
-#define FLAGS (CXL_LOSS_EXTERNAL_L_ONLY | CXL_LOSS_EXTRAPOLATE)
+/* scikit-rf 0.15.4 uses the thin-skin R and external L only */
+#define FLAGS (CXL_LOSS_EXTERNAL_L_ONLY | CXL_LOSS_THIN_SKIN | CXL_LOSS_EXTRAPOLATE)
 
 static int numbers(char **text, int n, double *v)
 {
