@@ -181,7 +181,7 @@ static cxl_status reject(cxl_csv_reader *r, int state, cxl_status st)
 {
     skip_record(r, state);
     if (r->read_failed && r->stopped == CXL_OK) r->stopped = CXL_EIO;
-    return r->stopped == CXL_EIO ? CXL_EIO : st;
+    return r->stopped != CXL_OK ? r->stopped : st;
 }
 
 cxl_status cxl_csv_reader_next(cxl_csv_reader *r, int *has_row)
