@@ -11,10 +11,11 @@ SUDO=""
 if [ "$(id -u)" -ne 0 ]; then SUDO="sudo"; fi
 
 # Build needs; the tests also need Python's reference libraries (Debian's,
-# seen by /usr/bin/python3) and a comma-decimal locale.
+# seen by /usr/bin/python3), a comma-decimal locale and a spreadsheet engine
+# (gnumeric's ssconvert opens the CSV output).
 pkgs="build-essential autoconf automake libtool pkg-config libgsl-dev check"
 if [ "$what" = test ]; then
-    pkgs="$pkgs python3 python3-numpy python3-scipy python3-scikit-rf locales"
+    pkgs="$pkgs python3 python3-numpy python3-scipy python3-scikit-rf locales gnumeric"
 fi
 missing=""
 for p in $pkgs; do

@@ -43,27 +43,120 @@ static int worse(int a, int b)
     return a > b ? a : b;
 }
 
-/* ASCII-only, so a Turkish locale's dotless i cannot change a match. */
+/* ASCII-only, so a Turkish locale's dotless i cannot change a match; '_'
+ * and '-' are the same, so output column names (allowance_vf) match. */
 static int ascii_caseeq(const char *a, const char *b, size_t n)
 {
     for (size_t i = 0; i < n; i++) {
         char x = a[i], y = b[i];
         if (x >= 'A' && x <= 'Z') x = (char)(x - 'A' + 'a');
         if (y >= 'A' && y <= 'Z') y = (char)(y - 'A' + 'a');
+        if (x == '_') x = '-';
+        if (y == '_') y = '-';
         if (x != y) return 0;
     }
     return 1;
 }
 
-static int header_index(const cli_command *cmd, const char *name)
+static int option_named(const cli_command *cmd, const char *name, size_t len)
 {
-    while (*name == ' ') name++;
-    size_t len = strlen(name);
-    while (len > 0 && name[len - 1] == ' ') len--;
     for (int i = 0; cmd->opts[i].name; i++)
         if (strlen(cmd->opts[i].name) == len && ascii_caseeq(cmd->opts[i].name, name, len))
             return i;
     return -1;
+}
+
+/* The unit endings of output column names, the kind of option (its
+ * placeholder in --help) they fit, and what a bare number in such a
+ * column gets appended. */
+static const struct {
+    const char *suffix, *arg, *unit;
+} unit_columns[] = {
+    { "_m", "LEN", "m" }, { "_mm", "LEN", "mm" }, { "_ft", "LEN", "ft" }, { "_in", "LEN", "in" },
+    { "_hz", "F", "Hz" }, { "_khz", "F", "kHz" }, { "_mhz", "F", "MHz" },
+    { "_ns", "TIME", "ns" }, { "_us", "TIME", "us" }, { "_s", "TIME", "s" },
+    { "_deg", "DEG", "" }, { "_db", "DB", "" }, { "_ohm", "OHM", "" },
+};
+
+/* Option index of a header name, or -1.  The option's own name, with '_'
+ * for '-' (allowance_vf), or an output column name: the option with a unit
+ * ending (offset_m, freq_mhz, delay_ns), whose bare numbers take that unit
+ * (*unit, NULL when none), and cut's cut_length_* for a line's length. */
+static int header_index(const cli_command *cmd, const char *name, const char **unit)
+{
+    while (*name == ' ') name++;
+    size_t len = strlen(name);
+    while (len > 0 && name[len - 1] == ' ') len--;
+    *unit = NULL;
+    int k = option_named(cmd, name, len);
+    if (k >= 0) return k;
+    for (size_t u = 0; u < sizeof unit_columns / sizeof unit_columns[0]; u++) {
+        size_t sl = strlen(unit_columns[u].suffix);
+        if (len <= sl || !ascii_caseeq(name + len - sl, unit_columns[u].suffix, sl)) continue;
+        size_t stem = len - sl;
+        if (stem == 10 && ascii_caseeq(name, "cut_length", 10)) {
+            name = "length"; /* cut's output column: the length the line was cut to */
+            stem = 6;
+        }
+        k = option_named(cmd, name, stem);
+        if (k < 0 || !cmd->opts[k].arg || strcmp(cmd->opts[k].arg, unit_columns[u].arg) != 0)
+            return -1;
+        *unit = unit_columns[u].unit;
+        return k;
+    }
+    return -1;
+}
+
+/* Options whose cells are numbers (a comma-decimal file's commas become
+ * points there): not text, names, files, lists or choices. */
+static int numeric_option(const cli_optdef *o)
+{
+    static const char *const text_args[] = { "TEXT", "NAME", "LIST", "FILE" };
+    if (!o->arg || strchr(o->arg, '|')) return 0;
+    for (size_t i = 0; i < sizeof text_args / sizeof text_args[0]; i++)
+        if (strcmp(o->arg, text_args[i]) == 0) return 0;
+    return 1;
+}
+
+enum { CELL_SIZE = 96 };
+
+/* A cell as the option parsers read it: comma decimals of a ';' file
+ * turned into points, the column's unit after a bare number.  Returns the
+ * text to use (cell itself or buf), or NULL after cli_error(). */
+static const char *convert_cell(const cli_ctx *ctx, const char *column, const char *cell,
+                                int comma_decimals, const char *unit, char *buf)
+{
+    if (cell[0] == '\0' || (!comma_decimals && !unit)) return cell;
+    size_t len = strlen(cell);
+    if (len + 8 > CELL_SIZE) return cell; /* no number is that long: the parser says why */
+    memcpy(buf, cell, len + 1);
+    if (comma_decimals) {
+        if (strchr(buf, '.')) {
+            cli_error(ctx, column, "a number with a decimal comma, such as 0,66, and no '.'",
+                      "'%s' has a '.', but this ';'-separated file writes decimals "
+                      "with a comma ('.' would be a thousands separator)", cell);
+            return NULL;
+        }
+        for (char *p = buf; (p = strchr(p, ',')) != NULL; p++)
+            if (p[1] >= '0' && p[1] <= '9') *p = '.';
+    }
+    double v;
+    if (unit && unit[0] && cxl_units_parse_number(buf, &v, NULL) == CXL_OK)
+        strcat(buf, unit);
+    return buf;
+}
+
+/* One line on stderr when the reader stopped: a read error, or no line
+ * end for CXL_CSV_MAX_SKIP bytes.  err is errno after the failed read. */
+static int reader_stopped(const cli_ctx *ctx, const char *path, cxl_status st, int err)
+{
+    if (st == CXL_EIO)
+        return cli_error(ctx, "input", "a file that can be read to its end",
+                         "read error in '%s': %s; the rows after this line were not read",
+                         path, err ? strerror(err) : "input/output error");
+    return cli_error(ctx, "input", "a CSV text file with a line end at least every 1 MiB",
+                     "no line end in '%s' for over 1 MiB; reading stopped",
+                     path);
 }
 
 static void list_columns(const cli_command *cmd, char *buf, size_t size)
@@ -80,38 +173,53 @@ static void list_columns(const cli_command *cmd, char *buf, size_t size)
 static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
 {
     const cli_command *cmd = ctx->cmd;
-    FILE *fp = strcmp(path, "-") == 0 ? stdin : fopen(path, "rb");
-    if (!fp)
-        return cli_error(ctx, "input", "a readable CSV file, or - for standard input",
-                         "cannot open '%s': %s", path, strerror(errno));
+    FILE *fp = strcmp(path, "-") == 0
+                   ? stdin
+                   : cli_open_read(ctx, "input", path,
+                                   "a readable CSV file, or - for standard input", 0);
+    if (!fp) return CLI_EXIT_USAGE;
     cxl_csv_reader *rd = NULL;
     if (cxl_csv_reader_new_stream(fp, &rd) != CXL_OK) {
         if (fp != stdin) fclose(fp);
         return cli_error(ctx, "input", NULL, "out of memory");
     }
+    cxl_csv_reader_set_separator(rd, 0); /* ',' ';' or TAB, from the header */
     int code = CLI_EXIT_OK, has_row = 0, ncols = 0;
     int col_opt[CLI_MAX_OPTS];
+    const char *col_unit[CLI_MAX_OPTS];
     char columns[512];
     list_columns(cmd, columns, sizeof columns);
     char expected_header[600];
     snprintf(expected_header, sizeof expected_header, "a header row naming options, from: %s",
              columns);
+    errno = 0;
     cxl_status st = cxl_csv_reader_next(rd, &has_row);
+    int err = errno;
     ctx->input_name = strcmp(path, "-") == 0 ? "stdin" : path;
     ctx->line = cxl_csv_reader_line(rd);
+    if (cxl_csv_reader_stopped(rd) != CXL_OK) {
+        code = reader_stopped(ctx, path, cxl_csv_reader_stopped(rd), err);
+        goto done;
+    }
     if (st != CXL_OK || !has_row) {
         code = cli_error(ctx, "input", expected_header,
                          st != CXL_OK ? "the header row is malformed" : "the file is empty");
         goto done;
     }
     size_t nf = cxl_csv_reader_nfields(rd);
+    while (nf > 0 && cxl_csv_reader_field(rd, nf - 1)[0] == '\0')
+        nf--; /* empty columns a spreadsheet leaves at the end */
+    if (nf == 0) {
+        code = cli_error(ctx, "input", expected_header, "the header row names no columns");
+        goto done;
+    }
     if (nf > CLI_MAX_OPTS) {
         code = cli_error(ctx, "input", expected_header, "the header has %zu columns", nf);
         goto done;
     }
     for (size_t i = 0; i < nf; i++) {
         const char *name = cxl_csv_reader_field(rd, i);
-        int k = header_index(cmd, name);
+        int k = header_index(cmd, name, &col_unit[i]);
         if (k < 0) {
             code = cli_error(ctx, "input", expected_header, "unknown column '%s'", name);
             goto done;
@@ -125,12 +233,28 @@ static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
         col_opt[i] = k;
     }
     ncols = (int)nf;
+    int sep = cxl_csv_reader_separator(rd), comma_decimals = sep == ';';
+    if (sep != ',')
+        cli_note(ctx, "'%s' is %s; reading it so", path,
+                 comma_decimals ? "';'-separated with decimal commas (a spreadsheet's CSV "
+                                  "under a comma-decimal locale)"
+                                : "tab-separated");
+    if (cxl_csv_reader_bom(rd) && ctx->format == CLI_CSV)
+        fputs("\xEF\xBB\xBF", ctx->out); /* keep the byte-order mark for the spreadsheet */
     const char *row[CLI_MAX_OPTS];
+    static char cellbuf[CLI_MAX_OPTS][CELL_SIZE];
     args->row = row;
     size_t rows = 0;
     for (;;) {
+        errno = 0;
         st = cxl_csv_reader_next(rd, &has_row);
+        err = errno;
         ctx->line = cxl_csv_reader_line(rd);
+        if (cxl_csv_reader_stopped(rd) != CXL_OK) {
+            code = reader_stopped(ctx, path, cxl_csv_reader_stopped(rd), err);
+            rows++;
+            break;
+        }
         if (st == CXL_ETOOLONG) {
             code = cli_error(ctx, "row", "rows shorter than 65536 bytes",
                              "the row is too long");
@@ -144,16 +268,26 @@ static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
             continue;
         }
         if (!has_row) break;
-        rows++;
         nf = cxl_csv_reader_nfields(rd);
-        if (nf != (size_t)ncols) {
+        size_t used = nf;
+        while (used > 0 && cxl_csv_reader_field(rd, used - 1)[0] == '\0') used--;
+        if (used == 0) continue; /* a row of separators only */
+        rows++;
+        if (used > (size_t)ncols || nf < (size_t)ncols) {
             code = cli_error(ctx, "row", "one cell per header column; leave a cell empty to use the default",
                              "has %zu fields but the header has %d", nf, ncols);
             continue;
         }
         for (int i = 0; i < CLI_MAX_OPTS; i++) row[i] = NULL;
-        for (int i = 0; i < ncols; i++) row[col_opt[i]] = cxl_csv_reader_field(rd, (size_t)i);
-        code = worse(code, cmd->run(ctx, args));
+        int bad = 0;
+        for (int i = 0; i < ncols && !bad; i++) {
+            const char *cell = cxl_csv_reader_field(rd, (size_t)i);
+            row[col_opt[i]] = convert_cell(ctx, cmd->opts[col_opt[i]].name, cell,
+                                           comma_decimals && numeric_option(&cmd->opts[col_opt[i]]),
+                                           col_unit[i], cellbuf[i]);
+            bad = row[col_opt[i]] == NULL;
+        }
+        code = worse(code, bad ? CLI_EXIT_USAGE : cmd->run(ctx, args));
     }
     if (rows == 0) {
         ctx->line = 0;
@@ -225,7 +359,7 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
     }
     if (help) {
         cli_print_command_help(cmd, stdout);
-        return CLI_EXIT_OK;
+        return CLI_EXIT_OK; /* main checks that stdout was written */
     }
     if (optind < argc)
         return cli_error(&ctx, NULL, "options only, such as --offset 10m",

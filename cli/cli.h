@@ -84,6 +84,14 @@ int cli_error(const cli_ctx *ctx, const char *field, const char *expected,
 /* A warning line: "coaxline: CMD: [FILE line N: ]warning: ...". */
 void cli_warn(const cli_ctx *ctx, const char *fmt, ...)
     __attribute__((format(printf, 2, 3)));
+/* A note about the whole run (no batch line): "coaxline: CMD: note: ...". */
+void cli_note(const cli_ctx *ctx, const char *fmt, ...)
+    __attribute__((format(printf, 2, 3)));
+/* Open a file an option names for reading.  NULL after a
+ * one-line error naming field (cannot open, a directory), or without one
+ * when optional and the file does not exist. */
+FILE *cli_open_read(const cli_ctx *ctx, const char *field, const char *path,
+                    const char *expected, int optional);
 
 /* ---- option values ---------------------------------------------------- */
 

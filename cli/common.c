@@ -1,11 +1,13 @@
 /* common.c - errors, option values, number parsing with field names, and
  * CSV/JSON table output shared by every coaxline command. */
 #include <config.h>
+#include <errno.h>
 #include <stdarg.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 #include <math.h>
+#include <sys/stat.h>
 #include "cli.h"
 
 static void prefix(const cli_ctx *ctx, FILE *fp)
@@ -59,6 +61,34 @@ void cli_warn(const cli_ctx *ctx, const char *fmt, ...)
     va_start(ap, fmt);
     vreport(ctx, "warning: ", NULL, NULL, fmt, ap);
     va_end(ap);
+}
+
+void cli_note(const cli_ctx *ctx, const char *fmt, ...)
+{
+    va_list ap;
+    va_start(ap, fmt);
+    cli_ctx top = *ctx;
+    top.input_name = NULL;
+    vreport(&top, "note: ", NULL, NULL, fmt, ap);
+    va_end(ap);
+}
+
+FILE *cli_open_read(const cli_ctx *ctx, const char *field, const char *path,
+                    const char *expected, int optional)
+{
+    FILE *fp = fopen(path, "rb");
+    if (!fp) {
+        if (!(optional && errno == ENOENT))
+            cli_error(ctx, field, expected, "cannot open '%s': %s", path, strerror(errno));
+        return NULL;
+    }
+    struct stat sb;
+    if (fstat(fileno(fp), &sb) == 0 && S_ISDIR(sb.st_mode)) {
+        fclose(fp);
+        cli_error(ctx, field, expected, "'%s' is a directory", path);
+        return NULL;
+    }
+    return fp;
 }
 
 /* ---- option values ---------------------------------------------------- */
@@ -261,12 +291,8 @@ typedef cxl_status (*load_fn)(cxl_catalog *, FILE *, const char *, size_t *, cha
 static int load_user_file(cli_ctx *ctx, const char *field, const char *path,
                           int optional, load_fn load)
 {
-    FILE *fp = fopen(path, "rb");
-    if (!fp) {
-        if (optional) return 0;
-        cli_error(ctx, field, "a readable CSV file", "cannot open '%s'", path);
-        return -1;
-    }
+    FILE *fp = cli_open_read(ctx, field, path, "a readable CSV file", optional);
+    if (!fp) return optional && errno == ENOENT ? 0 : -1;
     char msg[400];
     size_t line = 0;
     msg[0] = '\0';
@@ -439,8 +465,8 @@ void cli_table_row(cli_ctx *ctx, const cli_col *cols, size_t ncols,
             const char *s = cols[i].decimals < 0 ? cells[i].text
                           : cli_fmt(num, sizeof num, cells[i].value, cols[i].decimals);
             size_t len = strlen(s);
-            if (cols[i].decimals < 0 && (len > sizeof num || strchr("=+-@\t\r", s[0]) ||
-                                         strpbrk(s, ",\"\r\n"))) {
+            if (cols[i].decimals < 0 && (len > sizeof num || strchr("=+-@ \t\r", s[0]) ||
+                                         strpbrk(s, ",\"\r\n;\t"))) {
                 fwrite(line, 1, used, ctx->out);
                 used = 0;
                 cxl_csv_write_field(ctx->out, s, 1);

@@ -34,6 +34,19 @@ static void usage(FILE *fp)
                 "\nSee coaxline(1).\n");
 }
 
+/* Standard output written and closed, or one line on stderr and exit 2:
+ * a full disk must not pass for success. */
+static int finish(int code)
+{
+    int bad = fflush(stdout) != 0 || ferror(stdout);
+    if (fclose(stdout) != 0) bad = 1;
+    if (bad && code != CLI_EXIT_USAGE) {
+        fprintf(stderr, "coaxline: output: write failed\n");
+        return CLI_EXIT_USAGE;
+    }
+    return code;
+}
+
 int main(int argc, char **argv)
 {
     /* The user's locale may use a comma decimal mark: the library's
@@ -49,15 +62,15 @@ int main(int argc, char **argv)
     if (strcmp(argv[1], "--help") == 0 || strcmp(argv[1], "-h") == 0 ||
         strcmp(argv[1], "help") == 0) {
         usage(stdout);
-        return CLI_EXIT_OK;
+        return finish(CLI_EXIT_OK);
     }
     if (strcmp(argv[1], "--version") == 0) {
         printf("coaxline %s (libcoaxline %s)\n", PACKAGE_VERSION, cxl_version());
-        return CLI_EXIT_OK;
+        return finish(CLI_EXIT_OK);
     }
     for (size_t i = 0; i < NCOMMANDS; i++)
         if (strcmp(argv[1], commands[i]->name) == 0)
-            return cli_run_command(commands[i], argc - 1, argv + 1);
+            return finish(cli_run_command(commands[i], argc - 1, argv + 1));
     fprintf(stderr, "coaxline: unknown command '%s' (expected one of:", argv[1]);
     for (size_t i = 0; i < NCOMMANDS; i++) fprintf(stderr, " %s", commands[i]->name);
     fprintf(stderr, "; see coaxline --help)\n");

@@ -72,8 +72,11 @@ static int load(const cli_ctx *row_ctx, vf_file *f, FILE *fp)
     size_t single_line = 0;
     if (strcmp(f->path, "-") == 0) snprintf(name, sizeof name, "standard input");
     else snprintf(name, sizeof name, "'%s'", f->path);
+    errno = 0;
     cxl_status st = cxl_csv_reader_next(rd, &has_row);
-    if (st == CXL_OK && has_row) {
+    int err = errno;
+    if (st != CXL_OK) goto unreadable;
+    if (has_row) {
         col_label = column(rd, "label");
         col_res = column(rd, "resonance");
         col_vf = column(rd, "vf");
@@ -83,7 +86,7 @@ static int load(const cli_ctx *row_ctx, vf_file *f, FILE *fp)
                          "%s has no resonance and vf columns", name);
         goto done;
     }
-    while ((st = cxl_csv_reader_next(rd, &has_row)) == CXL_OK && has_row) {
+    while ((errno = 0, st = cxl_csv_reader_next(rd, &has_row)) == CXL_OK && has_row) {
         size_t nf = cxl_csv_reader_nfields(rd);
         if ((size_t)col_res >= nf || (size_t)col_vf >= nf) continue;
         const char *res = cxl_csv_reader_field(rd, (size_t)col_res);
@@ -113,9 +116,21 @@ static int load(const cli_ctx *row_ctx, vf_file *f, FILE *fp)
             goto done;
         }
     }
+    err = errno;
+unreadable:
     if (st != CXL_OK) {
-        code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED, "%s line %zu: malformed CSV",
-                         name, cxl_csv_reader_line(rd));
+        /* any bad record ends the file: a VF must not come from half of it */
+        cxl_status why = cxl_csv_reader_stopped(rd);
+        char what[160];
+        if (why == CXL_EIO)
+            snprintf(what, sizeof what, "read error (%s)", err ? strerror(err) : "input/output error");
+        else if (why == CXL_ETOOLONG)
+            snprintf(what, sizeof what, "no line end for over %d bytes; reading stopped",
+                     CXL_CSV_MAX_SKIP);
+        else
+            snprintf(what, sizeof what, "malformed CSV");
+        code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED, "%s line %zu: %s",
+                         name, cxl_csv_reader_line(rd), what);
         goto done;
     }
     if (f->n == 0 && readings == 1) {
@@ -161,10 +176,8 @@ static vf_file *open_cached(cli_ctx *ctx, const char *path)
         f->failed = 1;
         return NULL;
     }
-    FILE *fp = is_stdin ? stdin : fopen(path, "rb");
+    FILE *fp = is_stdin ? stdin : cli_open_read(&top, "vf-from", path, VF_FROM_EXPECTED, 0);
     if (!fp) {
-        cli_error(&top, "vf-from", VF_FROM_EXPECTED, "cannot open '%s': %s", path,
-                  strerror(errno));
         f->failed = 1;
         return NULL;
     }

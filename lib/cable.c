@@ -164,6 +164,16 @@ static int find_row(const struct cable *rows, size_t n, const char *name,
     return 0;
 }
 
+/* What went wrong with a record the reader refused: a read error and an
+ * endless line stop it, anything else is the record's own fault. */
+static const char *reader_problem(const cxl_csv_reader *rd, const char *own)
+{
+    cxl_status why = cxl_csv_reader_stopped(rd);
+    if (why == CXL_EIO) return "read error";
+    if (why == CXL_ETOOLONG) return "no line end for over 1 MiB; reading stopped";
+    return own;
+}
+
 /* Map header fields to columns: map[i] is the column of field i. */
 static cxl_status read_header(cxl_csv_reader *rd, const struct column *cols,
                               size_t ncols, size_t *map, size_t *nfields,
@@ -173,7 +183,7 @@ static cxl_status read_header(cxl_csv_reader *rd, const struct column *cols,
     cxl_status st = cxl_csv_reader_next(rd, &has_row);
     size_t line = cxl_csv_reader_line(rd);
     if (st == CXL_ENOMEM) return st;
-    if (st != CXL_OK) return report(ctx, st, line, "malformed header row");
+    if (st != CXL_OK) return report(ctx, st, line, "%s", reader_problem(rd, "malformed header row"));
     if (!has_row) return report(ctx, CXL_EPARSE, line, "empty file: no header row");
     size_t n = cxl_csv_reader_nfields(rd);
     if (n > ncols)
@@ -205,8 +215,9 @@ static cxl_status next_record(cxl_csv_reader *rd, size_t nfields, int *has_row,
     cxl_status st = cxl_csv_reader_next(rd, has_row);
     size_t line = cxl_csv_reader_line(rd);
     if (st == CXL_ENOMEM) return st;
-    if (st == CXL_ETOOLONG) return report(ctx, st, line, "record too long");
-    if (st != CXL_OK) return report(ctx, st, line, "malformed CSV record");
+    if (st == CXL_ETOOLONG && cxl_csv_reader_stopped(rd) == CXL_OK)
+        return report(ctx, st, line, "record too long");
+    if (st != CXL_OK) return report(ctx, st, line, "%s", reader_problem(rd, "malformed CSV record"));
     if (*has_row && cxl_csv_reader_nfields(rd) != nfields)
         return report(ctx, CXL_EPARSE, line, "%zu fields, the header has %zu",
                       cxl_csv_reader_nfields(rd), nfields);

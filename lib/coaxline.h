@@ -140,6 +140,8 @@ typedef struct cxl_csv_reader cxl_csv_reader;
 
 /* Largest record (one row, quotes included) the reader accepts. */
 #define CXL_CSV_MAX_RECORD 65536
+/* Longest rest of a rejected record the reader skips before it stops. */
+#define CXL_CSV_MAX_SKIP (16 * CXL_CSV_MAX_RECORD)
 
 /* A reader over a stream the caller owns (not closed by the reader). */
 cxl_status cxl_csv_reader_new_stream(FILE *stream, cxl_csv_reader **reader);
@@ -152,19 +154,40 @@ void cxl_csv_reader_free(cxl_csv_reader *reader);
  * mark before the first record is skipped; CRLF, LF and quoted fields with
  * embedded commas, quotes and line breaks are understood.  A malformed
  * record (unbalanced quote, NUL byte, longer than CXL_CSV_MAX_RECORD)
- * returns CXL_EPARSE or CXL_ETOOLONG and is skipped, so the next call
- * continues with the following record.  Blank lines are skipped. */
+ * returns CXL_EPARSE or CXL_ETOOLONG and is skipped to its end (a line
+ * break inside one of its quoted cells does not end it), so the next call
+ * continues with the following record.  Blank lines are skipped.  A read
+ * error on the stream returns CXL_EIO (the record it cut short is not a
+ * row) and stops the reader; so does a rejected record whose rest runs
+ * over CXL_CSV_MAX_SKIP bytes (CXL_ETOOLONG, e.g. /dev/zero): see
+ * cxl_csv_reader_stopped. */
 cxl_status cxl_csv_reader_next(cxl_csv_reader *reader, int *has_row);
+/* CXL_OK while reading can go on; once it cannot, the status that stopped
+ * it (CXL_EIO or CXL_ETOOLONG), which every later cxl_csv_reader_next
+ * returns again.  CXL_EINVAL for NULL. */
+cxl_status cxl_csv_reader_stopped(const cxl_csv_reader *reader);
+/* Field separator: ',' (the default), ';' or '\t', or 0 to take it from
+ * the first record: the first of the three met outside quotes (',' when
+ * the record has one field).  Only before the first record is read;
+ * CXL_EINVAL otherwise or for any other character. */
+cxl_status cxl_csv_reader_set_separator(cxl_csv_reader *reader, int separator);
+/* The separator in use (0 while it is still to be detected). */
+int cxl_csv_reader_separator(const cxl_csv_reader *reader);
+/* 1 when the input began with a UTF-8 byte-order mark (known once the
+ * first record is read), else 0. */
+int cxl_csv_reader_bom(const cxl_csv_reader *reader);
 /* Fields of the current record; valid until the next call. */
 size_t cxl_csv_reader_nfields(const cxl_csv_reader *reader);
 const char *cxl_csv_reader_field(const cxl_csv_reader *reader, size_t i);
 /* 1-based line on which the current (or last rejected) record began. */
 size_t cxl_csv_reader_line(const cxl_csv_reader *reader);
 
-/* Write one field, quoted when it holds a comma, quote, CR or LF.  When
- * neutralise is non-zero, text that a spreadsheet would run as a formula
- * (a first character of = + - @, TAB or CR, and not a plain number) gets a
- * leading apostrophe. */
+/* Write one field, quoted when it holds a comma, quote, CR, LF, ';' or
+ * TAB.  When neutralise is non-zero, text that a spreadsheet would run as
+ * a formula gets a leading apostrophe: a first character of TAB or CR, or
+ * of = + - @ (also after blanks, and in a piece after a ';' or TAB, where a
+ * ';'-separating spreadsheet would split the cell), unless the text is a
+ * plain number such as -3.5. */
 cxl_status cxl_csv_write_field(FILE *stream, const char *text,
                                int neutralise);
 

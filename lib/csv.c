@@ -6,7 +6,10 @@
  * are (byte-order mark, CRLF or LF, blank lines, a quote inside an unquoted
  * field) and strict where data would be lost (a quote never closed, text
  * after a closing quote, a NUL byte, a record over the size limit): such a
- * record is reported and skipped, and reading goes on with the next one.
+ * record is reported and skipped to its end (quotes still count, so a
+ * line inside a rejected quoted cell never becomes a row of its own), and
+ * reading goes on with the next one.  A read error, or a rejected record
+ * that runs on without end, stops the reader for good.
  */
 #include <config.h>
 #include <stdlib.h>
@@ -18,6 +21,10 @@
 
 struct cxl_csv_reader {
     FILE *stream;              /* NULL for a buffer reader */
+    cxl_status stopped;        /* CXL_OK while reading can go on */
+    int read_failed;           /* the stream reported an error: no more reads */
+    int sep;                   /* field separator; 0 until the first record sets it */
+    int bom;                   /* the input began with a byte-order mark */
     const char *data;          /* current chunk */
     size_t size, pos;
     char *chunk;               /* owned chunk buffer for a stream */
@@ -37,6 +44,7 @@ static cxl_status reader_alloc(cxl_csv_reader **out, cxl_csv_reader **r)
     if (!*r) return CXL_ENOMEM;
     (*r)->at_start = 1;
     (*r)->line = 1;
+    (*r)->sep = ',';
     return CXL_OK;
 }
 
@@ -76,13 +84,16 @@ void cxl_csv_reader_free(cxl_csv_reader *r)
     free(r);
 }
 
-/* Next byte or -1 at end of input (or on a read error). */
+/* Next byte or -1 at end of input or once reading has stopped (a read
+ * error sets r->read_failed; the bytes read before it are still
+ * delivered). */
 static int get_byte(cxl_csv_reader *r)
 {
     if (r->pos >= r->size) {
-        if (!r->stream) return -1;
+        if (!r->stream || r->read_failed || r->stopped != CXL_OK) return -1;
         r->size = fread(r->chunk, 1, CHUNK, r->stream);
         r->pos = 0;
+        if (ferror(r->stream)) r->read_failed = 1;
         if (r->size == 0) return -1;
     }
     return (unsigned char)r->data[r->pos++];
@@ -126,33 +137,66 @@ static int end_field(cxl_csv_reader *r)
     return 1;
 }
 
-/* Discard the rest of a bad record: up to and including the next line
- * break (quotes are no longer trusted). */
-static void skip_line(cxl_csv_reader *r)
+enum { FIELD_START, UNQUOTED, QUOTED, QUOTE_END };
+
+/* Discard the rest of a rejected record, from parser state `state` on:
+ * quotes keep their meaning, so a line break inside a quoted cell does
+ * not end the record and no line of the cell's text is taken for a row.
+ * After a closing quote, text up to the next separator is read as
+ * unquoted.  A remainder longer than CXL_CSV_MAX_SKIP bytes (an endless
+ * stream with no line end, such as /dev/zero) stops the reader. */
+static void skip_record(cxl_csv_reader *r, int state)
 {
     int c;
+    size_t n = 0;
     while ((c = get_byte(r)) >= 0) {
-        if (c == '\n') { r->line++; return; }
-        if (c == '\r') {
-            if (peek_byte(r) == '\n') get_byte(r);
+        if (++n > CXL_CSV_MAX_SKIP) {
+            if (r->stopped == CXL_OK) r->stopped = CXL_ETOOLONG;
+            return;
+        }
+        if (state == QUOTED) {
+            if (c == '"') {
+                if (peek_byte(r) == '"') get_byte(r);
+                else state = QUOTE_END;
+            } else if (c == '\n' || (c == '\r' && peek_byte(r) != '\n')) {
+                r->line++;
+            }
+        } else if (c == '\n' || c == '\r') {
+            if (c == '\r' && peek_byte(r) == '\n') get_byte(r);
             r->line++;
             return;
+        } else if (c == r->sep) {
+            state = FIELD_START;
+        } else if (c == '"' && state == FIELD_START) {
+            state = QUOTED;
+        } else {
+            state = UNQUOTED;
         }
     }
 }
 
-enum { FIELD_START, UNQUOTED, QUOTED, QUOTE_END };
+/* A record rejected with status st: skip its rest and report st (or the
+ * reason reading stopped, if it stopped on the way). */
+static cxl_status reject(cxl_csv_reader *r, int state, cxl_status st)
+{
+    skip_record(r, state);
+    if (r->read_failed && r->stopped == CXL_OK) r->stopped = CXL_EIO;
+    return r->stopped != CXL_OK ? r->stopped : st;
+}
 
 cxl_status cxl_csv_reader_next(cxl_csv_reader *r, int *has_row)
 {
     if (!r || !has_row) return CXL_EINVAL;
+    if (r->stopped != CXL_OK) return r->stopped;
     if (r->at_start) {
         r->at_start = 0;
         if (peek_byte(r) == 0xEF) {
             /* only a whole BOM is skipped; anything else is data */
             if (r->pos + 3 <= r->size && (unsigned char)r->data[r->pos + 1] == 0xBB &&
-                (unsigned char)r->data[r->pos + 2] == 0xBF)
+                (unsigned char)r->data[r->pos + 2] == 0xBF) {
                 r->pos += 3;
+                r->bom = 1;
+            }
         }
     }
     for (;;) {
@@ -168,8 +212,10 @@ cxl_status cxl_csv_reader_next(cxl_csv_reader *r, int *has_row)
         int state = FIELD_START, c, any = 0, ok;
         for (;;) {
             c = get_byte(r);
-            if (c == 0) { skip_line(r); return CXL_EPARSE; }
+            if (c == 0) return reject(r, state, CXL_EPARSE);
             if (c < 0) {
+                /* a read error: the record so far is not a row */
+                if (r->read_failed) return r->stopped = CXL_EIO;
                 if (state == QUOTED) return CXL_EPARSE;
                 if (!any) { *has_row = 0; return CXL_OK; } /* end of input */
                 break;
@@ -183,7 +229,8 @@ cxl_status cxl_csv_reader_next(cxl_csv_reader *r, int *has_row)
                     if (c == '\n' || (c == '\r' && peek_byte(r) != '\n')) r->line++;
                     ok = push_char(r, (char)c);
                 }
-            } else if (c == ',') {
+            } else if (c == r->sep || (r->sep == 0 && (c == ',' || c == ';' || c == '\t'))) {
+                r->sep = c; /* the first record's first separator, when detecting */
                 ok = end_field(r);
                 state = FIELD_START;
             } else if (c == '\n' || c == '\r') {
@@ -191,8 +238,7 @@ cxl_status cxl_csv_reader_next(cxl_csv_reader *r, int *has_row)
                 r->line++;
                 break;
             } else if (state == QUOTE_END) {
-                skip_line(r);
-                return CXL_EPARSE;
+                return reject(r, UNQUOTED, CXL_EPARSE);
             } else if (c == '"' && state == FIELD_START) {
                 state = QUOTED;
                 continue;
@@ -201,16 +247,42 @@ cxl_status cxl_csv_reader_next(cxl_csv_reader *r, int *has_row)
                 ok = push_char(r, (char)c);
             }
             if (ok < 0) return CXL_ENOMEM;
-            if (ok == 0) { skip_line(r); return CXL_ETOOLONG; }
+            if (ok == 0) return reject(r, state, CXL_ETOOLONG);
         }
         ok = end_field(r);
         if (ok < 0) return CXL_ENOMEM;
         if (ok == 0) return CXL_ETOOLONG;
         if (r->nfields == 1 && r->rec_len == 1 && state == FIELD_START)
             continue; /* blank line */
+        if (r->sep == 0) r->sep = ','; /* a first record of one column */
         *has_row = 1;
         return CXL_OK;
     }
+}
+
+cxl_status cxl_csv_reader_stopped(const cxl_csv_reader *r)
+{
+    return r ? r->stopped : CXL_EINVAL;
+}
+
+cxl_status cxl_csv_reader_set_separator(cxl_csv_reader *r, int separator)
+{
+    if (!r) return CXL_EINVAL;
+    if (separator != 0 && separator != ',' && separator != ';' && separator != '\t')
+        return CXL_EINVAL;
+    if (!r->at_start) return CXL_EINVAL; /* only before the first record */
+    r->sep = separator;
+    return CXL_OK;
+}
+
+int cxl_csv_reader_separator(const cxl_csv_reader *r)
+{
+    return r ? r->sep : 0;
+}
+
+int cxl_csv_reader_bom(const cxl_csv_reader *r)
+{
+    return r ? r->bom : 0;
 }
 
 size_t cxl_csv_reader_nfields(const cxl_csv_reader *r)
@@ -229,17 +301,31 @@ size_t cxl_csv_reader_line(const cxl_csv_reader *r)
     return r ? r->row_line : 0;
 }
 
+/* Text a spreadsheet could run as a formula: = + - @ first, after any
+ * blanks, or first in a piece after a ';' or TAB (a spreadsheet whose
+ * list separator is ';' splits the cell there). */
+static int formula_like(const char *text)
+{
+    for (const char *p = text; p; p = strpbrk(p, ";\t"), p = p ? p + 1 : NULL) {
+        while (*p == ' ' || *p == '\t') p++;
+        if (*p && strchr("=+-@", *p)) return 1;
+    }
+    return 0;
+}
+
 cxl_status cxl_csv_write_field(FILE *stream, const char *text, int neutralise)
 {
     if (!stream || !text) return CXL_EINVAL;
-    int risky = neutralise && strchr("=+-@\t\r", text[0]) && text[0] != '\0';
-    if (risky) {
+    int risky = 0;
+    if (neutralise && (text[0] == '\t' || text[0] == '\r')) {
+        risky = 1;
+    } else if (neutralise && formula_like(text)) {
         double v;
-        if (cxl_units_parse_number(text, &v, NULL) == CXL_OK && text[0] != '\t' &&
-            text[0] != '\r' && text[strlen(text) - 1] != ' ')
-            risky = 0; /* a plain number such as -3.5 stays a number */
+        risky = !(cxl_units_parse_number(text, &v, NULL) == CXL_OK &&
+                  text[strlen(text) - 1] != ' '); /* a plain number such as -3.5 stays a number */
     }
-    int quote = strpbrk(text, ",\"\r\n") != NULL;
+    /* ';' and TAB are quoted too, so no spreadsheet splits the cell */
+    int quote = strpbrk(text, ",\"\r\n;\t") != NULL;
     if (quote && putc('"', stream) == EOF) return CXL_EIO;
     if (risky && putc('\'', stream) == EOF) return CXL_EIO;
     for (const char *p = text; *p; p++) {

@@ -1349,6 +1349,10 @@ START_TEST(free_and_count_null)
     ck_assert_uint_eq(cxl_csv_reader_nfields(NULL), 0);
     ck_assert_ptr_null(cxl_csv_reader_field(NULL, 0));
     ck_assert_uint_eq(cxl_csv_reader_line(NULL), 0);
+    ck_assert_int_eq(cxl_csv_reader_stopped(NULL), CXL_EINVAL);
+    ck_assert_int_eq(cxl_csv_reader_set_separator(NULL, ','), CXL_EINVAL);
+    ck_assert_int_eq(cxl_csv_reader_separator(NULL), 0);
+    ck_assert_int_eq(cxl_csv_reader_bom(NULL), 0);
     ck_assert_uint_eq(cxl_bands_count(NULL), 0);
     ck_assert_uint_eq(cxl_stub_count(NULL), 0);
     ck_assert_uint_eq(cxl_stub_result_count(NULL), 0);
@@ -1364,6 +1368,13 @@ START_TEST(csv_reader_bounds)
     cxl_csv_reader *r = NULL;
     int has = 0;
     ck_assert_int_eq(cxl_csv_reader_new_buffer(text, sizeof text - 1, &r), CXL_OK);
+    /* a separator other than ',' ';' TAB or 0 is refused and changes nothing */
+    const int bad_sep[] = { '|', ' ', '"', '\n', -1, 256, INT_MAX };
+    for (size_t i = 0; i < sizeof bad_sep / sizeof bad_sep[0]; i++)
+        ck_assert_int_eq(cxl_csv_reader_set_separator(r, bad_sep[i]), CXL_EINVAL);
+    ck_assert_int_eq(cxl_csv_reader_separator(r), ',');
+    ck_assert_int_eq(cxl_csv_reader_stopped(r), CXL_OK);
+    ck_assert_int_eq(cxl_csv_reader_bom(r), 0);
     /* before the first record: no fields */
     ck_assert_uint_eq(cxl_csv_reader_nfields(r), 0);
     ck_assert_ptr_null(cxl_csv_reader_field(r, 0));

@@ -9,6 +9,7 @@
 #include <string.h>
 #include <gsl/gsl_errno.h>
 #include "coaxline.h"
+#include "failstream.h"
 
 static cxl_catalog *cat;
 
@@ -264,6 +265,41 @@ START_TEST(test_error_text_truncated_and_optional)
 }
 END_TEST
 
+/* A read error part-way through a user file fails the load (CXL_EIO, the
+ * line reached, "read error") and leaves the catalog as it was; so does an
+ * endless line (a NUL, then bytes with no line end). */
+START_TEST(test_read_errors)
+{
+    static const char text[] = "name,vf\nspool-a,0.80\nspool-b,0.81\nspool-c,0.82\n";
+    size_t before = 0, after = 0;
+    ck_assert_int_eq(cxl_catalog_count(cat, &before), CXL_OK);
+    for (size_t fail_at = 0; fail_at <= strlen(text); fail_at += 5) {
+        FILE *fp = failstream_open(text, fail_at);
+        ck_assert_ptr_nonnull(fp);
+        char msg[200] = "";
+        size_t line = 0;
+        cxl_status st = cxl_catalog_load_cables(cat, fp, "spools.csv", &line, msg, sizeof msg);
+        fclose(fp);
+        ck_assert_msg(st == CXL_EIO, "failing at byte %zu: %s", fail_at, cxl_strerror(st));
+        ck_assert_msg(strstr(msg, "read error") != NULL, "%s", msg);
+        ck_assert_uint_ge(line, 1);
+        ck_assert_int_eq(cxl_catalog_count(cat, &after), CXL_OK);
+        ck_assert_uint_eq(after, before);
+    }
+    size_t n = 3 * (size_t)CXL_CSV_MAX_SKIP;
+    char *zeros = calloc(n + 1, 1);
+    ck_assert_ptr_nonnull(zeros);
+    memset(zeros + 1, 'z', n - 1);
+    FILE *fp = fmemopen(zeros, n, "r");
+    ck_assert_ptr_nonnull(fp);
+    char msg[200] = "";
+    ck_assert_int_eq(cxl_catalog_load_loss(cat, fp, "zero", NULL, msg, sizeof msg), CXL_ETOOLONG);
+    ck_assert_msg(strstr(msg, "no line end") != NULL, "%s", msg);
+    fclose(fp);
+    free(zeros);
+}
+END_TEST
+
 START_TEST(test_comma_locale)
 {
     /* numbers are read without the C locale: under a comma-decimal locale
@@ -300,6 +336,7 @@ int main(void)
     tcase_add_test(tc, test_loss_file_errors);
     tcase_add_test(tc, test_error_text_truncated_and_optional);
     tcase_add_test(tc, test_comma_locale);
+    tcase_add_test(tc, test_read_errors);
     suite_add_tcase(s, tc);
     SRunner *sr = srunner_create(s);
     srunner_run_all(sr, CK_NORMAL);
