@@ -2,7 +2,6 @@
  * command. */
 #include <config.h>
 #include <errno.h>
-#include <getopt.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -169,37 +168,109 @@ done:
     return code;
 }
 
+/* Edit distance between a and b (at most 63 bytes each), for the nearest
+ * real option to a mistyped one. */
+static size_t edit_distance(const char *a, size_t na, const char *b)
+{
+    size_t nb = strlen(b), row[64];
+    if (na > 63) na = 63;
+    if (nb > 63) nb = 63;
+    for (size_t j = 0; j <= nb; j++) row[j] = j;
+    for (size_t i = 1; i <= na; i++) {
+        size_t diag = row[0];
+        row[0] = i;
+        for (size_t j = 1; j <= nb; j++) {
+            size_t up = row[j];
+            size_t best = diag + (a[i - 1] != b[j - 1]);
+            if (up + 1 < best) best = up + 1;
+            if (row[j - 1] + 1 < best) best = row[j - 1] + 1;
+            row[j] = best;
+            diag = up;
+        }
+    }
+    return row[nb];
+}
+
+/* The option (command's or common) whose name is exactly name[0..len), as
+ * an index into the command's options or OPT_FORMAT + k; -1 when none.
+ * Only exact names count: "--freq" never stands for "--freq-step". */
+static int exact_option(const cli_command *cmd, const char *name, size_t len)
+{
+    for (int i = 0; cmd->opts[i].name; i++)
+        if (strlen(cmd->opts[i].name) == len && memcmp(cmd->opts[i].name, name, len) == 0)
+            return i;
+    for (int k = 0; common_opts[k].name; k++)
+        if (strlen(common_opts[k].name) == len && memcmp(common_opts[k].name, name, len) == 0)
+            return OPT_FORMAT + k;
+    return -1;
+}
+
+static int unknown_option(const cli_ctx *ctx, const char *arg, const char *name, size_t len)
+{
+    const cli_command *cmd = ctx->cmd;
+    const char *best = NULL;
+    size_t best_d = (size_t)-1;
+    for (int pass = 0; pass < 2; pass++)
+        for (const cli_optdef *o = pass ? common_opts : cmd->opts; o->name; o++) {
+            if (pass && !cmd->batch && strcmp(o->name, "input") == 0) continue;
+            size_t d = edit_distance(name, len, o->name);
+            /* a typed beginning of a longer name is near it */
+            if (len > 0 && strncmp(o->name, name, len) == 0 && d > 1) d = 1;
+            if (d < best_d) { best_d = d; best = o->name; }
+        }
+    char expected[160];
+    if (best && best_d <= 1 + len / 3)
+        snprintf(expected, sizeof expected, "--%s, or another option of coaxline %s --help", best,
+                 cmd->name);
+    else
+        snprintf(expected, sizeof expected, "an option listed by coaxline %s --help", cmd->name);
+    return cli_error(ctx, NULL, expected, "unknown option '%s'", arg);
+}
+
 int cli_run_command(const cli_command *cmd, int argc, char **argv)
 {
     static cli_args args; /* large; one per process */
-    struct option longopts[CLI_MAX_OPTS + 8];
-    int n = 0;
     memset(&args, 0, sizeof args);
     args.cmd = cmd;
     cli_ctx ctx = { .cmd = cmd, .format = CLI_TEXT, .units = CXL_UNITS_METRIC, .out = stdout };
-    for (; cmd->opts[n].name; n++) {
-        longopts[n] = (struct option){ cmd->opts[n].name,
-                                       cmd->opts[n].arg ? required_argument : no_argument,
-                                       NULL, n };
-    }
-    int nc = 0;
-    for (const cli_optdef *o = common_opts; o->name; o++, nc++)
-        longopts[n + nc] = (struct option){ o->name, o->arg ? required_argument : no_argument,
-                                            NULL, OPT_FORMAT + nc };
-    longopts[n + nc] = (struct option){ NULL, 0, NULL, 0 };
 
     const char *format = NULL, *units = NULL, *input = NULL;
-    int help = 0, c;
+    int help = 0;
     unsigned common_seen = 0; /* a common option given twice is an error, as for others */
-    opterr = 0;
-    optind = 0; /* glibc: full reset, so the driver can run more than once per process */
-    while ((c = getopt_long(argc, argv, ":", longopts, NULL)) != -1) {
-        if (c == ':')
-            return cli_error(&ctx, NULL, "a value after it, such as --vf 0.66",
-                             "option '%s' needs a value", argv[optind - 1]);
-        if (c == '?')
-            return cli_error(&ctx, NULL, "an option listed by coaxline COMMAND --help",
-                             "unknown option '%s'", argv[optind - 1]);
+    /* Our own scan rather than getopt_long, which takes any unambiguous
+     * beginning of a name ("--freq" for "--freq-step"): --NAME VALUE,
+     * --NAME=VALUE, --NAME for a flag, "--" ends the options.  A value is
+     * the next word whatever it looks like (--offset -3m). */
+    int argi = 1, first_operand = 0;
+    while (argi < argc) {
+        const char *arg = argv[argi++];
+        if (strcmp(arg, "--") == 0) {
+            if (argi < argc && !first_operand) first_operand = argi;
+            break;
+        }
+        if (strncmp(arg, "--", 2) != 0 || arg[2] == '\0') {
+            if (arg[0] == '-' && arg[1] != '\0')
+                return unknown_option(&ctx, arg, arg + 1 + (arg[1] == '-'), strlen(arg + 1));
+            if (!first_operand) first_operand = argi - 1;
+            continue;
+        }
+        const char *name = arg + 2, *eq = strchr(name, '=');
+        size_t len = eq ? (size_t)(eq - name) : strlen(name);
+        int c = exact_option(cmd, name, len);
+        if (c < 0)
+            return unknown_option(&ctx, arg, name, len);
+        const cli_optdef *def = c >= OPT_FORMAT ? &common_opts[c - OPT_FORMAT] : &cmd->opts[c];
+        const char *value = "1";
+        if (def->arg) {
+            if (eq) value = eq + 1;
+            else if (argi < argc) value = argv[argi++];
+            else
+                return cli_error(&ctx, NULL, "a value after it, such as --vf 0.66",
+                                 "option '%s' needs a value", arg);
+        } else if (eq) {
+            return cli_error(&ctx, def->name, "the option alone, without =VALUE",
+                             "'%s' takes no value", arg);
+        }
         if (c >= OPT_FORMAT && c < OPT_HELP) {
             unsigned bit = 1u << (c - OPT_FORMAT);
             if (common_seen & bit)
@@ -207,29 +278,29 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
                                  "given more than once");
             common_seen |= bit;
         }
-        if (c == OPT_FORMAT) format = optarg;
-        else if (c == OPT_UNITS) units = optarg;
-        else if (c == OPT_INPUT) input = optarg;
-        else if (c == OPT_CABLES) ctx.cables_path = optarg;
-        else if (c == OPT_CABLE_LOSS) ctx.loss_path = optarg;
+        if (c == OPT_FORMAT) format = value;
+        else if (c == OPT_UNITS) units = value;
+        else if (c == OPT_INPUT) input = value;
+        else if (c == OPT_CABLES) ctx.cables_path = value;
+        else if (c == OPT_CABLE_LOSS) ctx.loss_path = value;
         else if (c == OPT_HELP) help = 1;
-        else if (c >= 0 && c < n) {
+        else {
             if (args.nval[c] > 0 && !cmd->opts[c].repeat)
                 return cli_error(&ctx, cmd->opts[c].name, "it once",
                                  "given more than once");
             if (args.nval[c] == CLI_MAX_REPEAT)
                 return cli_error(&ctx, cmd->opts[c].name, "at most 32 values",
                                  "given too many times");
-            args.val[c][args.nval[c]++] = cmd->opts[c].arg ? optarg : "1";
+            args.val[c][args.nval[c]++] = value;
         }
     }
     if (help) {
         cli_print_command_help(cmd, stdout);
         return CLI_EXIT_OK;
     }
-    if (optind < argc)
+    if (first_operand)
         return cli_error(&ctx, NULL, "options only, such as --offset 10m",
-                         "unexpected argument '%s'", argv[optind]);
+                         "unexpected argument '%s'", argv[first_operand]);
     if (format) {
         if (strcmp(format, "text") == 0) ctx.format = CLI_TEXT;
         else if (strcmp(format, "csv") == 0) ctx.format = CLI_CSV;
@@ -241,6 +312,7 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
         else if (strcmp(units, "imperial") == 0) ctx.units = CXL_UNITS_IMPERIAL;
         else return cli_error(&ctx, "units", "metric or imperial", "unknown units '%s'", units);
     }
+    args.text_labels = ctx.format == CLI_TEXT;
     if (input && !cmd->batch)
         return cli_error(&ctx, "input", "the command without --input",
                          "the %s command does not take a batch file", cmd->name);

@@ -30,6 +30,11 @@ static const cli_col loss_cols[] = {
 
 #define MAX_POINTS (4 * CLI_MAX_ITEMS)
 
+/* No coax loses 1000 dB per metre (a thin line at 1 THz: tens of dB per
+ * metre; common practice, no source): above it a user cable's data are
+ * wrong, and 1000 km of it still prints as a number of 9 digits. */
+#define LOSS_MAX_DB_PER_M 1e3
+
 /* The model chosen for one invocation. */
 typedef struct loss_setup {
     int physical;           /* 0: fitted, 1: physical */
@@ -124,6 +129,11 @@ static int eval_point(cli_ctx *ctx, const loss_setup *s, const char *name,
         snprintf(where, sizeof where, " (%.15s %.8s%s)", p->band, p->edge,
                  strcmp(p->edge, "centre") == 0 ? "" : " edge");
     const char *field = p->band[0] ? "band" : "freq";
+    if (st == CXL_EEXTRAPOLATE && s->physical && !(lo < hi))
+        return cli_error(ctx, "cable", "conductor data that leave the model a frequency range "
+                                       "(conductivity_s_per_m, diameters)",
+                         "the physical model of '%s' holds at no frequency: 3 skin depths "
+                         "lie above the first higher-order mode", name);
     if (st == CXL_EEXTRAPOLATE) {
         cli_fmt_range_mhz(range, sizeof range, lo, hi);
         if (s->physical)
@@ -142,6 +152,10 @@ static int eval_point(cli_ctx *ctx, const loss_setup *s, const char *name,
         return cli_error(ctx, field, "a frequency nearer the loss table",
                          "%s MHz%s: no loss value for '%s' there (%s)", f, where, name,
                          cxl_strerror(st));
+    if (*db_per_m > LOSS_MAX_DB_PER_M)
+        return cli_error(ctx, "cable", "cable data giving at most 1000 dB per m (conductivity_s_per_m, "
+                                       "conductor_loss_factor, loss_tangent, loss table)",
+                         "'%s' would lose more than 1000 dB per m at %s MHz%s", name, f, where);
     return 0;
 }
 
@@ -211,7 +225,8 @@ static int loss_run(cli_ctx *ctx, const cli_args *a)
     double length_m, swr = 1.0;
     if (!len_text)
         return cli_error(ctx, "length", "--length 100m", "the length of the run is needed");
-    if (cli_length(ctx, "length", len_text, CLI_POSITIVE, &length_m)) return CLI_EXIT_USAGE;
+    /* a run is a line: 1 mm to 1000 km, as phase and pair take */
+    if (cli_line_length(ctx, "length", len_text, &length_m)) return CLI_EXIT_USAGE;
     if (cli_count(a, "swr")) {
         static const char expected[] = "a standing-wave ratio of 1 or more, such as 1.5";
         const char *t = cli_get(a, "swr", 0);
