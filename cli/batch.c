@@ -65,6 +65,77 @@ static int header_index(const cli_command *cmd, const char *name)
     return -1;
 }
 
+/* Options that name a file the command writes (--plot, --sweep-plot). */
+static int writes_file(const cli_optdef *o)
+{
+    size_t n = strlen(o->name);
+    return strcmp(o->name, "plot") == 0 || (n > 5 && strcmp(o->name + n - 5, "-plot") == 0);
+}
+
+/* One row's name from a command-line pattern: {line} becomes the batch
+ * line, {label} the row's label with '/', control bytes and a leading '.'
+ * made '_' (a label cannot leave the folder the pattern names).  Returns
+ * 0, or -1 when the name does not fit. */
+static int expand_plot_name(const char *pattern, size_t line, const char *label, char *out,
+                            size_t size)
+{
+    size_t n = 0;
+    for (const char *p = pattern; *p; ) {
+        char piece[32];
+        const char *add = NULL;
+        size_t len = 1;
+        if (strncmp(p, "{line}", 6) == 0) {
+            snprintf(piece, sizeof piece, "%zu", line);
+            add = piece;
+            p += 6;
+        } else if (strncmp(p, "{label}", 7) == 0) {
+            add = label[0] ? label : "unlabelled";
+            p += 7;
+        }
+        if (add) {
+            for (size_t k = 0; add[k]; k++) {
+                if (n + 1 >= size) return -1;
+                char c = add[k];
+                int bad = c == '/' || (unsigned char)c < 0x20 || c == 0x7f || (k == 0 && c == '.');
+                out[n++] = bad ? '_' : c;
+            }
+            continue;
+        }
+        if (n + len >= size) return -1;
+        out[n++] = *p++;
+    }
+    out[n] = '\0';
+    return 0;
+}
+
+/* The files a batch has written so far, so that no row overwrites another
+ * row's plot (two rows with one label). */
+typedef struct name_list {
+    char **name;
+    size_t *line;
+    size_t n, cap;
+} name_list;
+
+/* 1 (and *line: where) when name was written before; otherwise records it
+ * and returns 0.  Out of memory is reported as seen at line 0. */
+static int seen_name(name_list *l, const char *name, size_t *line)
+{
+    for (size_t i = 0; i < l->n; i++)
+        if (strcmp(l->name[i], name) == 0) { *line = l->line[i]; return 1; }
+    if (l->n == l->cap) {
+        size_t cap = l->cap ? 2 * l->cap : 16;
+        char **nn = realloc(l->name, cap * sizeof *nn);
+        if (nn) l->name = nn;
+        size_t *nl = realloc(l->line, cap * sizeof *nl);
+        if (nl) l->line = nl;
+        if (!nn || !nl) { *line = 0; return 1; }
+        l->cap = cap;
+    }
+    if (!(l->name[l->n] = strdup(name))) { *line = 0; return 1; }
+    l->line[l->n++] = *line;
+    return 0;
+}
+
 static void list_columns(const cli_command *cmd, char *buf, size_t size)
 {
     size_t used = 0;
@@ -90,6 +161,10 @@ static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
     }
     int code = CLI_EXIT_OK, has_row = 0, ncols = 0;
     int col_opt[CLI_MAX_OPTS];
+    const char *patterns[CLI_MAX_OPTS] = { NULL };
+    name_list written = { NULL, NULL, 0, 0 };
+    size_t dup_line = 0;
+    static char plot_names[CLI_MAX_OPTS][4096];
     char columns[512];
     list_columns(cmd, columns, sizeof columns);
     char expected_header[600];
@@ -115,6 +190,14 @@ static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
             code = cli_error(ctx, "input", expected_header, "unknown column '%s'", name);
             goto done;
         }
+        if (writes_file(&cmd->opts[k])) {
+            /* a file's cells must not choose where the tool writes */
+            code = cli_error(ctx, "input", "--" "plot 'plots/{label}.svg' on the command line",
+                             "column '%s' would let the batch file name the files written; "
+                             "give --%s with {line} or {label} on the command line",
+                             name, cmd->opts[k].name);
+            goto done;
+        }
         for (size_t j = 0; j < i; j++)
             if (col_opt[j] == k) {
                 code = cli_error(ctx, "input", expected_header,
@@ -124,6 +207,8 @@ static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
         col_opt[i] = k;
     }
     ncols = (int)nf;
+    for (int i = 0; cmd->opts[i].name; i++)
+        patterns[i] = args->nval[i] ? args->val[i][0] : NULL;
     const char *row[CLI_MAX_OPTS];
     args->row = row;
     size_t rows = 0;
@@ -152,7 +237,26 @@ static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
         }
         for (int i = 0; i < CLI_MAX_OPTS; i++) row[i] = NULL;
         for (int i = 0; i < ncols; i++) row[col_opt[i]] = cxl_csv_reader_field(rd, (size_t)i);
-        code = worse(code, cmd->run(ctx, args));
+        /* --plot patterns: this row's own file */
+        int named = 1;
+        for (int i = 0; cmd->opts[i].name && named; i++) {
+            if (!writes_file(&cmd->opts[i]) || args->nval[i] == 0) continue;
+            const char *label = cli_get(args, "label", 0);
+            if (expand_plot_name(patterns[i], ctx->line, label ? label : "", plot_names[i],
+                                 sizeof plot_names[i]) != 0) {
+                code = cli_error(ctx, cmd->opts[i].name, "a shorter file name pattern",
+                                 "the file name for this row is too long");
+                named = 0;
+            } else if ((dup_line = ctx->line, seen_name(&written, plot_names[i], &dup_line))) {
+                code = cli_error(ctx, cmd->opts[i].name, "{line} in the name, or a label per row",
+                                 "'%s' was written for line %zu already", plot_names[i],
+                                 dup_line);
+                named = 0;
+            } else {
+                args->val[i][0] = plot_names[i];
+            }
+        }
+        if (named) code = worse(code, cmd->run(ctx, args));
     }
     if (rows == 0) {
         ctx->line = 0;
@@ -161,6 +265,11 @@ static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
                          "'%s' has a header but no data rows", path);
     }
 done:
+    for (size_t i = 0; i < written.n; i++) free(written.name[i]);
+    free(written.name);
+    free(written.line);
+    for (int i = 0; cmd->opts[i].name; i++)
+        if (patterns[i]) args->val[i][0] = patterns[i];
     args->row = NULL;
     cxl_csv_reader_free(rd);
     if (fp != stdin) fclose(fp);
@@ -316,6 +425,14 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
     if (input && !cmd->batch)
         return cli_error(&ctx, "input", "the command without --input",
                          "the %s command does not take a batch file", cmd->name);
+    /* one file per row, or none: a fixed name would keep only the last */
+    for (int i = 0; input && cmd->opts[i].name; i++)
+        if (writes_file(&cmd->opts[i]) && args.nval[i] &&
+            !strstr(args.val[i][0], "{line}") && !strstr(args.val[i][0], "{label}"))
+            return cli_error(&ctx, cmd->opts[i].name, "a name with {line} or {label}, such as "
+                                                      "'plots/{label}.svg'",
+                             "with --input every row writes its own file; '%s' names only one",
+                             args.val[i][0]);
 
     /* files named on the command line are read (and checked) even when no
      * row ends up needing the catalog */

@@ -104,6 +104,41 @@ START_TEST(svg_forbidden_chars)
 }
 END_TEST
 
+/* A batch with --plot writes one file per row, named by the pattern; a
+ * second row of the same label is refused rather than overwrite the
+ * first's file (self-consistency with coaxline(1), no outside source). */
+START_TEST(batch_plot_per_row)
+{
+    char dir[] = "/tmp/coaxline-plots-XXXXXX";
+    ck_assert_ptr_nonnull(mkdtemp(dir));
+    char args[512], path[128];
+    snprintf(args, sizeof args,
+             "phase --input - --vf 0.66 --band 160m --format csv --plot '%s/{label}-{line}.svg'",
+             dir);
+    cli_result r = run_cli(NULL, args, "label,reference,length\nn/1,10m,10.1m\nn2,10m,10.2m\n");
+    ck_assert_msg(r.rc == 0, "exit %d: %s", r.rc, r.err);
+    cli_result_free(&r);
+    /* '/' in a label cannot reach another folder */
+    snprintf(path, sizeof path, "%s/n_1-2.svg", dir);
+    svg_holds(path, "assert any(\"n/1\" in x for x in texts), texts");
+    unlink(path);
+    snprintf(path, sizeof path, "%s/n2-3.svg", dir);
+    svg_holds(path, "assert any(\"n2\" in x for x in texts), texts");
+    unlink(path);
+    snprintf(args, sizeof args,
+             "phase --input - --vf 0.66 --band 160m --format csv --plot '%s/{label}.svg'", dir);
+    r = run_cli(NULL, args, "label,reference,length\na,10m,10.1m\na,10m,10.2m\n");
+    ck_assert_int_eq(r.rc, 2);
+    has(r.err, "line 3: plot: '");
+    has(r.err, "/a.svg' was written for line 2 already");
+    ck_assert_int_eq(count_lines(r.err), 1);
+    cli_result_free(&r);
+    snprintf(path, sizeof path, "%s/a.svg", dir);
+    ck_assert_int_eq(unlink(path), 0);
+    ck_assert_int_eq(rmdir(dir), 0); /* nothing else was written */
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("cli_valid");
@@ -113,6 +148,7 @@ int main(void)
     tcase_add_test(tc, json_strict_utf8);
     tcase_add_test(tc, json_no_negative_zero);
     tcase_add_test(tc, svg_forbidden_chars);
+    tcase_add_test(tc, batch_plot_per_row);
     suite_add_tcase(s, tc);
     return run_suite(s);
 }
