@@ -159,6 +159,10 @@ static int eval_point(cli_ctx *ctx, const loss_setup *s, const char *name,
     return 0;
 }
 
+/* Text: the run in one line (length, then the cable), the model, what the
+ * far end does, then one line per point: where, frequency, attenuation,
+ * matched-line loss and the loss with the far end's SWR (the CSV's
+ * matched_loss_db, swr and total_loss_db). */
 static void text_output(cli_ctx *ctx, const cli_args *a, const char *name, size_t idx,
                         const loss_setup *s, double length_m, double swr,
                         const cli_freq_point *pts, int n, const double *per_m,
@@ -170,8 +174,9 @@ static void text_output(cli_ctx *ctx, const cli_args *a, const char *name, size_
     double z0, vf, lo, hi;
     const char *label = cli_label(a);
     if (ctx->rows_out++) putc('\n', o);
-    fprintf(o, "loss%s%s\n", label[0] ? ": " : "", cli_clean(b1, sizeof b1, label));
-    fprintf(o, "  cable      %s", cli_clean(b1, sizeof b1, name));
+    fprintf(o, "loss%s%s\n", label[0] ? ": " : "", label);
+    fprintf(o, "  %s of %s", cli_fmt_length(ctx, b1, sizeof b1, length_m),
+            cli_clean(b2, sizeof b2, name));
     if (cxl_catalog_value(cat, idx, CXL_CABLE_Z0_OHM, &z0) == CXL_OK)
         fprintf(o, ", %s ohm", cli_fmt(b2, sizeof b2, z0, 0));
     if (cxl_catalog_value(cat, idx, CXL_CABLE_VF, &vf) == CXL_OK)
@@ -179,29 +184,37 @@ static void text_output(cli_ctx *ctx, const cli_args *a, const char *name, size_
     int builtin = 1;
     cxl_catalog_is_builtin(cat, idx, &builtin);
     fprintf(o, "%s\n", builtin ? " (nominal)" : " (user file)");
-    fprintf(o, "  length     %s\n", cli_fmt_length(ctx, b1, sizeof b1, length_m));
     model_range(s, &lo, &hi);
     if (s->physical) {
-        fprintf(o, "  model      physical: skin-effect R%s, dielectric G, exact propagation "
+        fprintf(o, "  physical model: skin-effect R%s, dielectric G, exact propagation "
                    "constant; holds %s\n",
                 s->flags & CXL_LOSS_EXTERNAL_L_ONLY ? " (external inductance only)"
                                                     : " with internal inductance",
                 cli_fmt_range_mhz(b1, sizeof b1, lo, hi));
         if (s->defaulted)
-            fprintf(o, "             (chosen because the cable has %s)\n",
+            fprintf(o, "    (chosen because the cable has %s)\n",
                     s->npoints ? "only one loss-table point" : "no loss table");
     } else {
-        fprintf(o, "  model      fitted: %s\n", cli_fmt_fit(b1, sizeof b1, s->fit));
+        fprintf(o, "  fitted model: %s\n", cli_fmt_fit(b1, sizeof b1, s->fit));
     }
-    fprintf(o, "  load SWR   %s%s\n", cli_fmt(b1, sizeof b1, swr, 3),
-            swr > 1.0 ? "  (total adds the standing wave's extra loss; real-Z0 formula)" : "");
-    fprintf(o, "  %-6s %-7s %12s %10s %11s %9s\n", "band", "edge", "freq MHz", "dB/100 m",
-            "matched dB", "total dB");
+    cli_fmt(b1, sizeof b1, swr, 3);
+    if (swr > 1.0)
+        fprintf(o, "  far end at SWR %s: the last column adds its standing-wave loss "
+                   "(real-Z0 formula)\n", b1);
+    else
+        fprintf(o, "  far end matched (SWR %s): both columns are the matched-line loss\n", b1);
+    char at_swr[300];
+    snprintf(at_swr, sizeof at_swr, "dB at SWR %s", b1);
+    fprintf(o, "\n  %-12s %12s %10s %16s %16s\n", "at", "MHz", "dB/100 m", "matched-line dB",
+            at_swr);
     int any_extra = 0;
     for (int k = 0; k < n; k++) {
+        char where[40];
         any_extra |= extra[k];
-        fprintf(o, "  %-6s %-7s %12s %10s %11s %9s%s\n", pts[k].band[0] ? pts[k].band : "-",
-                pts[k].edge, cli_fmt(b2, sizeof b2, pts[k].freq_hz / 1e6, 6),
+        if (pts[k].band[0]) snprintf(where, sizeof where, "%.15s %.8s", pts[k].band, pts[k].edge);
+        else snprintf(where, sizeof where, "given freq");
+        fprintf(o, "  %-12s %12s %10s %16s %16s%s\n", where,
+                cli_fmt(b2, sizeof b2, pts[k].freq_hz / 1e6, 6),
                 cli_fmt(b3, sizeof b3, per_m[k] * 100.0, 3), cli_fmt(b4, sizeof b4, ml[k], 3),
                 cli_fmt(b5, sizeof b5, tl[k], 3), extra[k] ? "  *" : "");
     }
