@@ -2,7 +2,6 @@
  * command. */
 #include <config.h>
 #include <errno.h>
-#include <getopt.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -157,6 +156,75 @@ static int reader_stopped(const cli_ctx *ctx, const char *path, cxl_status st, i
     return cli_error(ctx, "input", "a CSV text file with a line end at least every 1 MiB",
                      "no line end in '%s' for over 1 MiB; reading stopped",
                      path);
+/* Options that name a file the command writes (--plot, --sweep-plot). */
+static int writes_file(const cli_optdef *o)
+{
+    size_t n = strlen(o->name);
+    return strcmp(o->name, "plot") == 0 || (n > 5 && strcmp(o->name + n - 5, "-plot") == 0);
+}
+
+/* One row's name from a command-line pattern: {line} becomes the batch
+ * line, {label} the row's label with '/', control bytes and a leading '.'
+ * made '_' (a label cannot leave the folder the pattern names).  Returns
+ * 0, or -1 when the name does not fit. */
+static int expand_plot_name(const char *pattern, size_t line, const char *label, char *out,
+                            size_t size)
+{
+    size_t n = 0;
+    for (const char *p = pattern; *p; ) {
+        char piece[32];
+        const char *add = NULL;
+        size_t len = 1;
+        if (strncmp(p, "{line}", 6) == 0) {
+            snprintf(piece, sizeof piece, "%zu", line);
+            add = piece;
+            p += 6;
+        } else if (strncmp(p, "{label}", 7) == 0) {
+            add = label[0] ? label : "unlabelled";
+            p += 7;
+        }
+        if (add) {
+            for (size_t k = 0; add[k]; k++) {
+                if (n + 1 >= size) return -1;
+                char c = add[k];
+                int bad = c == '/' || (unsigned char)c < 0x20 || c == 0x7f || (k == 0 && c == '.');
+                out[n++] = bad ? '_' : c;
+            }
+            continue;
+        }
+        if (n + len >= size) return -1;
+        out[n++] = *p++;
+    }
+    out[n] = '\0';
+    return 0;
+}
+
+/* The files a batch has written so far, so that no row overwrites another
+ * row's plot (two rows with one label). */
+typedef struct name_list {
+    char **name;
+    size_t *line;
+    size_t n, cap;
+} name_list;
+
+/* 1 (and *line: where) when name was written before; otherwise records it
+ * and returns 0.  Out of memory is reported as seen at line 0. */
+static int seen_name(name_list *l, const char *name, size_t *line)
+{
+    for (size_t i = 0; i < l->n; i++)
+        if (strcmp(l->name[i], name) == 0) { *line = l->line[i]; return 1; }
+    if (l->n == l->cap) {
+        size_t cap = l->cap ? 2 * l->cap : 16;
+        char **nn = realloc(l->name, cap * sizeof *nn);
+        if (nn) l->name = nn;
+        size_t *nl = realloc(l->line, cap * sizeof *nl);
+        if (nl) l->line = nl;
+        if (!nn || !nl) { *line = 0; return 1; }
+        l->cap = cap;
+    }
+    if (!(l->name[l->n] = strdup(name))) { *line = 0; return 1; }
+    l->line[l->n++] = *line;
+    return 0;
 }
 
 static void list_columns(const cli_command *cmd, char *buf, size_t size)
@@ -187,6 +255,10 @@ static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
     int code = CLI_EXIT_OK, has_row = 0, ncols = 0;
     int col_opt[CLI_MAX_OPTS];
     const char *col_unit[CLI_MAX_OPTS];
+    const char *patterns[CLI_MAX_OPTS] = { NULL };
+    name_list written = { NULL, NULL, 0, 0 };
+    size_t dup_line = 0;
+    static char plot_names[CLI_MAX_OPTS][4096];
     char columns[512];
     list_columns(cmd, columns, sizeof columns);
     char expected_header[600];
@@ -224,6 +296,14 @@ static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
             code = cli_error(ctx, "input", expected_header, "unknown column '%s'", name);
             goto done;
         }
+        if (writes_file(&cmd->opts[k])) {
+            /* a file's cells must not choose where the tool writes */
+            code = cli_error(ctx, "input", "--" "plot 'plots/{label}.svg' on the command line",
+                             "column '%s' would let the batch file name the files written; "
+                             "give --%s with {line} or {label} on the command line",
+                             name, cmd->opts[k].name);
+            goto done;
+        }
         for (size_t j = 0; j < i; j++)
             if (col_opt[j] == k) {
                 code = cli_error(ctx, "input", expected_header,
@@ -241,6 +321,8 @@ static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
                                 : "tab-separated");
     if (cxl_csv_reader_bom(rd) && ctx->format == CLI_CSV)
         fputs("\xEF\xBB\xBF", ctx->out); /* keep the byte-order mark for the spreadsheet */
+    for (int i = 0; cmd->opts[i].name; i++)
+        patterns[i] = args->nval[i] ? args->val[i][0] : NULL;
     const char *row[CLI_MAX_OPTS];
     static char cellbuf[CLI_MAX_OPTS][CELL_SIZE];
     args->row = row;
@@ -287,7 +369,27 @@ static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
                                            col_unit[i], cellbuf[i]);
             bad = row[col_opt[i]] == NULL;
         }
-        code = worse(code, bad ? CLI_EXIT_USAGE : cmd->run(ctx, args));
+        /* --plot patterns: this row's own file */
+        int named = !bad;
+        for (int i = 0; cmd->opts[i].name && named; i++) {
+            if (!writes_file(&cmd->opts[i]) || args->nval[i] == 0) continue;
+            const char *label = cli_get(args, "label", 0);
+            if (expand_plot_name(patterns[i], ctx->line, label ? label : "", plot_names[i],
+                                 sizeof plot_names[i]) != 0) {
+                code = cli_error(ctx, cmd->opts[i].name, "a shorter file name pattern",
+                                 "the file name for this row is too long");
+                named = 0;
+            } else if ((dup_line = ctx->line, seen_name(&written, plot_names[i], &dup_line))) {
+                code = cli_error(ctx, cmd->opts[i].name, "{line} in the name, or a label per row",
+                                 "'%s' was written for line %zu already", plot_names[i],
+                                 dup_line);
+                named = 0;
+            } else {
+                args->val[i][0] = plot_names[i];
+            }
+        }
+        if (bad) code = worse(code, CLI_EXIT_USAGE);
+        else if (named) code = worse(code, cmd->run(ctx, args));
     }
     if (rows == 0) {
         ctx->line = 0;
@@ -296,6 +398,11 @@ static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
                          "'%s' has a header but no data rows", path);
     }
 done:
+    for (size_t i = 0; i < written.n; i++) free(written.name[i]);
+    free(written.name);
+    free(written.line);
+    for (int i = 0; cmd->opts[i].name; i++)
+        if (patterns[i]) args->val[i][0] = patterns[i];
     args->row = NULL;
     cxl_csv_reader_free(rd);
     if (fp != stdin) fclose(fp);
@@ -303,37 +410,109 @@ done:
     return code;
 }
 
+/* Edit distance between a and b (at most 63 bytes each), for the nearest
+ * real option to a mistyped one. */
+static size_t edit_distance(const char *a, size_t na, const char *b)
+{
+    size_t nb = strlen(b), row[64];
+    if (na > 63) na = 63;
+    if (nb > 63) nb = 63;
+    for (size_t j = 0; j <= nb; j++) row[j] = j;
+    for (size_t i = 1; i <= na; i++) {
+        size_t diag = row[0];
+        row[0] = i;
+        for (size_t j = 1; j <= nb; j++) {
+            size_t up = row[j];
+            size_t best = diag + (a[i - 1] != b[j - 1]);
+            if (up + 1 < best) best = up + 1;
+            if (row[j - 1] + 1 < best) best = row[j - 1] + 1;
+            row[j] = best;
+            diag = up;
+        }
+    }
+    return row[nb];
+}
+
+/* The option (command's or common) whose name is exactly name[0..len), as
+ * an index into the command's options or OPT_FORMAT + k; -1 when none.
+ * Only exact names count: "--freq" never stands for "--freq-step". */
+static int exact_option(const cli_command *cmd, const char *name, size_t len)
+{
+    for (int i = 0; cmd->opts[i].name; i++)
+        if (strlen(cmd->opts[i].name) == len && memcmp(cmd->opts[i].name, name, len) == 0)
+            return i;
+    for (int k = 0; common_opts[k].name; k++)
+        if (strlen(common_opts[k].name) == len && memcmp(common_opts[k].name, name, len) == 0)
+            return OPT_FORMAT + k;
+    return -1;
+}
+
+static int unknown_option(const cli_ctx *ctx, const char *arg, const char *name, size_t len)
+{
+    const cli_command *cmd = ctx->cmd;
+    const char *best = NULL;
+    size_t best_d = (size_t)-1;
+    for (int pass = 0; pass < 2; pass++)
+        for (const cli_optdef *o = pass ? common_opts : cmd->opts; o->name; o++) {
+            if (pass && !cmd->batch && strcmp(o->name, "input") == 0) continue;
+            size_t d = edit_distance(name, len, o->name);
+            /* a typed beginning of a longer name is near it */
+            if (len > 0 && strncmp(o->name, name, len) == 0 && d > 1) d = 1;
+            if (d < best_d) { best_d = d; best = o->name; }
+        }
+    char expected[160];
+    if (best && best_d <= 1 + len / 3)
+        snprintf(expected, sizeof expected, "--%s, or another option of coaxline %s --help", best,
+                 cmd->name);
+    else
+        snprintf(expected, sizeof expected, "an option listed by coaxline %s --help", cmd->name);
+    return cli_error(ctx, NULL, expected, "unknown option '%s'", arg);
+}
+
 int cli_run_command(const cli_command *cmd, int argc, char **argv)
 {
     static cli_args args; /* large; one per process */
-    struct option longopts[CLI_MAX_OPTS + 8];
-    int n = 0;
     memset(&args, 0, sizeof args);
     args.cmd = cmd;
     cli_ctx ctx = { .cmd = cmd, .format = CLI_TEXT, .units = CXL_UNITS_METRIC, .out = stdout };
-    for (; cmd->opts[n].name; n++) {
-        longopts[n] = (struct option){ cmd->opts[n].name,
-                                       cmd->opts[n].arg ? required_argument : no_argument,
-                                       NULL, n };
-    }
-    int nc = 0;
-    for (const cli_optdef *o = common_opts; o->name; o++, nc++)
-        longopts[n + nc] = (struct option){ o->name, o->arg ? required_argument : no_argument,
-                                            NULL, OPT_FORMAT + nc };
-    longopts[n + nc] = (struct option){ NULL, 0, NULL, 0 };
 
     const char *format = NULL, *units = NULL, *input = NULL;
-    int help = 0, c;
+    int help = 0;
     unsigned common_seen = 0; /* a common option given twice is an error, as for others */
-    opterr = 0;
-    optind = 0; /* glibc: full reset, so the driver can run more than once per process */
-    while ((c = getopt_long(argc, argv, ":", longopts, NULL)) != -1) {
-        if (c == ':')
-            return cli_error(&ctx, NULL, "a value after it, such as --vf 0.66",
-                             "option '%s' needs a value", argv[optind - 1]);
-        if (c == '?')
-            return cli_error(&ctx, NULL, "an option listed by coaxline COMMAND --help",
-                             "unknown option '%s'", argv[optind - 1]);
+    /* Our own scan rather than getopt_long, which takes any unambiguous
+     * beginning of a name ("--freq" for "--freq-step"): --NAME VALUE,
+     * --NAME=VALUE, --NAME for a flag, "--" ends the options.  A value is
+     * the next word whatever it looks like (--offset -3m). */
+    int argi = 1, first_operand = 0;
+    while (argi < argc) {
+        const char *arg = argv[argi++];
+        if (strcmp(arg, "--") == 0) {
+            if (argi < argc && !first_operand) first_operand = argi;
+            break;
+        }
+        if (strncmp(arg, "--", 2) != 0 || arg[2] == '\0') {
+            if (arg[0] == '-' && arg[1] != '\0')
+                return unknown_option(&ctx, arg, arg + 1 + (arg[1] == '-'), strlen(arg + 1));
+            if (!first_operand) first_operand = argi - 1;
+            continue;
+        }
+        const char *name = arg + 2, *eq = strchr(name, '=');
+        size_t len = eq ? (size_t)(eq - name) : strlen(name);
+        int c = exact_option(cmd, name, len);
+        if (c < 0)
+            return unknown_option(&ctx, arg, name, len);
+        const cli_optdef *def = c >= OPT_FORMAT ? &common_opts[c - OPT_FORMAT] : &cmd->opts[c];
+        const char *value = "1";
+        if (def->arg) {
+            if (eq) value = eq + 1;
+            else if (argi < argc) value = argv[argi++];
+            else
+                return cli_error(&ctx, NULL, "a value after it, such as --vf 0.66",
+                                 "option '%s' needs a value", arg);
+        } else if (eq) {
+            return cli_error(&ctx, def->name, "the option alone, without =VALUE",
+                             "'%s' takes no value", arg);
+        }
         if (c >= OPT_FORMAT && c < OPT_HELP) {
             unsigned bit = 1u << (c - OPT_FORMAT);
             if (common_seen & bit)
@@ -341,29 +520,29 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
                                  "given more than once");
             common_seen |= bit;
         }
-        if (c == OPT_FORMAT) format = optarg;
-        else if (c == OPT_UNITS) units = optarg;
-        else if (c == OPT_INPUT) input = optarg;
-        else if (c == OPT_CABLES) ctx.cables_path = optarg;
-        else if (c == OPT_CABLE_LOSS) ctx.loss_path = optarg;
+        if (c == OPT_FORMAT) format = value;
+        else if (c == OPT_UNITS) units = value;
+        else if (c == OPT_INPUT) input = value;
+        else if (c == OPT_CABLES) ctx.cables_path = value;
+        else if (c == OPT_CABLE_LOSS) ctx.loss_path = value;
         else if (c == OPT_HELP) help = 1;
-        else if (c >= 0 && c < n) {
+        else {
             if (args.nval[c] > 0 && !cmd->opts[c].repeat)
                 return cli_error(&ctx, cmd->opts[c].name, "it once",
                                  "given more than once");
             if (args.nval[c] == CLI_MAX_REPEAT)
                 return cli_error(&ctx, cmd->opts[c].name, "at most 32 values",
                                  "given too many times");
-            args.val[c][args.nval[c]++] = cmd->opts[c].arg ? optarg : "1";
+            args.val[c][args.nval[c]++] = value;
         }
     }
     if (help) {
         cli_print_command_help(cmd, stdout);
         return CLI_EXIT_OK; /* main checks that stdout was written */
     }
-    if (optind < argc)
+    if (first_operand)
         return cli_error(&ctx, NULL, "options only, such as --offset 10m",
-                         "unexpected argument '%s'", argv[optind]);
+                         "unexpected argument '%s'", argv[first_operand]);
     if (format) {
         if (strcmp(format, "text") == 0) ctx.format = CLI_TEXT;
         else if (strcmp(format, "csv") == 0) ctx.format = CLI_CSV;
@@ -375,9 +554,18 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
         else if (strcmp(units, "imperial") == 0) ctx.units = CXL_UNITS_IMPERIAL;
         else return cli_error(&ctx, "units", "metric or imperial", "unknown units '%s'", units);
     }
+    args.text_labels = ctx.format == CLI_TEXT;
     if (input && !cmd->batch)
         return cli_error(&ctx, "input", "the command without --input",
                          "the %s command does not take a batch file", cmd->name);
+    /* one file per row, or none: a fixed name would keep only the last */
+    for (int i = 0; input && cmd->opts[i].name; i++)
+        if (writes_file(&cmd->opts[i]) && args.nval[i] &&
+            !strstr(args.val[i][0], "{line}") && !strstr(args.val[i][0], "{label}"))
+            return cli_error(&ctx, cmd->opts[i].name, "a name with {line} or {label}, such as "
+                                                      "'plots/{label}.svg'",
+                             "with --input every row writes its own file; '%s' names only one",
+                             args.val[i][0]);
 
     /* files named on the command line are read (and checked) even when no
      * row ends up needing the catalog */

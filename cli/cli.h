@@ -55,6 +55,7 @@ struct cli_args {
     const char *val[CLI_MAX_OPTS][CLI_MAX_REPEAT];
     size_t nval[CLI_MAX_OPTS];
     const char *const *row;  /* per option: a batch cell, or NULL */
+    int text_labels;         /* text output: cli_label() shows control bytes escaped */
 };
 
 struct cli_ctx {
@@ -202,6 +203,10 @@ void cli_table_row(cli_ctx *ctx, const cli_col *cols, size_t ncols,
                    const cli_cell *cells);
 /* Closes the JSON array; call once at the end. */
 void cli_table_close(cli_ctx *ctx);
+/* Length of the well-formed UTF-8 sequence at s (RFC 3629: no overlong
+ * forms, surrogates or code points above U+10FFFF), 0 when the byte there
+ * starts none (or is the terminating NUL). */
+size_t cli_utf8_len(const char *s);
 
 /* ---- text output helpers ---------------------------------------------- */
 
@@ -211,7 +216,10 @@ const char *cli_fmt(char *buf, size_t size, double value, int decimals);
  * --units setting prefers: "8.000 m (26 ft 2 15/16 in)". */
 const char *cli_fmt_length(const cli_ctx *ctx, char *buf, size_t size,
                            double length_m);
-/* The row's label for text output ("" when none). */
+/* The row's label ("" when none).  For text output (a->text_labels) control
+ * bytes, C1 controls and bytes that are not UTF-8 are shown escaped (\e,
+ * \r, \n, \t, \xHH, \u0085), so a label can neither colour the terminal
+ * nor forge a line; CSV and JSON get it as it is (they quote and escape). */
 const char *cli_label(const cli_args *a);
 
 /* ---- driver ----------------------------------------------------------- */

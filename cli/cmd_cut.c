@@ -92,12 +92,15 @@ static int cut_run(cli_ctx *ctx, const cli_args *a)
     /* the library's CXL_ERANGE here is an overflow, not the allowance */
     double cut_m = 0.0, qw_hz = 0.0, offset_m = delay_s * CXL_C_M_PER_S;
     char len[48] = "";
-    if (!(offset_m <= OFFSET_MAX_M) ||
-        cxl_line_cut_length(delay_s, vf, allowance_m, allowance_vf, &cut_m) != CXL_OK ||
-        cut_m > CUT_MAX_M)
+    /* name the bound the value misses: a failure of the library for a
+     * tiny delay (underflow) is a length under 1 mm, not over 1000 km */
+    if (!(offset_m <= OFFSET_MAX_M) || offset_m * vf > CUT_MAX_M)
         snprintf(len, sizeof len, "over 1000 km");
-    else if (!(cut_m >= CUT_MIN_M) || cxl_line_quarter_wave_freq(cut_m, vf, &qw_hz) != CXL_OK)
-        snprintf(len, sizeof len, "of %s m", cli_fmt(b1, sizeof b1, cut_m, 6));
+    else if (cxl_line_cut_length(delay_s, vf, allowance_m, allowance_vf, &cut_m) != CXL_OK ||
+             !(cut_m >= CUT_MIN_M) || cxl_line_quarter_wave_freq(cut_m, vf, &qw_hz) != CXL_OK)
+        snprintf(len, sizeof len, "of %s m, under 1 mm", cli_fmt(b1, sizeof b1, cut_m, 6));
+    else if (cut_m > CUT_MAX_M)
+        snprintf(len, sizeof len, "over 1000 km");
     if (len[0])
         return cli_error(ctx, kinds[given], "a cut length from 1 mm to 1000 km",
                          "'%s' gives a cut length %s", text, len);

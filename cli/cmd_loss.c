@@ -30,6 +30,11 @@ static const cli_col loss_cols[] = {
 
 #define MAX_POINTS (4 * CLI_MAX_ITEMS)
 
+/* No coax loses 1000 dB per metre (a thin line at 1 THz: tens of dB per
+ * metre; common practice, no source): above it a user cable's data are
+ * wrong, and 1000 km of it still prints as a number of 9 digits. */
+#define LOSS_MAX_DB_PER_M 1e3
+
 /* The model chosen for one invocation. */
 typedef struct loss_setup {
     int physical;           /* 0: fitted, 1: physical */
@@ -127,6 +132,11 @@ static int eval_point(cli_ctx *ctx, const loss_setup *s, const char *name,
         snprintf(where, sizeof where, " (%.15s %.8s%s)", p->band, p->edge,
                  strcmp(p->edge, "centre") == 0 ? "" : " edge");
     const char *field = p->band[0] ? "band" : "freq";
+    if (st == CXL_EEXTRAPOLATE && s->physical && !(lo < hi))
+        return cli_error(ctx, "cable", "conductor data that leave the model a frequency range "
+                                       "(conductivity_s_per_m, diameters)",
+                         "the physical model of '%s' holds at no frequency: 3 skin depths "
+                         "lie above the first higher-order mode", name);
     if (st == CXL_EEXTRAPOLATE) {
         cli_fmt_range_mhz(range, sizeof range, lo, hi);
         if (s->physical)
@@ -146,9 +156,17 @@ static int eval_point(cli_ctx *ctx, const loss_setup *s, const char *name,
         return cli_error(ctx, field, "a frequency nearer the loss table",
                          "%s MHz%s: no loss value for '%s' there (%s)", f, where, name,
                          cxl_strerror(st));
+    if (*db_per_m > LOSS_MAX_DB_PER_M)
+        return cli_error(ctx, "cable", "cable data giving at most 1000 dB per m (conductivity_s_per_m, "
+                                       "conductor_loss_factor, loss_tangent, loss table)",
+                         "'%s' would lose more than 1000 dB per m at %s MHz%s", name, f, where);
     return 0;
 }
 
+/* Text: the run in one line (length, then the cable), the model, what the
+ * far end does, then one line per point: where, frequency, attenuation,
+ * matched-line loss and the loss with the far end's SWR (the CSV's
+ * matched_loss_db, swr and total_loss_db). */
 static void text_output(cli_ctx *ctx, const cli_args *a, const char *name, size_t idx,
                         const loss_setup *s, double length_m, double swr,
                         const cli_freq_point *pts, int n, const double *per_m,
@@ -160,8 +178,9 @@ static void text_output(cli_ctx *ctx, const cli_args *a, const char *name, size_
     double z0, vf, lo, hi;
     const char *label = cli_label(a);
     if (ctx->rows_out++) putc('\n', o);
-    fprintf(o, "loss%s%s\n", label[0] ? ": " : "", cli_clean(b1, sizeof b1, label));
-    fprintf(o, "  cable      %s", cli_clean(b1, sizeof b1, name));
+    fprintf(o, "loss%s%s\n", label[0] ? ": " : "", label);
+    fprintf(o, "  %s of %s", cli_fmt_length(ctx, b1, sizeof b1, length_m),
+            cli_clean(b2, sizeof b2, name));
     if (cxl_catalog_value(cat, idx, CXL_CABLE_Z0_OHM, &z0) == CXL_OK)
         fprintf(o, ", %s ohm", cli_fmt(b2, sizeof b2, z0, 0));
     if (cxl_catalog_value(cat, idx, CXL_CABLE_VF, &vf) == CXL_OK)
@@ -169,10 +188,9 @@ static void text_output(cli_ctx *ctx, const cli_args *a, const char *name, size_
     int builtin = 1;
     cxl_catalog_is_builtin(cat, idx, &builtin);
     fprintf(o, "%s\n", builtin ? " (nominal)" : " (user file)");
-    fprintf(o, "  length     %s\n", cli_fmt_length(ctx, b1, sizeof b1, length_m));
     model_range(s, &lo, &hi);
     if (s->physical) {
-        fprintf(o, "  model      physical: %s R%s, dielectric G, exact propagation "
+        fprintf(o, "  physical model: %s R%s, dielectric G, exact propagation "
                    "constant; holds %s\n",
                 s->model_clad ? "layered-surface (clad centre) and thick-wall Bessel"
                               : "round-wire and thick-wall Bessel",
@@ -180,20 +198,29 @@ static void text_output(cli_ctx *ctx, const cli_args *a, const char *name, size_
                                                     : " with internal inductance",
                 cli_fmt_range_mhz(b1, sizeof b1, lo, hi));
         if (s->defaulted)
-            fprintf(o, "             (chosen because the cable has %s)\n",
+            fprintf(o, "    (chosen because the cable has %s)\n",
                     s->npoints ? "only one loss-table point" : "no loss table");
     } else {
-        fprintf(o, "  model      fitted: %s\n", cli_fmt_fit(b1, sizeof b1, s->fit));
+        fprintf(o, "  fitted model: %s\n", cli_fmt_fit(b1, sizeof b1, s->fit));
     }
-    fprintf(o, "  load SWR   %s%s\n", cli_fmt(b1, sizeof b1, swr, 3),
-            swr > 1.0 ? "  (total adds the standing wave's extra loss; real-Z0 formula)" : "");
-    fprintf(o, "  %-6s %-7s %12s %10s %11s %9s\n", "band", "edge", "freq MHz", "dB/100 m",
-            "matched dB", "total dB");
+    cli_fmt(b1, sizeof b1, swr, 3);
+    if (swr > 1.0)
+        fprintf(o, "  far end at SWR %s: the last column adds its standing-wave loss "
+                   "(real-Z0 formula)\n", b1);
+    else
+        fprintf(o, "  far end matched (SWR %s): both columns are the matched-line loss\n", b1);
+    char at_swr[300];
+    snprintf(at_swr, sizeof at_swr, "dB at SWR %s", b1);
+    fprintf(o, "\n  %-12s %12s %10s %16s %16s\n", "at", "MHz", "dB/100 m", "matched-line dB",
+            at_swr);
     int any_extra = 0;
     for (int k = 0; k < n; k++) {
+        char where[40];
         any_extra |= extra[k];
-        fprintf(o, "  %-6s %-7s %12s %10s %11s %9s%s\n", pts[k].band[0] ? pts[k].band : "-",
-                pts[k].edge, cli_fmt(b2, sizeof b2, pts[k].freq_hz / 1e6, 6),
+        if (pts[k].band[0]) snprintf(where, sizeof where, "%.15s %.8s", pts[k].band, pts[k].edge);
+        else snprintf(where, sizeof where, "given freq");
+        fprintf(o, "  %-12s %12s %10s %16s %16s%s\n", where,
+                cli_fmt(b2, sizeof b2, pts[k].freq_hz / 1e6, 6),
                 cli_fmt(b3, sizeof b3, per_m[k] * 100.0, 3), cli_fmt(b4, sizeof b4, ml[k], 3),
                 cli_fmt(b5, sizeof b5, tl[k], 3), extra[k] ? "  *" : "");
     }
@@ -217,7 +244,8 @@ static int loss_run(cli_ctx *ctx, const cli_args *a)
     double length_m, swr = 1.0;
     if (!len_text)
         return cli_error(ctx, "length", "--length 100m", "the length of the run is needed");
-    if (cli_length(ctx, "length", len_text, CLI_POSITIVE, &length_m)) return CLI_EXIT_USAGE;
+    /* a run is a line: 1 mm to 1000 km, as phase and pair take */
+    if (cli_line_length(ctx, "length", len_text, &length_m)) return CLI_EXIT_USAGE;
     if (cli_count(a, "swr")) {
         static const char expected[] = "a standing-wave ratio of 1 or more, such as 1.5";
         const char *t = cli_get(a, "swr", 0);

@@ -136,6 +136,24 @@ int cli_items(const cli_ctx *ctx, const cli_args *a, const char *name,
             cli_error(ctx, name, "a shorter list", "list is too long");
             return -1;
         }
+        /* In a list of numbers with units a comma straight between two
+         * digits is a decimal comma (1,83 for 1.83) or a thousands
+         * separator (1,830kHz) as often as a list (1 and 83): refused.
+         * Band names (160,80) and orders (1,2,3) have no decimals. */
+        const char *dc = strcmp(name, "band") && strcmp(name, "order") ? v : NULL;
+        while (dc && (dc = strpbrk(dc, ",;")) != NULL) {
+            if (dc > v && dc[-1] >= '0' && dc[-1] <= '9' && dc[1] >= '0' && dc[1] <= '9') {
+                cli_error(ctx, name, strcmp(name, "length") == 0
+                              ? "'.' as the decimal mark and units or a space between "
+                                "items, e.g. 20.3m, or 20m,3m for two lines"
+                              : "'.' as the decimal mark and units or a space between "
+                                "items, e.g. 1.83MHz,3.5MHz or 1.83, 3.5",
+                          "'%s': a comma between digits may be a decimal comma or a "
+                          "thousands separator", v);
+                return -1;
+            }
+            dc++;
+        }
         char *copy = buf + used;
         memcpy(copy, v, len + 1);
         used += len + 1;
@@ -172,6 +190,18 @@ static int report_parse(const cli_ctx *ctx, const char *field, const char *text,
                          "'%s' uses a comma; the decimal mark is '.'", text);
     if (text[0] == '\0' || strspn(text, " \t") == strlen(text))
         return cli_error(ctx, field, expected, "value is empty");
+    if (pos < strlen(text) && text[pos] == 'm' && (text[pos + 1] == 'h' || text[pos + 1] == 'H'))
+        return cli_error(ctx, field, expected,
+                         "'%s': mHz would be millihertz; write MHz for megahertz", text);
+    if (pos < strlen(text) && (text[pos] == 'M' || text[pos] == 'P') &&
+        strchr("sSmM", text[pos + 1]) && text[pos + 1] != '\0')
+        return cli_error(ctx, field, expected,
+                         "'%s': a capital %c is a mega or peta prefix; write the unit in "
+                         "lower case (ms, mm, ps)", text, text[pos]);
+    if (pos > 0 && text[pos - 1] == '\'' && strspn(text + pos, "0123456789") >= 3)
+        return cli_error(ctx, field, expected,
+                         "'%s': an apostrophe before three digits looks like a thousands "
+                         "separator", text);
     return cli_error(ctx, field, expected, "'%s' is not a %s (stuck at character %zu)",
                      text, kind, pos + 1);
 }
@@ -401,10 +431,64 @@ const char *cli_fmt_length(const cli_ctx *ctx, char *buf, size_t size,
     return buf;
 }
 
+/* Escaped copy of a label for a terminal (cli_label); a label is at most
+ * a batch cell (64 KiB) or an argument, and each byte takes at most 6. */
+static const char *escape_label(const char *s)
+{
+    static char buf[6 * 65536 + 1];
+    size_t n = 0;
+    while (*s && n + 7 < sizeof buf) {
+        unsigned char c = (unsigned char)*s;
+        size_t len = cli_utf8_len(s);
+        if (c >= 0x20 && c != 0x7f && len == 1) {
+            buf[n++] = *s++;
+        } else if (len > 1 && !(c == 0xC2 && (unsigned char)s[1] < 0xA0)) {
+            memcpy(buf + n, s, len);
+            n += len;
+            s += len;
+        } else if (len == 2) { /* C1 control, e.g. U+009B (CSI) */
+            n += (size_t)snprintf(buf + n, sizeof buf - n, "\\u%04x", (unsigned char)s[1]);
+            s += 2;
+        } else {
+            const char *e = c == 0x1b ? "\\e" : c == '\r' ? "\\r" : c == '\n' ? "\\n"
+                          : c == '\t' ? "\\t" : NULL;
+            if (e) n += (size_t)snprintf(buf + n, sizeof buf - n, "%s", e);
+            else n += (size_t)snprintf(buf + n, sizeof buf - n, "\\x%02x", c);
+            s++;
+        }
+    }
+    buf[n] = '\0';
+    return buf;
+}
+
 const char *cli_label(const cli_args *a)
 {
     const char *l = cli_get(a, "label", 0);
-    return l ? l : "";
+    if (!l) return "";
+    if (a->text_labels)
+        for (const char *p = l; *p; p++) {
+            unsigned char c = (unsigned char)*p;
+            if (c < 0x20 || c >= 0x7f) return escape_label(l);
+        }
+    return l;
+}
+
+size_t cli_utf8_len(const char *s)
+{
+    const unsigned char *p = (const unsigned char *)s;
+    unsigned char c = p[0];
+    if (c < 0x80) return c ? 1 : 0;
+    size_t n = (c & 0xE0) == 0xC0 ? 2 : (c & 0xF0) == 0xE0 ? 3 : (c & 0xF8) == 0xF0 ? 4 : 0;
+    if (n == 0 || c == 0xC0 || c == 0xC1 || c >= 0xF5) return 0;
+    for (size_t k = 1; k < n; k++)
+        if ((p[k] & 0xC0) != 0x80) return 0;
+    /* second-byte ranges of RFC 3629, section 4: no overlong forms
+     * (E0 80-9F, F0 80-8F), no surrogates (ED A0-BF), nothing above
+     * U+10FFFF (F4 90-BF) */
+    if ((c == 0xE0 && p[1] < 0xA0) || (c == 0xED && p[1] > 0x9F) ||
+        (c == 0xF0 && p[1] < 0x90) || (c == 0xF4 && p[1] > 0x8F))
+        return 0;
+    return n;
 }
 
 /* JSON string with escapes; bytes that are not valid UTF-8 become U+FFFD
@@ -417,11 +501,8 @@ static void json_string(FILE *fp, const char *s)
         unsigned char c = *p;
         if (c == '"' || c == '\\') { putc('\\', fp); putc(c, fp); p++; continue; }
         if (c < 0x20) { fprintf(fp, "\\u%04x", c); p++; continue; }
-        if (c < 0x80) { putc(c, fp); p++; continue; }
-        int n = (c & 0xE0) == 0xC0 ? 2 : (c & 0xF0) == 0xE0 ? 3 : (c & 0xF8) == 0xF0 ? 4 : 0;
-        int ok = n > 0 && c != 0xC0 && c != 0xC1 && c < 0xF5;
-        for (int k = 1; ok && k < n; k++) ok = (p[k] & 0xC0) == 0x80;
-        if (ok) { fwrite(p, 1, (size_t)n, fp); p += n; }
+        size_t n = cli_utf8_len((const char *)p);
+        if (n) { fwrite(p, 1, n, fp); p += n; }
         else { fputs("\xEF\xBF\xBD", fp); p++; }
     }
     putc('"', fp);
@@ -485,8 +566,9 @@ void cli_table_row(cli_ctx *ctx, const cli_col *cols, size_t ncols,
             putc(':', ctx->out);
             if (!cells[i].present) fputs("null", ctx->out);
             else if (cols[i].decimals < 0) json_string(ctx->out, cells[i].text);
-            else if (cxl_units_format_roundtrip(cells[i].value, num, sizeof num) == CXL_OK)
-                fputs(num, ctx->out);
+            else if (cxl_units_format_roundtrip(cells[i].value == 0.0 ? 0.0 : cells[i].value,
+                                                num, sizeof num) == CXL_OK)
+                fputs(num, ctx->out); /* -0.0 prints as 0: no "-0" in JSON */
             else fputs("null", ctx->out);
         }
         putc('}', ctx->out);

@@ -202,7 +202,8 @@ static int vf_from_file(cli_ctx *ctx, const cli_args *a, const char *path, doubl
         *vf = f->rows[0].vf;
         return 0;
     }
-    const char *label = cli_label(a);
+    const char *label = cli_get(a, "label", 0); /* as typed, not as shown */
+    if (!label) label = "";
     const vf_row *hit = NULL;
     for (size_t i = 0; i < f->n; i++) {
         if (!same_label(f->rows[i].label, label)) continue;

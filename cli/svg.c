@@ -38,8 +38,9 @@ static void attr(FILE *fp, const char *name, double v)
     putc('"', fp);
 }
 
-/* Text content or attribute value: XML escapes; control bytes and bytes
- * that are not UTF-8 become U+FFFD, which XML always accepts. */
+/* Text content or attribute value: XML escapes; control bytes, bytes
+ * that are not UTF-8 (cli_utf8_len) and U+FFFE/U+FFFF become U+FFFD,
+ * which XML always accepts. */
 static void text(FILE *fp, const char *s)
 {
     const unsigned char *p = (const unsigned char *)(s ? s : "");
@@ -54,10 +55,10 @@ static void text(FILE *fp, const char *s)
             p++;
             continue;
         }
-        int n = (c & 0xE0) == 0xC0 ? 2 : (c & 0xF0) == 0xE0 ? 3 : (c & 0xF8) == 0xF0 ? 4 : 0;
-        int ok = n > 0 && c != 0xC0 && c != 0xC1 && c < 0xF5;
-        for (int k = 1; ok && k < n; k++) ok = (p[k] & 0xC0) == 0x80;
-        if (ok) { fwrite(p, 1, (size_t)n, fp); p += n; }
+        size_t n = cli_utf8_len((const char *)p);
+        /* XML 1.0 (section 2.2, Char) forbids U+FFFE and U+FFFF too */
+        if (n == 3 && c == 0xEF && p[1] == 0xBF && p[2] >= 0xBE) n = 0;
+        if (n) { fwrite(p, 1, n, fp); p += n; }
         else { fputs("\xEF\xBF\xBD", fp); p++; }
     }
 }

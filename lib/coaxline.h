@@ -73,17 +73,22 @@ cxl_status cxl_units_parse_number(const char *text, double *value,
                                   size_t *error_pos);
 
 /* Parse a length: "12.5m", "1250mm", "125cm", "41ft", "498in", "41ft 6in",
- * "41'6\"", "41' 6 3/8\"", "6 3/8in".  A bare number takes bare_units. */
+ * "41'6\"", "41' 6 3/8\"", "6 3/8in".  A bare number takes bare_units.
+ * Refused (CXL_EPARSE): "Mm"/"MM" (a megametre prefix, not millimetres) and
+ * three or more digits after a foot mark ("1'000", a thousands separator). */
 cxl_status cxl_units_parse_length(const char *text, cxl_units bare_units,
                                   double *length_m, size_t *error_pos);
 
 /* Parse a frequency: "1830kHz", "1.83MHz", "1830000Hz", "0.5GHz"; unit
- * words are case-insensitive; a bare number is MHz. */
+ * words are case-insensitive except the M of MHz: "mHz" or "mhz" (milli)
+ * is refused with CXL_EPARSE rather than read as megahertz; a bare number
+ * is MHz. */
 cxl_status cxl_units_parse_freq(const char *text, double *freq_hz,
                                 size_t *error_pos);
 
 /* Parse a time: "33.4ns", "0.0334us" ("µs" too), "1ms", "2e-9s"; a bare
- * number is nanoseconds. */
+ * number is nanoseconds.  Unit words are case-insensitive except the
+ * prefixes m and p ("Ms", "PS" would be mega- and petaseconds: CXL_EPARSE). */
 cxl_status cxl_units_parse_time(const char *text, double *delay_s,
                                 size_t *error_pos);
 
@@ -263,7 +268,8 @@ cxl_status cxl_stub_vf_from_resonance(cxl_stub_end end, int order,
                                       double length_m, double freq_hz,
                                       double fixture_m, double fixture_vf,
                                       double *vf);
-/* Frequency of the order-th resonance of length_m of cable with vf. */
+/* Frequency of the order-th resonance of length_m of cable with vf;
+ * CXL_ERANGE when it overflows (a subnormal length). */
 cxl_status cxl_stub_resonance_freq(cxl_stub_end end, int order,
                                    double length_m, double vf,
                                    double fixture_m, double fixture_vf,
@@ -496,7 +502,8 @@ cxl_status cxl_catalog_loss_point(const cxl_catalog *catalog, size_t index,
 typedef struct cxl_loss_fit cxl_loss_fit;
 
 /* From n >= 2 points at two or more distinct frequencies (CXL_ERANGE
- * otherwise); every value finite and > 0 (CXL_EINVAL). */
+ * otherwise, and when the fitted value or residual at a point overflows);
+ * every value finite and > 0 (CXL_EINVAL). */
 cxl_status cxl_loss_fit_new(const double *freq_hz,
                             const double *loss_db_per_m, size_t n,
                             cxl_loss_fit **fit);
@@ -856,7 +863,8 @@ cxl_status cxl_transfer_ratio(double z0_re_ohm, double z0_im_ohm,
  * angle, taken within 180 degrees of electrical_deg (the line's own
  * electrical length, beta l) so that whole turns are kept.  The delay
  * equals electrical_deg into a matched load and departs from it into any
- * other: that departure is what a mismatched load adds to a phasing line. */
+ * other: that departure is what a mismatched load adds to a phasing line.
+ * CXL_ERANGE when |ratio| is 0 or overflows, or the delay overflows. */
 cxl_status cxl_transfer_delay(double ratio_re, double ratio_im,
                               double electrical_deg, double *transfer_db,
                               double *delay_deg);

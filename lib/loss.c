@@ -140,6 +140,15 @@ static cxl_status fit_points(cxl_loss_fit *fit)
         fit->a_hz = c[0] * 1e-3; /* sqrt(f_MHz) = sqrt(f_Hz) / 1e3 */
         fit->b_hz = c[1] * 1e-6;
         st = CXL_OK;
+        /* extreme points (frequencies or losses near the ends of the
+         * double range) can give coefficients whose value or residual at
+         * a table point overflows: no such fit leaves the library */
+        for (size_t i = 0; i < n && st == CXL_OK; i++) {
+            double v = fit->a_hz * sqrt(fit->freq_hz[i]) + fit->b_hz * fit->freq_hz[i];
+            if (!isfinite(v) || !isfinite(v - fit->loss[i]) ||
+                !isfinite(fabs(v - fit->loss[i]) / fit->loss[i]))
+                st = CXL_ERANGE;
+        }
     }
     free(buf);
     return st;

@@ -129,8 +129,8 @@ cxl_status cxl_stub_resonance_freq(cxl_stub_end end, int order,
     if (order > CXL_STUB_MAX_ORDER) return CXL_ERANGE;
     double free_m = length_m / vf;
     if (fixture_m > 0.0) free_m += fixture_m / fixture_vf;
-    *freq_hz = k_of(end, order) * CXL_C_M_PER_S / free_m;
-    return CXL_OK;
+    /* a subnormal length overflows the quotient: CXL_ERANGE, not inf */
+    return cxl__put_finite(k_of(end, order) * CXL_C_M_PER_S / free_m, freq_hz);
 }
 
 /* ---- the measurement set -------------------------------------------- */

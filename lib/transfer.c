@@ -100,8 +100,12 @@ cxl_status cxl_transfer_delay(double ratio_re, double ratio_im,
      * line's own electrical length so that whole turns are kept */
     double phi = -atan2(ratio_im, ratio_re) * RAD_TO_DEG;
     double turns = floor((electrical_deg - phi) / 360.0 + 0.5);
-    *transfer_db = 20.0 * log10(mag);
-    *delay_deg = phi + 360.0 * turns;
+    /* a ratio whose magnitude overflows (|re|, |im| near DBL_MAX), or a
+     * delay pushed past DBL_MAX by the whole turns: CXL_ERANGE */
+    double db = 20.0 * log10(mag), delay = phi + 360.0 * turns;
+    if (!isfinite(db) || !isfinite(delay)) return CXL_ERANGE;
+    *transfer_db = db;
+    *delay_deg = delay;
     return CXL_OK;
 }
 

@@ -270,12 +270,15 @@ cxl_status cxl_units_parse_length(const char *text, cxl_units bare_units,
     int k;
     if (!is_fraction && (k = match_word(text, u, metric_words, 3, &wlen)) >= 0) {
         if (memchr(text + i, ' ', end - i)) return fail(error_pos, end, CXL_EPARSE);
+        if (k == 2 && text[u] == 'M') return fail(error_pos, u, CXL_EPARSE); /* Mm: megametre */
         metres = inches * metric_scale[k];
         end = u + wlen;
     } else if (!is_fraction && match_word(text, u, feet_words, 4, &wlen) >= 0
                && !memchr(text + i, ' ', end - i)) {
         metres = inches * M_PER_FT;
         end = skip_spaces(text, u + wlen);
+        /* 1'000 is a thousands separator (Swiss style), not 1 ft 0 in */
+        if (strspn(text + end, "0123456789") >= 3) return fail(error_pos, end, CXL_EPARSE);
         if (text[end] != '\0') {
             double more = 0.0;
             size_t e2 = scan_inches(text, end, &more, &dummy_pos, &st);
@@ -306,8 +309,8 @@ cxl_status cxl_units_parse_length(const char *text, cxl_units bare_units,
 /* number, optional spaces, optional unit word from a table; bare_scale
  * applies when no unit is written. */
 static cxl_status parse_scaled(const char *text, const char *const *words,
-                               const double *scales, size_t nwords,
-                               double bare_scale, double *out,
+                               const double *scales, const char *prefix_case,
+                               size_t nwords, double bare_scale, double *out,
                                size_t *error_pos)
 {
     if (!text || !out) return CXL_EINVAL;
@@ -321,6 +324,9 @@ static cxl_status parse_scaled(const char *text, const char *const *words,
         size_t wlen = 0;
         int k = match_word(text, u, words, nwords, &wlen);
         if (k < 0) return fail(error_pos, u, CXL_EPARSE);
+        /* unit words match in any case, except a prefix letter whose
+         * other case is another prefix: mHz is millihertz, not MHz */
+        if (prefix_case[k] && text[u] != prefix_case[k]) return fail(error_pos, u, CXL_EPARSE);
         scale = scales[k];
         u = skip_spaces(text, u + wlen);
         if (text[u] != '\0') return fail(error_pos, u, CXL_EPARSE);
@@ -333,21 +339,23 @@ static cxl_status parse_scaled(const char *text, const char *const *words,
 
 static const char *const freq_words[] = { "hz", "khz", "mhz", "ghz" };
 static const double freq_scale[] = { 1.0, 1e3, 1e6, 1e9 };
+static const char freq_case[] = { 0, 0, 'M', 0 };
 
 cxl_status cxl_units_parse_freq(const char *text, double *freq_hz,
                                 size_t *error_pos)
 {
-    return parse_scaled(text, freq_words, freq_scale, 4, 1e6, freq_hz,
+    return parse_scaled(text, freq_words, freq_scale, freq_case, 4, 1e6, freq_hz,
                         error_pos);
 }
 
 static const char *const time_words[] = { "s", "ms", "us", "\xc2\xb5s", "ns", "ps" };
 static const double time_scale[] = { 1.0, 1e-3, 1e-6, 1e-6, 1e-9, 1e-12 };
+static const char time_case[] = { 0, 'm', 0, 0, 0, 'p' };
 
 cxl_status cxl_units_parse_time(const char *text, double *delay_s,
                                 size_t *error_pos)
 {
-    return parse_scaled(text, time_words, time_scale, 6, 1e-9, delay_s,
+    return parse_scaled(text, time_words, time_scale, time_case, 6, 1e-9, delay_s,
                         error_pos);
 }
 

@@ -1730,6 +1730,48 @@ START_TEST(loss_fit_odd_tables)
 }
 END_TEST
 
+/* Arguments that are each valid but overflow together: CXL_ERANGE (or a
+ * finite result), never CXL_OK with an infinity in an output. */
+START_TEST(overflow_never_ok)
+{
+    const double v[] = { DBL_MIN / 4, 1e-300, 1e-150, 1.0, 1e150, 1e300, DBL_MAX };
+    const size_t nv = sizeof v / sizeof v[0];
+    /* every two-point table from those values, in frequency and loss */
+    for (size_t i = 0; i < nv * nv * nv * nv; i++) {
+        double f[2] = { v[i % nv], v[i / nv % nv] };
+        double l[2] = { v[i / (nv * nv) % nv], v[i / (nv * nv * nv)] };
+        cxl_loss_fit *fit = SENT_PTR;
+        cxl_status st = cxl_loss_fit_new(f, l, 2, &fit);
+        if (st != CXL_OK) {
+            ck_assert_ptr_eq(fit, SENT_PTR);
+            continue;
+        }
+        double a, b, rel, fr, tab, res;
+        ck_assert_int_eq(cxl_loss_fit_coefficients(fit, &a, &b), CXL_OK);
+        ck_assert_int_eq(cxl_loss_fit_max_relative_residual(fit, &rel), CXL_OK);
+        ck_assert_msg(isfinite(a) && isfinite(b) && isfinite(rel),
+                      "f %g %g, loss %g %g: a=%g b=%g residual %g", f[0], f[1], l[0], l[1],
+                      a, b, rel);
+        for (size_t k = 0; k < 2; k++) {
+            ck_assert_int_eq(cxl_loss_fit_point(fit, k, &fr, &tab, &res), CXL_OK);
+            ck_assert_msg(isfinite(res), "f %g %g, loss %g %g: residual %zu is %g", f[0], f[1],
+                          l[0], l[1], k, res);
+        }
+        cxl_loss_fit_free(fit);
+    }
+    double out = SENT;
+    ck_assert_int_eq(cxl_stub_resonance_freq(CXL_STUB_OPEN, 1, 4.9e-324, 0.66, 0.0, 0.66, &out),
+                     CXL_ERANGE);
+    ck_assert(out == SENT);
+    double db = SENT, deg = SENT;
+    ck_assert_int_eq(cxl_transfer_delay(DBL_MAX, DBL_MAX, 0.0, &db, &deg), CXL_ERANGE);
+    ck_assert_int_eq(cxl_transfer_delay(-DBL_MAX, DBL_MAX, DBL_MAX, &db, &deg), CXL_ERANGE);
+    ck_assert(db == SENT && deg == SENT);
+    ck_assert_int_eq(cxl_transfer_delay(1.0, 0.0, DBL_MAX, &db, &deg), CXL_OK);
+    ck_assert(isfinite(db) && isfinite(deg));
+}
+END_TEST
+
 /* Trims the solver must refuse, with the result handle untouched. */
 START_TEST(trim_bad_sets)
 {
@@ -1944,6 +1986,7 @@ int main(void)
     tcase_add_test(hand, catalog_bad_loss_files);
     tcase_add_test(hand, stub_bad_sets);
     tcase_add_test(hand, loss_fit_odd_tables);
+    tcase_add_test(hand, overflow_never_ok);
     tcase_add_test(hand, trim_bad_sets);
     tcase_add_test(hand, clad_and_drift_ranges);
     suite_add_tcase(s, hand);

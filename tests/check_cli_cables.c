@@ -146,16 +146,16 @@ START_TEST(loss_160m_text)
 {
     cli_result r = run_cli(NULL, "loss --cable RG-6-foam --length 100m --band 160m", NULL);
     ck_assert_int_eq(r.rc, 0);
-    has(r.out, "model      fitted: a*sqrt(f) + b*f fitted to 3 table points "
+    has(r.out, "fitted model: a*sqrt(f) + b*f fitted to 3 table points "
                "1.000-100.000 MHz (usable 0.909-110.000 MHz)");
-    has(r.out, "160m   centre");
+    has(r.out, "  160m centre ");
     has(r.out, "100.000 m (328 ft 1 in)"); /* 100 m / 0.3048 = 328 ft 0.97 in */
     lacks(r.out, "extrapolated");
     cli_result_free(&r);
     /* no loss table: the physical model, and the text says why */
     r = run_cli(NULL, "loss --cable RG-316 --length 10m --band 80m", NULL);
     ck_assert_int_eq(r.rc, 0);
-    has(r.out, "model      physical");
+    has(r.out, "  physical model: ");
     has(r.out, "chosen because the cable has no loss table");
     cli_result_free(&r);
 }
@@ -243,11 +243,16 @@ START_TEST(loss_swr_total)
     ck_assert_int_eq(r.rc, 0);
     has(r.out, "\nnorth run,myspool,,2.250000,40.000,1.800,1.000,1.800,freq,fitted,4.5000,no\n");
     cli_result_free(&r);
-    /* text: the SWR line says the total includes the standing wave */
+    /* text: the far-end line says the last column includes the standing
+     * wave; the point's line shows matched-line and total loss as the CSV
+     * does, in a layout of our own */
     r = run_spool_loss("--cable myspool --length 100m --freq 1MHz --swr 3");
     ck_assert_int_eq(r.rc, 0);
-    has(r.out, "load SWR   3.000  (total adds");
-    has(r.out, "3.000     3.968");
+    has(r.out, "  far end at SWR 3.000: the last column adds its standing-wave loss");
+    has(r.out, "  at                    MHz   dB/100 m  matched-line dB  dB at SWR 3.000\n");
+    has(r.out, "  given freq       1.000000      3.000            3.000            3.968\n");
+    lacks(r.out, "load SWR");
+    lacks(r.out, "total dB");
     cli_result_free(&r);
 }
 END_TEST

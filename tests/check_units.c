@@ -94,8 +94,28 @@ START_TEST(frequencies_and_times)
     double v;
     ck_assert_int_eq(cxl_units_parse_freq("1830kHz", &v, NULL), CXL_OK);
     ck_assert_double_eq_tol(v, 1.83e6, TOL(1.83e6));
-    ck_assert_int_eq(cxl_units_parse_freq("1.83 mhz", &v, NULL), CXL_OK);
+    ck_assert_int_eq(cxl_units_parse_freq("1.83 Mhz", &v, NULL), CXL_OK);
     ck_assert_double_eq_tol(v, 1.83e6, TOL(1.83e6));
+    /* m is milli and M mega (SI Brochure, 9th ed., table of SI prefixes):
+     * the one letter whose case changes the value is refused in the wrong
+     * case instead of read as the other prefix */
+    size_t pos = 0;
+    v = -1.0;
+    ck_assert_int_eq(cxl_units_parse_freq("5mHz", &v, &pos), CXL_EPARSE);
+    ck_assert_uint_eq(pos, 1);
+    ck_assert_int_eq(cxl_units_parse_freq("1.83 mhz", &v, NULL), CXL_EPARSE);
+    ck_assert_double_eq(v, -1.0); /* untouched */
+    ck_assert_int_eq(cxl_units_parse_time("1MS", &v, NULL), CXL_EPARSE);
+    ck_assert_int_eq(cxl_units_parse_time("1PS", &v, NULL), CXL_EPARSE);
+    ck_assert_int_eq(cxl_units_parse_length("5Mm", CXL_UNITS_METRIC, &v, NULL), CXL_EPARSE);
+    ck_assert_int_eq(cxl_units_parse_length("5MM", CXL_UNITS_METRIC, &v, NULL), CXL_EPARSE);
+    ck_assert_int_eq(cxl_units_parse_time("1mS", &v, NULL), CXL_OK);
+    ck_assert_double_eq_tol(v, 1e-3, TOL(1e-3));
+    /* 1'000 is a thousands separator in Swiss usage (common practice, no
+     * source), not 1 ft 0 in */
+    ck_assert_int_eq(cxl_units_parse_length("1'000", CXL_UNITS_METRIC, &v, NULL), CXL_EPARSE);
+    ck_assert_int_eq(cxl_units_parse_length("1'06", CXL_UNITS_METRIC, &v, NULL), CXL_OK);
+    ck_assert_double_eq_tol(v, 0.3048 + 6 * 0.0254, TOL(0.4572)); /* 1 ft = 0.3048 m exactly (international foot, 1959) */
     ck_assert_int_eq(cxl_units_parse_freq("1830000HZ", &v, NULL), CXL_OK);
     ck_assert_double_eq(v, 1.83e6);
     ck_assert_int_eq(cxl_units_parse_freq("1.83", &v, NULL), CXL_OK); /* bare is MHz */
@@ -110,7 +130,7 @@ START_TEST(frequencies_and_times)
     ck_assert_double_eq_tol(v, 0.5e-6, TOL(0.5e-6));
     ck_assert_int_eq(cxl_units_parse_time("12", &v, NULL), CXL_OK); /* bare is ns */
     ck_assert_double_eq_tol(v, 12e-9, TOL(12e-9));
-    size_t pos = 0;
+    pos = 0;
     v = 7.0;
     ck_assert_int_eq(cxl_units_parse_freq("1.8 MHzz", &v, &pos), CXL_EPARSE);
     ck_assert_uint_eq(pos, 4);
