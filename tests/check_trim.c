@@ -55,7 +55,7 @@ START_TEST(ideal_line_inverts_exactly)
         ck_assert_double_eq_tol(rem, want, 1e-9 * want);
         ck_assert_double_eq_tol(cut, len - want, 1e-9 * want);
         ck_assert_int_eq(act, CXL_TRIM_CUT);
-        ck_assert_double_eq(res, 0.0); /* no resolution given */
+        ck_assert_double_eq_tol(res, 0.0, 1e-12); /* no resolution given */
         ck_assert_uint_eq(cxl_trim_result_count(r), 3);
         for (size_t i = 0; i < 3; i++) {
             double f, v, exp_hz, after;
