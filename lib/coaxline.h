@@ -899,7 +899,10 @@ typedef enum cxl_dip_kind {
 /* The same resonance read as a dip of that kind: the reactance zero as
  * above, then for CXL_DIP_MIN_Z and CXL_DIP_MIN_SWR the minimum within
  * 1/16 wavelength of it by GSL's Brent minimiser.  ref_ohm (> 0 always)
- * is the analyzer's reference for CXL_DIP_MIN_SWR.  Errors as
+ * is the analyzer's reference for CXL_DIP_MIN_SWR.  wave_hz (may be
+ * NULL) gets the frequency at which the line is exactly (2n-1)/4 or n/2
+ * wavelengths long: dip_hz / wave_hz is what a reading of that kind is
+ * off by, the correction a fit divides out.  Errors as
  * cxl_transfer_stub_resonance; CXL_ENOCONV when no minimum lies there: a
  * line whose |Z0| is at or below the reference shows no SWR dip at its
  * series resonances (its input stays on a circle of nearly constant SWR,
@@ -907,7 +910,7 @@ typedef enum cxl_dip_kind {
 cxl_status cxl_transfer_stub_dip(const cxl_loss_model *model, unsigned flags,
                                  cxl_stub_end end, int order, double length_m,
                                  cxl_dip_kind kind, double ref_ohm,
-                                 double *dip_hz);
+                                 double *dip_hz, double *wave_hz);
 
 /* ---- drift.c: velocity factor against frequency ------------------------ */
 

@@ -408,12 +408,15 @@ cxl_status cxl_transfer_stub_resonance(const cxl_loss_model *model, unsigned fla
 
 cxl_status cxl_transfer_stub_dip(const cxl_loss_model *model, unsigned flags,
                                  cxl_stub_end end, int order, double length_m,
-                                 cxl_dip_kind kind, double ref_ohm, double *dip_hz)
+                                 cxl_dip_kind kind, double ref_ohm, double *dip_hz,
+                                 double *wave_hz)
 {
     double wave, dip;
     if (!dip_hz) return CXL_EINVAL;
     cxl_status st = cxl__transfer_stub_points(model, flags, end, order, length_m, kind,
                                               ref_ohm, &wave, &dip);
-    if (st == CXL_OK) *dip_hz = dip;
-    return st;
+    if (st != CXL_OK) return st;
+    *dip_hz = dip;
+    if (wave_hz) *wave_hz = wave;
+    return CXL_OK;
 }

@@ -827,7 +827,7 @@ ADAPTER(transfer_stub_dip)
 {
     return cxl_transfer_stub_dip(P(0, g_model), to_uint(a[0]), (cxl_stub_end)to_int(a[1]),
                                  to_int(a[2]), a[3], (cxl_dip_kind)to_int(a[4]), a[5],
-                                 P(1, &o[0]));
+                                 P(1, &o[0]), P(2, &o[1]));
 }
 
 /* loss.c: the clad model's crossover */
@@ -1190,10 +1190,10 @@ static api_case cases[] = {
       {&K_FLAGS, &K_ENUM2, &K_ORDER, &K_POS}, 2, 0, 1, 0, {{0}} },
     { "cxl_transfer_stub_dip", call_transfer_stub_dip, 6,
       {CXL_LOSS_EXTRAPOLATE, CXL_STUB_OPEN, 2, 30, CXL_DIP_MIN_SWR, 25},
-      {&K_FLAGS, &K_ENUM2, &K_ORDER, &K_POS, &K_ENUM3, &K_POS}, 2, 0, 1, 0, {{0}} },
+      {&K_FLAGS, &K_ENUM2, &K_ORDER, &K_POS, &K_ENUM3, &K_POS}, 3, 0x4, 2, 0, {{0}} },
     { "cxl_transfer_stub_dip", call_transfer_stub_dip, 6,
       {CXL_LOSS_EXTRAPOLATE, CXL_STUB_SHORT, 1, 30, CXL_DIP_MIN_Z, 50},
-      {&K_FLAGS, &K_ENUM2, &K_ORDER, &K_POS, &K_ENUM3, &K_POS}, 2, 0, 1, 0, {{0}} },
+      {&K_FLAGS, &K_ENUM2, &K_ORDER, &K_POS, &K_ENUM3, &K_POS}, 3, 0x4, 2, 0, {{0}} },
     /* loss.c: clad crossover */
     { "cxl_loss_model_clad_crossover", call_loss_model_clad_crossover, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
     /* drift.c */
