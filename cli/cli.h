@@ -306,6 +306,7 @@ int cli_svg_save(const cli_ctx *ctx, const char *field, const char *path,
     { "invert", "a|b", "reverse one element's polarity (crossfire)", 0 }, \
     { "vf", "X", "velocity factor of the feed lines", 0 }, \
     { "cable", "NAME", "feed-line cable from the catalog (VF, and loss for --line-loss)", 0 }, \
+    { "vf-from", "FILE|-", "feed-line VF from coaxline vf --format csv output (its --at row at --design-freq)", 0 }, \
     { "element", "isotropic|wire", "element type (default isotropic)", 0 }, \
     { "wire-length", "LEN", "length of each traveling-wave wire", 0 }, \
     { "wire-vf", "X", "velocity factor along the wire (0.45-0.8 on the ground, 0.95-0.99 raised)", 0 }, \
@@ -403,9 +404,22 @@ const char *cli_fmt_fit(char *buf, size_t size, const cxl_loss_fit *fit);
  * cli_vf_source_end.  from (may be NULL) gets where the value came from,
  * for text output: "", "cable NAME" or "from FILE".  Returns 0, or
  * CLI_EXIT_USAGE after cli_error(). */
+/* The same for a command that works at freq_hz (0: none): a file with
+ * `vf --at` rows gives the VF at that frequency (within 1 %), refuses one
+ * whose rows are for other frequencies, and without a frequency gives the
+ * one 'at' row of the label when there is exactly one; otherwise the
+ * fitted VF. */
+int cli_vf_source_at(cli_ctx *ctx, const cli_args *a, double freq_hz, double *vf,
+                     char *from, size_t from_size);
 int cli_vf_source(cli_ctx *ctx, const cli_args *a, double *vf, char *from,
                   size_t from_size);
 int cli_vf_source_end(cli_ctx *ctx);
+/* --reading zero-x|min-z|min-swr (default zero-x) and --analyzer-z0 OHM
+ * (default 50, only with min-swr), shared by trim and vf; a kind other
+ * than zero-x needs a line model (have_model: --cable given).  *name gets
+ * the kind's name. */
+int cli_reading_kind(cli_ctx *ctx, const cli_args *a, int have_model, cxl_dip_kind *kind,
+                     double *ref_ohm, const char **name);
 
 /* A number with its sign always shown ("+0.327", "-0.100"), for text. */
 const char *cli_fmt_signed(char *buf, size_t size, double value, int decimals);

@@ -159,6 +159,7 @@ const cli_command cli_cmd_budget = {
     .summary = "phase error and length mismatch a wanted null depth or front-to-back allows",
     .synopsis = "(--null-depth DB | --front-to-back DB [PAIR OPTIONS]) (--band LIST | --freq F) [OPTIONS]",
     .opts = budget_opts,
+    .end = cli_vf_source_end,
     .run = budget_run,
     .batch = 1,
 };

@@ -11,6 +11,7 @@ static const cli_optdef cut_opts[] = {
     { "degrees", "DEG", "wanted electrical length at the first --freq", 0 },
     { "vf", "X", "velocity factor of the cable, 0 < X <= 1", 0 },
     { "cable", "NAME", "take the velocity factor from the catalog (instead of --vf)", 0 },
+    { "vf-from", "FILE|-", "take the VF from coaxline vf --format csv output (its --at row at the first --freq)", 0 },
     { "allowance", "LEN", "length already in connectors, adapters or fixture", 0 },
     { "allowance-vf", "X", "velocity factor of the allowance (default: --vf)", 0 },
     { "freq", "F", "frequency for the electrical-degrees column", 1 },
@@ -43,17 +44,6 @@ static int cut_run(cli_ctx *ctx, const cli_args *a)
         return cli_error(ctx, "offset/delay/degrees", "--offset 10m, --delay 33.4ns or --degrees 90 --freq 1.83MHz",
                          ngiven ? "give only one of them" : "one of them is needed");
 
-    double vf, allowance_m = 0.0, allowance_vf;
-    const char *cable = "";
-    if (cli_vf_or_cable(ctx, a, &vf, &cable)) return CLI_EXIT_USAGE;
-    allowance_vf = vf;
-    if (cli_count(a, "allowance") &&
-        cli_length(ctx, "allowance", cli_get(a, "allowance", 0), CLI_NONNEG, &allowance_m))
-        return CLI_EXIT_USAGE;
-    if (cli_count(a, "allowance-vf") &&
-        cli_vf(ctx, "allowance-vf", cli_get(a, "allowance-vf", 0), &allowance_vf))
-        return CLI_EXIT_USAGE;
-
     char buf[1024];
     const char *items[CLI_MAX_ITEMS];
     double freq_hz[CLI_MAX_ITEMS];
@@ -61,6 +51,19 @@ static int cut_run(cli_ctx *ctx, const cli_args *a)
     if (nfreq < 0) return CLI_EXIT_USAGE;
     for (int i = 0; i < nfreq; i++)
         if (cli_freq(ctx, "freq", items[i], &freq_hz[i])) return CLI_EXIT_USAGE;
+
+    double vf, allowance_m = 0.0, allowance_vf;
+    char from[512] = "";
+    const char *cable = from;
+    if (cli_vf_source_at(ctx, a, nfreq ? freq_hz[0] : 0.0, &vf, from, sizeof from))
+        return CLI_EXIT_USAGE;
+    allowance_vf = vf;
+    if (cli_count(a, "allowance") &&
+        cli_length(ctx, "allowance", cli_get(a, "allowance", 0), CLI_NONNEG, &allowance_m))
+        return CLI_EXIT_USAGE;
+    if (cli_count(a, "allowance-vf") &&
+        cli_vf(ctx, "allowance-vf", cli_get(a, "allowance-vf", 0), &allowance_vf))
+        return CLI_EXIT_USAGE;
 
     double delay_s = 0.0, value;
     const char *text = cli_get(a, kinds[given], 0);
@@ -129,7 +132,7 @@ static int cut_run(cli_ctx *ctx, const cli_args *a)
     fprintf(o, "  free-space offset   %s\n", cli_fmt_length(ctx, b1, sizeof b1, offset_m));
     fprintf(o, "  delay               %s ns\n", cli_fmt(b1, sizeof b1, delay_s * 1e9, 3));
     fprintf(o, "  velocity factor     %s%s%s\n", cli_fmt(b1, sizeof b1, vf, 4),
-            cable[0] ? "  cable " : "", cable);
+            cable[0] ? "  " : "", cable);
     if (allowance_m > 0.0)
         fprintf(o, "  allowance           %s at VF %s\n",
                 cli_fmt_length(ctx, b1, sizeof b1, allowance_m),
@@ -152,8 +155,10 @@ static int cut_run(cli_ctx *ctx, const cli_args *a)
 const cli_command cli_cmd_cut = {
     .name = "cut",
     .summary = "cable cut length for a stagger offset, a delay or electrical degrees",
-    .synopsis = "(--offset LEN | --delay TIME | --degrees DEG --freq F) --vf X [OPTIONS]",
+    .synopsis = "(--offset LEN | --delay TIME | --degrees DEG --freq F) "
+                "(--vf X | --cable NAME | --vf-from FILE|-) [OPTIONS]",
     .opts = cut_opts,
     .run = cut_run,
+    .end = cli_vf_source_end,
     .batch = 1,
 };

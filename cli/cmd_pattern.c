@@ -310,6 +310,7 @@ const cli_command cli_cmd_pattern = {
     .summary = "pattern of a two-element receive pair per band, ideal and as built",
     .synopsis = "[--spacing LEN] [--stagger LEN] [FEED] [AS-BUILT ERRORS] (--band LIST | --freq F) [OPTIONS]",
     .opts = pattern_opts,
+    .end = cli_vf_source_end,
     .run = pattern_run,
     .batch = 1,
 };

@@ -23,6 +23,10 @@ static const cli_optdef trim_opts[] = {
     { "match-end", "open|short", "far end of the reference piece (default: --end)", 0 },
     { "match-order", "N", "order of the reference reading (default 1)", 0 },
     { "cable", "NAME", "catalog cable whose model corrects the lossy-line offset of each reading", 0 },
+    { "reading", "zero-x|min-z|min-swr", "what the analyzer's dip is (default zero-x; the others need --cable)", 0 },
+    { "analyzer-z0", "OHM", "the analyzer's reference impedance for --reading min-swr (default 50)", 0 },
+    { "allowance", "LEN", "length in connectors or adapters the target counts but the piece does not hold", 0 },
+    { "allowance-vf", "X", "velocity factor of the allowance (default: the piece's VF at the target)", 0 },
     { "label", "TEXT", "name of the piece, kept in every output row", 0 },
     { NULL, NULL, NULL, 0 }
 };
@@ -228,6 +232,8 @@ static void print_text(cli_ctx *ctx, const cli_args *a, const trim_in *in,
                 cli_fmt(b1, sizeof b1, f / 1e6, 6), cli_fmt(b2, sizeof b2, v, 5),
                 in->res_hz > 0.0 ? with_unit(b3, sizeof b3, rm * 1e3, 1, "mm") : "-");
     }
+    if (cli_count(a, "reading"))
+        fprintf(o, "                      read as %s\n", cli_get(a, "reading", 0));
     fprintf(o, "                      orders %s%s\n", in->orders_given ? "as given" : "inferred",
             flags & CXL_TRIM_FLAG_MODEL ? "; each reading corrected for the lossy-line offset" : "");
     if (flags & CXL_TRIM_FLAG_MODEL)
@@ -239,11 +245,21 @@ static void print_text(cli_ctx *ctx, const cli_args *a, const trim_in *in,
                     ? (flags & CXL_TRIM_FLAG_EXTRAPOLATED
                            ? "trend a - b/sqrt(f) over the readings, extrapolated"
                            : "trend a - b/sqrt(f) over the readings")
-                    : "from the one reading");
+                    : flags & CXL_TRIM_FLAG_ALLOWANCE
+                          ? "nearest reading; trend unknown, +- widened by the drift allowance"
+                          : "from the one reading");
     else
         fprintf(o, "  VF                  %s  fitted over the readings\n",
                 cli_fmt(b2, sizeof b2, vf_t, 5));
     fprintf(o, "  target              %s\n", what);
+    if (cli_count(a, "allowance")) {
+        double am = 0.0, av = 0.0;
+        cli_length(ctx, "allowance", cli_get(a, "allowance", 0), CLI_NONNEG, &am);
+        if (cli_count(a, "allowance-vf")) cli_vf(ctx, "allowance-vf", cli_get(a, "allowance-vf", 0), &av);
+        fprintf(o, "  allowance           %s at VF %s, counted in the target\n",
+                cli_fmt_length(ctx, b1, sizeof b1, am),
+                av > 0.0 ? cli_fmt(b2, sizeof b2, av, 4) : "of the piece");
+    }
     fprintf(o, "  keep                %s", cli_fmt_length(ctx, b1, sizeof b1, keep));
     if (res > 0.0) fprintf(o, "  +- %s mm", cli_fmt(b2, sizeof b2, res * 1e3, 1));
     putc('\n', o);
@@ -336,8 +352,15 @@ static int result_printable(cli_ctx *ctx, const cli_args *a, const cxl_trim_resu
     return 0;
 }
 
-static int solve_error(cli_ctx *ctx, cxl_status st)
+static int solve_error(cli_ctx *ctx, const cli_args *a, cxl_status st)
 {
+    if (st == CXL_ENOCONV && cli_count(a, "reading"))
+        return cli_error(ctx, "reading", "zero-x or min-z for a line whose impedance is at or below the analyzer's",
+                         "the line model shows no %s dip near these resonances",
+                         cli_get(a, "reading", 0));
+    if (st == CXL_ERANGE && cli_count(a, "allowance"))
+        return cli_error(ctx, "allowance", "an allowance shorter than the target it is part of",
+                         "the allowance alone gives the target or more, or the readings do not fit this piece");
     if (st == CXL_EINCONSISTENT)
         return cli_error(ctx, "order", "orders that rise with frequency, e.g. --order 1,2,3",
                          "a higher reading has a lower or equal order");
@@ -364,6 +387,22 @@ static int trim_run(cli_ctx *ctx, const cli_args *a)
     }
     cxl_trim_set_fixture(trim, in.fixture_m, in.fixture_vf, in.fixture_tol_m);
     cxl_trim_set_resolution(trim, in.res_hz);
+    cxl_dip_kind kind;
+    double ref_ohm, allow_m = 0.0, allow_vf = 0.0;
+    const char *kind_name;
+    if (cli_reading_kind(ctx, a, cable != NULL, &kind, &ref_ohm, &kind_name)) goto done;
+    cxl_trim_set_reading(trim, kind, ref_ohm);
+    if (cli_count(a, "allowance-vf") && !cli_count(a, "allowance")) {
+        cli_error(ctx, "allowance-vf", "--allowance 0.12m with it", "given without --allowance");
+        goto done;
+    }
+    if (cli_count(a, "allowance") &&
+        cli_length(ctx, "allowance", cli_get(a, "allowance", 0), CLI_NONNEG, &allow_m))
+        goto done;
+    if (cli_count(a, "allowance-vf") &&
+        cli_vf(ctx, "allowance-vf", cli_get(a, "allowance-vf", 0), &allow_vf))
+        goto done;
+    cxl_trim_set_allowance(trim, allow_m, allow_vf);
     for (int i = 0; i < in.n; i++) cxl_trim_add_reading(trim, in.freq_hz[i], in.order[i]);
     if (set_target(ctx, a, &in, trim, what, sizeof what)) goto done;
     if (cable) {
@@ -378,7 +417,7 @@ static int trim_run(cli_ctx *ctx, const cli_args *a)
     }
     cxl_status st = cxl_trim_solve(trim, &r);
     if (st != CXL_OK) {
-        solve_error(ctx, st);
+        solve_error(ctx, a, st);
         goto done;
     }
     if (!result_finite(r)) {

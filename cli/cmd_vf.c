@@ -20,8 +20,12 @@ static const cli_optdef vf_opts[] = {
       "a low-impedance dip: its frequency, optionally its order N and the length it was read on", 1 },
     { "fixture", "LEN", "known line between analyzer and cable (tee, adapters)", 0 },
     { "fixture-vf", "X", "velocity factor of that fixture", 0 },
-    { "length-tol", "LEN", "how far each measured length may be off (uncertainty budget)", 0 },
-    { "freq-step", "F", "analyzer frequency resolution (uncertainty budget)", 0 },
+    { "length-tol", "LEN", "how far each measured length may be off (default 5mm)", 0 },
+    { "freq-step", "F", "analyzer frequency resolution (default 1kHz)", 0 },
+    { "at", "F", "also give the VF at this frequency, from the trend over the readings", 1 },
+    { "cable", "NAME", "catalog cable whose model corrects each reading for the lossy-line offset", 0 },
+    { "reading", "zero-x|min-z|min-swr", "what the analyzer's dip is (default zero-x; the others need --cable)", 0 },
+    { "analyzer-z0", "OHM", "the analyzer's reference impedance for --reading min-swr (default 50)", 0 },
     { "label", "TEXT", "name of the cable, kept in every output row", 0 },
     { NULL, NULL, NULL, 0 }
 };
@@ -31,8 +35,14 @@ static const cli_col vf_cols[] = {
     { "freq_mhz", 6 }, { "vf", 4 }, { "vf_err", 5 }, { "vf_err_fit", 5 },
     { "vf_err_length", 5 }, { "vf_err_freq", 5 }, { "residual_hz", 1 },
     { "residual_mm", 1 }, { "extra_fixture_m", 3 }, { "extra_fixture_err_m", 3 },
-    { "flags", -1 },
+    { "flags", -1 }, { "at_freq_mhz", 6 }, { "vf_at", 5 }, { "vf_at_err", 5 },
 };
+
+/* Defaults of the uncertainty budget when not given, so that no VF is
+ * stated without one (common practice, no source): a tape read to 5 mm,
+ * an analyzer stepped or read to 1 kHz. */
+#define DEFAULT_LENGTH_TOL_M 0.005
+#define DEFAULT_FREQ_STEP_HZ 1e3
 #define NCOLS (sizeof vf_cols / sizeof vf_cols[0])
 
 static const char res_expected[] =
@@ -77,90 +87,64 @@ static int parse_reading(const cli_ctx *ctx, char *item, double default_m, readi
     return 0;
 }
 
-/* Readings on one length must rise in frequency (and in order). */
-static int check_sequence(const cli_ctx *ctx, const reading *r, size_t n)
+/* A reading the stub refused on adding (cxl_stub_add_reading: orders on
+ * all or none, each dip once, ascending frequency and order on one
+ * length). */
+static int sequence_error(const cli_ctx *ctx, const reading *r)
 {
-    for (size_t i = 0; i < n; i++) {
-        if ((r[i].order == 0) != (r[0].order == 0))
-            return cli_error(ctx, "resonance", "an order on every reading or on none, e.g. 1:5MHz,3:25MHz",
-                             "'%s' and '%s' differ in giving an order", r[0].text, r[i].text);
-        for (size_t j = 0; j < i; j++) {
-            if (r[j].length_m != r[i].length_m) continue;
-            if (r[i].freq_hz == r[j].freq_hz)
-                return cli_error(ctx, "resonance", "each dip once, in ascending frequency",
-                                 "'%s' repeats '%s'", r[i].text, r[j].text);
-            if (r[i].freq_hz < r[j].freq_hz)
-                return cli_error(ctx, "resonance", "readings on one length in ascending frequency",
-                                 "'%s' comes after the higher '%s'", r[i].text, r[j].text);
-            if (r[i].order != 0 && r[i].order <= r[j].order)
-                return cli_error(ctx, "resonance", "orders rising with frequency, e.g. 1:5MHz,3:25MHz",
-                                 "'%s' has an order not above that of '%s'", r[i].text, r[j].text);
-        }
-    }
-    return 0;
+    return cli_error(ctx, "resonance",
+                     "each dip once, in ascending frequency on one length, an order on every reading or on none, rising",
+                     "'%s' does not follow the readings before it", r->text);
 }
 
-/* A reading no order (or not its given order) can explain with a VF in
- * [VF_MIN, VF_MAX]: the length, end or frequency is wrong. */
-static int check_possible(const cli_ctx *ctx, cxl_stub_end end, const reading *r,
-                          double fixture_m, double fixture_vf)
+/* A reading no order (or not its given order) explains with a VF in
+ * [VF_MIN, VF_MAX] (cxl_stub_implausible_reading): the length, end or
+ * frequency is wrong. */
+static int implausible_error(const cli_ctx *ctx, cxl_stub_end end, const reading *r)
 {
-    char b1[48], b2[48], b3[48];
-    const char *point = end == CXL_STUB_OPEN ? "quarter-wave" : "half-wave";
-    double lowest_hz, vf = 0.0;
-    if (cxl_stub_resonance_freq(end, 1, r->length_m, VF_MIN, fixture_m, fixture_vf,
-                                &lowest_hz) == CXL_OK && r->freq_hz < lowest_hz)
-        return cli_error(ctx, "resonance", "a dip at or above the first resonance, or check --length and --end",
-                         "'%s' is below %s MHz, the %s point of %s m %s with VF %s or more",
-                         r->text, cli_fmt(b1, sizeof b1, lowest_hz / 1e6, 6), point,
-                         cli_fmt(b2, sizeof b2, r->length_m, 3),
-                         end == CXL_STUB_OPEN ? "open" : "shorted", cli_fmt(b3, sizeof b3, VF_MIN, 2));
-    if (r->order) {
-        cxl_status st = cxl_stub_vf_from_resonance(end, r->order, r->length_m, r->freq_hz,
-                                                   fixture_m, fixture_vf, &vf);
-        if (st != CXL_OK || vf < VF_MIN)
-            return cli_error(ctx, "resonance", "an order that gives a VF from 0.50 to 1, or check --length and --end",
-                             "as resonance %d, '%s' %s", r->order, r->text,
-                             st != CXL_OK ? "needs a VF above 1" : "gives a VF below 0.50");
-        return 0;
-    }
-    for (int n = 1; n <= CXL_STUB_MAX_ORDER; n++) {
-        if (cxl_stub_vf_from_resonance(end, n, r->length_m, r->freq_hz, fixture_m, fixture_vf,
-                                       &vf) != CXL_OK)
-            continue; /* needs a VF above 1: try the next order */
-        if (vf >= VF_MIN) return 0;
-        break;
-    }
+    char b1[48];
+    if (r->order)
+        return cli_error(ctx, "resonance", "an order that gives a VF from 0.50 to 1, or check --length and --end",
+                         "as resonance %d, '%s' gives no VF from 0.50 to 1", r->order, r->text);
     return cli_error(ctx, "resonance", "a dip of this cable, or check --length and --end",
-                     "no resonance order gives '%s' on %s m a VF from 0.50 to 1", r->text,
-                     cli_fmt(b1, sizeof b1, r->length_m, 3));
+                     "no resonance order gives '%s' on %s m %s a VF from 0.50 to 1", r->text,
+                     cli_fmt(b1, sizeof b1, r->length_m, 3), end == CXL_STUB_OPEN ? "open" : "shorted");
 }
 
-/* One warning for readings off one fundamental, with the numbering that
- * would fit when the readings were numbered in order. */
-static void warn_inconsistent(const cli_ctx *ctx, const cxl_stub *stub, const reading *r,
-                              size_t n, int assumed)
+/* Readings off one fundamental.  Inferred orders that still miss are
+ * refused; given ones are kept with a warning and the orders that would
+ * fit best. */
+static int inconsistent(const cli_ctx *ctx, const cxl_stub *stub, const reading *r,
+                        size_t n, int assumed)
 {
     int orders[CLI_MAX_ITEMS], better = 0;
     char fit[512] = "";
     size_t k = 0;
-    if (assumed && cxl_stub_infer_orders(stub, orders, n) == CXL_OK) {
+    if (cxl_stub_infer_orders(stub, orders, n) == CXL_OK) {
         for (size_t i = 0; i < n; i++) {
-            int o = 0;
-            for (size_t j = 0; j <= i; j++) o += r[j].length_m == r[i].length_m;
-            if (orders[i] != o) better = 1;
+            if (orders[i] != r[i].order) better = 1;
             if (k < sizeof fit)
-                k += (size_t)snprintf(fit + k, sizeof fit - k, "%s%d:%s", i ? "," : "", orders[i],
-                                      r[i].text);
+                k += (size_t)snprintf(fit + k, sizeof fit - k, "%s%d", i ? "," : "", orders[i]);
         }
     }
+    if (assumed)
+        return cli_error(ctx, "resonance", "dips of one cable, or check --length and --end",
+                         "no numbering makes the readings multiples of one fundamental within 2 %% "
+                         "(best: orders %s)", fit[0] ? fit : "none");
     if (better && k < sizeof fit)
-        cli_warn(ctx, "readings are not consistent with one fundamental as numbered 1, 2, ...; "
-                      "these orders would fit: --resonance %s", fit);
+        cli_warn(ctx, "readings are not consistent with one fundamental as numbered; "
+                      "these orders would fit best: %s", fit);
     else
         cli_warn(ctx, "readings are not consistent with one fundamental: check the readings, "
                       "their orders, --length and --end");
+    return 0;
 }
+
+/* The VF at one --at frequency. */
+typedef struct vf_at {
+    double freq_hz, vf, err;
+    unsigned how;
+} vf_at;
 
 /* What the output needs besides the per-reading results. */
 typedef struct summary {
@@ -172,6 +156,12 @@ typedef struct summary {
     double vf, vf_err, err_fit, err_length, err_freq;
     double extra_m, extra_err_m; /* fitted fixture, metres of this cable */
     unsigned flags;
+    const double *shown_hz;  /* what the analyzer read, per reading */
+    const char *kind_name;   /* the kind of reading */
+    int corrected;           /* readings corrected with a line model */
+    const char *cable;
+    const vf_at *at;
+    int nat;
 } summary;
 
 static void write_table(cli_ctx *ctx, const summary *sm, const cxl_stub_result *res)
@@ -181,6 +171,7 @@ static void write_table(cli_ctx *ctx, const summary *sm, const cxl_stub_result *
         { CXL_STUB_FLAG_VF_RANGE, "vf_out_of_range" },
         { CXL_STUB_FLAG_ORDERS_ASSUMED, "orders_numbered" },
         { CXL_STUB_FLAG_FIXTURE_FITTED, "fixture_fitted" },
+        { CXL_STUB_FLAG_TREND, "trend" },
     };
     char order_text[16], flag_text[96] = "";
     for (size_t k = 0; k < sizeof names / sizeof names[0]; k++)
@@ -192,11 +183,13 @@ static void write_table(cli_ctx *ctx, const summary *sm, const cxl_stub_result *
         double len, f, vi, rhz, rm;
         int order;
         cxl_stub_result_reading(res, i, &len, &f, &order, &vi, &rhz, &rm);
+        f = sm->shown_hz[i];
         snprintf(order_text, sizeof order_text, "%d", order);
         cli_cell cells[NCOLS] = {
             CLI_TXT(sm->label), CLI_NUM(len), CLI_TXT(sm->end_text), CLI_TXT(order_text),
             CLI_NUM(f / 1e6), CLI_NUM(vi), CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE,
             CLI_NUM(rhz), CLI_NUM(rm * 1e3), CLI_NONE, CLI_NONE, CLI_NONE,
+            CLI_NONE, CLI_NONE, CLI_NONE,
         };
         cli_table_row(ctx, vf_cols, NCOLS, cells);
     }
@@ -206,8 +199,22 @@ static void write_table(cli_ctx *ctx, const summary *sm, const cxl_stub_result *
         CLI_NUM(sm->err_fit), CLI_NUM(sm->err_length), CLI_NUM(sm->err_freq), CLI_NONE, CLI_NONE,
         sm->fixture_fitted ? CLI_NUM(sm->extra_m) : CLI_NONE,
         sm->fixture_fitted ? CLI_NUM(sm->extra_err_m) : CLI_NONE, CLI_TXT(flag_text),
+        CLI_NONE, CLI_NONE, CLI_NONE,
     };
     cli_table_row(ctx, vf_cols, NCOLS, fit);
+    for (int i = 0; i < sm->nat; i++) {
+        const vf_at *t = &sm->at[i];
+        const char *how = t->how & CXL_STUB_AT_TREND
+                              ? (t->how & CXL_STUB_AT_EXTRAPOLATED ? "trend extrapolated" : "trend")
+                              : "drift_allowance";
+        cli_cell at[NCOLS] = {
+            CLI_TXT(sm->label), sm->one_length ? CLI_NUM(sm->length_m) : CLI_NONE,
+            CLI_TXT(sm->end_text), CLI_TXT("at"), CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE,
+            CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE, CLI_TXT(how),
+            CLI_NUM(t->freq_hz / 1e6), CLI_NUM(t->vf), CLI_NUM(t->err),
+        };
+        cli_table_row(ctx, vf_cols, NCOLS, at);
+    }
 }
 
 static void write_text(cli_ctx *ctx, const summary *sm, const cxl_stub_result *res)
@@ -231,19 +238,34 @@ static void write_text(cli_ctx *ctx, const summary *sm, const cxl_stub_result *r
         double len, f, vi, rhz, rm;
         int order;
         cxl_stub_result_reading(res, i, &len, &f, &order, &vi, &rhz, &rm);
+        f = sm->shown_hz[i];
         fprintf(o, "  %-5d %12s MHz %9s m  %s   %s Hz  %s mm\n", order,
                 cli_fmt(b1, sizeof b1, f / 1e6, 6), cli_fmt(b2, sizeof b2, len, 3),
                 cli_fmt(b3, sizeof b3, vi, 4), cli_fmt_signed(b4, sizeof b4, rhz, 0),
                 cli_fmt_signed(b5, sizeof b5, rm * 1e3, 1));
     }
     if (sm->flags & CXL_STUB_FLAG_ORDERS_ASSUMED)
-        fprintf(o, "  orders            numbered 1, 2, ... in ascending frequency on each length\n");
+        fprintf(o, "  orders            inferred: those that best fit one fundamental on each length\n");
+    else
+        fprintf(o, "  orders            as given\n");
+    fprintf(o, "  reading           %s%s%s%s\n", sm->kind_name,
+            sm->corrected ? ", each corrected for the lossy-line offset (model of cable " : "",
+            sm->corrected ? sm->cable : "", sm->corrected ? ")" : "");
     /* 5 decimals: a good fit's uncertainty is often below 0.0001 */
     fprintf(o, "  fitted VF         %s +/- %s\n", cli_fmt(b1, sizeof b1, sm->vf, 5),
             cli_fmt(b2, sizeof b2, sm->vf_err, 5));
     fprintf(o, "  uncertainty       fit %s, length %s, frequency %s (root sum of squares)\n",
             cli_fmt(b1, sizeof b1, sm->err_fit, 5), cli_fmt(b2, sizeof b2, sm->err_length, 5),
             cli_fmt(b3, sizeof b3, sm->err_freq, 5));
+    for (int i = 0; i < sm->nat; i++) {
+        const vf_at *t = &sm->at[i];
+        fprintf(o, "  VF at %-11s %s +/- %s  %s\n", cli_fmt(b3, sizeof b3, t->freq_hz / 1e6, 3),
+                cli_fmt(b1, sizeof b1, t->vf, 5), cli_fmt(b2, sizeof b2, t->err, 5),
+                t->how & CXL_STUB_AT_TREND
+                    ? (t->how & CXL_STUB_AT_EXTRAPOLATED ? "trend a - b/sqrt(f), extrapolated"
+                                                          : "trend a - b/sqrt(f) over the readings")
+                    : "nearest reading; trend unknown, widened by the drift allowance");
+    }
     if (sm->fixture_fitted)
         fprintf(o, "  extra fixture     %s of this cable +/- %s mm, fitted across the lengths\n",
                 cli_fmt_length(ctx, b1, sizeof b1, sm->extra_m),
@@ -252,6 +274,75 @@ static void write_text(cli_ctx *ctx, const summary *sm, const cxl_stub_result *r
         fprintf(o, "  extra fixture     not fitted: all readings are on one length, where the VF\n"
                    "                    cannot be told from an unknown fixture; trim a known\n"
                    "                    length, read again and give those readings as F@LEN\n");
+}
+
+/* Readings into a fresh stub and its fit.  freq_hz[i] replaces the
+ * readings' frequencies, orders (may be NULL) their orders.  A refused
+ * reading is reported by its index. */
+static int fit_readings(const cli_ctx *ctx, cxl_stub_end end, const reading *r, int n,
+                        const double *freq_hz, const int *orders, double fixture_m,
+                        double fixture_vf, double length_tol_m, double step_hz,
+                        cxl_stub **stub_out, cxl_stub_result **res_out)
+{
+    cxl_stub *stub = NULL;
+    cxl_stub_result *res = NULL;
+    cxl_status st = cxl_stub_new(end, &stub);
+    if (st == CXL_OK) st = cxl_stub_set_fixture(stub, fixture_m, fixture_vf);
+    if (st == CXL_OK) st = cxl_stub_set_tolerances(stub, length_tol_m, step_hz);
+    if (st == CXL_OK) st = cxl_stub_set_vf_range(stub, VF_MIN, VF_MAX);
+    if (st == CXL_OK) st = cxl_stub_set_orders(stub, CXL_STUB_ORDERS_BEST_FIT);
+    if (st != CXL_OK) {
+        cxl_stub_free(stub);
+        return cli_error(ctx, "resonance", NULL, "%s", cxl_strerror(st));
+    }
+    for (int i = 0; i < n; i++) {
+        st = cxl_stub_add_reading(stub, r[i].length_m, freq_hz[i], orders ? orders[i] : r[i].order);
+        if (st != CXL_OK) {
+            cxl_stub_free(stub);
+            return st == CXL_EINVAL ? sequence_error(ctx, &r[i])
+                                    : cli_error(ctx, "resonance", res_expected, "'%s': %s",
+                                                r[i].text, cxl_strerror(st));
+        }
+    }
+    size_t bad;
+    if (cxl_stub_implausible_reading(stub, &bad) == CXL_OK) {
+        cxl_stub_free(stub);
+        return implausible_error(ctx, end, &r[bad]);
+    }
+    st = cxl_stub_fit(stub, &res);
+    if (st != CXL_OK) {
+        cxl_stub_free(stub);
+        if (st == CXL_EINCONSISTENT)
+            return cli_error(ctx, "resonance", "readings where a longer cable resonates lower",
+                             "the readings contradict each other: a longer length shows a shorter "
+                             "electrical length, or the fitted fixture is longer than a reading");
+        return cli_error(ctx, "resonance", res_expected, "%s", cxl_strerror(st));
+    }
+    *stub_out = stub;
+    *res_out = res;
+    return 0;
+}
+
+/* --cable: move each reading back by the offset of its kind of dip on the
+ * modelled line (orders from the first fit), into corr_hz. */
+static int correct(const cli_ctx *ctx, const cxl_loss_model *model, cxl_stub_end end,
+                   const reading *r, int n, const cxl_stub_result *res, cxl_dip_kind kind,
+                   double ref_ohm, const char *kind_name, double *corr_hz, int *orders)
+{
+    for (int i = 0; i < n; i++) {
+        double dip, wave;
+        cxl_stub_result_reading(res, (size_t)i, NULL, NULL, &orders[i], NULL, NULL, NULL);
+        cxl_status st = cxl_transfer_stub_dip(model, CXL_LOSS_EXTRAPOLATE, end, orders[i],
+                                              r[i].length_m, kind, ref_ohm, &dip, &wave);
+        if (st == CXL_ENOCONV && kind != CXL_DIP_ZERO_X)
+            return cli_error(ctx, "reading", "zero-x or min-z for a line whose impedance is at or below the analyzer's",
+                             "the line model shows no %s dip near '%s'", kind_name, r[i].text);
+        if (st != CXL_OK)
+            return cli_error(ctx, "cable", "a cable the model can follow at these readings",
+                             "at '%s': %s", r[i].text, cxl_strerror(st));
+        corr_hz[i] = r[i].freq_hz * wave / dip;
+    }
+    return 0;
 }
 
 static int vf_run(cli_ctx *ctx, const cli_args *a)
@@ -264,7 +355,8 @@ static int vf_run(cli_ctx *ctx, const cli_args *a)
     else if (strcmp(end_text, "short") == 0) end = CXL_STUB_SHORT;
     else return cli_error(ctx, "end", "open or short", "unknown end '%s'", end_text);
 
-    double length_m = 0.0, fixture_m = 0.0, fixture_vf = 1.0, length_tol_m = 0.0, step_hz = 0.0;
+    double length_m = 0.0, fixture_m = 0.0, fixture_vf = 1.0;
+    double length_tol_m = DEFAULT_LENGTH_TOL_M, step_hz = DEFAULT_FREQ_STEP_HZ;
     if (cli_count(a, "length") &&
         cli_length(ctx, "length", cli_get(a, "length", 0), CLI_POSITIVE, &length_m))
         return CLI_EXIT_USAGE;
@@ -285,47 +377,71 @@ static int vf_run(cli_ctx *ctx, const cli_args *a)
     if (cli_count(a, "freq-step")) {
         if (cli_freq(ctx, "freq-step", cli_get(a, "freq-step", 0), &step_hz)) return CLI_EXIT_USAGE;
     }
+    const char *cable = cli_get(a, "cable", 0), *kind_name;
+    cxl_dip_kind kind;
+    double ref_ohm;
+    if (cli_reading_kind(ctx, a, cable != NULL, &kind, &ref_ohm, &kind_name)) return CLI_EXIT_USAGE;
+
+    char abuf[1024];
+    const char *aitems[CLI_MAX_ITEMS];
+    vf_at at[CLI_MAX_ITEMS];
+    int nat = cli_items(ctx, a, "at", abuf, sizeof abuf, aitems, CLI_MAX_ITEMS);
+    if (nat < 0) return CLI_EXIT_USAGE;
+    for (int i = 0; i < nat; i++)
+        if (cli_freq(ctx, "at", aitems[i], &at[i].freq_hz)) return CLI_EXIT_USAGE;
 
     char buf[1024];
     const char *items[CLI_MAX_ITEMS];
     reading r[CLI_MAX_ITEMS];
+    double shown[CLI_MAX_ITEMS], corr[CLI_MAX_ITEMS];
+    int orders[CLI_MAX_ITEMS];
     int n = cli_items(ctx, a, "resonance", buf, sizeof buf, items, CLI_MAX_ITEMS);
     if (n < 0) return CLI_EXIT_USAGE;
     if (n == 0)
         return cli_error(ctx, "resonance", res_expected, "at least one reading is needed");
-    for (int i = 0; i < n; i++)
+    for (int i = 0; i < n; i++) {
         if (parse_reading(ctx, (char *)items[i], length_m, &r[i])) return CLI_EXIT_USAGE;
-    if (check_sequence(ctx, r, (size_t)n)) return CLI_EXIT_USAGE;
-    for (int i = 0; i < n; i++)
-        if (check_possible(ctx, end, &r[i], fixture_m, fixture_vf)) return CLI_EXIT_USAGE;
-
-    cxl_stub *stub = NULL;
-    cxl_stub_result *res = NULL;
-    cxl_status st = cxl_stub_new(end, &stub);
-    if (st == CXL_OK) st = cxl_stub_set_fixture(stub, fixture_m, fixture_vf);
-    if (st == CXL_OK) st = cxl_stub_set_tolerances(stub, length_tol_m, step_hz);
-    if (st == CXL_OK) st = cxl_stub_set_vf_range(stub, VF_MIN, VF_MAX);
-    for (int i = 0; i < n && st == CXL_OK; i++)
-        st = cxl_stub_add_reading(stub, r[i].length_m, r[i].freq_hz, r[i].order);
-    if (st == CXL_OK) st = cxl_stub_fit(stub, &res);
-    if (st != CXL_OK) {
-        cxl_stub_free(stub);
-        if (st == CXL_EINCONSISTENT)
-            return cli_error(ctx, "resonance", "readings where a longer cable resonates lower",
-                             "the readings contradict each other: a longer length shows a shorter "
-                             "electrical length, or the fitted fixture is longer than a reading");
-        if (st == CXL_ERANGE)
-            return cli_error(ctx, "resonance", res_expected,
-                             "a reading gives a VF outside 0.50 to 1 for every order");
-        return cli_error(ctx, "resonance", res_expected, "%s", cxl_strerror(st));
+        shown[i] = r[i].freq_hz;
     }
 
+    cxl_loss_model *model = NULL;
+    if (cable) {
+        size_t idx;
+        if (cli_cable_index(ctx, cable, &idx)) return CLI_EXIT_USAGE;
+        if (cxl_loss_model_new_cable(cli_catalog(ctx), idx, &model) != CXL_OK)
+            return cli_error(ctx, "cable", "a cable with inner and dielectric diameters (coaxline cables)",
+                             "cable '%s' has no geometry to model", cable);
+    }
+    cxl_stub *stub = NULL;
+    cxl_stub_result *res = NULL;
+    int rc = fit_readings(ctx, end, r, n, shown, NULL, fixture_m, fixture_vf, length_tol_m,
+                          step_hz, &stub, &res);
+    unsigned first_flags = 0;
+    if (!rc && model) {
+        /* orders from the readings as read; then fit the corrected ones */
+        cxl_stub_result_flags(res, &first_flags);
+        rc = correct(ctx, model, end, r, n, res, kind, ref_ohm, kind_name, corr, orders);
+        cxl_stub_result_free(res);
+        cxl_stub_free(stub);
+        res = NULL;
+        stub = NULL;
+        if (!rc)
+            rc = fit_readings(ctx, end, r, n, corr, orders, fixture_m, fixture_vf, length_tol_m,
+                              step_hz, &stub, &res);
+    }
+    cxl_loss_model_free(model);
+    if (rc) return CLI_EXIT_USAGE;
+
     summary sm = { .label = cli_label(a), .end_text = end_text, .end = end, .one_length = 1,
-                   .length_m = r[0].length_m, .fixture_m = fixture_m, .fixture_vf = fixture_vf };
+                   .length_m = r[0].length_m, .fixture_m = fixture_m, .fixture_vf = fixture_vf,
+                   .shown_hz = shown, .kind_name = kind_name, .corrected = cable != NULL,
+                   .cable = cable ? cable : "", .at = at, .nat = nat };
     double x_free;
     cxl_stub_result_vf(res, &sm.vf, &sm.vf_err);
     cxl_stub_result_vf_budget(res, &sm.err_fit, &sm.err_length, &sm.err_freq);
     cxl_stub_result_flags(res, &sm.flags);
+    /* orders the corrected fit was given came from the first one */
+    sm.flags |= first_flags & CXL_STUB_FLAG_ORDERS_ASSUMED;
     sm.fixture_fitted = cxl_stub_result_fixture(res, &x_free, &sm.extra_err_m, &sm.extra_m) == CXL_OK;
     sm.extra_err_m *= sm.vf; /* free-space metres to metres of this cable */
     for (int i = 1; i < n; i++)
@@ -337,20 +453,31 @@ static int vf_run(cli_ctx *ctx, const cli_args *a)
         cxl_stub_result_reading(res, i, NULL, NULL, NULL, &vi, &rhz, &rm);
         finite = finite && isfinite(vi) && isfinite(rhz) && isfinite(rm);
     }
-    int rc = CLI_EXIT_OK;
-    if (!finite) {
+    for (int i = 0; i < nat && !rc; i++) {
+        char b1[48];
+        cxl_status st = cxl_stub_result_vf_at(res, at[i].freq_hz, &at[i].vf, &at[i].err, &at[i].how);
+        if (st != CXL_OK)
+            rc = cli_error(ctx, "at", "a frequency near the readings, 100 kHz or more",
+                           "no VF at %s MHz from these readings (%s)",
+                           cli_fmt(b1, sizeof b1, at[i].freq_hz / 1e6, 6), cxl_strerror(st));
+    }
+    if (!rc && !finite)
         rc = cli_error(ctx, "resonance", res_expected, "the readings give no finite result");
-    } else {
-        if (sm.flags & CXL_STUB_FLAG_INCONSISTENT)
-            warn_inconsistent(ctx, stub, r, (size_t)n, (sm.flags & CXL_STUB_FLAG_ORDERS_ASSUMED) != 0);
+    if (!rc && (sm.flags & CXL_STUB_FLAG_INCONSISTENT))
+        rc = inconsistent(ctx, stub, r, (size_t)n, (sm.flags & CXL_STUB_FLAG_ORDERS_ASSUMED) != 0);
+    if (!rc) {
         if (sm.flags & CXL_STUB_FLAG_VF_RANGE)
             cli_warn(ctx, "a velocity factor outside 0.50 to 1: check the readings, --length and --end");
+        if ((sm.flags & CXL_STUB_FLAG_TREND) && nat == 0)
+            cli_warn(ctx, "the readings' VF changes with frequency beyond their uncertainty, so the "
+                          "fitted VF is an average over them: ask for the VF where the line works, "
+                          "e.g. --at 1.83MHz");
         if (ctx->format == CLI_TEXT) write_text(ctx, &sm, res);
         else write_table(ctx, &sm, res);
     }
     cxl_stub_result_free(res);
     cxl_stub_free(stub);
-    return rc;
+    return rc ? CLI_EXIT_USAGE : CLI_EXIT_OK;
 }
 
 const cli_command cli_cmd_vf = {

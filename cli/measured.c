@@ -4,6 +4,7 @@
  * pipe), and signed numbers for text output. */
 #include <config.h>
 #include <errno.h>
+#include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -11,10 +12,11 @@
 
 #define VF_FROM_EXPECTED "the CSV that coaxline vf --format csv writes"
 
-/* One usable row of the file: a fit, or the only reading. */
+/* One usable row of the file: a fit, the only reading, or a VF at a
+ * frequency (at_hz > 0: a row `coaxline vf --at F` wrote). */
 typedef struct vf_row {
     char *label;
-    double vf;
+    double vf, at_hz;
 } vf_row;
 
 typedef struct vf_file {
@@ -33,7 +35,7 @@ static void vf_file_free(vf_file *file)
     free(file);
 }
 
-static int add_row(vf_file *f, const char *label, double vf)
+static int add_row(vf_file *f, const char *label, double vf, double at_hz)
 {
     if (f->n == f->cap) {
         size_t cap = f->cap ? 2 * f->cap : 4;
@@ -44,6 +46,7 @@ static int add_row(vf_file *f, const char *label, double vf)
     }
     f->rows[f->n].label = strdup(label);
     if (!f->rows[f->n].label) return -1;
+    f->rows[f->n].at_hz = at_hz;
     f->rows[f->n++].vf = vf;
     return 0;
 }
@@ -66,7 +69,7 @@ static int load(const cli_ctx *row_ctx, vf_file *f, FILE *fp)
     if (cxl_csv_reader_new_stream(fp, &rd) != CXL_OK)
         return cli_error(ctx, "vf-from", NULL, "out of memory");
     int has_row = 0, code = 0, readings = 0;
-    int col_label = -1, col_res = -1, col_vf = -1;
+    int col_label = -1, col_res = -1, col_vf = -1, col_at = -1, col_vf_at = -1;
     char single_label[256] = "", name[300];
     double single_vf = 0.0;
     size_t single_line = 0;
@@ -80,6 +83,8 @@ static int load(const cli_ctx *row_ctx, vf_file *f, FILE *fp)
         col_label = column(rd, "label");
         col_res = column(rd, "resonance");
         col_vf = column(rd, "vf");
+        col_at = column(rd, "at_freq_mhz");
+        col_vf_at = column(rd, "vf_at");
     }
     if (col_res < 0 || col_vf < 0) {
         code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED,
@@ -95,6 +100,27 @@ static int load(const cli_ctx *row_ctx, vf_file *f, FILE *fp)
                                 ? cxl_csv_reader_field(rd, (size_t)col_label) : "";
         double vf;
         int valid = cxl_units_parse_number(text, &vf, NULL) == CXL_OK && vf > 0.0 && vf <= 1.0;
+        if (strcmp(res, "at") == 0) {
+            /* the VF at a frequency: both cells must hold numbers */
+            double at_mhz = 0.0;
+            const char *tf = col_at >= 0 && (size_t)col_at < nf
+                                 ? cxl_csv_reader_field(rd, (size_t)col_at) : "";
+            const char *tv = col_vf_at >= 0 && (size_t)col_vf_at < nf
+                                 ? cxl_csv_reader_field(rd, (size_t)col_vf_at) : "";
+            if (cxl_units_parse_number(tf, &at_mhz, NULL) != CXL_OK || !(at_mhz > 0.0) ||
+                !(at_mhz * 1e6 <= CLI_MAX_FREQ_HZ) ||
+                cxl_units_parse_number(tv, &vf, NULL) != CXL_OK || !(vf > 0.0 && vf <= 1.0)) {
+                code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED,
+                                 "%s line %zu: an 'at' row needs at_freq_mhz and vf_at numbers",
+                                 name, cxl_csv_reader_line(rd));
+                goto done;
+            }
+            if (add_row(f, label, vf, at_mhz * 1e6)) {
+                code = cli_error(ctx, "vf-from", NULL, "out of memory");
+                goto done;
+            }
+            continue;
+        }
         if (strcmp(res, "fit") != 0) {
             /* a reading's own VF may lie outside (0, 1] (vf flags it); it
              * matters only when it is the file's one reading */
@@ -111,7 +137,7 @@ static int load(const cli_ctx *row_ctx, vf_file *f, FILE *fp)
                              cxl_csv_reader_line(rd), text);
             goto done;
         }
-        if (add_row(f, label, vf)) {
+        if (add_row(f, label, vf, 0.0)) {
             code = cli_error(ctx, "vf-from", NULL, "out of memory");
             goto done;
         }
@@ -133,19 +159,22 @@ unreadable:
                          name, cxl_csv_reader_line(rd), what);
         goto done;
     }
-    if (f->n == 0 && readings == 1) {
+    size_t fits = 0;
+    for (size_t i = 0; i < f->n; i++) fits += f->rows[i].at_hz == 0.0;
+    if (fits == 0 && readings == 1) {
         if (!(single_vf > 0.0)) {
             code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED,
                              "%s line %zu: the vf of its one reading is not a velocity factor",
                              name, single_line);
             goto done;
         }
-        if (add_row(f, single_label, single_vf)) {
+        if (add_row(f, single_label, single_vf, 0.0)) {
             code = cli_error(ctx, "vf-from", NULL, "out of memory");
             goto done;
         }
     }
-    if (f->n == 0)
+    for (size_t i = 0; i < f->n; i++) fits += f->rows[i].at_hz == 0.0;
+    if (fits == 0)
         code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED,
                          "%s holds no fitted row (resonance 'fit')", name);
 done:
@@ -194,47 +223,96 @@ static int same_label(const char *in_file, const char *label)
            (in_file[0] == '\'' && strcmp(in_file + 1, label) == 0);
 }
 
-static int vf_from_file(cli_ctx *ctx, const cli_args *a, const char *path, double *vf)
+/* The file's fit for this row's label: the only one, or the one whose
+ * label matches. */
+static int pick_fit(cli_ctx *ctx, const cli_args *a, const vf_file *f, const char *path,
+                    const vf_row **fit)
 {
-    vf_file *f = open_cached(ctx, path);
-    if (!f) return CLI_EXIT_USAGE;
-    if (f->n == 1) {
-        *vf = f->rows[0].vf;
-        return 0;
-    }
+    size_t fits = 0;
+    const vf_row *only = NULL, *hit = NULL;
     const char *label = cli_get(a, "label", 0); /* as typed, not as shown */
     if (!label) label = "";
-    const vf_row *hit = NULL;
     for (size_t i = 0; i < f->n; i++) {
+        if (f->rows[i].at_hz != 0.0) continue;
+        fits++;
+        only = &f->rows[i];
         if (!same_label(f->rows[i].label, label)) continue;
         if (hit)
             return cli_error(ctx, "vf-from", "one fit per label",
                              "'%s' holds more than one fit labelled '%s'", path, label);
         hit = &f->rows[i];
     }
+    if (fits == 1) hit = only;
     if (!hit)
         return cli_error(ctx, "label", "the label of one of the fits in the --vf-from file",
-                         "'%s' holds %zu fits and none is labelled '%s'", path, f->n, label);
-    *vf = hit->vf;
+                         "'%s' holds %zu fits and none is labelled '%s'", path, fits, label);
+    *fit = hit;
     return 0;
 }
 
-int cli_vf_source(cli_ctx *ctx, const cli_args *a, double *vf, char *from,
-                  size_t from_size)
+/* Relative distance within which an 'at' row counts as written for the
+ * command's frequency (common practice, no source: the drift over 1 % of
+ * frequency is far below any VF's uncertainty). */
+#define AT_MATCH 0.01
+
+static int vf_from_file(cli_ctx *ctx, const cli_args *a, const char *path, double freq_hz,
+                        double *vf, double *at_hz)
+{
+    vf_file *f = open_cached(ctx, path);
+    const vf_row *fit = NULL, *at = NULL;
+    if (!f || pick_fit(ctx, a, f, path, &fit)) return CLI_EXIT_USAGE;
+    /* 'at' rows of the same label as the fit */
+    size_t nat = 0;
+    const vf_row *first = NULL;
+    for (size_t i = 0; i < f->n; i++) {
+        const vf_row *r = &f->rows[i];
+        if (r->at_hz == 0.0 || strcmp(r->label, fit->label) != 0) continue;
+        if (!nat++) first = r;
+        if (freq_hz > 0.0 && fabs(r->at_hz / freq_hz - 1.0) <= AT_MATCH &&
+            (!at || fabs(r->at_hz - freq_hz) < fabs(at->at_hz - freq_hz)))
+            at = r;
+    }
+    if (freq_hz == 0.0 && nat == 1) at = first;
+    if (nat && !at) {
+        char b1[48], b2[48];
+        return cli_error(ctx, "vf-from", "a file from coaxline vf --at at this command's frequency",
+                         "'%s' holds the VF at %s MHz%s, not at %s MHz", path,
+                         cli_fmt(b1, sizeof b1, first->at_hz / 1e6, 4), nat > 1 ? " and others" : "",
+                         freq_hz > 0.0 ? cli_fmt(b2, sizeof b2, freq_hz / 1e6, 4) : "?");
+    }
+    *vf = at ? at->vf : fit->vf;
+    *at_hz = at ? at->at_hz : 0.0;
+    return 0;
+}
+
+int cli_vf_source_at(cli_ctx *ctx, const cli_args *a, double freq_hz, double *vf, char *from,
+                     size_t from_size)
 {
     const char *path = cli_get(a, "vf-from", 0);
     if (path) {
+        double at_hz = 0.0;
+        char b1[48];
         if (cli_get(a, "vf", 0) || cli_get(a, "cable", 0))
             return cli_error(ctx, "vf-from", "one of --vf, --cable or --vf-from",
                              "--vf-from is given with --%s", cli_get(a, "vf", 0) ? "vf" : "cable");
-        if (vf_from_file(ctx, a, path, vf)) return CLI_EXIT_USAGE;
-        if (from) snprintf(from, from_size, "from %s", strcmp(path, "-") == 0 ? "standard input" : path);
+        if (vf_from_file(ctx, a, path, freq_hz, vf, &at_hz)) return CLI_EXIT_USAGE;
+        if (from)
+            snprintf(from, from_size, "from %s%s%s%s", strcmp(path, "-") == 0 ? "standard input" : path,
+                     at_hz > 0.0 ? ", the VF at " : "",
+                     at_hz > 0.0 ? cli_fmt(b1, sizeof b1, at_hz / 1e6, 4) : "",
+                     at_hz > 0.0 ? " MHz" : "");
         return 0;
     }
     const char *cable;
     if (cli_vf_or_cable(ctx, a, vf, &cable)) return CLI_EXIT_USAGE;
     if (from) snprintf(from, from_size, "%s%s", cable[0] ? "cable " : "", cable);
     return 0;
+}
+
+int cli_vf_source(cli_ctx *ctx, const cli_args *a, double *vf, char *from,
+                  size_t from_size)
+{
+    return cli_vf_source_at(ctx, a, 0.0, vf, from, from_size);
 }
 
 int cli_vf_source_end(cli_ctx *ctx)
@@ -250,4 +328,35 @@ const char *cli_fmt_signed(char *buf, size_t size, double value, int decimals)
     cli_fmt(num, sizeof num, value, decimals);
     snprintf(buf, size, "%s%s", num[0] == '-' || num[0] == '?' ? "" : "+", num);
     return buf;
+}
+
+int cli_reading_kind(cli_ctx *ctx, const cli_args *a, int have_model, cxl_dip_kind *kind,
+                     double *ref_ohm, const char **name)
+{
+    static const char expected[] = "zero-x, min-z or min-swr";
+    const char *t = cli_get(a, "reading", 0), *z = cli_get(a, "analyzer-z0", 0);
+    *kind = CXL_DIP_ZERO_X;
+    *ref_ohm = 50.0;
+    *name = "zero-x";
+    if (t) {
+        if (strcmp(t, "zero-x") == 0) *kind = CXL_DIP_ZERO_X;
+        else if (strcmp(t, "min-z") == 0) *kind = CXL_DIP_MIN_Z;
+        else if (strcmp(t, "min-swr") == 0) *kind = CXL_DIP_MIN_SWR;
+        else return cli_error(ctx, "reading", expected, "unknown kind of reading '%s'", t);
+        *name = t;
+    }
+    if (z) {
+        if (*kind != CXL_DIP_MIN_SWR)
+            return cli_error(ctx, "analyzer-z0", "--reading min-swr --analyzer-z0 50",
+                             "given without --reading min-swr");
+        if (cli_number(ctx, "analyzer-z0", z, 1.0, 1e4, "an impedance in ohm such as 50 or 75",
+                       ref_ohm))
+            return CLI_EXIT_USAGE;
+    }
+    /* a minimum of |Z| or SWR lies off the reactance zero by an amount
+     * only the line model knows */
+    if (*kind != CXL_DIP_ZERO_X && !have_model)
+        return cli_error(ctx, "reading", "--reading min-z with --cable NAME (the line model places the dip)",
+                         "--reading %s needs --cable to correct the readings", *name);
+    return 0;
 }

@@ -211,14 +211,16 @@ int cli_pair_spec_parse(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
     if (s->wire && s->elevation_deg == 0.0)
         return cli_error(ctx, "elevation", "an elevation above 0 for wires, such as 20",
                          "a long wire has no response along its own axis at elevation 0");
-    if (cli_count(a, "vf") || cli_count(a, "cable")) {
-        if (cli_vf_or_cable(ctx, a, &s->vf, &s->cable)) return CLI_EXIT_USAGE;
-        s->has_vf = 1;
-    }
     double design_hz = 0.0;
     if (cli_count(a, "design-freq") &&
         cli_freq(ctx, "design-freq", cli_get(a, "design-freq", 0), &design_hz))
         return CLI_EXIT_USAGE;
+    if (cli_count(a, "vf") || cli_count(a, "cable") || cli_count(a, "vf-from")) {
+        /* --vf-from: the VF at --design-freq when the file holds it */
+        if (cli_vf_source_at(ctx, a, design_hz, &s->vf, NULL, 0)) return CLI_EXIT_USAGE;
+        s->cable = cli_count(a, "cable") ? cli_get(a, "cable", 0) : "";
+        s->has_vf = 1;
+    }
     if (cli_count(a, "feed")) {
         if (parse_preset(ctx, a, s, design_hz)) return CLI_EXIT_USAGE;
     } else {

@@ -317,12 +317,21 @@ size_t cxl_stub_count(const cxl_stub *stub);
  * orders are ignored.  CXL_ERANGE when a reading has no plausible order. */
 cxl_status cxl_stub_infer_orders(const cxl_stub *stub, int *orders,
                                  size_t count);
+/* The first reading (in the order added) that no allowed order explains
+ * with a VF in the plausible range (its given order, or any when none is
+ * given): CXL_OK and *index set, or CXL_ENOTFOUND when every reading is
+ * plausible (CXL_EINVAL without readings).  It names the reading behind
+ * cxl_stub_fit's CXL_ERANGE. */
+cxl_status cxl_stub_implausible_reading(const cxl_stub *stub, size_t *index);
 
 /* Result flags: warnings, not failures. */
 #define CXL_STUB_FLAG_INCONSISTENT   0x1u /* readings off one fundamental */
 #define CXL_STUB_FLAG_VF_RANGE       0x2u /* a VF outside the plausible range */
 #define CXL_STUB_FLAG_ORDERS_ASSUMED 0x4u /* orders were numbered, not given */
 #define CXL_STUB_FLAG_FIXTURE_FITTED 0x8u /* an extra fixture length was fitted */
+#define CXL_STUB_FLAG_TREND          0x10u /* the readings' VFs rise or fall with
+                                            * frequency beyond their own errors:
+                                            * ask for the VF at a frequency */
 
 /* Weighted least-squares fit of k c / f - fixture = L / VF (+ x).
  * CXL_EINVAL without readings; CXL_ERANGE when a reading implies a VF
@@ -348,6 +357,23 @@ cxl_status cxl_stub_result_fixture(const cxl_stub_result *result,
                                    double *extra_cable_m);
 cxl_status cxl_stub_result_flags(const cxl_stub_result *result,
                                  unsigned *flags);
+/* How cxl_stub_result_vf_at found its value. */
+#define CXL_STUB_AT_TREND        0x1u /* trend a - b/sqrt(f) over the readings */
+#define CXL_STUB_AT_EXTRAPOLATED 0x2u /* the trend carried outside the readings */
+#define CXL_STUB_AT_ALLOWANCE    0x4u /* the nearest reading and the drift
+                                       * allowance (cxl_drift_allowance) */
+/* VF at freq_hz and its uncertainty.  Two candidates: the trend over the
+ * readings (cxl_drift_new_stub with the analyzer step; with one frequency
+ * or no error estimate there is none) and the reading nearest in
+ * 1/sqrt(f) moved by the drift allowance; the one with the smaller
+ * uncertainty is given.  The uncertainty adds in quadrature the reading
+ * or trend error (a frequency step moves a VF by VF df / f), the length
+ * tolerance (VF dL / L) and the allowance or the trend's law term.
+ * how (may be NULL) gets CXL_STUB_AT_* bits.  CXL_ERANGE when freq_hz is
+ * below the allowance's range and no trend covers it. */
+cxl_status cxl_stub_result_vf_at(const cxl_stub_result *result,
+                                 double freq_hz, double *vf, double *vf_err,
+                                 unsigned *how);
 size_t cxl_stub_result_count(const cxl_stub_result *result);
 /* Reading index: its length, frequency, order used, the VF it alone
  * implies (after the fitted fixture), and its residual: measured minus
@@ -903,6 +929,30 @@ cxl_status cxl_transfer_stub_resonance(const cxl_loss_model *model,
                                        unsigned flags, cxl_stub_end end,
                                        int order, double length_m,
                                        double *resonance_hz);
+/* The three things an analyzer may call the dip of a series resonance:
+ * the input reactance crossing zero, the minimum of |Z_in|, the minimum
+ * SWR against the analyzer's real reference impedance.  On a lossy line
+ * they lie at slightly different frequencies. */
+typedef enum cxl_dip_kind {
+    CXL_DIP_ZERO_X = 0,
+    CXL_DIP_MIN_Z = 1,
+    CXL_DIP_MIN_SWR = 2
+} cxl_dip_kind;
+/* The same resonance read as a dip of that kind: the reactance zero as
+ * above, then for CXL_DIP_MIN_Z and CXL_DIP_MIN_SWR the minimum within
+ * 1/16 wavelength of it by GSL's Brent minimiser.  ref_ohm (> 0 always)
+ * is the analyzer's reference for CXL_DIP_MIN_SWR.  wave_hz (may be
+ * NULL) gets the frequency at which the line is exactly (2n-1)/4 or n/2
+ * wavelengths long: dip_hz / wave_hz is what a reading of that kind is
+ * off by, the correction a fit divides out.  Errors as
+ * cxl_transfer_stub_resonance; CXL_ENOCONV when no minimum lies there: a
+ * line whose |Z0| is at or below the reference shows no SWR dip at its
+ * series resonances (its input stays on a circle of nearly constant SWR,
+ * closest to the reference at the anti-resonances). */
+cxl_status cxl_transfer_stub_dip(const cxl_loss_model *model, unsigned flags,
+                                 cxl_stub_end end, int order, double length_m,
+                                 cxl_dip_kind kind, double ref_ohm,
+                                 double *dip_hz, double *wave_hz);
 
 /* ---- drift.c: velocity factor against frequency ------------------------ */
 
@@ -937,6 +987,17 @@ cxl_status cxl_drift_range(const cxl_drift *drift, double *min_freq_hz,
  * CXL_ERANGE when the trend leaves (0, 1] there. */
 cxl_status cxl_drift_vf(const cxl_drift *drift, double freq_hz, double *vf,
                         double *vf_err);
+/* Largest relative drop c of VF(f) / VF_hf = 1 - c / sqrt(f), in sqrt(Hz),
+ * the drift allowance assumes: it covers the physical model of every
+ * built-in cable from 0.3 to 150 MHz with room to spare (see drift.c). */
+#define CXL_DRIFT_MAX_DROP_SQRT_HZ 120.0
+/* What one reading at from_hz says about the VF at to_hz when the trend is
+ * unknown (c anywhere from 0 to CXL_DRIFT_MAX_DROP_SQRT_HZ): VF(to) =
+ * VF(from) * factor, within +- VF(from) * rel_halfwidth (a bound, not a
+ * standard error).  CXL_ERANGE below 4 c_max^2 (57.6 kHz), where the law
+ * no longer holds. */
+cxl_status cxl_drift_allowance(double from_hz, double to_hz, double *factor,
+                               double *rel_halfwidth);
 
 /* ---- trim.c: cut long, measure, trim ---------------------------------- */
 
@@ -961,6 +1022,8 @@ typedef enum cxl_trim_action {
 #define CXL_TRIM_FLAG_DRIFT        0x100u /* target VF from the drift trend */
 #define CXL_TRIM_FLAG_EXTRAPOLATED 0x200u /* target frequency outside the readings */
 #define CXL_TRIM_FLAG_MODEL        0x400u /* readings corrected with a cable model */
+#define CXL_TRIM_FLAG_ALLOWANCE    0x800u /* target VF from the nearest reading and
+                                           * the drift allowance (trend unknown) */
 
 cxl_status cxl_trim_new(cxl_stub_end end, double length_m, cxl_trim **trim);
 void cxl_trim_free(cxl_trim *trim);
@@ -982,6 +1045,17 @@ cxl_status cxl_trim_set_fixture(cxl_trim *trim, double fixture_m,
 cxl_status cxl_trim_set_model(cxl_trim *trim, const cxl_loss_model *model);
 /* The analyzer's frequency resolution (step), >= 0, default 0. */
 cxl_status cxl_trim_set_resolution(cxl_trim *trim, double freq_res_hz);
+/* What the readings are (default CXL_DIP_ZERO_X, reference 50 ohm; ref_ohm
+ * > 0 always, used by CXL_DIP_MIN_SWR).  With a model each kind is moved
+ * back by its own offset (cxl_transfer_stub_dip); without one the
+ * readings are taken as they are. */
+cxl_status cxl_trim_set_reading(cxl_trim *trim, cxl_dip_kind kind,
+                                double ref_ohm);
+/* Length already in connectors or adapters that the target counts but the
+ * piece does not hold (>= 0, default 0), at allowance_vf, or at the
+ * piece's VF at the target when allowance_vf is 0. */
+cxl_status cxl_trim_set_allowance(cxl_trim *trim, double allowance_m,
+                                  double allowance_vf);
 /* One low-impedance reading in any order of frequency; order >= 1, or 0
  * when not known (all readings give one, or none does; unknown orders are
  * inferred as those that best fit one fundamental).  CXL_EINVAL for a
@@ -1007,12 +1081,12 @@ cxl_status cxl_trim_target_resonance(cxl_trim *trim, cxl_stub_end end,
 cxl_status cxl_trim_solve(const cxl_trim *trim, cxl_trim_result **result);
 void cxl_trim_result_free(cxl_trim_result *result);
 /* Length to cut off (negative: the piece is short), the length that will
- * remain, the resolution of that length (what one step of the frequency
- * resolution in the readings moves it by: remaining times the relative
- * error of the VF at the target, from the drift fit's covariance with each
- * reading weighted by VF df / f, or VF df / f of the one reading; the
- * fixture uncertainty in quadrature) and what to do.  Any output may be
- * NULL. */
+ * remain, the uncertainty of that length (remaining times the relative
+ * uncertainty of the VF at the target, cxl_stub_result_vf_at: the step of
+ * the frequency resolution, the drift trend's error or the drift
+ * allowance when the trend is unknown; without a target frequency VF
+ * df / f of the one reading or the fit's budget; the fixture uncertainty
+ * in quadrature) and what to do.  Any output may be NULL. */
 cxl_status cxl_trim_result_cut(const cxl_trim_result *result,
                                double *cut_off_m, double *remaining_m,
                                double *resolution_m, cxl_trim_action *action);

@@ -22,6 +22,10 @@
 #include "coaxline.h"
 #include "internal.h"
 
+/* Relative change of the drop coefficient the law a - b/sqrt(f) misses
+ * when it is carried beyond the readings (see cxl_drift_vf). */
+#define LAW_SLACK 0.25
+
 struct cxl_drift {
     double v_hf, d;          /* VF = v_hf - d / sqrt(f) */
     double cov[2][2];        /* covariance of (v_hf, -d) */
@@ -154,7 +158,40 @@ cxl_status cxl_drift_vf(const cxl_drift *drift, double freq_hz, double *vf,
     double v = drift->v_hf - drift->d * 1e-3 * x; /* x in 1/sqrt(MHz) */
     if (!cxl__valid_vf(v)) return CXL_ERANGE; /* the trend leaves (0, 1] there */
     double var = drift->cov[0][0] + 2.0 * x * drift->cov[0][1] + x * x * drift->cov[1][1];
+    /* outside the readings the law's neglected terms grow: the model's
+     * local drop coefficient changes by up to LAW_SLACK of itself between
+     * 1 and 30 MHz (copper built-in cables), so the extrapolated VF may
+     * miss by that fraction of the trend's change beyond the readings */
+    double x_lo = x_of(drift->f_max), x_hi = x_of(drift->f_min);
+    double beyond = x < x_lo ? x_lo - x : x > x_hi ? x - x_hi : 0.0;
+    double law = LAW_SLACK * fabs(drift->d) * 1e-3 * beyond;
     *vf = v;
-    if (vf_err) *vf_err = var > 0.0 ? sqrt(var) : 0.0;
+    if (vf_err) *vf_err = hypot(var > 0.0 ? sqrt(var) : 0.0, law);
+    return CXL_OK;
+}
+
+/* The drift one reading cannot show.  Over the built-in cables the
+ * physical model (cxl_loss_model_vf) gives VF(f) / VF_hf = 1 - c / sqrt(f)
+ * with c from about 6 (thick foam lines) to 77 sqrt(Hz) (RG-174, RG-316)
+ * between 0.3 and 100 MHz, and up to about 100 for a copper-clad centre
+ * below 1 MHz; CXL_DRIFT_MAX_DROP_SQRT_HZ (120) covers them with room for
+ * a spool the model does not know (tests/check_drift.c checks every
+ * built-in cable's model against it).  Not knowing c, take it as anywhere
+ * in [0, c_max]: the VF at to_hz is the VF at from_hz times a ratio that
+ * runs monotonically from 1 (c = 0) to r(c_max); the centre of that range
+ * is the estimate and half its width the allowance, exact, not first
+ * order. */
+cxl_status cxl_drift_allowance(double from_hz, double to_hz, double *factor,
+                               double *rel_halfwidth)
+{
+    if (!factor || !rel_halfwidth || !cxl__finite_pos(from_hz) || !cxl__finite_pos(to_hz))
+        return CXL_EINVAL;
+    /* below 4 c_max^2 (58 kHz) the drop would pass half the VF: the law
+     * has long stopped holding there */
+    const double c = CXL_DRIFT_MAX_DROP_SQRT_HZ, f_min = 4.0 * c * c;
+    if (from_hz < f_min || to_hz < f_min) return CXL_ERANGE;
+    double r = (1.0 - c / sqrt(to_hz)) / (1.0 - c / sqrt(from_hz));
+    *factor = 0.5 * (1.0 + r);
+    *rel_halfwidth = 0.5 * fabs(1.0 - r);
     return CXL_OK;
 }

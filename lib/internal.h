@@ -60,9 +60,11 @@ cxl_status cxl__array_front_to_back(const cxl_array_pair *pair,
 /* transfer.c: for the order-th series resonance of length_m of a modelled
  * stub, the frequency at which the line is exactly (2n-1)/4 or n/2
  * wavelengths long (wave_hz) and the one at which its input reactance is
- * zero (reactance_hz, what an analyzer reads). */
+ * zero, or where the dip of another kind lies (dip_hz, what an analyzer
+ * reads). */
 cxl_status cxl__transfer_stub_points(const cxl_loss_model *model, unsigned flags,
                                      cxl_stub_end end, int order, double length_m,
-                                     double *wave_hz, double *reactance_hz);
+                                     cxl_dip_kind kind, double ref_ohm,
+                                     double *wave_hz, double *dip_hz);
 
 #endif

@@ -55,6 +55,7 @@ struct cxl_stub_result {
     int *order;
     double vf_fit, err_fit, err_length, err_freq;
     double x_m, x_err_m;
+    double freq_res_hz, length_tol_m; /* for cxl_stub_result_vf_at */
     unsigned flags;
 };
 
@@ -333,6 +334,17 @@ static cxl_status assign_orders(const cxl_stub *s, cxl_stub_orders rule,
     return st;
 }
 
+cxl_status cxl_stub_implausible_reading(const cxl_stub *stub, size_t *index)
+{
+    if (!stub || !index || stub->n == 0) return CXL_EINVAL;
+    for (size_t i = 0; i < stub->n; i++)
+        if (!reading_plausible(stub, i, 1)) {
+            *index = i;
+            return CXL_OK;
+        }
+    return CXL_ENOTFOUND;
+}
+
 cxl_status cxl_stub_infer_orders(const cxl_stub *stub, int *orders, size_t count)
 {
     if (!stub || !orders || count != stub->n || count == 0) return CXL_EINVAL;
@@ -540,6 +552,36 @@ static cxl_status fit_readings(const fit_data *d, double a, cxl_stub_result *r)
     return CXL_OK;
 }
 
+/* Do the per-reading VFs rise or fall with frequency?  Weighted straight
+ * line VF_i = p + q / sqrt(f_i) (weights 1 / (VF_i df / f_i)^2 with a
+ * frequency step, equal without and then scaled by the scatter); a slope
+ * more than three standard errors from 0 is a trend.  Closed-form normal
+ * equations of the two-parameter fit. */
+static int trend_significant(const cxl_stub_result *r)
+{
+    const double df = r->freq_res_hz;
+    double sw = 0.0, sx = 0.0, sy = 0.0, sxx = 0.0, sxy = 0.0;
+    size_t n = r->n;
+    for (size_t i = 0; i < n; i++) {
+        double x = 1.0 / sqrt(r->freq_hz[i] * 1e-6), e = r->vf[i] * df / r->freq_hz[i];
+        double w = df > 0.0 ? 1.0 / (e * e) : 1.0;
+        if (!isfinite(w) || !isfinite(x)) return 0;
+        sw += w; sx += w * x; sy += w * r->vf[i]; sxx += w * x * x; sxy += w * x * r->vf[i];
+    }
+    double det = sw * sxx - sx * sx;
+    if (n < 2 || !(det > 1e-12 * sw * sxx) || (df == 0.0 && n < 3)) return 0;
+    double q = (sw * sxy - sx * sy) / det, p = (sy - q * sx) / sw, var = sw / det;
+    if (df == 0.0) {
+        double chi = 0.0;
+        for (size_t i = 0; i < n; i++) {
+            double d = r->vf[i] - p - q / sqrt(r->freq_hz[i] * 1e-6);
+            chi += d * d;
+        }
+        var *= chi / (double)(n - 2);
+    }
+    return isfinite(q) && isfinite(var) && q * q > 9.0 * var;
+}
+
 cxl_status cxl_stub_fit(const cxl_stub *stub, cxl_stub_result **result)
 {
     if (!stub || !result || stub->n == 0) return CXL_EINVAL;
@@ -560,16 +602,27 @@ cxl_status cxl_stub_fit(const cxl_stub *stub, cxl_stub_result **result)
         const size_t dof = n - f.p;
         r->vf_fit = 1.0 / a;
         r->x_m = x;
-        if (dof > 0) { /* covariance scaled by the scatter: chisq / dof */
+        if (dof > 0) {
+            /* Without a frequency step the scatter alone sets the error
+             * (covariance times chisq / dof).  With one, the readings'
+             * own errors are in err_freq, and err_fit holds only the
+             * spread beyond them: the Birge ratio B^2 = chisq / dof above
+             * 1 scales the total to B times the own error, so err_fit is
+             * sqrt(B^2 - 1) of it (0 for readings as consistent as their
+             * step). */
             double s2 = chisq / (double)dof;
+            if (stub->freq_res_hz > 0.0) s2 = s2 > 1.0 ? s2 - 1.0 : 0.0;
             r->err_fit = sqrt(gsl_matrix_get(f.cov, 0, 0) * s2) / (a * a);
             if (f.p == 2) r->x_err_m = sqrt(gsl_matrix_get(f.cov, 1, 1) * s2);
         }
+        r->freq_res_hz = stub->freq_res_hz;
+        r->length_tol_m = stub->length_tol_m;
         if (d.assumed) r->flags |= CXL_STUB_FLAG_ORDERS_ASSUMED;
         if (f.p == 2) r->flags |= CXL_STUB_FLAG_FIXTURE_FITTED;
         st = fit_budget(&d, &f, r);
     }
     if (st == CXL_OK) st = fit_readings(&d, a, r);
+    if (st == CXL_OK && trend_significant(r)) r->flags |= CXL_STUB_FLAG_TREND;
     ws_free(&f);
     free(d.orders);
     free(d.len);
@@ -622,6 +675,60 @@ cxl_status cxl_stub_result_flags(const cxl_stub_result *result, unsigned *flags)
 {
     if (!result || !flags) return CXL_EINVAL;
     *flags = result->flags;
+    return CXL_OK;
+}
+
+cxl_status cxl_stub_result_vf_at(const cxl_stub_result *result, double freq_hz,
+                                 double *vf, double *vf_err, unsigned *how)
+{
+    if (!result || !vf || !vf_err || !cxl__finite_pos(freq_hz) || result->n == 0)
+        return CXL_EINVAL;
+    const double df = result->freq_res_hz;
+    /* the length tolerance moves every VF by the same relative amount */
+    double rel_len = 0.0;
+    for (size_t i = 0; i < result->n; i++) {
+        double rl = result->length_tol_m / result->length_m[i];
+        if (rl > rel_len) rel_len = rl;
+    }
+    /* the nearest reading in 1/sqrt(f), moved by the drift allowance */
+    size_t near = 0;
+    double best = INFINITY;
+    for (size_t i = 0; i < result->n; i++) {
+        double dx = fabs(1.0 / sqrt(result->freq_hz[i]) - 1.0 / sqrt(freq_hz));
+        if (dx < best) { best = dx; near = i; }
+    }
+    double v_a = 0.0, e_a = INFINITY, factor, half;
+    cxl_status st_a = cxl_drift_allowance(result->freq_hz[near], freq_hz, &factor, &half);
+    if (st_a == CXL_OK) {
+        double v0 = result->vf[near];
+        v_a = v0 * factor;
+        e_a = hypot(hypot(v0 * half, v0 * df / result->freq_hz[near]), v_a * rel_len);
+    }
+    /* the trend over two or more readings (without a frequency step two
+     * readings are taken as exact, as the fit takes them) */
+    double v_t = 0.0, e_t = INFINITY;
+    unsigned t_how = 0;
+    if (result->n >= 2) {
+        cxl_drift *d = NULL;
+        double lo, hi, v, e;
+        if (cxl_drift_new_stub(result, df, &d) == CXL_OK &&
+            cxl_drift_vf(d, freq_hz, &v, &e) == CXL_OK &&
+            cxl_drift_range(d, &lo, &hi) == CXL_OK) {
+            v_t = v;
+            e_t = hypot(e, v * rel_len);
+            t_how = CXL_STUB_AT_TREND | (freq_hz < lo || freq_hz > hi ? CXL_STUB_AT_EXTRAPOLATED : 0u);
+        }
+        cxl_drift_free(d);
+    }
+    double v, e;
+    unsigned h;
+    if (e_t <= e_a) { v = v_t; e = e_t; h = t_how; }
+    else if (st_a == CXL_OK) { v = v_a; e = e_a; h = CXL_STUB_AT_ALLOWANCE; }
+    else return st_a == CXL_ERANGE ? CXL_ERANGE : CXL_EINVAL;
+    if (!cxl__valid_vf(v) || !isfinite(e)) return CXL_ERANGE;
+    *vf = v;
+    *vf_err = e;
+    if (how) *how = h;
     return CXL_OK;
 }
 

@@ -17,6 +17,7 @@
 #include <gsl/gsl_complex_math.h>
 #include <gsl/gsl_errno.h>
 #include <gsl/gsl_math.h>
+#include <gsl/gsl_min.h>
 #include <gsl/gsl_roots.h>
 #include "coaxline.h"
 #include "internal.h"
@@ -207,6 +208,8 @@ typedef struct stub_eval {
     double length_m, k;      /* k: wavelengths at the resonance */
     double gamma_l;          /* +1 open far end, -1 shorted */
     cxl_status st;           /* first failure inside a GSL callback */
+    cxl_dip_kind kind;       /* the dip to find after the reactance zero */
+    double ref_ohm;          /* analyzer reference for CXL_DIP_MIN_SWR */
 } stub_eval;
 
 /* beta l / (2 pi) - k: zero where the line is k wavelengths long. */
@@ -222,23 +225,84 @@ static double wavelength_gap(double f, void *p)
     return beta * e->length_m / (2.0 * M_PI) - e->k;
 }
 
-/* Input reactance of the stub at f, in units of |Z0|. */
-static double stub_reactance(double f, void *p)
+/* Input impedance of the stub at f and |Z0| there; 0 on failure (kept in
+ * e->st). */
+static int stub_zin(double f, stub_eval *e, gsl_complex *zin, double *z0_abs)
 {
-    stub_eval *e = p;
     double alpha, beta, zr, zi;
-    gsl_complex zin;
     cxl_status st = model_line(e->model, f, e->flags, &alpha, &beta, &zr, &zi);
     if (st == CXL_OK) {
         gsl_complex e1 = gsl_complex_polar(exp(-alpha * e->length_m), -beta * e->length_m);
         st = input_impedance(gsl_complex_rect(zr, zi), gsl_complex_rect(e->gamma_l, 0.0),
-                             e1, &zin);
+                             e1, zin);
     }
     if (st != CXL_OK) {
         if (e->st == CXL_OK) e->st = st;
-        return GSL_NAN;
+        return 0;
     }
-    return GSL_IMAG(zin) / hypot(zr, zi);
+    *z0_abs = hypot(zr, zi);
+    return 1;
+}
+
+/* Input reactance of the stub at f, in units of |Z0|. */
+static double stub_reactance(double f, void *p)
+{
+    gsl_complex zin;
+    double z0;
+    if (!stub_zin(f, p, &zin, &z0)) return GSL_NAN;
+    return GSL_IMAG(zin) / z0;
+}
+
+/* What a dip of another kind minimises: |Z_in| / |Z0|, or |Gamma| of
+ * Z_in against the analyzer's real reference impedance. */
+static double stub_dip_value(double f, void *p)
+{
+    stub_eval *e = p;
+    gsl_complex zin;
+    double z0;
+    if (!stub_zin(f, e, &zin, &z0)) return GSL_NAN;
+    if (e->kind == CXL_DIP_MIN_Z) return gsl_complex_abs(zin) / z0;
+    return gsl_complex_abs(gsl_complex_div(gsl_complex_add_real(zin, -e->ref_ohm),
+                                           gsl_complex_add_real(zin, e->ref_ohm)));
+}
+
+/* Minimum of fn in [lo, hi] around guess (fn(guess) below both ends) by
+ * Brent's method. */
+static cxl_status brent_min(gsl_function *fn, stub_eval *e, double guess, double lo,
+                            double hi, double *at)
+{
+    double fg = GSL_FN_EVAL(fn, guess), fl = GSL_FN_EVAL(fn, lo), fh = GSL_FN_EVAL(fn, hi);
+    if (e->st != CXL_OK) return e->st;
+    if (!isfinite(fg) || !isfinite(fl) || !isfinite(fh)) return CXL_ENOCONV;
+    if (!(fg < fl && fg < fh)) {
+        /* the dip sits off the reactance zero: start from the lowest of
+         * a few interior samples */
+        double best = fg;
+        for (int i = 1; i < 32; i++) {
+            double x = lo + (hi - lo) * i / 32.0, v = GSL_FN_EVAL(fn, x);
+            if (isfinite(v) && v < best) { best = v; guess = x; fg = v; }
+        }
+        if (e->st != CXL_OK) return e->st;
+        if (!(fg < fl && fg < fh)) return CXL_ENOCONV; /* no interior minimum */
+    }
+    gsl_min_fminimizer *m = gsl_min_fminimizer_alloc(gsl_min_fminimizer_brent);
+    if (!m) return CXL_ENOMEM;
+    cxl_status st = CXL_ENOCONV;
+    if (gsl_min_fminimizer_set_with_values(m, fn, guess, fg, lo, fl, hi, fh) == GSL_SUCCESS) {
+        for (int i = 0; i < 200; i++) {
+            if (gsl_min_fminimizer_iterate(m) != GSL_SUCCESS) break;
+            double a = gsl_min_fminimizer_x_lower(m), b = gsl_min_fminimizer_x_upper(m);
+            if (gsl_min_test_interval(a, b, 0.0, 1e-7) == GSL_SUCCESS) {
+                /* a minimum is flat: x only to about sqrt(eps) */
+                *at = gsl_min_fminimizer_x_minimum(m);
+                st = CXL_OK;
+                break;
+            }
+        }
+    }
+    gsl_min_fminimizer_free(m);
+    if (st == CXL_OK && e->st != CXL_OK) st = e->st;
+    return st;
 }
 
 /* Root of fn in [lo, hi] (signs already opposite) by Brent's method. */
@@ -285,14 +349,19 @@ static cxl_status bracket(gsl_function *fn, stub_eval *e, double guess, double h
 
 cxl_status cxl__transfer_stub_points(const cxl_loss_model *model, unsigned flags,
                                      cxl_stub_end end, int order, double length_m,
-                                     double *wave_hz, double *reactance_hz)
+                                     cxl_dip_kind kind, double ref_ohm,
+                                     double *wave_hz, double *dip_hz)
 {
     double k, lo, hi, guess, root, vf, f_min, f_max;
-    if (!model || !cxl__finite_pos(length_m)) return CXL_EINVAL;
+    if (!model || !cxl__finite_pos(length_m) ||
+        (kind != CXL_DIP_ZERO_X && kind != CXL_DIP_MIN_Z && kind != CXL_DIP_MIN_SWR) ||
+        !cxl__finite_pos(ref_ohm))
+        return CXL_EINVAL;
     cxl_status st = cxl_stub_wavelengths(end, order, &k);
     if (st == CXL_OK) st = cxl_loss_model_range(model, &f_min, &f_max);
     if (st != CXL_OK) return st;
-    stub_eval e = { model, flags, length_m, k, end == CXL_STUB_OPEN ? 1.0 : -1.0, CXL_OK };
+    stub_eval e = { model, flags, length_m, k, end == CXL_STUB_OPEN ? 1.0 : -1.0, CXL_OK,
+                    kind, ref_ohm };
     /* first guess: the phase velocity at the top of the range, where it is
      * nearly the high-frequency value, then two fixed-point steps */
     guess = f_max;
@@ -316,8 +385,16 @@ cxl_status cxl__transfer_stub_points(const cxl_loss_model *model, unsigned flags
     if (st == CXL_OK) st = brent_root(&react, lo, hi, &root);
     if (st == CXL_OK && e.st != CXL_OK) st = e.st;
     if (st != CXL_OK) return st;
+    if (kind != CXL_DIP_ZERO_X) {
+        /* the minimum lies near the reactance zero: within 1/16
+         * wavelength of it |Z_in| has grown to several times its value */
+        gsl_function dip = { stub_dip_value, &e };
+        double h = root / (16.0 * k);
+        st = brent_min(&dip, &e, root, root - h, root + h, &root);
+        if (st != CXL_OK) return st;
+    }
     *wave_hz = guess;
-    *reactance_hz = root;
+    *dip_hz = root;
     return CXL_OK;
 }
 
@@ -327,7 +404,23 @@ cxl_status cxl_transfer_stub_resonance(const cxl_loss_model *model, unsigned fla
 {
     double wave, react;
     if (!resonance_hz) return CXL_EINVAL;
-    cxl_status st = cxl__transfer_stub_points(model, flags, end, order, length_m, &wave, &react);
+    cxl_status st = cxl__transfer_stub_points(model, flags, end, order, length_m,
+                                              CXL_DIP_ZERO_X, 50.0, &wave, &react);
     if (st == CXL_OK) *resonance_hz = react;
     return st;
+}
+
+cxl_status cxl_transfer_stub_dip(const cxl_loss_model *model, unsigned flags,
+                                 cxl_stub_end end, int order, double length_m,
+                                 cxl_dip_kind kind, double ref_ohm, double *dip_hz,
+                                 double *wave_hz)
+{
+    double wave, dip;
+    if (!dip_hz) return CXL_EINVAL;
+    cxl_status st = cxl__transfer_stub_points(model, flags, end, order, length_m, kind,
+                                              ref_ohm, &wave, &dip);
+    if (st != CXL_OK) return st;
+    *dip_hz = dip;
+    if (wave_hz) *wave_hz = wave;
+    return CXL_OK;
 }

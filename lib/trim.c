@@ -42,11 +42,14 @@ struct cxl_trim {
     double freq_res_hz;
     trim_reading *r;
     size_t n, cap;
-    enum target_kind kind;
+    enum target_kind target_kind;
     double target_value, target_freq_hz;  /* degrees or seconds; Hz (0: none) */
     cxl_stub_end ref_end;
     int ref_order;
     const cxl_loss_model *model; /* optional: the lossy-resonance offset */
+    cxl_dip_kind kind;           /* what the analyzer's dip is */
+    double ref_ohm;              /* its reference for CXL_DIP_MIN_SWR */
+    double allowance_m, allowance_vf; /* in the target, not in the piece */
 };
 
 struct cxl_trim_result {
@@ -68,6 +71,8 @@ cxl_status cxl_trim_new(cxl_stub_end end, double length_m, cxl_trim **trim)
     if (!t) return CXL_ENOMEM;
     t->end = end;
     t->length_m = length_m;
+    t->kind = CXL_DIP_ZERO_X;
+    t->ref_ohm = 50.0;
     *trim = t;
     return CXL_OK;
 }
@@ -95,6 +100,26 @@ cxl_status cxl_trim_set_model(cxl_trim *trim, const cxl_loss_model *model)
 {
     if (!trim) return CXL_EINVAL;
     trim->model = model;
+    return CXL_OK;
+}
+
+cxl_status cxl_trim_set_reading(cxl_trim *trim, cxl_dip_kind kind, double ref_ohm)
+{
+    if (!trim || (kind != CXL_DIP_ZERO_X && kind != CXL_DIP_MIN_Z && kind != CXL_DIP_MIN_SWR) ||
+        !cxl__finite_pos(ref_ohm))
+        return CXL_EINVAL;
+    trim->kind = kind;
+    trim->ref_ohm = ref_ohm;
+    return CXL_OK;
+}
+
+cxl_status cxl_trim_set_allowance(cxl_trim *trim, double allowance_m, double allowance_vf)
+{
+    if (!trim || !cxl__finite_nonneg(allowance_m) ||
+        !(allowance_vf == 0.0 || cxl__valid_vf(allowance_vf)))
+        return CXL_EINVAL;
+    trim->allowance_m = allowance_m;
+    trim->allowance_vf = allowance_vf;
     return CXL_OK;
 }
 
@@ -135,7 +160,7 @@ static cxl_status set_target(cxl_trim *trim, enum target_kind kind, double value
     if (!trim || !cxl__finite_pos(value) || !cxl__finite_nonneg(freq_hz) ||
         (freq_required && freq_hz == 0.0))
         return CXL_EINVAL;
-    trim->kind = kind;
+    trim->target_kind = kind;
     trim->target_value = value;
     trim->target_freq_hz = freq_hz;
     return CXL_OK;
@@ -158,7 +183,7 @@ cxl_status cxl_trim_target_resonance(cxl_trim *trim, cxl_stub_end end, int order
     if (!trim || !cxl__finite_pos(freq_hz)) return CXL_EINVAL;
     cxl_status st = cxl_stub_wavelengths(end, order, &k);
     if (st != CXL_OK) return st;
-    trim->kind = TARGET_RESONANCE;
+    trim->target_kind = TARGET_RESONANCE;
     trim->ref_end = end;
     trim->ref_order = order;
     trim->target_freq_hz = freq_hz;
@@ -233,11 +258,25 @@ static cxl_status fit_readings(const cxl_trim *t, const trim_reading *rd,
     return st;
 }
 
-/* Target electrical length of the piece alone, free-space metres. */
-static double target_free_m(const cxl_trim *t, const cxl_drift *drift, double vf0)
+static double target_whole_m(const cxl_trim *t, const cxl_drift *drift, double vf0);
+
+/* Target electrical length of the piece alone, free-space metres: the
+ * target less what the allowance (connectors counted in it) already
+ * gives, at its own VF or the piece's VF at the target, vf_t. */
+static double target_free_m(const cxl_trim *t, const cxl_drift *drift, double vf0,
+                            double vf_t)
+{
+    double allow = t->allowance_m > 0.0
+                       ? t->allowance_m / (t->allowance_vf > 0.0 ? t->allowance_vf : vf_t)
+                       : 0.0;
+    return target_whole_m(t, drift, vf0) - allow;
+}
+
+/* Target electrical length with the allowance, free-space metres. */
+static double target_whole_m(const cxl_trim *t, const cxl_drift *drift, double vf0)
 {
     double k = 0.0;
-    switch (t->kind) {
+    switch (t->target_kind) {
     case TARGET_DEGREES:
         return t->target_value / 360.0 * CXL_C_M_PER_S / t->target_freq_hz;
     case TARGET_DELAY:
@@ -258,13 +297,14 @@ static double model_line_m(const cxl_trim *t, double piece_m)
     return piece_m + (t->fixture_vf > 0.0 ? 0.0 : t->fixture_m);
 }
 
-/* Reactance zero over the exact k-wavelength frequency of the modelled
- * line at an order: what a lossy line's resonance reads high by. */
+/* The dip (of the kind set) over the exact k-wavelength frequency of the
+ * modelled line at an order: what a lossy line's resonance reads off by. */
 static cxl_status model_offset(const cxl_trim *t, int order, double piece_m, double *ratio)
 {
     double wave, react;
     cxl_status st = cxl__transfer_stub_points(t->model, CXL_LOSS_EXTRAPOLATE, t->end, order,
-                                              model_line_m(t, piece_m), &wave, &react);
+                                              model_line_m(t, piece_m), t->kind, t->ref_ohm,
+                                              &wave, &react);
     if (st == CXL_OK) *ratio = react / wave;
     return st;
 }
@@ -308,7 +348,7 @@ static cxl_status correct_readings(const cxl_trim *t, trim_reading *rd,
 
 cxl_status cxl_trim_solve(const cxl_trim *trim, cxl_trim_result **result)
 {
-    if (!trim || !result || trim->n == 0 || trim->kind == TARGET_NONE) return CXL_EINVAL;
+    if (!trim || !result || trim->n == 0 || trim->target_kind == TARGET_NONE) return CXL_EINVAL;
     const size_t n = trim->n;
     trim_reading *rd = malloc(2 * n * sizeof *rd), *shown = rd ? rd + n : NULL;
     cxl_trim_result *r = result_alloc(n);
@@ -344,22 +384,27 @@ cxl_status cxl_trim_solve(const cxl_trim *trim, cxl_trim_result **result)
     /* report what the analyzer showed (sorted), not a corrected value */
     for (size_t i = 0; i < n; i++) r->freq_hz[i] = shown[i].freq_hz;
 
-    /* VF at the target frequency, and how far a step of the frequency
-     * resolution in the readings moves it */
+    /* VF at the target frequency and its uncertainty: the trend over the
+     * readings or the nearest reading with the drift allowance, whichever
+     * is the tighter (cxl_stub_result_vf_at); without a target frequency
+     * the fitted VF and how far a step of the resolution moves it */
     double ft = trim->target_freq_hz, vf_t = vf_fit, vf_err = 0.0;
-    if (ft > 0.0 && drift) {
-        st = cxl_drift_vf(drift, ft, &vf_t, &vf_err);
+    (void)f_lo;
+    (void)f_hi;
+    if (ft > 0.0) {
+        unsigned how = 0;
+        st = cxl_stub_result_vf_at(fit, ft, &vf_t, &vf_err, &how);
         if (st != CXL_OK) goto done;
-        r->flags |= CXL_TRIM_FLAG_DRIFT;
-        if (ft < f_lo || ft > f_hi) r->flags |= CXL_TRIM_FLAG_EXTRAPOLATED;
+        if (how & CXL_STUB_AT_TREND) r->flags |= CXL_TRIM_FLAG_DRIFT;
+        if (how & CXL_STUB_AT_EXTRAPOLATED) r->flags |= CXL_TRIM_FLAG_EXTRAPOLATED;
+        if (how & CXL_STUB_AT_ALLOWANCE) r->flags |= CXL_TRIM_FLAG_ALLOWANCE;
     } else {
-        if (ft > 0.0) vf_t = r->vf[0];
         if (n == 1) vf_err = vf_t * trim->freq_res_hz / r->freq_hz[0];
         else st = cxl_stub_result_vf_budget(fit, NULL, NULL, &vf_err);
         if (st != CXL_OK) goto done;
+        if (trim->freq_res_hz == 0.0) vf_err = 0.0; /* the scatter is not a resolution */
     }
-    if (trim->freq_res_hz == 0.0) vf_err = 0.0; /* the scatter is not a resolution */
-    double e_t = target_free_m(trim, drift, vf_fit);
+    double e_t = target_free_m(trim, drift, vf_fit, vf_t);
     if (!(e_t > 0.0) || !isfinite(e_t)) { st = CXL_ERANGE; goto done; }
     r->vf_fit = vf_fit;
     r->vf_target = vf_t;

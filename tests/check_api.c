@@ -98,6 +98,7 @@ static const kind K_ORDER = { "order", LIST(0, -1, INT_MIN, 1001, INT_MAX), LIST
 static const kind K_ORDER0 = { "order or 0", LIST(-1, INT_MIN, 1001, INT_MAX), LIST(0, 1000) };
 static const kind K_ELEMENT = { "element", LIST(-1, 2, INT_MIN, INT_MAX), NONE };
 static const kind K_ENUM2 = { "enum of two", LIST(-1, 2, 99, INT_MIN, INT_MAX), NONE };
+static const kind K_ENUM3 = { "enum of three", LIST(-1, 3, 99, INT_MIN, INT_MAX), NONE };
 static const kind K_REGION = { "region", LIST(-1, 4, INT_MIN, INT_MAX), LIST(0, 3) };
 static const kind K_DECIMALS = { "decimals", LIST(-1, 18, INT_MIN, INT_MAX), LIST(0, 17) };
 static const kind K_PROP = { "cable property", LIST(-1, 11, INT_MIN, INT_MAX), NONE };
@@ -438,6 +439,14 @@ ADAPTER(stub_result_flags)
     unsigned flags = (unsigned)SENT;
     cxl_status st = cxl_stub_result_flags(P(0, g_res1), P(1, &flags));
     o[0] = flags;
+    return st;
+}
+ADAPTER(stub_result_vf_at)
+{
+    unsigned how = (unsigned)SENT;
+    cxl_status st = cxl_stub_result_vf_at(P(0, g_res1), a[0], P(1, &o[0]), P(2, &o[1]),
+                                          P(3, &how));
+    o[2] = how;
     return st;
 }
 ADAPTER(stub_result_reading)
@@ -816,6 +825,13 @@ ADAPTER(transfer_stub_resonance)
                                        to_int(a[2]), a[3], P(1, &o[0]));
 }
 
+ADAPTER(transfer_stub_dip)
+{
+    return cxl_transfer_stub_dip(P(0, g_model), to_uint(a[0]), (cxl_stub_end)to_int(a[1]),
+                                 to_int(a[2]), a[3], (cxl_dip_kind)to_int(a[4]), a[5],
+                                 P(1, &o[0]), P(2, &o[1]));
+}
+
 /* loss.c: the clad model's crossover */
 ADAPTER(loss_model_clad_crossover)
 {
@@ -868,6 +884,7 @@ ADAPTER(drift_range)
     return cxl_drift_range(P(0, g_drift), P(1, &o[0]), P(2, &o[1]));
 }
 ADAPTER(drift_vf) { return cxl_drift_vf(P(0, g_drift), a[0], P(1, &o[0]), P(2, &o[1])); }
+ADAPTER(drift_allowance) { return cxl_drift_allowance(a[0], a[1], P(0, &o[0]), P(1, &o[1])); }
 
 /* trim.c: a 30 m piece, open end, read at its first three resonances at
  * VF 0.66 with a 1 kHz step, trimmed to 90 degrees at 1.83 MHz */
@@ -934,6 +951,10 @@ ADAPTER(trim_new)
 TRIM_SETTER(trim_set_fixture, 3, 1, cxl_trim_set_fixture(P(0, t), a[0], a[1], a[2]))
 TRIM_SETTER(trim_set_model, 3, 1, ((void)a, cxl_trim_set_model(P(0, t), P(1, g_model))))
 TRIM_SETTER(trim_set_resolution, 3, 1, cxl_trim_set_resolution(P(0, t), a[0]))
+TRIM_SETTER(trim_set_reading, 3, 1,
+            cxl_trim_set_reading(P(0, t), (cxl_dip_kind)to_int(a[0]), a[1]))
+TRIM_SETTER(trim_set_allowance, 3, 1, cxl_trim_set_allowance(P(0, t), a[0], a[1]))
+TRIM_SETTER(trim_set_allowance_1, 1, 1, cxl_trim_set_allowance(P(0, t), a[0], a[1]))
 /* the same on a piece read once: no drift fit, the one reading's VF */
 TRIM_SETTER(trim_set_fixture_1, 1, 1, cxl_trim_set_fixture(P(0, t), a[0], a[1], a[2]))
 TRIM_SETTER(trim_set_resolution_1, 1, 1, cxl_trim_set_resolution(P(0, t), a[0]))
@@ -1048,6 +1069,7 @@ static api_case cases[] = {
     { "cxl_stub_result_fixture", call_stub_result_fixture, 0, {0}, {0}, 4, 0xC, 3, 0, {{0}} },
     { "cxl_stub_result_flags", call_stub_result_flags, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
     { "cxl_stub_result_reading", call_stub_result_reading, 1, {2}, {&K_INDEX}, 7, 0x7E, 6, 0, {{0}} },
+    { "cxl_stub_result_vf_at", call_stub_result_vf_at, 1, {3.5e6}, {&K_POS}, 4, 0x8, 3, 0, {{0}} },
     /* pair.c */
     { "cxl_pair_phase_error", call_pair_phase_error, 4, {10.1, 10.0, 0.66, F},
       {&K_POS, &K_POS, &K_VF, &K_POS}, 1, 0, 1, 0, {{0}} },
@@ -1168,6 +1190,12 @@ static api_case cases[] = {
     { "cxl_transfer_stub_resonance", call_transfer_stub_resonance, 4,
       {CXL_LOSS_EXTRAPOLATE, CXL_STUB_SHORT, 3, 30},
       {&K_MFLAGS, &K_ENUM2, &K_ORDER, &K_POS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_transfer_stub_dip", call_transfer_stub_dip, 6,
+      {CXL_LOSS_EXTRAPOLATE, CXL_STUB_OPEN, 2, 30, CXL_DIP_MIN_SWR, 25},
+      {&K_MFLAGS, &K_ENUM2, &K_ORDER, &K_POS, &K_ENUM3, &K_POS}, 3, 0x4, 2, 0, {{0}} },
+    { "cxl_transfer_stub_dip", call_transfer_stub_dip, 6,
+      {CXL_LOSS_EXTRAPOLATE, CXL_STUB_SHORT, 1, 30, CXL_DIP_MIN_Z, 50},
+      {&K_MFLAGS, &K_ENUM2, &K_ORDER, &K_POS, &K_ENUM3, &K_POS}, 3, 0x4, 2, 0, {{0}} },
     /* loss.c: clad crossover */
     { "cxl_loss_model_clad_crossover", call_loss_model_clad_crossover, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
     /* drift.c */
@@ -1179,6 +1207,8 @@ static api_case cases[] = {
     { "cxl_drift_coefficients", call_drift_coefficients, 0, {0}, {0}, 3, 0, 2, 0, {{0}} },
     { "cxl_drift_range", call_drift_range, 0, {0}, {0}, 3, 0, 2, 0, {{0}} },
     { "cxl_drift_vf", call_drift_vf, 1, {3.5e6}, {&K_POS}, 3, 0x4, 2, 0, {{0}} },
+    { "cxl_drift_allowance", call_drift_allowance, 2, {7e6, 1.83e6}, {&K_POS, &K_POS}, 2, 0, 2,
+      1, {{7e6, 1e4}} /* below the law's range */ },
     /* trim.c */
     { "cxl_trim_new", call_trim_new, 2, {CXL_STUB_OPEN, TRIM_LEN}, {&K_ENUM2, &K_POS}, 1, 0, 11, 0, {{0}} },
     { "cxl_trim_set_fixture", call_trim_set_fixture, 3, {0.3, 0.7, 0.005},
@@ -1189,6 +1219,9 @@ static api_case cases[] = {
       {&K_NONNEG, &K_VF0, &K_NONNEG}, 1, 0, 10, 0, {{0}} },
     { "cxl_trim_set_model", call_trim_set_model, 0, {0}, {0}, 2, 0x2, 10, 0, {{0}} },
     { "cxl_trim_set_resolution", call_trim_set_resolution, 1, {1e3}, {&K_NONNEG}, 1, 0, 10, 0, {{0}} },
+    { "cxl_trim_set_reading", call_trim_set_reading, 2, {CXL_DIP_MIN_SWR, 50}, {&K_ENUM3, &K_POS}, 1, 0, 10, 0, {{0}} },
+    { "cxl_trim_set_allowance", call_trim_set_allowance, 2, {0.1, 0.8}, {&K_NONNEG, &K_VF0}, 1, 0, 10, 0, {{0}} },
+    { "cxl_trim_set_allowance", call_trim_set_allowance_1, 2, {0.1, 0}, {&K_NONNEG, &K_VF0}, 1, 0, 10, 0, {{0}} },
     { "cxl_trim_set_resolution", call_trim_set_resolution_1, 1, {1e3}, {&K_NONNEG}, 1, 0, 10, 0, {{0}} },
     { "cxl_trim_add_reading", call_trim_add_reading, 2, {1.75 * 0.66 * C / TRIM_LEN, 4},
       {&K_POS, &K_ORDER0}, 1, 0, 10,
@@ -1675,6 +1708,13 @@ START_TEST(stub_bad_sets)
     ck_assert_int_eq(cxl_stub_fit(s, &r), CXL_ERANGE);
     ck_assert_int_eq(cxl_stub_infer_orders(s, orders, 1), CXL_ERANGE);
     ck_assert_int_eq(orders[0], (int)SENT);
+    size_t bad = 7;
+    ck_assert_int_eq(cxl_stub_implausible_reading(s, &bad), CXL_OK);
+    ck_assert_uint_eq(bad, 0);
+    ck_assert_int_eq(cxl_stub_implausible_reading(NULL, &bad), CXL_EINVAL);
+    ck_assert_int_eq(cxl_stub_implausible_reading(s, NULL), CXL_EINVAL);
+    ck_assert_int_eq(cxl_stub_implausible_reading(g_stub, &bad), CXL_ENOTFOUND);
+    ck_assert_uint_eq(bad, 0);
     cxl_stub_free(s);
     /* extreme but finite readings reach GSL only as finite numbers */
     ck_assert_int_eq(cxl_stub_new(CXL_STUB_SHORT, &s), CXL_OK);

@@ -2,6 +2,8 @@
  * bad input, batches and locale independence. */
 #include <config.h>
 #include <check.h>
+#include <unistd.h>
+#include <string.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include "testutil.h"
@@ -194,6 +196,41 @@ START_TEST(help_and_version)
 }
 END_TEST
 
+START_TEST(demo_story_holds)
+{
+    /* The demo's commands, run as printed, give the demo's numbers: its
+     * readings through vf --at 1.83MHz into cut --vf-from give the cut
+     * length it states (common practice, no source: one story). */
+    cli_result d = run_cli(NULL, "demo", NULL);
+    ck_assert_int_eq(d.rc, 0);
+    const char *p = strstr(d.out, "--resonance ");
+    ck_assert_ptr_nonnull(p);
+    char dips[128];
+    ck_assert_int_eq(sscanf(p + strlen("--resonance "), "%127s", dips), 1);
+    const char *c = strstr(d.out, "cut length            ");
+    ck_assert_ptr_nonnull(c);
+    char cut_len[32];
+    ck_assert_int_eq(sscanf(c + strlen("cut length            "), "%31s", cut_len), 1);
+    char args[512];
+    snprintf(args, sizeof args, "vf --length 12m --end open --freq-step 100Hz --at 1.83MHz "
+             "--resonance %s --format csv", dips);
+    cli_result v = run_cli(NULL, args, NULL);
+    ck_assert_int_eq(v.rc, 0);
+    char *path = temp_file(v.out, strlen(v.out));
+    snprintf(args, sizeof args, "cut --offset 18m --vf-from %s --allowance 0.12m --freq 1.83MHz", path);
+    cli_result k = run_cli(NULL, args, NULL);
+    ck_assert_int_eq(k.rc, 0);
+    char want[64];
+    snprintf(want, sizeof want, "cut length          %s m", cut_len);
+    has(k.out, want);
+    unlink(path);
+    free(path);
+    cli_result_free(&k);
+    cli_result_free(&v);
+    cli_result_free(&d);
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("cli");
@@ -209,6 +246,7 @@ int main(void)
     tcase_add_test(tc, batch_many_rows);
     tcase_add_test(tc, comma_locale_same_bytes);
     tcase_add_test(tc, help_and_version);
+    tcase_add_test(tc, demo_story_holds);
     suite_add_tcase(s, tc);
     return run_suite(s);
 }

@@ -18,6 +18,7 @@
  * relations, as its comment says. */
 #include <config.h>
 #include <check.h>
+#include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -137,9 +138,13 @@ START_TEST(vf_single_reading)
     ck_assert_int_eq(r.rc, 0);
     ck_assert_str_eq(r.err, "");
     has(r.out, "label,length_m,end,resonance,freq_mhz,vf,vf_err,vf_err_fit,vf_err_length,"
-               "vf_err_freq,residual_hz,residual_mm,extra_fixture_m,extra_fixture_err_m,flags\n");
-    has(r.out, "\n,10.000,open,1,5.000000,0.6671,,,,,0.0,0.0,,,\n");
-    has(r.out, "\n,10.000,open,fit,,0.6671,0.00000,0.00000,0.00000,0.00000,,,,,orders_numbered\n");
+               "vf_err_freq,residual_hz,residual_mm,extra_fixture_m,extra_fixture_err_m,flags,"
+               "at_freq_mhz,vf_at,vf_at_err\n");
+    has(r.out, "\n,10.000,open,1,5.000000,0.6671,,,,,0.0,0.0,,,,,,\n");
+    /* one reading never states +-0: the default 5 mm tape and 1 kHz step
+     * give 0.667128 * 0.005 / 10 = 0.000334 and 0.667128 * 1e3 / 5e6 =
+     * 0.000133, root sum of squares 0.000359 (hand worked, first order) */
+    has(r.out, "\n,10.000,open,fit,,0.6671,0.00036,0.00000,0.00033,0.00013,,,,,orders_numbered,,,\n");
     cli_result_free(&r);
     /* [POZAR] shorted stub, first dip at a half wave: VF = 2 L f / c =
      * 2 * 10 * 10e6 / c = 0.667128 */
@@ -151,7 +156,7 @@ START_TEST(vf_single_reading)
     r = run_cli(NULL, "vf --length 10m --end open --resonance 5MHz --label 'drum 3'", NULL);
     ck_assert_int_eq(r.rc, 0);
     has(r.out, "vf: drum 3\n");
-    has(r.out, "fitted VF         0.66713 +/- 0.00000"); /* 4 L f / c = 0.667128 */
+    has(r.out, "fitted VF         0.66713 +/- 0.00036"); /* 4 L f / c = 0.667128 */
     has(r.out, "not fitted: all readings are on one length");
     cli_result_free(&r);
 }
@@ -165,18 +170,19 @@ START_TEST(vf_harmonics_agree)
                                  "--resonance 25MHz --format csv", NULL);
     ck_assert_int_eq(r.rc, 0);
     ck_assert_str_eq(r.err, "");
-    has(r.out, "\n,10.000,open,1,5.000000,0.6671,,,,,0.0,0.0,,,\n");
-    has(r.out, "\n,10.000,open,2,15.000000,0.6671,,,,,0.0,0.0,,,\n");
-    has(r.out, "\n,10.000,open,3,25.000000,0.6671,,,,,0.0,0.0,,,\n");
-    has(r.out, "\n,10.000,open,fit,,0.6671,0.00000,0.00000,");
+    has(r.out, "\n,10.000,open,1,5.000000,0.6671,,,,,0.0,0.0,,,,,,\n");
+    has(r.out, "\n,10.000,open,2,15.000000,0.6671,,,,,0.0,0.0,,,,,,\n");
+    has(r.out, "\n,10.000,open,3,25.000000,0.6671,,,,,0.0,0.0,,,,,,\n");
+    /* the budget: the readings agree exactly, so no spread beyond them */
+    has(r.out, "\n,10.000,open,fit,,0.6671,0.00033,0.00000,0.00033,"); /* 5 mm tape, as above */
     cli_result_free(&r);
     /* explicit orders: 25 MHz as the 3rd dip (5/4 wave) and 45 MHz as the
      * 5th (9/4 wave) [POZAR]: the same VF */
     r = run_cli(NULL, "vf --length 10m --end open --resonance 1:5MHz,3:25MHz,5:45MHz --format csv", NULL);
     ck_assert_int_eq(r.rc, 0);
     ck_assert_str_eq(r.err, "");
-    has(r.out, "\n,10.000,open,5,45.000000,0.6671,,,,,0.0,0.0,,,\n");
-    has(r.out, "\n,10.000,open,fit,,0.6671,0.00000,0.00000,0.00000,0.00000,,,,,\n");
+    has(r.out, "\n,10.000,open,5,45.000000,0.6671,,,,,0.0,0.0,,,,,,\n");
+    has(r.out, "\n,10.000,open,fit,,0.6671,0.00033,0.00000,0.00033,"); /* the 5 mm tape */
     cli_result_free(&r);
 }
 END_TEST
@@ -216,7 +222,8 @@ START_TEST(vf_two_lengths_fit_fixture)
     ck_assert_int_eq(count_lines(r.out), 6);
     has(r.out, "\nB,18.000,open,2,9.948865,0.8000,");
     has(r.out, "\nB,,open,fit,,0.8000,");
-    has(r.out, ",0.080,0.000,orders_numbered fixture_fitted\n");
+    has(r.out, ",0.080,");
+    has(r.out, ",orders_numbered fixture_fitted,,,\n");
     cli_result_free(&r);
     r = run_cli(NULL, args, NULL);
     ck_assert_int_eq(r.rc, 0);
@@ -228,17 +235,105 @@ END_TEST
 
 START_TEST(vf_inconsistent_warns)
 {
-    /* 5, 25 and 45 MHz numbered 1, 2, 3 are not one fundamental ([POZAR]:
-     * the open-stub dips stand at 1:3:5:7:9...): a warning that proposes
-     * orders 1, 3, 5, and still a result */
+    /* 5, 25 and 45 MHz on 10 m open: the open-stub dips stand at 1:3:5:7:9
+     * ([POZAR]), so these are orders 1, 3 and 5 with the dips between
+     * skipped; inferred as such they give VF 4 L f / c = 0.6671, never the
+     * 1.04 a numbering 1, 2, 3 would */
     cli_result r = run_cli(NULL, "vf --length 10m --end open --resonance 5MHz,25MHz,45MHz "
                                  "--format csv", NULL);
     ck_assert_int_eq(r.rc, 0);
-    ck_assert_int_eq(count_lines(r.out), 5);
+    ck_assert_str_eq(r.err, "");
+    has(r.out, "\n,10.000,open,3,25.000000,0.6671,");
+    has(r.out, "\n,10.000,open,5,45.000000,0.6671,");
+    has(r.out, "\n,10.000,open,fit,,0.6671,");
+    cli_result_free(&r);
+    /* given as 1, 3, 4 (45 MHz as 7/4 wave: VF 4 L f / 7c = 0.858, plausible
+     * alone) they are kept, with a warning naming 1,3,5 */
+    r = run_cli(NULL, "vf --length 10m --end open --resonance 1:5MHz,3:25MHz,4:45MHz "
+                      "--format csv", NULL);
+    ck_assert_int_eq(r.rc, 0);
     has(r.out, "inconsistent");
     has(r.err, "coaxline: vf: warning: readings are not consistent with one fundamental");
-    has(r.err, "--resonance 1:5MHz,3:25MHz,5:45MHz");
+    has(r.err, "these orders would fit best: 1,3,5");
     cli_result_free(&r);
+    /* 5 and 7 MHz on 10 m open fit no numbering: 7/5 is no ratio of odd
+     * numbers whose VF (4 L f / ((2n-1) c)) lies in 0.5-1 [POZAR]: refused */
+    bad("vf --length 10m --end open --resonance 5MHz,7MHz", "resonance");
+}
+END_TEST
+
+START_TEST(vf_at_band)
+{
+    /* A line whose VF follows 0.80 (1 - 60 / sqrt(f)) (the drift law of
+     * drift.c, from the skin-effect internal inductance, Ramo-Whinnery-Van
+     * Duzer sec. 5.13; invented parameters): 10 m open, dips at orders 1-3
+     * where k c / f = L / VF(f), solved by fixed point below in C, rounded
+     * to 100 Hz.  vf --at 1.83MHz must hold the law's VF there within its
+     * stated +-, and the plain fit must warn of the trend. */
+    double f[3], c0 = 299792458.0;
+    char args[512];
+    for (int n = 1; n <= 3; n++) {
+        double k = (2 * n - 1) / 4.0, x = k * 0.8 * c0 / 10.0;
+        for (int i = 0; i < 60; i++) x = k * 0.8 * (1.0 - 60.0 / sqrt(x)) * c0 / 10.0;
+        f[n - 1] = floor(x / 100.0 + 0.5) * 100.0;
+    }
+    snprintf(args, sizeof args, "vf --length 10m --end open --freq-step 100Hz --length-tol 1mm "
+             "--resonance %.1fHz,%.1fHz,%.1fHz", f[0], f[1], f[2]);
+    cli_result r = run_cli(NULL, args, NULL);
+    ck_assert_int_eq(r.rc, 0);
+    has(r.err, "warning: the readings' VF changes with frequency");
+    has(r.err, "--at");
+    cli_result_free(&r);
+    char at[600];
+    snprintf(at, sizeof at, "%s --at 1.83MHz --format csv", args);
+    r = run_cli(NULL, at, NULL);
+    ck_assert_int_eq(r.rc, 0);
+    ck_assert_str_eq(r.err, "");
+    const char *row = strstr(r.out, ",at,");
+    ck_assert_ptr_nonnull(row);
+    const char *p = strstr(row, ",trend extrapolated,");
+    ck_assert_ptr_nonnull(p);
+    double fat, vat, eat;
+    ck_assert_int_eq(sscanf(p + strlen(",trend extrapolated,"), "%lf,%lf,%lf", &fat, &vat, &eat), 3);
+    double truth = 0.8 * (1.0 - 60.0 / sqrt(1.83e6));
+    ck_assert_double_eq_tol(fat, 1.83, 1e-9);
+    ck_assert(eat > 0.0);
+    ck_assert_msg(fabs(vat - truth) <= eat, "VF at 1.83 MHz %.5f +- %.5f, law %.5f", vat, eat, truth);
+    const double vat_trend = vat;
+    cli_result_free(&r);
+    /* one reading: the trend is unknown, the drift allowance widens the +-
+     * to cover any drop from 0 to CXL_DRIFT_MAX_DROP_SQRT_HZ */
+    snprintf(at, sizeof at, "vf --length 10m --end open --resonance %.1fHz --at 1.83MHz --format csv", f[0]);
+    r = run_cli(NULL, at, NULL);
+    ck_assert_int_eq(r.rc, 0);
+    has(r.out, ",drift_allowance,1.830000,");
+    p = strstr(r.out, ",drift_allowance,");
+    ck_assert_int_eq(sscanf(p + strlen(",drift_allowance,"), "%lf,%lf,%lf", &fat, &vat, &eat), 3);
+    ck_assert_msg(fabs(vat - truth) <= eat, "VF at 1.83 MHz %.5f +- %.5f, law %.5f", vat, eat, truth);
+    cli_result_free(&r);
+    /* the file feeds cut at that frequency: delay 100 ns, length = delay
+     * VF c (DESIGN.md) with the vf_at of the file */
+    snprintf(at, sizeof at, "%s --at 1.83MHz --format csv", args);
+    r = run_cli(NULL, at, NULL);
+    char *path = temp_file(r.out, strlen(r.out));
+    cli_result_free(&r);
+    char cut[700];
+    snprintf(cut, sizeof cut, "cut --delay 100ns --vf-from %s --freq 1.83MHz --format csv", path);
+    r = run_cli(NULL, cut, NULL);
+    ck_assert_int_eq(r.rc, 0);
+    const char *line = strchr(r.out, '\n'); /* the row after the header */
+    ck_assert_ptr_nonnull(line);
+    for (int i = 0; i < 3 && line; i++) line = strchr(line + 1, ','); /* label,offset,delay */
+    ck_assert_ptr_nonnull(line);
+    double vcut = atof(line + 1);
+    ck_assert_msg(fabs(vcut - vat_trend) <= 6e-5, "cut used VF %.4f, file vf_at %.5f", vcut,
+                  vat_trend);
+    cli_result_free(&r);
+    /* at another frequency the file has no VF for: refused */
+    snprintf(cut, sizeof cut, "cut --delay 100ns --vf-from %s --freq 3.6MHz", path);
+    bad(cut, "vf-from");
+    unlink(path);
+    free(path);
 }
 END_TEST
 
@@ -262,10 +357,11 @@ START_TEST(vf_bad_input)
     bad("vf --length 10m --end open --resonance 3:25MHz,2:35MHz", "resonance");
     bad("vf --length 10m --end open --resonance 1:5MHz,15MHz", "resonance");
     /* [POZAR]: a 10 m shorted stub's first dip (half wave) is at VF c / 20 m,
-     * at least 0.5 * c / 20 m = 7.494811 MHz for VF >= 0.5 */
+     * at least 0.5 * c / 20 m = 7.494811 MHz for VF >= 0.5: 5 MHz fits no
+     * order */
     bad("vf --length 10m --end short --resonance 5MHz", "resonance");
     cli_result r = run_cli(NULL, "vf --length 10m --end short --resonance 5MHz", NULL);
-    has(r.err, "below 7.494811 MHz, the half-wave point");
+    has(r.err, "no resonance order gives '5MHz' on 10.000 m shorted a VF from 0.50 to 1");
     cli_result_free(&r);
     /* open, 10 m, 8 MHz: first dip would need VF 1.067, the second 0.356
      * (4 L f / c and 4 L f / 3c, hand worked): no order fits */
@@ -282,6 +378,11 @@ START_TEST(vf_bad_input)
     bad("vf --length 10m --end open --resonance 5MHz --fixture 0.2m", "fixture-vf");
     bad("vf --length 10m --end open --resonance 5MHz --fixture-vf 0.7", "fixture-vf");
     bad("vf --length 10m --end open --resonance 5MHz --freq-step -1kHz", "freq-step");
+    bad("vf --length 10m --end open --resonance 5MHz --at 0Hz", "at");
+    bad("vf --length 10m --end open --resonance 5MHz --at 1kHz", "at");
+    bad("vf --length 10m --end open --resonance 5MHz --reading min-z", "reading");
+    bad("vf --length 10m --end open --resonance 5MHz --reading dip", "reading");
+    bad("vf --length 10m --end open --resonance 5MHz --analyzer-z0 50", "analyzer-z0");
 }
 END_TEST
 
@@ -679,6 +780,7 @@ int main(void)
     tcase_add_test(tv, vf_two_lengths_fit_fixture);
     tcase_add_test(tv, vf_inconsistent_warns);
     tcase_add_test(tv, vf_json);
+    tcase_add_test(tv, vf_at_band);
     tcase_add_test(tv, vf_bad_input);
     tcase_add_test(tv, vf_batch);
     suite_add_tcase(s, tv);
