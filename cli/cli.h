@@ -264,8 +264,8 @@ typedef struct cli_svg_xy {
     size_t nhlines;
 } cli_svg_xy;
 
-/* Write a polar plot (azimuth 0 at the top, counter-clockwise as seen from
- * above, rings in dB) or an x-y plot (axes fitted to the data, spans and
+/* Write a polar plot (azimuth 0 at the top, clockwise as seen from above
+ * like a compass bearing, rings in dB) or an x-y plot (axes fitted to the data, spans and
  * lines) to fp.  Return 0, or -1 when writing failed. */
 int cli_svg_polar_write(FILE *fp, const cli_svg_polar *plot);
 int cli_svg_xy_write(FILE *fp, const cli_svg_xy *plot);

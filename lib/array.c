@@ -406,6 +406,22 @@ static void array_factor(const array_eval *e, double ux, double uy,
     *im = si;
 }
 
+/* Complex output for a wave from direction (ux, uy, uz) at elevation el
+ * (uz = sin el). */
+static void field_dir(const array_eval *e, double ux, double uy, double uz,
+                      double el, double *re, double *im)
+{
+    double f = element_field(e, ux, el);
+    if (f == 0.0) {
+        *re = *im = 0.0;
+        return;
+    }
+    double r, i;
+    array_factor(e, ux, uy, uz, &r, &i);
+    *re = f * r;
+    *im = f * i;
+}
+
 /* Complex output for a wave from (az, el), radians; azimuth clockwise
  * from +x towards +y. */
 static void field_at(const array_eval *e, double az, double el, double *re,
@@ -624,10 +640,20 @@ typedef struct {
     double lo, hi;
 } peak_params;
 
+/* An elevation folded back into lo..hi by reflection at the edges: a
+ * maximum on an edge then stays a smooth maximum for the simplex (the
+ * pattern of elements in one horizontal plane is even about el = 0). */
+static double fold_elevation(double el, double lo, double hi)
+{
+    for (int i = 0; i < 4 && (el < lo || el > hi); i++)
+        el = el < lo ? 2.0 * lo - el : 2.0 * hi - el;
+    return fmin(fmax(el, lo), hi);
+}
+
 static double neg_power(const gsl_vector *v, void *params)
 {
     const peak_params *pp = params;
-    double el = fmin(fmax(gsl_vector_get(v, 1), pp->lo), pp->hi);
+    double el = fold_elevation(gsl_vector_get(v, 1), pp->lo, pp->hi);
     return -power_at(pp->e, gsl_vector_get(v, 0), el);
 }
 
@@ -651,11 +677,11 @@ static cxl_status refine_peak(const array_eval *e, double lo, double hi,
     gsl_vector_set(x, 1, el);
     gsl_vector_set_all(step, 0.5 * h);
     if (gsl_multimin_fminimizer_set(m, &fn, x, step) == GSL_SUCCESS) {
-        for (int it = 0; it < 2000; it++) {
+        for (int it = 0; it < 500; it++) {
             if (gsl_multimin_fminimizer_iterate(m) != GSL_SUCCESS)
                 break;
             if (gsl_multimin_test_size(gsl_multimin_fminimizer_size(m),
-                                       1e-10) == GSL_SUCCESS)
+                                       1e-9) == GSL_SUCCESS)
                 break;
         }
         double p = -gsl_multimin_fminimizer_minimum(m);
@@ -663,7 +689,7 @@ static cxl_status refine_peak(const array_eval *e, double lo, double hi,
             const gsl_vector *xm = gsl_multimin_fminimizer_x(m);
             *best = p;
             *best_az = gsl_vector_get(xm, 0);
-            *best_el = fmin(fmax(gsl_vector_get(xm, 1), lo), hi);
+            *best_el = fold_elevation(gsl_vector_get(xm, 1), lo, hi);
         }
     }
     gsl_multimin_fminimizer_free(m);
@@ -677,16 +703,25 @@ static cxl_status refine_peak(const array_eval *e, double lo, double hi,
 static cxl_status find_peak(const array_eval *e, double lo, double hi,
                             double *az_out, double *el_out, double *p_out)
 {
-    double h = coarse_step(e, 2.0, 5.0);
+    double h = coarse_step(e, 2.0, 10.0);
     size_t n_az = (size_t)ceil(2.0 * M_PI / h);
     size_t n_el = (size_t)ceil((hi - lo) / h) + 1;
-    double *g = malloc(n_az * n_el * sizeof *g);
+    double *g = malloc((n_az * n_el + 2 * n_az) * sizeof *g);
     if (!g)
         return CXL_ENOMEM;
+    double *caz = g + n_az * n_el, *saz = caz + n_az;
+    for (size_t j = 0; j < n_az; j++) {
+        caz[j] = cos(2.0 * M_PI * j / n_az);
+        saz[j] = sin(2.0 * M_PI * j / n_az);
+    }
     for (size_t i = 0; i < n_el; i++) {
         double el = fmin(lo + i * (hi - lo) / (n_el - 1), hi);
-        for (size_t j = 0; j < n_az; j++)
-            g[i * n_az + j] = power_at(e, 2.0 * M_PI * j / n_az, el);
+        double ce = cos(el), se = sin(el);
+        for (size_t j = 0; j < n_az; j++) {
+            double re, im;
+            field_dir(e, ce * caz[j], ce * saz[j], se, el, &re, &im);
+            g[i * n_az + j] = re * re + im * im;
+        }
     }
     /* the best local maxima of the grid (azimuth wraps) */
     size_t cand[PEAK_CANDIDATES];
@@ -694,8 +729,9 @@ static cxl_status find_peak(const array_eval *e, double lo, double hi,
     for (size_t i = 0; i < n_el; i++)
         for (size_t j = 0; j < n_az; j++) {
             double v = g[i * n_az + j];
-            if (!(v > 0.0))
-                continue;
+            if (!(v > 0.0) || (j > 0 && fabs(lo + i * (hi - lo) / (n_el - 1)) >=
+                                             0.5 * M_PI - 1e-12))
+                continue;   /* a pole is one direction: keep azimuth 0 */
             int is_max = 1;
             for (int di = -1; di <= 1 && is_max; di++) {
                 if ((di < 0 && i == 0) || (di > 0 && i + 1 == n_el))
@@ -731,7 +767,10 @@ static cxl_status find_peak(const array_eval *e, double lo, double hi,
         best_az = 2.0 * M_PI * (cand[0] % n_az) / n_az;
         best_el = fmin(lo + (cand[0] / n_az) * (hi - lo) / (n_el - 1), hi);
     }
-    for (size_t c = 0; c < nc && st == CXL_OK; c++) {
+    /* a lobe sampled at least every quarter of its width shows at least
+     * half its peak on the grid, so weaker grid maxima cannot win */
+    for (size_t c = 0; c < nc && st == CXL_OK && g[cand[c]] >= 0.5 * g[cand[0]];
+         c++) {
         double az = 2.0 * M_PI * (cand[c] % n_az) / n_az;
         double el = fmin(lo + (cand[c] / n_az) * (hi - lo) / (n_el - 1), hi);
         st = refine_peak(e, lo, hi, az, el, h, &best, &best_az, &best_el);

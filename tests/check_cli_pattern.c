@@ -283,6 +283,11 @@ START_TEST(bad_input)
 {
     bad("pattern --spacing 10m", "band");
     bad("pattern --spacing -3m --freq 1.83MHz", "spacing");
+    /* the bounded work: 20 m at 8 GHz is 534 wavelengths, the limit for
+     * 20 m is 300 c / (2 pi 20 m) = 715.7 MHz (coaxline.h) */
+    bad_also("pattern --spacing 20m --freq 8GHz", "freq", "715.7");
+    bad_also("pattern --spacing 20m --freq 1.83MHz --plot /dev/null --plot-freq 1GHz", "plot-freq",
+             "stops at");
     bad("pattern --spacing 1,5m --freq 1.83MHz", "spacing");
     bad("pattern --stagger 10m --freq 1.83MHz --feed broadfire", "feed");
     bad("pattern --freq 1.83MHz --feed crossfire", "stagger");
