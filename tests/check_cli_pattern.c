@@ -16,37 +16,9 @@
 #define F100 "--freq 2.99792458MHz"
 #define MODEL "free space, no ground, no mutual coupling"
 
-/* The number after "key": in the row-th object of a JSON array. */
-static double json_num(const char *json, int row, const char *key)
-{
-    char pat[80];
-    snprintf(pat, sizeof pat, "\"%s\":", key);
-    const char *p = json;
-    for (int i = 0; i <= row; i++) {
-        p = strstr(p, pat);
-        ck_assert_msg(p != NULL, "no %s in row %d of %s", key, row, json);
-        p += strlen(pat);
-    }
-    char tok[64];
-    size_t n = strcspn(p, ",}");
-    ck_assert(n < sizeof tok);
-    memcpy(tok, p, n);
-    tok[n] = '\0';
-    double v;
-    ck_assert_msg(cxl_units_parse_number(tok, &v, NULL) == CXL_OK, "%s is %s", key, tok);
-    return v;
-}
-
-static double run_num(const char *args, int row, const char *key)
-{
-    char full[1024];
-    snprintf(full, sizeof full, "%s --format json", args);
-    cli_result r = run_cli(NULL, full, NULL);
-    ck_assert_msg(r.rc == 0 || r.rc == 1, "'%s' exit %d: %s", args, r.rc, r.err);
-    double v = json_num(r.out, row, key);
-    cli_result_free(&r);
-    return v;
-}
+/* JSON number helpers shared with check_cli_array (testutil.c). */
+#define json_num json_number
+#define run_num run_json_number
 
 START_TEST(rdf_broadside_and_endfire)
 {
