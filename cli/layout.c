@@ -148,15 +148,66 @@ static FILE *open_input(const cli_ctx *ctx, const char *field, const char *path)
     return fp;
 }
 
-static int finish_read(const cli_ctx *ctx, const char *field, FILE *fp, cxl_status st,
-                       const cxl_csv_reader *rd, int code)
+/* A CSV file being read: its stream, reader and a context whose errors
+ * name the file and the current line. */
+typedef struct {
+    FILE *fp;
+    cxl_csv_reader *rd;
+    cli_ctx rc;
+} csv_in;
+
+/* Open path, read its header and map it to names; 0, or CLI_EXIT_USAGE
+ * after cli_error() (nothing left open). */
+static int csv_open(cli_ctx *ctx, const char *field, const char *path, const char *const *names,
+                    int n, int *map, const char *example, csv_in *in)
+{
+    in->fp = open_input(ctx, field, path);
+    if (!in->fp) return CLI_EXIT_USAGE;
+    in->rc = *ctx;
+    in->rc.input_name = strcmp(path, "-") == 0 ? "standard input" : path;
+    in->rc.line = 0;
+    if (cxl_csv_reader_new_stream(in->fp, &in->rd) != CXL_OK) {
+        if (in->fp != stdin) fclose(in->fp);
+        return cli_error(ctx, field, NULL, "out of memory");
+    }
+    int has_row = 0, code;
+    cxl_status st = cxl_csv_reader_next(in->rd, &has_row);
+    if (st == CXL_OK && !has_row) {
+        code = cli_error(ctx, field, example, "'%s' is empty", path);
+    } else if (st == CXL_OK) {
+        in->rc.line = cxl_csv_reader_line(in->rd);
+        code = map_header(&in->rc, field, in->rd, names, n, map, example);
+    } else {
+        code = cli_error(&in->rc, field, example, "malformed header (%s)", cxl_strerror(st));
+    }
+    if (code) {
+        cxl_csv_reader_free(in->rd);
+        if (in->fp != stdin) fclose(in->fp);
+    }
+    return code;
+}
+
+/* The next record (0 at the end or after a malformed one: see *st). */
+static int csv_next(csv_in *in, cxl_status *st)
+{
+    int has_row = 0;
+    *st = cxl_csv_reader_next(in->rd, &has_row);
+    if (*st != CXL_OK || !has_row) return 0;
+    in->rc.line = cxl_csv_reader_line(in->rd);
+    return 1;
+}
+
+/* Close the file: a malformed record or a read error is reported unless
+ * code already holds an error. */
+static int csv_close(csv_in *in, const char *field, cxl_status st, int code)
 {
     if (!code && st != CXL_OK)
-        code = cli_error(ctx, field, "an RFC 4180 CSV file", "line %zu: malformed CSV (%s)",
-                         cxl_csv_reader_line(rd), cxl_strerror(st));
-    if (!code && ferror(fp))
-        code = cli_error(ctx, field, "a readable CSV file", "read error");
-    if (fp != stdin) fclose(fp);
+        code = cli_error(&in->rc, field, "an RFC 4180 CSV file", "malformed CSV (%s)",
+                         cxl_strerror(st));
+    if (!code && ferror(in->fp))
+        code = cli_error(&in->rc, field, "a readable CSV file", "read error");
+    cxl_csv_reader_free(in->rd);
+    if (in->fp != stdin) fclose(in->fp);
     return code;
 }
 
@@ -164,34 +215,20 @@ int cli_layout_load(cli_ctx *ctx, const char *field, const char *path, double vf
                     double design_hz, cli_layout *out)
 {
     memset(out, 0, sizeof *out);
-    FILE *fp = open_input(ctx, field, path);
-    if (!fp) return CLI_EXIT_USAGE;
-    cli_ctx rc = *ctx;   /* errors name the layout file and its line */
-    rc.input_name = strcmp(path, "-") == 0 ? "standard input" : path;
-    rc.line = 0;
-    cxl_csv_reader *rd;
-    if (cxl_csv_reader_new_stream(fp, &rd) != CXL_OK) {
-        if (fp != stdin) fclose(fp);
-        return cli_error(ctx, field, NULL, "out of memory");
-    }
-    int map[NCOL], has_row = 0, code = 0;
-    cxl_status st = cxl_csv_reader_next(rd, &has_row);
-    if (st == CXL_OK && !has_row) {
-        code = cli_error(ctx, field, HEADER_EXAMPLE, "'%s' is empty", path);
-    } else if (st == CXL_OK) {
-        rc.line = cxl_csv_reader_line(rd);
-        code = map_header(&rc, field, rd, col_name, NCOL, map, HEADER_EXAMPLE);
-        if (!code && (map[COL_X] < 0 || map[COL_Y] < 0))
-            code = cli_error(&rc, map[COL_X] < 0 ? "x" : "y", HEADER_EXAMPLE,
-                             "the layout has no %s column: every element needs its position",
-                             map[COL_X] < 0 ? "x" : "y");
-    }
+    csv_in in;
+    int map[NCOL];
+    if (csv_open(ctx, field, path, col_name, NCOL, map, HEADER_EXAMPLE, &in))
+        return CLI_EXIT_USAGE;
+    int code = 0;
+    if (map[COL_X] < 0 || map[COL_Y] < 0)
+        code = cli_error(&in.rc, map[COL_X] < 0 ? "x" : "y", HEADER_EXAMPLE,
+                         "the layout has no %s column: every element needs its position",
+                         map[COL_X] < 0 ? "x" : "y");
     size_t cap = 0;
-    while (!code && st == CXL_OK && (st = cxl_csv_reader_next(rd, &has_row)) == CXL_OK &&
-           has_row) {
-        rc.line = cxl_csv_reader_line(rd);
+    cxl_status st = CXL_OK;
+    while (!code && csv_next(&in, &st)) {
         if (out->n >= CXL_ARRAY_MAX_ELEMENTS) {
-            code = cli_error(&rc, "label", "at most 256 elements",
+            code = cli_error(&in.rc, "label", "at most 256 elements",
                              "more than %d elements", CXL_ARRAY_MAX_ELEMENTS);
             break;
         }
@@ -206,25 +243,24 @@ int cli_layout_load(cli_ctx *ctx, const char *field, const char *path, double vf
             cap = ncap;
         }
         cli_layout_elem *e = &out->el[out->n];
-        code = row(&rc, rd, map, out->n, vf, design_hz, e);
+        code = row(&in.rc, in.rd, map, out->n, vf, design_hz, e);
         for (size_t j = 0; !code && j < out->n; j++) {
             const cli_layout_elem *o = &out->el[j];
             if (strcmp(o->label, e->label) == 0)
-                code = cli_error(&rc, "label", "a label no other element has",
+                code = cli_error(&in.rc, "label", "a label no other element has",
                                  "label '%s' is already used on line %zu", e->label, o->file_line);
             else if (fabs(o->x_m - e->x_m) < SAME_PLACE_M && fabs(o->y_m - e->y_m) < SAME_PLACE_M &&
                      fabs(o->z_m - e->z_m) < SAME_PLACE_M)
-                code = cli_error(&rc, "x", "elements at least 1 mm apart",
+                code = cli_error(&in.rc, "x", "elements at least 1 mm apart",
                                  "element '%s' is at the same place as '%s' (line %zu)", e->label,
                                  o->label, o->file_line);
         }
         if (!code) out->n++;
     }
-    if (!code && st == CXL_OK && out->n == 0)
+    code = csv_close(&in, field, st, code);
+    if (!code && out->n == 0)
         code = cli_error(ctx, field, "one row per element under the header",
                          "'%s' holds no element", path);
-    code = finish_read(&rc, field, fp, code ? CXL_OK : st, rd, code);
-    cxl_csv_reader_free(rd);
     if (code) cli_layout_free(out);
     return code;
 }
@@ -250,63 +286,48 @@ int cli_layout_as_built(cli_ctx *ctx, const char *field, const char *path, cli_l
         e->phase_error_deg = 0.0;
         e->imbalance_db = 0.0;
     }
-    FILE *fp = open_input(ctx, field, path);
-    if (!fp) return CLI_EXIT_USAGE;
-    cli_ctx rc = *ctx;
-    rc.input_name = strcmp(path, "-") == 0 ? "standard input" : path;
-    rc.line = 0;
-    cxl_csv_reader *rd;
-    if (cxl_csv_reader_new_stream(fp, &rd) != CXL_OK) {
-        if (fp != stdin) fclose(fp);
-        return cli_error(ctx, field, NULL, "out of memory");
-    }
-    int map[NAB], has_row = 0, code = 0;
-    cxl_status st = cxl_csv_reader_next(rd, &has_row);
-    if (st == CXL_OK && !has_row) {
-        code = cli_error(ctx, field, AB_EXAMPLE, "'%s' is empty", path);
-    } else if (st == CXL_OK) {
-        rc.line = cxl_csv_reader_line(rd);
-        code = map_header(&rc, field, rd, ab_name, NAB, map, AB_EXAMPLE);
-        if (!code && map[AB_LABEL] < 0)
-            code = cli_error(&rc, "label", AB_EXAMPLE, "the as-built file has no label column");
-    }
-    while (!code && st == CXL_OK && (st = cxl_csv_reader_next(rd, &has_row)) == CXL_OK &&
-           has_row) {
-        rc.line = cxl_csv_reader_line(rd);
+    csv_in in;
+    int map[NAB];
+    if (csv_open(ctx, field, path, ab_name, NAB, map, AB_EXAMPLE, &in)) return CLI_EXIT_USAGE;
+    int code = 0;
+    if (map[AB_LABEL] < 0)
+        code = cli_error(&in.rc, "label", AB_EXAMPLE, "the as-built file has no label column");
+    cxl_status st = CXL_OK;
+    while (!code && csv_next(&in, &st)) {
+        cli_ctx *rc = &in.rc;
+        const cxl_csv_reader *rd = in.rd;
         const char *label = cell(rd, map, AB_LABEL);
         cli_layout_elem *e = NULL;
         for (size_t i = 0; i < layout->n; i++)
             if (strcmp(layout->el[i].label, label) == 0) e = &layout->el[i];
         if (!e) {
-            code = cli_error(&rc, "label", "a label of the layout", "no element '%s' in the layout",
+            code = cli_error(rc, "label", "a label of the layout", "no element '%s' in the layout",
                              label);
             break;
         }
         if (cell(rd, map, AB_LINE)[0]) {
             if (!e->has_line) {
-                code = cli_error(&rc, "line", "a measured line for an element the layout gives a line",
+                code = cli_error(rc, "line", "a measured line for an element the layout gives a line",
                                  "element '%s' has no line in the layout", label);
                 break;
             }
-            if (cli_length(&rc, "line", cell(rd, map, AB_LINE), CLI_NONNEG, &e->built_line_m)) {
+            if (cli_length(rc, "line", cell(rd, map, AB_LINE), CLI_NONNEG, &e->built_line_m)) {
                 code = CLI_EXIT_USAGE;
                 break;
             }
         }
         if (cell(rd, map, AB_PHASE)[0] &&
-            cli_number(&rc, "phase_error", cell(rd, map, AB_PHASE), -180.0, 180.0,
+            cli_number(rc, "phase_error", cell(rd, map, AB_PHASE), -180.0, 180.0,
                        "degrees the element lags by, -180 to 180", &e->phase_error_deg)) {
             code = CLI_EXIT_USAGE;
             break;
         }
         if (cell(rd, map, AB_IMBALANCE)[0] &&
-            cli_number(&rc, "imbalance", cell(rd, map, AB_IMBALANCE), -60.0, 60.0,
+            cli_number(rc, "imbalance", cell(rd, map, AB_IMBALANCE), -60.0, 60.0,
                        "dB the element is weaker by, -60 to 60", &e->imbalance_db)) {
             code = CLI_EXIT_USAGE;
             break;
         }
     }
-    code = finish_read(&rc, field, fp, code ? CXL_OK : st, rd, code);
-    cxl_csv_reader_free(rd);
-    return code;
+    return csv_close(&in, field, st, code);
 }
