@@ -280,8 +280,8 @@ typedef struct cli_svg_xy {
     size_t nhlines;
 } cli_svg_xy;
 
-/* Write a polar plot (azimuth 0 at the top, counter-clockwise as seen from
- * above, rings in dB) or an x-y plot (axes fitted to the data, spans and
+/* Write a polar plot (azimuth 0 at the top, clockwise as seen from above
+ * like a compass bearing, rings in dB) or an x-y plot (axes fitted to the data, spans and
  * lines) to fp.  Return 0, or -1 when writing failed. */
 int cli_svg_polar_write(FILE *fp, const cli_svg_polar *plot);
 int cli_svg_xy_write(FILE *fp, const cli_svg_xy *plot);
@@ -502,5 +502,44 @@ int cli_errplot_save(cli_ctx *ctx, const char *field, const char *path,
                      const cli_freq_point *pts, int n, cli_err_fn fn, void *user,
                      const cli_errplot *plot);
 
+
+
+/* ---- array layouts (layout.c): shared by array and harness ------------ */
+
+/* One element of a layout CSV (label,x,y,z,delay,line,degrees,invert,
+ * weight; only x and y are required). */
+typedef struct cli_layout_elem {
+    char label[64];         /* the label column, or E1, E2, ... */
+    double x_m, y_m, z_m;   /* x forward, y right, z up */
+    double delay_s;         /* feed delay from delay, line or degrees */
+    double line_m;          /* the line column (when has_line) */
+    int has_line;
+    int invert;             /* polarity reversed */
+    double weight_db;       /* relative voltage amplitude */
+    size_t file_line;       /* line of the row in the file */
+    double built_line_m;    /* as built (cli_layout_as_built) */
+    double phase_error_deg; /* as built: lags by this much */
+    double imbalance_db;    /* as built: weaker by this much */
+} cli_layout_elem;
+
+typedef struct cli_layout {
+    size_t n;
+    cli_layout_elem *el;
+} cli_layout;
+
+/* Read a layout file (path, or "-" for standard input).  A line column
+ * needs vf > 0, a degrees column design_hz > 0 (0: not given).  Duplicate
+ * labels, two elements within 1 mm, more than CXL_ARRAY_MAX_ELEMENTS, a
+ * missing position and a delay that disagrees with the line or degrees of
+ * its row are one-line errors naming the file line and the column.
+ * Returns 0, or CLI_EXIT_USAGE after cli_error(). */
+int cli_layout_load(cli_ctx *ctx, const char *field, const char *path, double vf,
+                    double design_hz, cli_layout *layout);
+void cli_layout_free(cli_layout *layout);
+/* Read an as-built file (label,line,phase_error,imbalance) into the
+ * layout's built_line_m, phase_error_deg and imbalance_db (elements it
+ * does not name keep the design values). */
+int cli_layout_as_built(cli_ctx *ctx, const char *field, const char *path, cli_layout *layout);
+extern const cli_command cli_cmd_array;
 
 #endif

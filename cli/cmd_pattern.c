@@ -46,11 +46,32 @@ typedef struct {
 
 static const char *const case_name[2] = { "ideal", "as-built" };
 
+/* Above the frequency at which the pair's electrical size reaches the
+ * model's bound (CXL_ARRAY_MAX_KSIZE), say so with the limit; 0 below. */
+static int size_limit(cli_ctx *ctx, const char *field, const cli_pair_spec *s, double f)
+{
+    double size_m = hypot(s->spacing_m, s->stagger_m) + (s->wire ? s->wire_length_m : 0.0);
+    if (!(size_m > 0.0)) return 0;
+    double max_hz = CXL_ARRAY_MAX_KSIZE * CXL_C_M_PER_S / (2.0 * M_PI * size_m);
+    if (f <= max_hz) return 0;
+    char b1[32], b2[32], b3[32], want[96];
+    snprintf(want, sizeof want, "a frequency up to %s MHz for this geometry",
+             cli_fmt(b1, sizeof b1, max_hz / 1e6, 3));
+    return cli_error(ctx, field, want,
+                     "at %s MHz the pair spans %s wavelengths; the pattern model stops at %s "
+                     "(electrical size k D <= %g)",
+                     cli_fmt(b2, sizeof b2, f / 1e6, 6),
+                     cli_fmt(b3, sizeof b3, size_m * f / CXL_C_M_PER_S, 1),
+                     cli_fmt(b1, sizeof b1, CXL_ARRAY_MAX_KSIZE / (2.0 * M_PI), 1),
+                     CXL_ARRAY_MAX_KSIZE);
+}
+
 /* The pair of one case at one frequency and what it does. */
 static int evaluate(cli_ctx *ctx, const cli_pair_spec *s, int as_built, double f,
                     pattern_row *r)
 {
     cxl_array_pair *p;
+    if (size_limit(ctx, "freq", s, f)) return CLI_EXIT_USAGE;
     if (cli_pair_spec_build(ctx, s, as_built, f, &p, &r->phase_deg, &r->imbalance_db))
         return CLI_EXIT_USAGE;
     double el = s->elevation_deg;
@@ -83,6 +104,7 @@ static int plot(cli_ctx *ctx, const cli_args *a, const cli_pair_spec *s, double 
     char names[2][96], title[200], b1[32], b2[32], b3[32];
     cli_svg_curve curves[2];
     int ncases = s->has_errors ? 2 : 1;
+    if (size_limit(ctx, "plot-freq", s, f)) return CLI_EXIT_USAGE;
     for (int i = 0; i < PLOT_POINTS; i++) az[i] = 360.0 * i / PLOT_POINTS;
     for (int c = 0; c < ncases; c++) {
         cxl_array_pair *p;
@@ -107,7 +129,7 @@ static int plot(cli_ctx *ctx, const cli_args *a, const cli_pair_spec *s, double 
         .note = { "Model: free space, no ground, no mutual coupling, lossless ideal combiner; "
                   "gain in dBi.",
                   "RDF = peak gain over the average over the upper hemisphere (elevation 0-90 deg).",
-                  "Azimuth 0 is the forward axis (towards A), counter-clockwise seen from above." },
+                  "Azimuth 0 is the forward axis, clockwise seen from above (a compass bearing)." },
         .unit = "dBi",
         .range_db = range_db,
         .ring_step_db = range_db >= 30.0 ? 10.0 : 5.0,

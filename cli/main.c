@@ -16,6 +16,7 @@ static const cli_command *const commands[] = {
     &cli_cmd_cables,
     &cli_cmd_loss,
     &cli_cmd_pattern,
+    &cli_cmd_array,
     &cli_cmd_budget,
     &cli_cmd_hybrid,
     &cli_cmd_demo,

@@ -174,13 +174,13 @@ int cli_svg_polar_write(FILE *fp, const cli_svg_polar *p)
                  p->unit ? p->unit : "dB");
         label_at(fp, cx + 0.7071 * r + 3.0, cy + 0.7071 * r - 3.0, "start", 10, 1, t);
     }
-    /* spokes and azimuth labels: 0 at the top, counter-clockwise */
+    /* spokes and azimuth labels: 0 at the top, clockwise (a compass) */
     for (int az = 0; az < 360; az += 30) {
         double s = sin(az * DEG), c = cos(az * DEG);
-        line(fp, cx, cy, cx - radius * s, cy - radius * c, "#d0d0d0", 1.0, NULL);
+        line(fp, cx, cy, cx + radius * s, cy - radius * c, "#d0d0d0", 1.0, NULL);
         char t[32];
         snprintf(t, sizeof t, "%d\xC2\xB0", az);
-        label(fp, cx - (radius + 16.0) * s, cy - (radius + 16.0) * c + 4.0, "middle", 12, t);
+        label(fp, cx + (radius + 16.0) * s, cy - (radius + 16.0) * c + 4.0, "middle", 12, t);
     }
     for (size_t k = 0; k < p->ncurves; k++) {
         const cli_svg_curve *cv = &p->curves[k];
@@ -192,7 +192,7 @@ int cli_svg_polar_write(FILE *fp, const cli_svg_polar *p)
             double r = radius * fmin(fmax((v - floor_db) / range, 0.0), 1.0);
             double a = cv->x[i] * DEG;
             fputs(started ? " L" : "M", fp);
-            xy(fp, cx - r * sin(a), cy - r * cos(a));
+            xy(fp, cx + r * sin(a), cy - r * cos(a));
             started = 1;
         }
         if (started) fputs(" Z", fp);

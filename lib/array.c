@@ -1,27 +1,62 @@
-/* array.c - pattern of a two-element receive pair in free space: response,
- * gain, front-to-back ratio, rear null, directivity and receiving
- * directivity factor.  The model is described in coaxline.h.
+/* array.c - pattern of a receive array of N elements (a pair is N = 2):
+ * field, response, gain, front-to-back ratio, rear null, -3 dB beamwidth,
+ * directivity and receiving directivity factor.  The model is described
+ * in coaxline.h.
  *
- * The pair's output is |a0 + a1 e^{j psi}|^2 = (a0 - a1)^2 + 4 a0 a1
- * cos^2(psi/2) (sin^2 when one element is flipped), psi the phase of
- * element 1 relative to element 0.  Written this way a deep null keeps its
- * precision instead of cancelling a0^2 + a1^2 against 2 a0 a1. */
+ * One implementation: the two-element pair API (cxl_array_pair_*,
+ * cxl_array_gain, ...) builds a two-element cxl_array on the stack and
+ * calls the same evaluation code as the N-element API.
+ *
+ * Work is bounded by the array's electrical size S = k D (+ the wire's
+ * and the ground image's share), which is refused above
+ * CXL_ARRAY_MAX_KSIZE:
+ *   - sphere and hemisphere means: for an element pattern that does not
+ *     depend on azimuth (isotropic, vertical) the azimuth integral is done
+ *     exactly, <e^{j k u.d}>_az = J0(k rho cos el) e^{j k dz sin el}, so
+ *     only the elevation integral is numeric (Gauss-Legendre, doubled until
+ *     two estimates agree); the wire element keeps a product rule;
+ *   - peak: a coarse grid of about four points per lobe width (pi / S),
+ *     then a simplex refinement of the best few local maxima;
+ *   - rear null and beamwidth: a one-dimensional scan of the same
+ *     resolution, refined by Brent minimisation or bisection. */
 #include <config.h>
 #include <math.h>
 #include <stdlib.h>
+#include <string.h>
 #include <gsl/gsl_errno.h>
 #include <gsl/gsl_integration.h>
 #include <gsl/gsl_math.h>
 #include <gsl/gsl_min.h>
 #include <gsl/gsl_multimin.h>
+#include <gsl/gsl_sf_bessel.h>
 #include "coaxline.h"
 #include "internal.h"
 
 #define DEG (M_PI / 180.0)
 /* Two successive estimates of a mean must agree this closely. */
 #define CXL__MEAN_RTOL 1e-10
+/* Local maxima of the coarse grid refined by the simplex. */
+#define PEAK_CANDIDATES 6
+/* Local minima of the rear scan refined by Brent. */
+#define NULL_CANDIDATES 4
 
-enum { ELEMENT_ISOTROPIC = 0, ELEMENT_LONG_WIRE = 1 };
+typedef struct {
+    double x_m, y_m, z_m;
+    double delay_s;                   /* fixed part of the feed delay */
+    double line_m;                    /* feed line, 0 for none */
+    double line_vf;                   /* lossless line when > 0 */
+    const cxl_loss_model *line_model; /* lossy line when not NULL */
+    double phase_rad;
+    int reversed;
+    double weight_db;
+} array_elem;
+
+struct cxl_array {
+    size_t n, cap;
+    array_elem *el;
+    int kind;
+    double wire_length_m, wire_vf;
+};
 
 struct cxl_array_pair {
     double spacing_m;
@@ -35,18 +70,1044 @@ struct cxl_array_pair {
     double wire_vf;
 };
 
-/* What depends on the frequency only, worked out once per call. */
+/* What depends on the frequency only, worked out once per call.
+ * Positions are stored multiplied by k (radians per unit direction). */
 typedef struct {
-    double k;        /* free-space wavenumber, rad/m */
-    double dx, dy;   /* position of element 1 minus element 0, m */
-    double a0, a1;   /* amplitudes */
-    double psi0;     /* feed phase of element 1 relative to element 0, rad */
-    int flipped;     /* exactly one element inverted */
-    int wire;
+    double k;
+    size_t n;
+    int kind;
     double wire_x;   /* pi L / lambda */
     double inv_p;    /* 1 / wire VF */
     double size;     /* electrical size: sets grid steps and node counts */
-} pair_eval;
+    double scale;    /* (sum |w_i|)^2: the coherent maximum of |AF|^2 */
+    double kx[CXL_ARRAY_MAX_ELEMENTS], ky[CXL_ARRAY_MAX_ELEMENTS];
+    double kz[CXL_ARRAY_MAX_ELEMENTS];
+    double wr[CXL_ARRAY_MAX_ELEMENTS], wi[CXL_ARRAY_MAX_ELEMENTS];
+} array_eval;
+
+/* ---- the N-element array: building it --------------------------------- */
+
+cxl_status cxl_array_new(cxl_array **array)
+{
+    if (!array)
+        return CXL_EINVAL;
+    cxl_array *a = calloc(1, sizeof *a);
+    if (!a)
+        return CXL_ENOMEM;
+    a->kind = CXL_ELEMENT_ISOTROPIC;
+    a->wire_vf = 1.0;
+    *array = a;
+    return CXL_OK;
+}
+
+void cxl_array_free(cxl_array *array)
+{
+    if (!array)
+        return;
+    free(array->el);
+    free(array);
+}
+
+cxl_status cxl_array_copy(const cxl_array *array, cxl_array **copy)
+{
+    if (!array || !copy)
+        return CXL_EINVAL;
+    cxl_array *a = malloc(sizeof *a);
+    if (!a)
+        return CXL_ENOMEM;
+    *a = *array;
+    a->el = NULL;
+    if (array->n) {
+        a->el = malloc(array->n * sizeof *a->el);
+        if (!a->el) {
+            free(a);
+            return CXL_ENOMEM;
+        }
+        memcpy(a->el, array->el, array->n * sizeof *a->el);
+    }
+    a->cap = array->n;
+    *copy = a;
+    return CXL_OK;
+}
+
+static int valid_position(double x_m, double y_m, double z_m)
+{
+    return isfinite(x_m) && isfinite(y_m) && isfinite(z_m);
+}
+
+cxl_status cxl_array_add(cxl_array *array, double x_m, double y_m,
+                         double z_m, size_t *index)
+{
+    if (!array || !valid_position(x_m, y_m, z_m))
+        return CXL_EINVAL;
+    if (array->n >= CXL_ARRAY_MAX_ELEMENTS)
+        return CXL_ERANGE;
+    if (array->n == array->cap) {
+        size_t cap = array->cap ? 2 * array->cap : 4;
+        array_elem *el = realloc(array->el, cap * sizeof *el);
+        if (!el)
+            return CXL_ENOMEM;
+        array->el = el;
+        array->cap = cap;
+    }
+    array_elem *e = &array->el[array->n];
+    memset(e, 0, sizeof *e);
+    e->x_m = x_m;
+    e->y_m = y_m;
+    e->z_m = z_m;
+    if (index)
+        *index = array->n;
+    array->n++;
+    return CXL_OK;
+}
+
+size_t cxl_array_count(const cxl_array *array)
+{
+    return array ? array->n : 0;
+}
+
+static array_elem *element_of(cxl_array *array, size_t i)
+{
+    return array && i < array->n ? &array->el[i] : NULL;
+}
+
+cxl_status cxl_array_set_position(cxl_array *array, size_t i, double x_m,
+                                  double y_m, double z_m)
+{
+    array_elem *e = element_of(array, i);
+    if (!e || !valid_position(x_m, y_m, z_m))
+        return CXL_EINVAL;
+    e->x_m = x_m;
+    e->y_m = y_m;
+    e->z_m = z_m;
+    return CXL_OK;
+}
+
+cxl_status cxl_array_set_delay(cxl_array *array, size_t i, double delay_s)
+{
+    array_elem *e = element_of(array, i);
+    if (!e || !cxl__finite_nonneg(delay_s))
+        return CXL_EINVAL;
+    e->delay_s = delay_s;
+    return CXL_OK;
+}
+
+cxl_status cxl_array_set_line(cxl_array *array, size_t i, double length_m,
+                              double vf)
+{
+    array_elem *e = element_of(array, i);
+    if (!e || !cxl__finite_nonneg(length_m) || !cxl__valid_vf(vf))
+        return CXL_EINVAL;
+    e->line_m = length_m;
+    e->line_vf = vf;
+    e->line_model = NULL;
+    return CXL_OK;
+}
+
+cxl_status cxl_array_set_line_model(cxl_array *array, size_t i,
+                                    double length_m,
+                                    const cxl_loss_model *model)
+{
+    array_elem *e = element_of(array, i);
+    if (!e || !cxl__finite_nonneg(length_m) || !model)
+        return CXL_EINVAL;
+    e->line_m = length_m;
+    e->line_vf = 0.0;
+    e->line_model = model;
+    return CXL_OK;
+}
+
+cxl_status cxl_array_set_reversed(cxl_array *array, size_t i, int reversed)
+{
+    array_elem *e = element_of(array, i);
+    if (!e)
+        return CXL_EINVAL;
+    e->reversed = reversed != 0;
+    return CXL_OK;
+}
+
+cxl_status cxl_array_set_weight(cxl_array *array, size_t i,
+                                double weight_db)
+{
+    array_elem *e = element_of(array, i);
+    if (!e || !isfinite(weight_db) || fabs(weight_db) > 200.0)
+        return CXL_EINVAL;
+    e->weight_db = weight_db;
+    return CXL_OK;
+}
+
+cxl_status cxl_array_set_phase_offset(cxl_array *array, size_t i,
+                                      double phase_deg)
+{
+    array_elem *e = element_of(array, i);
+    if (!e || !isfinite(phase_deg))
+        return CXL_EINVAL;
+    e->phase_rad = fmod(phase_deg, 360.0) * DEG;
+    return CXL_OK;
+}
+
+cxl_status cxl_array_set_element(cxl_array *array, cxl_element_kind kind,
+                                 double wire_length_m, double wire_vf)
+{
+    if (!array)
+        return CXL_EINVAL;
+    switch (kind) {
+    case CXL_ELEMENT_ISOTROPIC:
+    case CXL_ELEMENT_VERTICAL:
+        array->kind = (int)kind;
+        return CXL_OK;
+    case CXL_ELEMENT_WIRE:
+        if (!cxl__finite_pos(wire_length_m) || !cxl__valid_vf(wire_vf))
+            return CXL_EINVAL;
+        array->kind = (int)kind;
+        array->wire_length_m = wire_length_m;
+        array->wire_vf = wire_vf;
+        return CXL_OK;
+    }
+    return CXL_EINVAL;
+}
+
+/* Electrical size per unit k: the bounding box's diagonal (at least the
+ * largest distance between two elements), the ground image's height and
+ * the wire's length in free-space wavelengths (a multiple of lambda / pi). */
+static void extent(const cxl_array *a, double *span_m, double *extra_m)
+{
+    double lo[3] = { INFINITY, INFINITY, INFINITY };
+    double hi[3] = { -INFINITY, -INFINITY, -INFINITY };
+    double zmax = 0.0;
+    for (size_t i = 0; i < a->n; i++) {
+        const double p[3] = { a->el[i].x_m, a->el[i].y_m, a->el[i].z_m };
+        for (int c = 0; c < 3; c++) {
+            lo[c] = fmin(lo[c], p[c]);
+            hi[c] = fmax(hi[c], p[c]);
+        }
+        zmax = fmax(zmax, fabs(p[2]));
+    }
+    *span_m = a->n ? sqrt((hi[0] - lo[0]) * (hi[0] - lo[0]) +
+                          (hi[1] - lo[1]) * (hi[1] - lo[1]) +
+                          (hi[2] - lo[2]) * (hi[2] - lo[2]))
+                   : 0.0;
+    *extra_m = 0.0;
+    if (a->kind == CXL_ELEMENT_VERTICAL)
+        *extra_m += 2.0 * zmax;
+    if (a->kind == CXL_ELEMENT_WIRE)
+        *extra_m += a->wire_length_m;   /* 2 pi L / lambda = k L */
+}
+
+cxl_status cxl_array_max_freq(const cxl_array *array, double *freq_hz)
+{
+    if (!array || !freq_hz)
+        return CXL_EINVAL;
+    double span, extra;
+    extent(array, &span, &extra);
+    if (!(span + extra > 0.0))
+        return CXL_ERANGE;   /* no extent: no limit from the geometry */
+    return cxl__put_finite(CXL_ARRAY_MAX_KSIZE * CXL_C_M_PER_S /
+                               (2.0 * M_PI * (span + extra)),
+                           freq_hz);
+}
+
+/* ---- evaluation -------------------------------------------------------- */
+
+static cxl_status prepare(const cxl_array *a, double freq_hz,
+                          array_eval *e)
+{
+    if (!a || !cxl__finite_pos(freq_hz) || a->n == 0)
+        return CXL_EINVAL;
+    double omega = 2.0 * M_PI * freq_hz;
+    e->k = omega / CXL_C_M_PER_S;
+    if (!isfinite(omega) || !(e->k > 0.0))
+        return CXL_ERANGE;
+    double span, extra;
+    extent(a, &span, &extra);
+    e->size = e->k * (span + extra);
+    if (!isfinite(e->size) || e->size > CXL_ARRAY_MAX_KSIZE)
+        return CXL_ERANGE;   /* too many wavelengths: see the header */
+    e->n = a->n;
+    e->kind = a->kind;
+    e->wire_x = a->kind == CXL_ELEMENT_WIRE
+                    ? M_PI * a->wire_length_m * freq_hz / CXL_C_M_PER_S
+                    : 0.0;
+    e->inv_p = 1.0 / a->wire_vf;
+    double sum_w = 0.0;
+    for (size_t i = 0; i < a->n; i++) {
+        const array_elem *el = &a->el[i];
+        double amp = pow(10.0, el->weight_db / 20.0);
+        double ph = el->phase_rad - fmod(omega * el->delay_s, 2.0 * M_PI);
+        if (el->line_m > 0.0 && el->line_vf > 0.0) {
+            ph -= fmod(omega * el->line_m / (el->line_vf * CXL_C_M_PER_S),
+                       2.0 * M_PI);
+        } else if (el->line_m > 0.0 && el->line_model) {
+            double alpha, beta;
+            cxl_status st = cxl_loss_model_gamma(el->line_model, freq_hz, 0,
+                                                 &alpha, &beta);
+            if (st)
+                return st;
+            amp *= exp(-alpha * el->line_m);
+            ph -= fmod(beta * el->line_m, 2.0 * M_PI);
+        }
+        if (!isfinite(ph) || !isfinite(amp))
+            return CXL_ERANGE;
+        if (el->reversed)
+            amp = -amp;
+        e->wr[i] = amp * cos(ph);
+        e->wi[i] = amp * sin(ph);
+        e->kx[i] = e->k * el->x_m;
+        e->ky[i] = e->k * el->y_m;
+        e->kz[i] = e->k * el->z_m;
+        sum_w += fabs(amp);
+    }
+    e->scale = sum_w * sum_w;
+    if (!(e->scale > 0.0) || !isfinite(e->scale))
+        return CXL_ERANGE;
+    return CXL_OK;
+}
+
+/* Element field for a wave from (az, el); signed for the wire. */
+static double element_field(const array_eval *e, double ux, double el)
+{
+    switch (e->kind) {
+    case CXL_ELEMENT_WIRE: {
+        double sin_t = sqrt(fmax(0.0, (1.0 - ux) * (1.0 + ux)));
+        double x = e->wire_x * (e->inv_p - ux);
+        double sinc = fabs(x) < 1e-4 ? 1.0 - x * x / 6.0 : sin(x) / x;
+        return sin_t * sinc;
+    }
+    case CXL_ELEMENT_VERTICAL:
+        return el < 0.0 ? 0.0 : cos(el);
+    default:
+        return 1.0;
+    }
+}
+
+/* The array factor (sum of the weighted element signals, without the
+ * element pattern) for a wave from direction u. */
+static void array_factor(const array_eval *e, double ux, double uy,
+                         double uz, double *re, double *im)
+{
+    double sr = 0.0, si = 0.0;
+    if (e->kind == CXL_ELEMENT_VERTICAL) {
+        for (size_t i = 0; i < e->n; i++) {
+            double ph = e->kx[i] * ux + e->ky[i] * uy;
+            double g = 2.0 * cos(e->kz[i] * uz);   /* element + image */
+            double c = cos(ph), s = sin(ph);
+            sr += g * (e->wr[i] * c - e->wi[i] * s);
+            si += g * (e->wr[i] * s + e->wi[i] * c);
+        }
+    } else {
+        for (size_t i = 0; i < e->n; i++) {
+            double ph = e->kx[i] * ux + e->ky[i] * uy + e->kz[i] * uz;
+            double c = cos(ph), s = sin(ph);
+            sr += e->wr[i] * c - e->wi[i] * s;
+            si += e->wr[i] * s + e->wi[i] * c;
+        }
+    }
+    *re = sr;
+    *im = si;
+}
+
+/* Complex output for a wave from direction (ux, uy, uz) at elevation el
+ * (uz = sin el). */
+static void field_dir(const array_eval *e, double ux, double uy, double uz,
+                      double el, double *re, double *im)
+{
+    double f = element_field(e, ux, el);
+    if (f == 0.0) {
+        *re = *im = 0.0;
+        return;
+    }
+    double r, i;
+    array_factor(e, ux, uy, uz, &r, &i);
+    *re = f * r;
+    *im = f * i;
+}
+
+/* Complex output for a wave from (az, el), radians; azimuth clockwise
+ * from +x towards +y. */
+static void field_at(const array_eval *e, double az, double el, double *re,
+                     double *im)
+{
+    double ce = cos(el);
+    double ux = ce * cos(az), uy = ce * sin(az), uz = sin(el);
+    double f = element_field(e, ux, el);
+    if (f == 0.0) {
+        *re = *im = 0.0;
+        return;
+    }
+    double r, i;
+    array_factor(e, ux, uy, uz, &r, &i);
+    *re = f * r;
+    *im = f * i;
+}
+
+static double power_at(const array_eval *e, double az, double el)
+{
+    double re, im;
+    field_at(e, az, el, &re, &im);
+    return re * re + im * im;
+}
+
+static int valid_elevation(double elevation_deg)
+{
+    return isfinite(elevation_deg) && fabs(elevation_deg) <= 90.0;
+}
+
+/* Neumaier's compensated sum: millions of terms keep ~1e-15 relative. */
+typedef struct {
+    double sum, c;
+} csum;
+
+static void csum_add(csum *s, double x)
+{
+    double t = s->sum + x;
+    if (fabs(s->sum) >= fabs(x))
+        s->c += (s->sum - t) + x;
+    else
+        s->c += (x - t) + s->sum;
+    s->sum = t;
+}
+
+/* ---- means over a band of elevations ----------------------------------- */
+
+/* The pairs of elements of an azimuth-independent element pattern. */
+typedef struct {
+    size_t npairs;
+    double *rho;     /* k times the horizontal distance */
+    double *dz;      /* k times the height difference (free space) */
+    double *cr, *ci; /* w_i conj(w_j) */
+    size_t *i, *j;
+} pair_table;
+
+static void pair_table_free(pair_table *t)
+{
+    free(t->rho);
+    free(t->dz);
+    free(t->cr);
+    free(t->ci);
+    free(t->i);
+    free(t->j);
+}
+
+static cxl_status pair_table_make(const array_eval *e, pair_table *t)
+{
+    size_t m = e->n * (e->n - 1) / 2;
+    size_t alloc = m ? m : 1;
+    t->npairs = m;
+    t->rho = malloc(alloc * sizeof *t->rho);
+    t->dz = malloc(alloc * sizeof *t->dz);
+    t->cr = malloc(alloc * sizeof *t->cr);
+    t->ci = malloc(alloc * sizeof *t->ci);
+    t->i = malloc(alloc * sizeof *t->i);
+    t->j = malloc(alloc * sizeof *t->j);
+    if (!t->rho || !t->dz || !t->cr || !t->ci || !t->i || !t->j) {
+        pair_table_free(t);
+        return CXL_ENOMEM;
+    }
+    size_t p = 0;
+    for (size_t i = 0; i < e->n; i++)
+        for (size_t j = i + 1; j < e->n; j++, p++) {
+            t->rho[p] = hypot(e->kx[i] - e->kx[j], e->ky[i] - e->ky[j]);
+            t->dz[p] = e->kz[i] - e->kz[j];
+            t->cr[p] = e->wr[i] * e->wr[j] + e->wi[i] * e->wi[j];
+            t->ci[p] = e->wi[i] * e->wr[j] - e->wr[i] * e->wi[j];
+            t->i[p] = i;
+            t->j[p] = j;
+        }
+    return CXL_OK;
+}
+
+/* Average of |F|^2 over all azimuths at elevation el (radians), exact:
+ * the mean of e^{j k u.d} over azimuth is J0(k rho cos el) times the
+ * vertical part. */
+static double ring_mean(const array_eval *e, const pair_table *t, double el)
+{
+    double ce = cos(el), se = sin(el);
+    csum s = { 0.0, 0.0 };
+    if (e->kind == CXL_ELEMENT_VERTICAL) {
+        if (el < 0.0)
+            return 0.0;
+        for (size_t i = 0; i < e->n; i++) {
+            double g = 2.0 * cos(e->kz[i] * se);
+            csum_add(&s, (e->wr[i] * e->wr[i] + e->wi[i] * e->wi[i]) * g * g);
+        }
+        for (size_t p = 0; p < t->npairs; p++) {
+            double g = 4.0 * cos(e->kz[t->i[p]] * se) * cos(e->kz[t->j[p]] * se);
+            csum_add(&s, 2.0 * t->cr[p] * g *
+                             gsl_sf_bessel_J0(t->rho[p] * ce));
+        }
+        return ce * ce * (s.sum + s.c);
+    }
+    for (size_t i = 0; i < e->n; i++)
+        csum_add(&s, e->wr[i] * e->wr[i] + e->wi[i] * e->wi[i]);
+    for (size_t p = 0; p < t->npairs; p++) {
+        double ph = t->dz[p] * se;
+        double re = t->cr[p] * cos(ph) - t->ci[p] * sin(ph);
+        csum_add(&s, 2.0 * re * gsl_sf_bessel_J0(t->rho[p] * ce));
+    }
+    return s.sum + s.c;
+}
+
+/* Mean over elevation lo..hi (radians) and all azimuths, weighted by solid
+ * angle, with n Gauss-Legendre nodes in elevation. */
+static double elevation_rule(const array_eval *e, const pair_table *pt,
+                             double lo, double hi,
+                             const gsl_integration_glfixed_table *t,
+                             size_t n_el, size_t n_az)
+{
+    csum total = { 0.0, 0.0 };
+    for (size_t i = 0; i < n_el; i++) {
+        double el, w;
+        gsl_integration_glfixed_point(lo, hi, i, &el, &w, t);
+        double ring;
+        if (pt) {
+            ring = ring_mean(e, pt, el);
+        } else {
+            csum r = { 0.0, 0.0 };
+            for (size_t j = 0; j < n_az; j++)
+                csum_add(&r, power_at(e, 2.0 * M_PI * (j + 0.5) / n_az, el));
+            ring = (r.sum + r.c) / n_az;
+        }
+        csum_add(&total, w * cos(el) * ring);
+    }
+    return total.sum + total.c;
+}
+
+/* Mean of the response over elevation lo..hi and all azimuths. */
+static cxl_status mean_power(const array_eval *e, double lo, double hi,
+                             double *mean)
+{
+    double width = sin(hi) - sin(lo);
+    double ilo = lo;
+    if (e->kind == CXL_ELEMENT_VERTICAL && ilo < 0.0)
+        ilo = 0.0;   /* no field below perfect ground */
+    pair_table pt = { 0 }, *ptp = NULL;
+    if (e->kind != CXL_ELEMENT_WIRE) {
+        cxl_status st = pair_table_make(e, &pt);
+        if (st)
+            return st;
+        ptp = &pt;
+    }
+    /* node counts: the integrand's oscillation grows with the size */
+    size_t n_el = 32, n_az = 32 + 2 * (size_t)ceil(e->size);
+    while ((double)n_el < 16.0 + e->size)
+        n_el *= 2;
+    if (!ptp)
+        n_el = 16 + (size_t)ceil(e->size);
+    double prev = NAN;
+    cxl_status st = CXL_ENOCONV;
+    while (n_el <= 16384) {
+        gsl_integration_glfixed_table *t =
+            gsl_integration_glfixed_table_alloc(n_el);
+        if (!t) {
+            st = CXL_ENOMEM;
+            break;
+        }
+        double cur = hi > ilo ? elevation_rule(e, ptp, ilo, hi, t, n_el, n_az)
+                                   / width
+                              : 0.0;
+        gsl_integration_glfixed_table_free(t);
+        if (!isfinite(cur))
+            break;
+        double tol = CXL__MEAN_RTOL * fmax(fabs(cur), 1e-12 * e->scale);
+        if (isfinite(prev) && fabs(cur - prev) <= tol) {
+            /* the pattern is zero everywhere (to rounding) */
+            st = cur > 1e-13 * e->scale ? CXL_OK : CXL_ERANGE;
+            if (st == CXL_OK)
+                *mean = cur;
+            break;
+        }
+        prev = cur;
+        n_el *= 2;
+        n_az *= 2;
+    }
+    if (ptp)
+        pair_table_free(ptp);
+    return st;
+}
+
+/* ---- peak, null, beamwidth -------------------------------------------- */
+
+/* A coarse step (radians) of about four points per lobe. */
+static double coarse_step(const array_eval *e, double per_lobe,
+                          double max_deg)
+{
+    double h = M_PI / (per_lobe * (e->size + 1.0));
+    return fmin(h, max_deg * DEG);
+}
+
+typedef struct {
+    const array_eval *e;
+    double lo, hi;
+} peak_params;
+
+/* An elevation folded back into lo..hi by reflection at the edges: a
+ * maximum on an edge then stays a smooth maximum for the simplex (the
+ * pattern of elements in one horizontal plane is even about el = 0). */
+static double fold_elevation(double el, double lo, double hi)
+{
+    for (int i = 0; i < 4 && (el < lo || el > hi); i++)
+        el = el < lo ? 2.0 * lo - el : 2.0 * hi - el;
+    return fmin(fmax(el, lo), hi);
+}
+
+static double neg_power(const gsl_vector *v, void *params)
+{
+    const peak_params *pp = params;
+    double el = fold_elevation(gsl_vector_get(v, 1), pp->lo, pp->hi);
+    return -power_at(pp->e, gsl_vector_get(v, 0), el);
+}
+
+/* Nelder-Mead from (az, el); improves *best when it finds more. */
+static cxl_status refine_peak(const array_eval *e, double lo, double hi,
+                              double az, double el, double h, double *best,
+                              double *best_az, double *best_el)
+{
+    peak_params pp = { e, lo, hi };
+    gsl_multimin_function fn = { neg_power, 2, &pp };
+    gsl_vector *x = gsl_vector_alloc(2), *step = gsl_vector_alloc(2);
+    gsl_multimin_fminimizer *m =
+        gsl_multimin_fminimizer_alloc(gsl_multimin_fminimizer_nmsimplex2, 2);
+    if (!x || !step || !m) {
+        gsl_vector_free(x);
+        gsl_vector_free(step);
+        gsl_multimin_fminimizer_free(m);
+        return CXL_ENOMEM;
+    }
+    gsl_vector_set(x, 0, az);
+    gsl_vector_set(x, 1, el);
+    gsl_vector_set_all(step, 0.5 * h);
+    if (gsl_multimin_fminimizer_set(m, &fn, x, step) == GSL_SUCCESS) {
+        for (int it = 0; it < 500; it++) {
+            if (gsl_multimin_fminimizer_iterate(m) != GSL_SUCCESS)
+                break;
+            if (gsl_multimin_test_size(gsl_multimin_fminimizer_size(m),
+                                       1e-9) == GSL_SUCCESS)
+                break;
+        }
+        double p = -gsl_multimin_fminimizer_minimum(m);
+        if (p > *best) {
+            const gsl_vector *xm = gsl_multimin_fminimizer_x(m);
+            *best = p;
+            *best_az = gsl_vector_get(xm, 0);
+            *best_el = fold_elevation(gsl_vector_get(xm, 1), lo, hi);
+        }
+    }
+    gsl_multimin_fminimizer_free(m);
+    gsl_vector_free(x);
+    gsl_vector_free(step);
+    return CXL_OK;
+}
+
+/* Largest response over elevation lo..hi: coarse grid, then the simplex
+ * from the best few local maxima of the grid. */
+static cxl_status find_peak(const array_eval *e, double lo, double hi,
+                            double *az_out, double *el_out, double *p_out)
+{
+    double h = coarse_step(e, 2.0, 10.0);
+    size_t n_az = (size_t)ceil(2.0 * M_PI / h);
+    size_t n_el = (size_t)ceil((hi - lo) / h) + 1;
+    double *g = malloc((n_az * n_el + 2 * n_az) * sizeof *g);
+    if (!g)
+        return CXL_ENOMEM;
+    double *caz = g + n_az * n_el, *saz = caz + n_az;
+    for (size_t j = 0; j < n_az; j++) {
+        caz[j] = cos(2.0 * M_PI * j / n_az);
+        saz[j] = sin(2.0 * M_PI * j / n_az);
+    }
+    for (size_t i = 0; i < n_el; i++) {
+        double el = fmin(lo + i * (hi - lo) / (n_el - 1), hi);
+        double ce = cos(el), se = sin(el);
+        for (size_t j = 0; j < n_az; j++) {
+            double re, im;
+            field_dir(e, ce * caz[j], ce * saz[j], se, el, &re, &im);
+            g[i * n_az + j] = re * re + im * im;
+        }
+    }
+    /* the best local maxima of the grid (azimuth wraps) */
+    size_t cand[PEAK_CANDIDATES];
+    size_t nc = 0;
+    for (size_t i = 0; i < n_el; i++)
+        for (size_t j = 0; j < n_az; j++) {
+            double v = g[i * n_az + j];
+            if (!(v > 0.0) || (j > 0 && fabs(lo + i * (hi - lo) / (n_el - 1)) >=
+                                             0.5 * M_PI - 1e-12))
+                continue;   /* a pole is one direction: keep azimuth 0 */
+            int is_max = 1;
+            for (int di = -1; di <= 1 && is_max; di++) {
+                if ((di < 0 && i == 0) || (di > 0 && i + 1 == n_el))
+                    continue;
+                for (int dj = -1; dj <= 1; dj++) {
+                    if (!di && !dj)
+                        continue;
+                    size_t jj = (j + n_az + (size_t)(dj + 1) - 1) % n_az;
+                    if (g[(i + di) * n_az + jj] > v) {
+                        is_max = 0;
+                        break;
+                    }
+                }
+            }
+            if (!is_max)
+                continue;
+            size_t pos = nc < PEAK_CANDIDATES ? nc++ : PEAK_CANDIDATES;
+            if (pos == PEAK_CANDIDATES) {
+                if (!(v > g[cand[PEAK_CANDIDATES - 1]]))
+                    continue;
+                pos = PEAK_CANDIDATES - 1;
+            }
+            while (pos > 0 && g[cand[pos - 1]] < v) {
+                cand[pos] = cand[pos - 1];
+                pos--;
+            }
+            cand[pos] = i * n_az + j;
+        }
+    double best = -1.0, best_az = 0.0, best_el = lo;
+    cxl_status st = CXL_OK;
+    if (nc > 0) {
+        best = g[cand[0]];
+        best_az = 2.0 * M_PI * (cand[0] % n_az) / n_az;
+        best_el = fmin(lo + (cand[0] / n_az) * (hi - lo) / (n_el - 1), hi);
+    }
+    /* a lobe sampled at least every quarter of its width shows at least
+     * half its peak on the grid, so weaker grid maxima cannot win */
+    for (size_t c = 0; c < nc && st == CXL_OK && g[cand[c]] >= 0.5 * g[cand[0]];
+         c++) {
+        double az = 2.0 * M_PI * (cand[c] % n_az) / n_az;
+        double el = fmin(lo + (cand[c] / n_az) * (hi - lo) / (n_el - 1), hi);
+        st = refine_peak(e, lo, hi, az, el, h, &best, &best_az, &best_el);
+    }
+    free(g);
+    if (st)
+        return st;
+    if (!(best > 0.0))
+        return CXL_ERANGE;
+    best_az = fmod(best_az, 2.0 * M_PI);
+    if (best_az < 0.0)
+        best_az += 2.0 * M_PI;
+    *az_out = best_az;
+    *el_out = best_el;
+    *p_out = best;
+    return CXL_OK;
+}
+
+typedef struct {
+    const array_eval *e;
+    double el;
+} cut_params;
+
+static double cut_power(double az, void *params)
+{
+    const cut_params *cp = params;
+    return power_at(cp->e, az, cp->el);
+}
+
+/* Brent minimisation of the cut inside (a, b) around x. */
+static cxl_status refine_null(cut_params *cp, double x, double a, double b,
+                              double *best, double *best_az)
+{
+    gsl_function fn = { cut_power, cp };
+    gsl_min_fminimizer *m = gsl_min_fminimizer_alloc(gsl_min_fminimizer_brent);
+    if (!m)
+        return CXL_ENOMEM;
+    if (gsl_min_fminimizer_set(m, &fn, x, a, b) == GSL_SUCCESS) {
+        for (int it = 0; it < 200; it++) {
+            if (gsl_min_fminimizer_iterate(m) != GSL_SUCCESS)
+                break;
+            if (gsl_min_test_interval(gsl_min_fminimizer_x_lower(m),
+                                      gsl_min_fminimizer_x_upper(m), 1e-13,
+                                      0.0) == GSL_SUCCESS)
+                break;
+        }
+        double p = gsl_min_fminimizer_f_minimum(m);
+        if (p < *best) {
+            *best = p;
+            *best_az = gsl_min_fminimizer_x_minimum(m);
+        }
+    }
+    gsl_min_fminimizer_free(m);
+    return CXL_OK;
+}
+
+/* Deepest response over azimuth 90..270 at elevation el (radians). */
+static cxl_status rear_null(const array_eval *e, double el, double *az_out,
+                            double *depth_db)
+{
+    cut_params cp = { e, el };
+    double front = cut_power(0.0, &cp);
+    if (!(front > 0.0))
+        return CXL_ERANGE;
+    double h = coarse_step(e, 8.0, 1.0);
+    size_t n = (size_t)ceil(M_PI / h);
+    double lo = 0.5 * M_PI, step = M_PI / n;
+    double *v = malloc((n + 1) * sizeof *v);
+    if (!v)
+        return CXL_ENOMEM;
+    size_t best_i = 0;
+    for (size_t i = 0; i <= n; i++) {
+        v[i] = cut_power(lo + i * step, &cp);
+        if (v[i] < v[best_i])
+            best_i = i;
+    }
+    double best = v[best_i], best_az = lo + best_i * step;
+    /* Brent on the deepest interior local minima (strict brackets); a
+     * null on the scan's edge or a flat cut keeps the scan value. */
+    size_t cand[NULL_CANDIDATES], nc = 0;
+    for (size_t i = 1; i < n; i++) {
+        if (!(v[i] < v[i - 1] && v[i] < v[i + 1] && v[i] > 0.0))
+            continue;
+        size_t pos = nc < NULL_CANDIDATES ? nc++ : NULL_CANDIDATES;
+        if (pos == NULL_CANDIDATES) {
+            if (!(v[i] < v[cand[NULL_CANDIDATES - 1]]))
+                continue;
+            pos = NULL_CANDIDATES - 1;
+        }
+        while (pos > 0 && v[cand[pos - 1]] > v[i]) {
+            cand[pos] = cand[pos - 1];
+            pos--;
+        }
+        cand[pos] = i;
+    }
+    cxl_status st = CXL_OK;
+    for (size_t c = 0; c < nc && st == CXL_OK; c++) {
+        double x = lo + cand[c] * step;
+        st = refine_null(&cp, x, x - step, x + step, &best, &best_az);
+    }
+    free(v);
+    if (st)
+        return st;
+    *az_out = best_az;
+    *depth_db = cxl__power_db(best / front);
+    return CXL_OK;
+}
+
+/* Azimuth (radians, 0..pi) on one side (sign +1 clockwise, -1 counter-
+ * clockwise) where the response first falls to half the forward response;
+ * pi + 1 when it never does. */
+static double half_power_edge(const array_eval *e, double el, double front,
+                              double sign, double h)
+{
+    size_t n = (size_t)ceil(M_PI / h);
+    double step = M_PI / n, prev = 0.0;
+    for (size_t i = 1; i <= n; i++) {
+        double az = i * step;
+        if (power_at(e, sign * az, el) <= 0.5 * front) {
+            double a = prev, b = az;
+            for (int it = 0; it < 60; it++) {
+                double m = 0.5 * (a + b);
+                if (power_at(e, sign * m, el) <= 0.5 * front)
+                    b = m;
+                else
+                    a = m;
+            }
+            return 0.5 * (a + b);
+        }
+        prev = az;
+    }
+    return M_PI + 1.0;
+}
+
+double cxl__power_db(double ratio)
+{
+    double floor_ratio = pow(10.0, -CXL_DB_LIMIT / 10.0);
+    if (!(ratio > floor_ratio))
+        return -CXL_DB_LIMIT;
+    if (ratio > 1.0 / floor_ratio)
+        return CXL_DB_LIMIT;
+    return 10.0 * log10(ratio);
+}
+
+/* ---- the N-element array: results -------------------------------------- */
+
+cxl_status cxl_array_eval_field(const cxl_array *array, double freq_hz,
+                                double azimuth_deg, double elevation_deg,
+                                double *field_re, double *field_im)
+{
+    array_eval e;
+    if (!field_re || !field_im || !isfinite(azimuth_deg) ||
+        !valid_elevation(elevation_deg))
+        return CXL_EINVAL;
+    cxl_status st = prepare(array, freq_hz, &e);
+    if (st)
+        return st;
+    field_at(&e, fmod(azimuth_deg, 360.0) * DEG, elevation_deg * DEG,
+             field_re, field_im);
+    return CXL_OK;
+}
+
+cxl_status cxl_array_eval_response(const cxl_array *array, double freq_hz,
+                                   double azimuth_deg, double elevation_deg,
+                                   double *response_db)
+{
+    array_eval e;
+    if (!response_db || !isfinite(azimuth_deg) ||
+        !valid_elevation(elevation_deg))
+        return CXL_EINVAL;
+    cxl_status st = prepare(array, freq_hz, &e);
+    if (st)
+        return st;
+    *response_db = cxl__power_db(power_at(
+        &e, fmod(azimuth_deg, 360.0) * DEG, elevation_deg * DEG));
+    return CXL_OK;
+}
+
+/* prepare, and the mean response over the whole sphere (the reference of
+ * a gain in dBi). */
+static cxl_status prepare_sphere(const cxl_array *array, double freq_hz,
+                                 array_eval *e, double *mean)
+{
+    cxl_status st = prepare(array, freq_hz, e);
+    if (st)
+        return st;
+    return mean_power(e, -M_PI / 2.0, M_PI / 2.0, mean);
+}
+
+cxl_status cxl_array_eval_pattern(const cxl_array *array, double freq_hz,
+                                  double elevation_deg, size_t n,
+                                  double *gain_dbi)
+{
+    array_eval e;
+    double mean;
+    if (!gain_dbi || n == 0 || !valid_elevation(elevation_deg))
+        return CXL_EINVAL;
+    cxl_status st = prepare_sphere(array, freq_hz, &e, &mean);
+    if (st)
+        return st;
+    for (size_t i = 0; i < n; i++)
+        gain_dbi[i] = cxl__power_db(
+            power_at(&e, 2.0 * M_PI * i / n, elevation_deg * DEG) / mean);
+    return CXL_OK;
+}
+
+cxl_status cxl_array_eval_gain(const cxl_array *array, double freq_hz,
+                               double azimuth_deg, double elevation_deg,
+                               double *gain_dbi)
+{
+    array_eval e;
+    double mean;
+    if (!gain_dbi || !isfinite(azimuth_deg) ||
+        !valid_elevation(elevation_deg))
+        return CXL_EINVAL;
+    cxl_status st = prepare_sphere(array, freq_hz, &e, &mean);
+    if (st)
+        return st;
+    *gain_dbi = cxl__power_db(
+        power_at(&e, fmod(azimuth_deg, 360.0) * DEG, elevation_deg * DEG) /
+        mean);
+    return CXL_OK;
+}
+
+cxl_status cxl_array_eval_front_to_back(const cxl_array *array,
+                                        double freq_hz, double elevation_deg,
+                                        double *ratio_db)
+{
+    array_eval e;
+    if (!ratio_db || !valid_elevation(elevation_deg))
+        return CXL_EINVAL;
+    cxl_status st = prepare(array, freq_hz, &e);
+    if (st)
+        return st;
+    double el = elevation_deg * DEG;
+    double front = power_at(&e, 0.0, el), back = power_at(&e, M_PI, el);
+    if (!(front > 0.0) && !(back > 0.0))
+        return CXL_ERANGE;
+    *ratio_db = back > 0.0 ? cxl__power_db(front / back) : CXL_DB_LIMIT;
+    return CXL_OK;
+}
+
+cxl_status cxl_array_eval_rear_null(const cxl_array *array, double freq_hz,
+                                    double elevation_deg, double *azimuth_deg,
+                                    double *depth_db)
+{
+    array_eval e;
+    double az, depth;
+    if (!azimuth_deg || !depth_db || !valid_elevation(elevation_deg))
+        return CXL_EINVAL;
+    cxl_status st = prepare(array, freq_hz, &e);
+    if (!st)
+        st = rear_null(&e, elevation_deg * DEG, &az, &depth);
+    if (st)
+        return st;
+    *azimuth_deg = az / DEG;
+    *depth_db = depth;
+    return CXL_OK;
+}
+
+cxl_status cxl_array_eval_beamwidth(const cxl_array *array, double freq_hz,
+                                    double elevation_deg, double *width_deg)
+{
+    array_eval e;
+    if (!width_deg || !valid_elevation(elevation_deg))
+        return CXL_EINVAL;
+    cxl_status st = prepare(array, freq_hz, &e);
+    if (st)
+        return st;
+    double el = elevation_deg * DEG;
+    double front = power_at(&e, 0.0, el);
+    if (!(front > 0.0))
+        return CXL_ERANGE;
+    double h = coarse_step(&e, 8.0, 1.0);
+    double cw = half_power_edge(&e, el, front, 1.0, h);
+    double ccw = half_power_edge(&e, el, front, -1.0, h);
+    *width_deg = cw > M_PI || ccw > M_PI ? 360.0 : (cw + ccw) / DEG;
+    return CXL_OK;
+}
+
+cxl_status cxl_array_eval_peak(const cxl_array *array, double freq_hz,
+                               double *azimuth_deg, double *elevation_deg)
+{
+    array_eval e;
+    double az, el, p;
+    if (!azimuth_deg || !elevation_deg)
+        return CXL_EINVAL;
+    cxl_status st = prepare(array, freq_hz, &e);
+    if (!st)
+        st = find_peak(&e, 0.0, M_PI / 2.0, &az, &el, &p);
+    if (st)
+        return st;
+    *azimuth_deg = az / DEG;
+    *elevation_deg = el / DEG;
+    return CXL_OK;
+}
+
+cxl_status cxl_array_eval_directivity(const cxl_array *array, double freq_hz,
+                                      double *directivity_dbi)
+{
+    array_eval e;
+    double az, el, peak, mean;
+    if (!directivity_dbi)
+        return CXL_EINVAL;
+    cxl_status st = prepare(array, freq_hz, &e);
+    if (!st)
+        st = find_peak(&e, -M_PI / 2.0, M_PI / 2.0, &az, &el, &peak);
+    if (!st)
+        st = mean_power(&e, -M_PI / 2.0, M_PI / 2.0, &mean);
+    if (st)
+        return st;
+    *directivity_dbi = cxl__power_db(peak / mean);
+    return CXL_OK;
+}
+
+cxl_status cxl_array_eval_rdf(const cxl_array *array, double freq_hz,
+                              double elevation_deg, double *rdf_forward_db,
+                              double *rdf_peak_db)
+{
+    array_eval e;
+    double az, el, peak, mean;
+    if (!rdf_forward_db || !rdf_peak_db || !valid_elevation(elevation_deg))
+        return CXL_EINVAL;
+    cxl_status st = prepare(array, freq_hz, &e);
+    if (!st)
+        st = mean_power(&e, 0.0, M_PI / 2.0, &mean);
+    if (!st)
+        st = find_peak(&e, 0.0, M_PI / 2.0, &az, &el, &peak);
+    if (st)
+        return st;
+    double forward = power_at(&e, 0.0, elevation_deg * DEG);
+    *rdf_forward_db = cxl__power_db(forward / mean);
+    *rdf_peak_db = cxl__power_db(peak / mean);
+    return CXL_OK;
+}
+
+/* ---- the two-element pair: a thin layer over the N-element code -------- */
 
 cxl_status cxl_array_pair_new(cxl_array_pair **pair)
 {
@@ -55,7 +1116,7 @@ cxl_status cxl_array_pair_new(cxl_array_pair **pair)
     cxl_array_pair *p = calloc(1, sizeof *p);
     if (!p)
         return CXL_ENOMEM;
-    p->element = ELEMENT_ISOTROPIC;
+    p->element = CXL_ELEMENT_ISOTROPIC;
     p->wire_vf = 1.0;
     *pair = p;
     return CXL_OK;
@@ -145,7 +1206,7 @@ cxl_status cxl_array_pair_set_isotropic(cxl_array_pair *pair)
 {
     if (!pair)
         return CXL_EINVAL;
-    pair->element = ELEMENT_ISOTROPIC;
+    pair->element = CXL_ELEMENT_ISOTROPIC;
     return CXL_OK;
 }
 
@@ -154,330 +1215,77 @@ cxl_status cxl_array_pair_set_long_wire(cxl_array_pair *pair,
 {
     if (!pair || !cxl__finite_pos(length_m) || !cxl__valid_vf(wire_vf))
         return CXL_EINVAL;
-    pair->element = ELEMENT_LONG_WIRE;
+    pair->element = CXL_ELEMENT_WIRE;
     pair->wire_length_m = length_m;
     pair->wire_vf = wire_vf;
     return CXL_OK;
 }
 
-static cxl_status prepare(const cxl_array_pair *pair, double freq_hz,
-                          double extra_phase_rad, pair_eval *e)
+/* The pair as a two-element array in buf (no allocation): element 0 at
+ * (+stagger/2, -spacing/2), element 1 at (-stagger/2, +spacing/2);
+ * extra_phase_rad is added to element 1. */
+static const cxl_array *pair_as_array(const cxl_array_pair *p,
+                                      double extra_phase_rad, cxl_array *a,
+                                      array_elem buf[2])
 {
-    if (!pair || !cxl__finite_pos(freq_hz))
-        return CXL_EINVAL;
-    double omega = 2.0 * M_PI * freq_hz;
-    e->k = omega / CXL_C_M_PER_S;
-    if (!isfinite(e->k) || e->k <= 0.0)
-        return CXL_ERANGE;
-    e->dx = -pair->stagger_m;
-    e->dy = pair->spacing_m;
-    e->a0 = 1.0;
-    e->a1 = pow(10.0, -pair->imbalance_db / 20.0);
-    double psi = -omega * (pair->delay_s[1] - pair->delay_s[0]) +
-                 (pair->phase_rad[1] - pair->phase_rad[0]) + extra_phase_rad;
-    if (!isfinite(psi))
-        return CXL_ERANGE;
-    e->psi0 = fmod(psi, 2.0 * M_PI);   /* exact; keeps the sum small */
-    e->flipped = pair->flip[0] != pair->flip[1];
-    e->wire = pair->element == ELEMENT_LONG_WIRE;
-    e->wire_x = e->wire ? M_PI * pair->wire_length_m * freq_hz /
-                              CXL_C_M_PER_S : 0.0;
-    e->inv_p = 1.0 / pair->wire_vf;
-    e->size = e->k * hypot(e->dx, e->dy) + 2.0 * e->wire_x;
-    if (!isfinite(e->size) || e->size > 1e4)
-        return CXL_ERANGE;   /* thousands of wavelengths: not a pair model */
-    return CXL_OK;
-}
-
-/* Element pattern squared; cos_t is the cosine of the angle from +x. */
-static double element_power(const pair_eval *e, double cos_t)
-{
-    if (!e->wire)
-        return 1.0;
-    double sin2 = (1.0 - cos_t) * (1.0 + cos_t);
-    double x = e->wire_x * (e->inv_p - cos_t);
-    double sinc = fabs(x) < 1e-4 ? 1.0 - x * x / 6.0 : sin(x) / x;
-    return sin2 * sinc * sinc;
-}
-
-/* Phase of element 1 relative to element 0 for a wave from (az, el). */
-static double pair_psi(const pair_eval *e, double az, double el,
-                       double *cos_t)
-{
-    double ce = cos(el);
-    double ux = ce * cos(az), uy = ce * sin(az);
-    *cos_t = ux;
-    return e->k * (ux * e->dx + uy * e->dy) + e->psi0;
-}
-
-static double pair_power(const pair_eval *e, double az, double el)
-{
-    double cos_t;
-    double h = 0.5 * pair_psi(e, az, el, &cos_t);
-    double c = e->flipped ? sin(h) : cos(h);
-    double d = e->a0 - e->a1;
-    return (d * d + 4.0 * e->a0 * e->a1 * c * c) * element_power(e, cos_t);
-}
-
-static int valid_elevation(double elevation_deg)
-{
-    return isfinite(elevation_deg) && fabs(elevation_deg) <= 90.0;
-}
-
-/* Neumaier's compensated sum: millions of terms keep ~1e-15 relative. */
-typedef struct {
-    double sum, c;
-} csum;
-
-static void csum_add(csum *s, double x)
-{
-    double t = s->sum + x;
-    if (fabs(s->sum) >= fabs(x))
-        s->c += (s->sum - t) + x;
-    else
-        s->c += (x - t) + s->sum;
-    s->sum = t;
-}
-
-/* Mean of the response over elevation lo..hi (radians) and all azimuths,
- * weighted by solid angle. */
-static double product_rule(const pair_eval *e, double lo, double hi,
-                           const gsl_integration_glfixed_table *t,
-                           size_t n_el, size_t n_az)
-{
-    csum total = { 0.0, 0.0 };
-    for (size_t i = 0; i < n_el; i++) {
-        double el, w;
-        gsl_integration_glfixed_point(lo, hi, i, &el, &w, t);
-        csum ring = { 0.0, 0.0 };
-        for (size_t j = 0; j < n_az; j++)
-            csum_add(&ring, pair_power(e, 2.0 * M_PI * (j + 0.5) / n_az, el));
-        csum_add(&total, w * cos(el) * (ring.sum + ring.c) / n_az);
+    if (!p)
+        return NULL;
+    memset(buf, 0, 2 * sizeof *buf);
+    for (int i = 0; i < 2; i++) {
+        double s = i ? -0.5 : 0.5;
+        buf[i].x_m = s * p->stagger_m;
+        buf[i].y_m = -s * p->spacing_m;
+        buf[i].delay_s = p->delay_s[i];
+        buf[i].phase_rad = p->phase_rad[i];
+        buf[i].reversed = p->flip[i];
     }
-    return (total.sum + total.c) / (sin(hi) - sin(lo));
+    buf[1].weight_db = -p->imbalance_db;
+    buf[1].phase_rad += extra_phase_rad;
+    a->n = a->cap = 2;
+    a->el = buf;
+    a->kind = p->element;
+    a->wire_length_m = p->wire_length_m;
+    a->wire_vf = p->wire_vf;
+    return a;
 }
 
-static cxl_status mean_power(const pair_eval *e, double lo, double hi,
-                             double *mean)
-{
-    size_t n_el = 16 + (size_t)ceil(e->size);
-    size_t n_az = 32 + 2 * (size_t)ceil(e->size);
-    double prev = NAN;
-    while (n_el <= 8192) {
-        gsl_integration_glfixed_table *t =
-            gsl_integration_glfixed_table_alloc(n_el);
-        if (!t)
-            return CXL_ENOMEM;
-        double cur = product_rule(e, lo, hi, t, n_el, n_az);
-        gsl_integration_glfixed_table_free(t);
-        if (!isfinite(cur))
-            return CXL_ENOCONV;
-        if (isfinite(prev) && fabs(cur - prev) <= CXL__MEAN_RTOL * fabs(cur)) {
-            if (!(cur > 0.0))
-                return CXL_ERANGE;   /* the pattern is zero everywhere */
-            *mean = cur;
-            return CXL_OK;
-        }
-        prev = cur;
-        n_el *= 2;
-        n_az *= 2;
-    }
-    return CXL_ENOCONV;
-}
-
-/* A coarse grid step (radians) fine enough to see every lobe. */
-static double grid_step(const pair_eval *e, double max_deg)
-{
-    double h = M_PI / (8.0 * (e->size + 1.0));
-    return fmin(h, max_deg * DEG);
-}
-
-typedef struct {
-    const pair_eval *e;
-    double lo, hi;
-} peak_params;
-
-static double neg_power(const gsl_vector *v, void *params)
-{
-    const peak_params *pp = params;
-    double el = fmin(fmax(gsl_vector_get(v, 1), pp->lo), pp->hi);
-    return -pair_power(pp->e, gsl_vector_get(v, 0), el);
-}
-
-/* Largest response over elevation lo..hi: grid, then Nelder-Mead. */
-static cxl_status find_peak(const pair_eval *e, double lo, double hi,
-                            double *az_out, double *el_out, double *p_out)
-{
-    double h = grid_step(e, 1.0);
-    size_t n_az = (size_t)ceil(2.0 * M_PI / h);
-    size_t n_el = (size_t)ceil((hi - lo) / h) + 1;
-    double best = -1.0, best_az = 0.0, best_el = lo;
-    for (size_t i = 0; i < n_el; i++) {
-        double el = fmin(lo + i * (hi - lo) / (n_el - 1), hi);
-        for (size_t j = 0; j < n_az; j++) {
-            double az = 2.0 * M_PI * j / n_az;
-            double p = pair_power(e, az, el);
-            if (p > best) {
-                best = p;
-                best_az = az;
-                best_el = el;
-            }
-        }
-    }
-    if (!(best > 0.0))
-        return CXL_ERANGE;
-
-    peak_params pp = { e, lo, hi };
-    gsl_multimin_function fn = { neg_power, 2, &pp };
-    gsl_vector *x = gsl_vector_alloc(2), *step = gsl_vector_alloc(2);
-    gsl_multimin_fminimizer *m =
-        gsl_multimin_fminimizer_alloc(gsl_multimin_fminimizer_nmsimplex2, 2);
-    if (!x || !step || !m) {
-        gsl_vector_free(x);
-        gsl_vector_free(step);
-        gsl_multimin_fminimizer_free(m);
-        return CXL_ENOMEM;
-    }
-    gsl_vector_set(x, 0, best_az);
-    gsl_vector_set(x, 1, best_el);
-    gsl_vector_set_all(step, 0.5 * h);
-    if (gsl_multimin_fminimizer_set(m, &fn, x, step) == GSL_SUCCESS) {
-        for (int it = 0; it < 2000; it++) {
-            if (gsl_multimin_fminimizer_iterate(m) != GSL_SUCCESS)
-                break;
-            if (gsl_multimin_test_size(gsl_multimin_fminimizer_size(m),
-                                       1e-10) == GSL_SUCCESS)
-                break;
-        }
-        double p = -gsl_multimin_fminimizer_minimum(m);
-        if (p > best) {
-            const gsl_vector *xm = gsl_multimin_fminimizer_x(m);
-            best = p;
-            best_az = gsl_vector_get(xm, 0);
-            best_el = fmin(fmax(gsl_vector_get(xm, 1), lo), hi);
-        }
-    }
-    gsl_multimin_fminimizer_free(m);
-    gsl_vector_free(x);
-    gsl_vector_free(step);
-
-    best_az = fmod(best_az, 2.0 * M_PI);
-    if (best_az < 0.0)
-        best_az += 2.0 * M_PI;
-    *az_out = best_az;
-    *el_out = best_el;
-    *p_out = best;
-    return CXL_OK;
-}
-
-double cxl__power_db(double ratio)
-{
-    double floor_ratio = pow(10.0, -CXL_DB_LIMIT / 10.0);
-    if (!(ratio > floor_ratio))
-        return -CXL_DB_LIMIT;
-    if (ratio > 1.0 / floor_ratio)
-        return CXL_DB_LIMIT;
-    return 10.0 * log10(ratio);
-}
+#define AS_ARRAY(pair) pair_as_array((pair), 0.0, &tmp_, buf_)
+#define PAIR_LOCALS cxl_array tmp_; array_elem buf_[2]
 
 cxl_status cxl_array_field(const cxl_array_pair *pair, double freq_hz,
                            double azimuth_deg, double elevation_deg,
                            double *field_re, double *field_im)
 {
-    pair_eval e;
-    if (!field_re || !field_im || !isfinite(azimuth_deg) ||
-        !valid_elevation(elevation_deg))
-        return CXL_EINVAL;
-    cxl_status st = prepare(pair, freq_hz, 0.0, &e);
-    if (st)
-        return st;
-    /* Phase reference: element 0 at the origin of the feed phases. */
-    double az = azimuth_deg * DEG, el = elevation_deg * DEG;
-    double ce = cos(el), ux = ce * cos(az), uy = ce * sin(az);
-    double omega = 2.0 * M_PI * freq_hz;
-    double ph[2], x[2] = { 0.5 * pair->stagger_m, -0.5 * pair->stagger_m };
-    double y[2] = { -0.5 * pair->spacing_m, 0.5 * pair->spacing_m };
-    double amp[2] = { e.a0, e.a1 };
-    double re = 0.0, im = 0.0;
-    double en = sqrt(element_power(&e, ux));
-    if (e.wire) {
-        /* The sign of the sinc factor is part of the field. */
-        double arg = e.wire_x * (e.inv_p - ux);
-        if (fabs(arg) >= 1e-4 && sin(arg) / arg < 0.0)
-            en = -en;
-    }
-    for (int i = 0; i < 2; i++) {
-        ph[i] = e.k * (ux * x[i] + uy * y[i]) -
-                fmod(omega * pair->delay_s[i], 2.0 * M_PI) +
-                pair->phase_rad[i];
-        double q = pair->flip[i] ? -1.0 : 1.0;
-        re += q * amp[i] * cos(ph[i]);
-        im += q * amp[i] * sin(ph[i]);
-    }
-    *field_re = en * re;
-    *field_im = en * im;
-    return CXL_OK;
+    PAIR_LOCALS;
+    return cxl_array_eval_field(AS_ARRAY(pair), freq_hz, azimuth_deg,
+                                elevation_deg, field_re, field_im);
 }
 
 cxl_status cxl_array_response(const cxl_array_pair *pair, double freq_hz,
                               double azimuth_deg, double elevation_deg,
                               double *response_db)
 {
-    pair_eval e;
-    if (!response_db || !isfinite(azimuth_deg) ||
-        !valid_elevation(elevation_deg))
-        return CXL_EINVAL;
-    cxl_status st = prepare(pair, freq_hz, 0.0, &e);
-    if (st)
-        return st;
-    *response_db = cxl__power_db(
-        pair_power(&e, azimuth_deg * DEG, elevation_deg * DEG));
-    return CXL_OK;
-}
-
-/* prepare, and the mean response over the whole sphere (the reference of
- * a gain in dBi). */
-static cxl_status prepare_sphere(const cxl_array_pair *pair, double freq_hz,
-                                 pair_eval *e, double *mean)
-{
-    cxl_status st = prepare(pair, freq_hz, 0.0, e);
-    if (st)
-        return st;
-    return mean_power(e, -M_PI / 2.0, M_PI / 2.0, mean);
+    PAIR_LOCALS;
+    return cxl_array_eval_response(AS_ARRAY(pair), freq_hz, azimuth_deg,
+                                   elevation_deg, response_db);
 }
 
 cxl_status cxl_array_pattern(const cxl_array_pair *pair, double freq_hz,
                              double elevation_deg, size_t n,
                              double *gain_dbi)
 {
-    pair_eval e;
-    double mean;
-    if (!gain_dbi || n == 0 || !valid_elevation(elevation_deg))
-        return CXL_EINVAL;
-    cxl_status st = prepare_sphere(pair, freq_hz, &e, &mean);
-    if (st)
-        return st;
-    for (size_t i = 0; i < n; i++)
-        gain_dbi[i] = cxl__power_db(
-            pair_power(&e, 2.0 * M_PI * i / n, elevation_deg * DEG) / mean);
-    return CXL_OK;
+    PAIR_LOCALS;
+    return cxl_array_eval_pattern(AS_ARRAY(pair), freq_hz, elevation_deg, n,
+                                  gain_dbi);
 }
 
 cxl_status cxl_array_gain(const cxl_array_pair *pair, double freq_hz,
                           double azimuth_deg, double elevation_deg,
                           double *gain_dbi)
 {
-    pair_eval e;
-    double mean;
-    if (!gain_dbi || !isfinite(azimuth_deg) ||
-        !valid_elevation(elevation_deg))
-        return CXL_EINVAL;
-    cxl_status st = prepare_sphere(pair, freq_hz, &e, &mean);
-    if (st)
-        return st;
-    *gain_dbi = cxl__power_db(
-        pair_power(&e, azimuth_deg * DEG, elevation_deg * DEG) / mean);
-    return CXL_OK;
+    PAIR_LOCALS;
+    return cxl_array_eval_gain(AS_ARRAY(pair), freq_hz, azimuth_deg,
+                               elevation_deg, gain_dbi);
 }
 
 cxl_status cxl_array_forward_gain(const cxl_array_pair *pair, double freq_hz,
@@ -490,19 +1298,12 @@ cxl_status cxl__array_front_to_back(const cxl_array_pair *pair,
                                     double freq_hz, double elevation_deg,
                                     double extra_phase_rad, double *ratio_db)
 {
-    pair_eval e;
-    if (!ratio_db || !valid_elevation(elevation_deg) ||
-        !isfinite(extra_phase_rad))
+    PAIR_LOCALS;
+    if (!isfinite(extra_phase_rad))
         return CXL_EINVAL;
-    cxl_status st = prepare(pair, freq_hz, extra_phase_rad, &e);
-    if (st)
-        return st;
-    double el = elevation_deg * DEG;
-    double front = pair_power(&e, 0.0, el), back = pair_power(&e, M_PI, el);
-    if (!(front > 0.0) && !(back > 0.0))
-        return CXL_ERANGE;
-    *ratio_db = back > 0.0 ? cxl__power_db(front / back) : CXL_DB_LIMIT;
-    return CXL_OK;
+    return cxl_array_eval_front_to_back(
+        pair_as_array(pair, fmod(extra_phase_rad, 2.0 * M_PI), &tmp_, buf_),
+        freq_hz, elevation_deg, ratio_db);
 }
 
 cxl_status cxl_array_front_to_back(const cxl_array_pair *pair,
@@ -513,131 +1314,39 @@ cxl_status cxl_array_front_to_back(const cxl_array_pair *pair,
                                     ratio_db);
 }
 
-typedef struct {
-    const pair_eval *e;
-    double el;
-} cut_params;
-
-static double cut_power(double az, void *params)
-{
-    const cut_params *cp = params;
-    return pair_power(cp->e, az, cp->el);
-}
-
 cxl_status cxl_array_rear_null(const cxl_array_pair *pair, double freq_hz,
                                double elevation_deg, double *azimuth_deg,
                                double *depth_db)
 {
-    pair_eval e;
-    if (!azimuth_deg || !depth_db || !valid_elevation(elevation_deg))
-        return CXL_EINVAL;
-    cxl_status st = prepare(pair, freq_hz, 0.0, &e);
-    if (st)
-        return st;
-    cut_params cp = { &e, elevation_deg * DEG };
-    double front = cut_power(0.0, &cp);
-    if (!(front > 0.0))
-        return CXL_ERANGE;
-
-    double h = grid_step(&e, 0.25);
-    size_t n = (size_t)ceil(M_PI / h);
-    double lo = 0.5 * M_PI, step = M_PI / n;
-    size_t best_i = 0;
-    double best = cut_power(lo, &cp);
-    for (size_t i = 1; i <= n; i++) {
-        double p = cut_power(lo + i * step, &cp);
-        if (p < best) {
-            best = p;
-            best_i = i;
-        }
-    }
-    double best_az = lo + best_i * step;
-
-    /* Brent needs a strict bracket; a null on the grid edge or a flat cut
-     * keeps the grid value. */
-    if (best_i > 0 && best_i < n && best > 0.0) {
-        double a = best_az - step, b = best_az + step;
-        if (best < cut_power(a, &cp) && best < cut_power(b, &cp)) {
-            gsl_function fn = { cut_power, &cp };
-            gsl_min_fminimizer *m =
-                gsl_min_fminimizer_alloc(gsl_min_fminimizer_brent);
-            if (!m)
-                return CXL_ENOMEM;
-            if (gsl_min_fminimizer_set(m, &fn, best_az, a, b) ==
-                GSL_SUCCESS) {
-                for (int it = 0; it < 200; it++) {
-                    if (gsl_min_fminimizer_iterate(m) != GSL_SUCCESS)
-                        break;
-                    if (gsl_min_test_interval(
-                            gsl_min_fminimizer_x_lower(m),
-                            gsl_min_fminimizer_x_upper(m), 1e-13, 0.0) ==
-                        GSL_SUCCESS)
-                        break;
-                }
-                double p = gsl_min_fminimizer_f_minimum(m);
-                if (p < best) {
-                    best = p;
-                    best_az = gsl_min_fminimizer_x_minimum(m);
-                }
-            }
-            gsl_min_fminimizer_free(m);
-        }
-    }
-    *azimuth_deg = best_az / DEG;
-    *depth_db = cxl__power_db(best / front);
-    return CXL_OK;
+    PAIR_LOCALS;
+    return cxl_array_eval_rear_null(AS_ARRAY(pair), freq_hz, elevation_deg,
+                                    azimuth_deg, depth_db);
 }
 
 cxl_status cxl_array_peak(const cxl_array_pair *pair, double freq_hz,
                           double *azimuth_deg, double *elevation_deg)
 {
-    pair_eval e;
-    double az, el, p;
-    if (!azimuth_deg || !elevation_deg)
-        return CXL_EINVAL;
-    cxl_status st = prepare(pair, freq_hz, 0.0, &e);
-    if (st)
-        return st;
-    st = find_peak(&e, 0.0, M_PI / 2.0, &az, &el, &p);
-    if (st)
-        return st;
-    *azimuth_deg = az / DEG;
-    *elevation_deg = el / DEG;
-    return CXL_OK;
-}
-
-/* Peak over elevation lo..hi divided by the mean over the same band. */
-static cxl_status peak_over_mean(const cxl_array_pair *pair, double freq_hz,
-                                 double lo, double hi, double *db)
-{
-    pair_eval e;
-    double az, el, peak, mean;
-    if (!db)
-        return CXL_EINVAL;
-    cxl_status st = prepare(pair, freq_hz, 0.0, &e);
-    if (st)
-        return st;
-    st = find_peak(&e, lo, hi, &az, &el, &peak);
-    if (st)
-        return st;
-    st = mean_power(&e, lo, hi, &mean);
-    if (st)
-        return st;
-    *db = cxl__power_db(peak / mean);
-    return CXL_OK;
+    PAIR_LOCALS;
+    return cxl_array_eval_peak(AS_ARRAY(pair), freq_hz, azimuth_deg,
+                               elevation_deg);
 }
 
 cxl_status cxl_array_directivity(const cxl_array_pair *pair, double freq_hz,
                                  double *directivity_dbi)
 {
-    return peak_over_mean(pair, freq_hz, -M_PI / 2.0, M_PI / 2.0,
-                          directivity_dbi);
+    PAIR_LOCALS;
+    return cxl_array_eval_directivity(AS_ARRAY(pair), freq_hz,
+                                      directivity_dbi);
 }
 
 cxl_status cxl_array_rdf(const cxl_array_pair *pair, double freq_hz,
                          double *rdf_db)
 {
-    return peak_over_mean(pair, freq_hz, 0.0, M_PI / 2.0, rdf_db);
+    PAIR_LOCALS;
+    double fwd;
+    if (!rdf_db)
+        return CXL_EINVAL;
+    return cxl_array_eval_rdf(AS_ARRAY(pair), freq_hz, 0.0, &fwd, rdf_db);
 }
 
 cxl_status cxl_array_null_depth(double phase_error_deg, double imbalance_db,

@@ -649,63 +649,199 @@ cxl_status cxl_loss_total_db(double matched_loss_db, double swr,
 /* The same for a run: length_m (> 0) of line losing loss_db_per_m (>= 0). */
 cxl_status cxl_loss_run_db(double loss_db_per_m, double length_m, double swr,
                            double *matched_loss_db, double *total_loss_db);
-/* ---- array.c: pattern of a two-element receive pair ------------------ */
+/* ---- array.c: pattern of a receive array (N elements; a pair is N = 2) -- */
 
-/* Model (stated here so every caller sees it): two identical elements in
- * FREE SPACE: no ground, no mutual coupling between the elements, lossless
- * feeds, an ideal in-phase combiner that adds the two element signals.
+/* Model (stated here so every caller sees it): identical elements, no
+ * mutual coupling between them, an ideal combiner that adds the element
+ * signals.  Isotropic and wire elements are in FREE SPACE (no ground); the
+ * short vertical stands over PERFECT GROUND, modelled by its image.
  *
- * Coordinates: the forward axis is +x: azimuth 0, elevation 0 (the
- * horizon).  Azimuth turns counter-clockwise seen from above, so azimuth 90
- * points to +y; elevation is measured up from the horizontal plane.
- * Element 0 sits at (x, y) = (+stagger/2, -spacing/2), element 1 at
- * (-stagger/2, +spacing/2): spacing is the broadside distance across the
- * axis, stagger the offset along it (with a positive stagger element 0 is
- * the front element).
+ * Coordinates (one convention for every function and for the CLI's
+ * pattern and array commands): x is forward, y to the right of forward,
+ * z up, all in metres.  Azimuth is a compass bearing: 0 along +x (the
+ * forward axis), turning CLOCKWISE seen from above, so azimuth 90 points
+ * to +y (right), 180 backwards; elevation is measured up from the
+ * horizontal plane.  A wave arriving from direction
+ *     u = (cos el cos az, cos el sin az, sin el)
+ * gives at element i (position r_i) the signal
+ *     s_i = w_i E(u) exp(j k u.r_i),   w_i = a_i q_i exp(j (phi_i - 2 pi f tau_i))
+ * with k = 2 pi f / c (positions are free-space distances), a_i the
+ * element's relative voltage amplitude 10^(weight_db/20) (times the feed
+ * line's loss, exp(-alpha L), for a line given with a cxl_loss_model),
+ * q_i = -1 when its polarity is reversed, tau_i its feed delay (a fixed
+ * delay plus its line's L / (VF c), or beta L / (2 pi f) for a modelled
+ * line) and phi_i a fixed, frequency-independent phase offset (for
+ * modelling a phase error).  The output is the sum of the s_i.
  *
- * A plane wave arriving from direction u gives at element i the signal
- *     s_i = a_i q_i E(u) exp(j (k u.r_i - 2 pi f tau_i + phi_i))
- * with k = 2 pi f / c (a spacing or stagger is a free-space distance),
- * a_0 = 1, a_1 = 10^(-imbalance_db/20), q_i = -1 when element i's polarity
- * is flipped (crossfire feed), tau_i its feed delay and phi_i a fixed,
- * frequency-independent phase offset (for modelling a phase error).  The
- * output is s_0 + s_1.
- *
- * Elements: isotropic, E = 1; or a traveling-wave long wire of length L and
- * wire velocity factor p lying along the forward axis, fed at its rear end
- * and terminated at its front end, so it favours arrivals from the front:
+ * Elements (one kind for the whole array):
+ *   isotropic, E = 1;
+ *   traveling-wave long wire of length L and wire velocity factor p lying
+ *     along the forward axis, fed at its rear end and terminated at its
+ *     front end, so it favours arrivals from the front:
  *     E = sin(t) sinc((pi L / lambda)(1/p - cos t)),  cos t = cos(el) cos(az),
- * sinc(x) = sin(x)/x: the traveling-wave pattern (Kraus, Antennas,
- * traveling-wave antennas) divided by pi L / lambda so that |E| <= 1.  The
- * wire VF shapes the element pattern only; it never enters a feed delay.
+ *     sinc(x) = sin(x)/x: the traveling-wave pattern (Kraus, Antennas,
+ *     traveling-wave antennas) divided by pi L / lambda so that |E| <= 1.
+ *     The wire VF shapes the element pattern only, never a feed delay;
+ *   short vertical over perfect ground at height z (z = 0: a monopole on
+ *     the ground): element and image give E = cos(el) 2 cos(k z sin el)
+ *     above the ground and nothing below it, so one element at z = 0 has a
+ *     response of 6 dB over a unit isotropic element at the horizon.
  *
  * Results:
- *   response: |s_0 + s_1|^2 in dB over one isotropic element of unit
+ *   response: |sum s_i|^2 in dB over one isotropic element of unit
  *     amplitude (no integration; the cheapest call, for plots);
  *   gain: directivity in dBi, 4 pi |F|^2 / (integral of |F|^2 over the whole
- *     sphere); being lossless and in free space, gain equals directivity;
+ *     sphere); being lossless, gain equals directivity (feed-line loss only
+ *     changes the element weights);
  *   front-to-back: response at azimuth 0 over azimuth 180 at one elevation;
  *   rear null: the deepest response over azimuth 90..270 at one elevation,
  *     its depth relative to the response at azimuth 0 (same elevation);
- *   RDF (receiving directivity factor): peak response over the UPPER
- *     HEMISPHERE (elevation 0..90) divided by the mean response over that
- *     hemisphere.  In this free-space model the pattern is symmetric about
- *     the horizontal plane, so the hemisphere and whole-sphere means agree
- *     and the RDF equals the directivity; over real ground they differ by
- *     about 3 dB, which is why the convention is stated.
- * Integrals use a product rule: Gauss-Legendre in elevation
- * (gsl_integration_glfixed) and the trapezoid rule in azimuth (exact to
- * rounding for a smooth periodic integrand), both doubled until two
+ *   beamwidth: the azimuth width, at one elevation, of the region around
+ *     azimuth 0 where the response stays within 3 dB of the response at
+ *     azimuth 0 (360 when it never falls 3 dB below it);
+ *   RDF (receiving directivity factor): a response over the mean response
+ *     over the UPPER HEMISPHERE (elevation 0..90).  The forward RDF uses
+ *     the response at azimuth 0 and the evaluation elevation; the
+ *     peak-referred RDF the largest response over the upper hemisphere.
+ *     For free-space elements in one horizontal plane the pattern is
+ *     symmetric about that plane, so hemisphere and sphere means agree and
+ *     the peak-referred RDF equals the directivity; over ground (the
+ *     vertical) the hemisphere mean is twice the sphere mean and the RDF
+ *     is 3 dB below the gain, which is why the convention is stated.
+ * Integrals: for isotropic and vertical elements the azimuth integral is
+ * exact (the mean of exp(j k u.d) over azimuth is J0(k rho cos el) times
+ * the vertical part) and the elevation integral uses Gauss-Legendre
+ * (gsl_integration_glfixed); the wire uses Gauss-Legendre in elevation and
+ * the trapezoid rule in azimuth; node counts are doubled until two
  * successive estimates agree to 1e-10 relative (CXL_ENOCONV otherwise).
+ * Searches: the peak on a coarse grid of about four points per lobe,
+ * refined by a GSL simplex from the best local maxima; the rear null by a
+ * scan refined by GSL Brent minimisation; the beamwidth edges by a scan and
+ * bisection.  The work grows with the electrical size S = k (D + H + L): D
+ * the diagonal of the box holding the elements, H twice the largest height
+ * for the vertical, L the wire length.  S above CXL_ARRAY_MAX_KSIZE (about
+ * 48 wavelengths) returns CXL_ERANGE; cxl_array_max_freq gives the highest
+ * frequency a geometry allows.
  * dB results are clamped to +-CXL_DB_LIMIT, so a perfect null reports
  * -CXL_DB_LIMIT rather than minus infinity.
- * Errors: CXL_EINVAL for NULL, NaN, infinity or an argument out of its
- * stated domain; CXL_ERANGE when a ratio has a zero reference (e.g. a long
- * wire at elevation 0 has no response along its own axis), or the pattern
- * is zero everywhere, or the pair is electrically huge (k times its size
- * above 1e4, some 1600 wavelengths); CXL_ENOMEM; CXL_ENOCONV. */
+ * Errors: CXL_EINVAL for NULL, NaN, infinity, an element index out of range,
+ * an array without elements or an argument out of its stated domain;
+ * CXL_ERANGE when a ratio has a zero reference (e.g. a long wire at
+ * elevation 0 has no response along its own axis), or the pattern is zero
+ * everywhere, or the array is electrically too large; errors of
+ * cxl_loss_model_gamma for a modelled line (CXL_EEXTRAPOLATE outside its
+ * range); CXL_ENOMEM; CXL_ENOCONV.
+ *
+ * The two-element pair (cxl_array_pair, cxl_array_gain, ...) is the same
+ * model with element 0 at (x, y) = (+stagger/2, -spacing/2) (front left
+ * for a positive stagger) and element 1 at (-stagger/2, +spacing/2):
+ * spacing is the distance across the forward axis, stagger the offset
+ * along it; element 1 is weaker by the imbalance.  It is evaluated by the
+ * N-element code. */
 
 #define CXL_DB_LIMIT 300.0
+
+/* Largest number of elements of a cxl_array. */
+#define CXL_ARRAY_MAX_ELEMENTS 256
+/* Largest electrical size k (D + H + L) evaluated (see above). */
+#define CXL_ARRAY_MAX_KSIZE 300.0
+
+typedef enum {
+    CXL_ELEMENT_ISOTROPIC = 0,
+    CXL_ELEMENT_WIRE = 1,
+    CXL_ELEMENT_VERTICAL = 2
+} cxl_element_kind;
+
+typedef struct cxl_array cxl_array;
+
+/* A new array without elements, isotropic. */
+cxl_status cxl_array_new(cxl_array **array);
+void cxl_array_free(cxl_array *array);
+cxl_status cxl_array_copy(const cxl_array *array, cxl_array **copy);
+/* Append an element at (x_m, y_m, z_m) (each finite): no delay, normal polarity, weight 0 dB.  Its
+ * index goes to *index (may be NULL).  CXL_ERANGE when the array already
+ * holds CXL_ARRAY_MAX_ELEMENTS. */
+cxl_status cxl_array_add(cxl_array *array, double x_m, double y_m,
+                         double z_m, size_t *index);
+/* Number of elements (0 for NULL). */
+size_t cxl_array_count(const cxl_array *array);
+cxl_status cxl_array_set_position(cxl_array *array, size_t i, double x_m,
+                                  double y_m, double z_m);
+/* The fixed part of element i's feed delay (>= 0); a line set below adds
+ * its own delay. */
+cxl_status cxl_array_set_delay(cxl_array *array, size_t i, double delay_s);
+/* Element i's feed line: length_m >= 0 of lossless line of velocity factor
+ * vf (delay L / (vf c)). */
+cxl_status cxl_array_set_line(cxl_array *array, size_t i, double length_m,
+                              double vf);
+/* Element i's feed line from a loss model: at each frequency its phase
+ * constant sets the delay and its attenuation the element's amplitude.
+ * The model is used, not copied: it must outlive the array's use. */
+cxl_status cxl_array_set_line_model(cxl_array *array, size_t i,
+                                    double length_m,
+                                    const cxl_loss_model *model);
+/* Reverse element i's polarity (non-zero) or restore it (0). */
+cxl_status cxl_array_set_reversed(cxl_array *array, size_t i, int reversed);
+/* Element i's relative voltage amplitude in dB (|dB| <= 200). */
+cxl_status cxl_array_set_weight(cxl_array *array, size_t i,
+                                double weight_db);
+/* A fixed phase added to element i at every frequency (any sign). */
+cxl_status cxl_array_set_phase_offset(cxl_array *array, size_t i,
+                                      double phase_deg);
+/* The element pattern of every element; wire_length_m (> 0) and wire_vf
+ * (in (0, 1]) are read for CXL_ELEMENT_WIRE only. */
+cxl_status cxl_array_set_element(cxl_array *array, cxl_element_kind kind,
+                                 double wire_length_m, double wire_vf);
+/* Highest frequency the geometry can be evaluated at (electrical size
+ * CXL_ARRAY_MAX_KSIZE); CXL_ERANGE when the array has no extent (then no
+ * frequency is refused for its size). */
+cxl_status cxl_array_max_freq(const cxl_array *array, double *freq_hz);
+
+/* Complex output (relative to one unit isotropic element) for a wave from
+ * azimuth_deg (any finite value), elevation_deg in [-90, 90]. */
+cxl_status cxl_array_eval_field(const cxl_array *array, double freq_hz,
+                                double azimuth_deg, double elevation_deg,
+                                double *field_re, double *field_im);
+/* |output|^2 in dB over one unit isotropic element. */
+cxl_status cxl_array_eval_response(const cxl_array *array, double freq_hz,
+                                   double azimuth_deg, double elevation_deg,
+                                   double *response_db);
+/* Gain (directivity) in dBi toward (azimuth_deg, elevation_deg). */
+cxl_status cxl_array_eval_gain(const cxl_array *array, double freq_hz,
+                               double azimuth_deg, double elevation_deg,
+                               double *gain_dbi);
+/* Gains in dBi at n >= 1 azimuths 360 i / n degrees (i = 0..n-1,
+ * clockwise) at elevation_deg, written to gain_dbi[0..n-1]. */
+cxl_status cxl_array_eval_pattern(const cxl_array *array, double freq_hz,
+                                  double elevation_deg, size_t n,
+                                  double *gain_dbi);
+/* Front-to-back ratio in dB at elevation_deg. */
+cxl_status cxl_array_eval_front_to_back(const cxl_array *array,
+                                        double freq_hz, double elevation_deg,
+                                        double *ratio_db);
+/* Deepest response over azimuth 90..270 at elevation_deg: its azimuth
+ * (degrees, in [90, 270]) and depth in dB relative to azimuth 0. */
+cxl_status cxl_array_eval_rear_null(const cxl_array *array, double freq_hz,
+                                    double elevation_deg, double *azimuth_deg,
+                                    double *depth_db);
+/* -3 dB azimuth beamwidth around azimuth 0 at elevation_deg, degrees (see
+ * the model comment; 360 when the response never falls 3 dB). */
+cxl_status cxl_array_eval_beamwidth(const cxl_array *array, double freq_hz,
+                                    double elevation_deg, double *width_deg);
+/* Direction of the largest response over the upper hemisphere. */
+cxl_status cxl_array_eval_peak(const cxl_array *array, double freq_hz,
+                               double *azimuth_deg, double *elevation_deg);
+/* Directivity in dBi: peak over the mean over the WHOLE SPHERE. */
+cxl_status cxl_array_eval_directivity(const cxl_array *array, double freq_hz,
+                                      double *directivity_dbi);
+/* Receiving directivity factors in dB over the UPPER-HEMISPHERE mean: the
+ * forward one (response at azimuth 0, elevation_deg) and the peak-referred
+ * one (largest response over the upper hemisphere). */
+cxl_status cxl_array_eval_rdf(const cxl_array *array, double freq_hz,
+                              double elevation_deg, double *rdf_forward_db,
+                              double *rdf_peak_db);
+
+/* ---- the two-element pair (evaluated by the code above) ---- */
 
 typedef struct cxl_array_pair cxl_array_pair;
 
@@ -781,7 +917,7 @@ cxl_status cxl_array_peak(const cxl_array_pair *pair, double freq_hz,
 cxl_status cxl_array_directivity(const cxl_array_pair *pair, double freq_hz,
                                  double *directivity_dbi);
 /* Receiving directivity factor in dB: peak over the mean over the UPPER
- * HEMISPHERE (see the model comment above). */
+ * HEMISPHERE (the peak-referred RDF of the model comment above). */
 cxl_status cxl_array_rdf(const cxl_array_pair *pair, double freq_hz,
                          double *rdf_db);
 

@@ -97,6 +97,7 @@ static const kind K_TAND = { "loss tangent", LIST(NONFINITE, -0.1, 1.0, 2.0, DBL
 static const kind K_ORDER = { "order", LIST(0, -1, INT_MIN, 1001, INT_MAX), LIST(1000) };
 static const kind K_ORDER0 = { "order or 0", LIST(-1, INT_MIN, 1001, INT_MAX), LIST(0, 1000) };
 static const kind K_ELEMENT = { "element", LIST(-1, 2, INT_MIN, INT_MAX), NONE };
+static const kind K_ELKIND = { "element kind", LIST(-1, 3, 99, INT_MIN, INT_MAX), NONE };
 static const kind K_ENUM2 = { "enum of two", LIST(-1, 2, 99, INT_MIN, INT_MAX), NONE };
 static const kind K_ENUM3 = { "enum of three", LIST(-1, 3, 99, INT_MIN, INT_MAX), NONE };
 static const kind K_REGION = { "region", LIST(-1, 4, INT_MIN, INT_MAX), LIST(0, 3) };
@@ -187,6 +188,7 @@ static cxl_stub_result *g_res2; /* readings on two lengths: fixture fitted */
 static cxl_loss_fit *g_fit;
 static cxl_loss_model *g_model;
 static cxl_array_pair *g_pair;  /* end-fire pair of long wires */
+static cxl_array *g_array;      /* three elements, one fed by a modelled line */
 static cxl_loss_model *g_clad;  /* g_model with a copper-clad steel centre */
 static cxl_drift *g_drift;      /* VF at three frequencies */
 static cxl_trim *g_trim;        /* a piece read at three orders, with a target */
@@ -755,6 +757,89 @@ ADAPTER(array_directivity) { return cxl_array_directivity(P(0, g_pair), a[0], P(
 ADAPTER(array_rdf) { return cxl_array_rdf(P(0, g_pair), a[0], P(1, &o[0])); }
 ADAPTER(array_null_depth) { return cxl_array_null_depth(a[0], a[1], P(0, &o[0])); }
 
+/* array.c: the N-element array */
+NEW_ADAPTER(array_new, cxl_array, cxl_array_new(P(0, &h)), cxl_array_free)
+NEW_ADAPTER(array_copy, cxl_array, cxl_array_copy(P(0, g_array), P(1, &h)), cxl_array_free)
+/* Setters work on a copy of g_array; an accepted value must leave an
+ * array whose response is finite or refused. */
+static cxl_array *fresh_array(void)
+{
+    cxl_array *p = NULL;
+    ck_assert_int_eq(cxl_array_copy(g_array, &p), CXL_OK);
+    return p;
+}
+static void probe_array(const cxl_array *p, double *o)
+{
+    double r;
+    if (cxl_array_eval_response(p, 1.83e6, 0.0, 15.0, &r) == CXL_OK) o[0] = r;
+}
+#define ARRAY_SETTER(name, call)                                             \
+    ADAPTER(name)                                                            \
+    {                                                                        \
+        cxl_array *p = fresh_array();                                        \
+        cxl_status st = call;                                                \
+        if (st == CXL_OK) probe_array(p, o);                                 \
+        cxl_array_free(p);                                                   \
+        return st;                                                           \
+    }
+ARRAY_SETTER(array_add, ((void)0, cxl_array_add(P(0, p), a[0], a[1], a[2], &(size_t){ 0 })))
+ARRAY_SETTER(array_set_position, cxl_array_set_position(P(0, p), to_size(a[0]), a[1], a[2], a[3]))
+ARRAY_SETTER(array_set_delay, cxl_array_set_delay(P(0, p), to_size(a[0]), a[1]))
+ARRAY_SETTER(array_set_line, cxl_array_set_line(P(0, p), to_size(a[0]), a[1], a[2]))
+ARRAY_SETTER(array_set_line_model,
+             cxl_array_set_line_model(P(0, p), to_size(a[0]), a[1], P(1, g_model)))
+ARRAY_SETTER(array_set_reversed, cxl_array_set_reversed(P(0, p), to_size(a[0]), to_int(a[1])))
+ARRAY_SETTER(array_set_weight, cxl_array_set_weight(P(0, p), to_size(a[0]), a[1]))
+ARRAY_SETTER(array_set_phase_offset, cxl_array_set_phase_offset(P(0, p), to_size(a[0]), a[1]))
+ARRAY_SETTER(array_set_element,
+             cxl_array_set_element(P(0, p), (cxl_element_kind)to_int(a[0]), a[1], a[2]))
+ADAPTER(array_max_freq)
+{
+    (void)a;
+    return cxl_array_max_freq(P(0, g_array), P(1, &o[0]));
+}
+ADAPTER(array_eval_field)
+{
+    return cxl_array_eval_field(P(0, g_array), a[0], a[1], a[2], P(1, &o[0]), P(2, &o[1]));
+}
+ADAPTER(array_eval_response)
+{
+    return cxl_array_eval_response(P(0, g_array), a[0], a[1], a[2], P(1, &o[0]));
+}
+ADAPTER(array_eval_gain)
+{
+    return cxl_array_eval_gain(P(0, g_array), a[0], a[1], a[2], P(1, &o[0]));
+}
+ADAPTER(array_eval_pattern)
+{
+    /* the output array holds 4; n is only ever 4 or a bad value */
+    return cxl_array_eval_pattern(P(0, g_array), a[0], a[1], to_size(a[2]), P(1, &o[0]));
+}
+ADAPTER(array_eval_front_to_back)
+{
+    return cxl_array_eval_front_to_back(P(0, g_array), a[0], a[1], P(1, &o[0]));
+}
+ADAPTER(array_eval_rear_null)
+{
+    return cxl_array_eval_rear_null(P(0, g_array), a[0], a[1], P(1, &o[0]), P(2, &o[1]));
+}
+ADAPTER(array_eval_beamwidth)
+{
+    return cxl_array_eval_beamwidth(P(0, g_array), a[0], a[1], P(1, &o[0]));
+}
+ADAPTER(array_eval_peak)
+{
+    return cxl_array_eval_peak(P(0, g_array), a[0], P(1, &o[0]), P(2, &o[1]));
+}
+ADAPTER(array_eval_directivity)
+{
+    return cxl_array_eval_directivity(P(0, g_array), a[0], P(1, &o[0]));
+}
+ADAPTER(array_eval_rdf)
+{
+    return cxl_array_eval_rdf(P(0, g_array), a[0], a[1], P(1, &o[0]), P(2, &o[1]));
+}
+
 /* budget.c */
 ADAPTER(budget_phase_for_null)
 {
@@ -1150,6 +1235,36 @@ static api_case cases[] = {
     { "cxl_array_directivity", call_array_directivity, 1, {F}, {&K_POS}, 2, 0, 1, 0, {{0}} },
     { "cxl_array_rdf", call_array_rdf, 1, {F}, {&K_POS}, 2, 0, 1, 0, {{0}} },
     { "cxl_array_null_depth", call_array_null_depth, 2, {2, 0.5}, {&K_FIN, &K_IMB}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_new", call_array_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_copy", call_array_copy, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
+    { "cxl_array_add", call_array_add, 3, {3, -4, 0}, {&K_FIN, &K_FIN, &K_FIN}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_set_position", call_array_set_position, 4, {1, 3, -4, 1},
+      {&K_INDEX, &K_FIN, &K_FIN, &K_FIN}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_set_delay", call_array_set_delay, 2, {1, 50e-9}, {&K_INDEX, &K_NONNEG}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_set_line", call_array_set_line, 3, {1, 12, 0.66}, {&K_INDEX, &K_NONNEG, &K_VF},
+      1, 0, 1, 0, {{0}} },
+    { "cxl_array_set_line_model", call_array_set_line_model, 2, {1, 12}, {&K_INDEX, &K_NONNEG},
+      2, 0, 1, 0, {{0}} },
+    { "cxl_array_set_reversed", call_array_set_reversed, 2, {1, 1}, {&K_INDEX, &K_ANYINT}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_set_weight", call_array_set_weight, 2, {1, -1.5}, {&K_INDEX, &K_IMB}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_set_phase_offset", call_array_set_phase_offset, 2, {1, 5}, {&K_INDEX, &K_FIN},
+      1, 0, 1, 0, {{0}} },
+    { "cxl_array_set_element", call_array_set_element, 3, {1, 80, 0.7}, {&K_ELKIND, &K_POS, &K_VF},
+      1, 0, 1, 0, {{0}} },
+    { "cxl_array_max_freq", call_array_max_freq, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
+    { "cxl_array_eval_field", call_array_eval_field, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 3, 0, 2, 0, {{0}} },
+    { "cxl_array_eval_response", call_array_eval_response, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV},
+      2, 0, 1, 0, {{0}} },
+    { "cxl_array_eval_gain", call_array_eval_gain, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 2, 0, 1, 0, {{0}} },
+    { "cxl_array_eval_pattern", call_array_eval_pattern, 3, {F, 15, 4}, {&K_POS, &K_ELEV, &K_COUNT1},
+      2, 0, 4, 0, {{0}} },
+    { "cxl_array_eval_front_to_back", call_array_eval_front_to_back, 2, {F, 15}, {&K_POS, &K_ELEV},
+      2, 0, 1, 0, {{0}} },
+    { "cxl_array_eval_rear_null", call_array_eval_rear_null, 2, {F, 15}, {&K_POS, &K_ELEV}, 3, 0, 2, 0, {{0}} },
+    { "cxl_array_eval_beamwidth", call_array_eval_beamwidth, 2, {F, 15}, {&K_POS, &K_ELEV}, 2, 0, 1, 0, {{0}} },
+    { "cxl_array_eval_peak", call_array_eval_peak, 1, {F}, {&K_POS}, 3, 0, 2, 0, {{0}} },
+    { "cxl_array_eval_directivity", call_array_eval_directivity, 1, {F}, {&K_POS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_array_eval_rdf", call_array_eval_rdf, 2, {F, 15}, {&K_POS, &K_ELEV}, 3, 0, 2, 0, {{0}} },
     /* budget.c */
     { "cxl_budget_phase_for_null", call_budget_phase_for_null, 2, {-30, 0.2}, {&K_DEPTH, &K_IMB}, 1, 0, 1,
       1, {{-40, 3.0}} /* the imbalance alone misses -40 dB */ },
@@ -1372,6 +1487,9 @@ START_TEST(free_and_count_null)
     cxl_loss_fit_free(NULL);
     cxl_loss_model_free(NULL);
     cxl_array_pair_free(NULL);
+    cxl_array_free(NULL);
+    ck_assert_uint_eq(cxl_array_count(NULL), 0);
+    ck_assert_uint_eq(cxl_array_count(g_array), 3);
     cxl_drift_free(NULL);
     cxl_trim_free(NULL);
     cxl_trim_result_free(NULL);
@@ -1966,6 +2084,13 @@ static void setup_objects(void)
     NEED(cxl_array_pair_set_geometry(g_pair, 5.0, 40.0) == CXL_OK);
     NEED(cxl_array_pair_set_delay(g_pair, 0, 40.0 / C) == CXL_OK);
     NEED(cxl_array_pair_set_long_wire(g_pair, 60.0, 0.8) == CXL_OK);
+    NEED(cxl_array_new(&g_array) == CXL_OK);
+    NEED(cxl_array_add(g_array, 0.0, 0.0, 0.0, NULL) == CXL_OK);
+    NEED(cxl_array_add(g_array, -20.0, 5.0, 0.0, NULL) == CXL_OK);
+    NEED(cxl_array_add(g_array, -20.0, -5.0, 0.0, NULL) == CXL_OK);
+    NEED(cxl_array_set_line(g_array, 1, 13.2, 0.66) == CXL_OK);
+    NEED(cxl_array_set_line_model(g_array, 2, 13.2, g_model) == CXL_OK);
+    NEED(cxl_array_set_reversed(g_array, 1, 1) == CXL_OK);
 
     /* the same cable with 0.05 mm of copper over steel (sigma 5.8e6 S/m,
      * mu_r 100; invented round values) */
@@ -2040,6 +2165,7 @@ int main(void)
     cxl_drift_free(g_drift);
     cxl_loss_model_free(g_clad);
     cxl_array_pair_free(g_pair);
+    cxl_array_free(g_array);
     cxl_loss_model_free(g_model);
     cxl_loss_fit_free(g_fit);
     cxl_stub_result_free(g_res2);

@@ -3,7 +3,9 @@
 #include <config.h>
 #include <check.h>
 #include <math.h>
+#include <stdio.h>
 #include <stdlib.h>
+#include <unistd.h>
 #include <gsl/gsl_errno.h>
 #include <gsl/gsl_math.h>
 #include <gsl/gsl_sf_expint.h>
@@ -434,6 +436,355 @@ START_TEST(test_budget_length)
 }
 END_TEST
 
+/* ---- the N-element array ------------------------------------------------ */
+
+static cxl_array *new_array(void)
+{
+    cxl_array *a = NULL;
+    ck_assert_int_eq(cxl_array_new(&a), CXL_OK);
+    ck_assert_ptr_nonnull(a);
+    return a;
+}
+
+/* A uniform linear array of n isotropic elements along the forward axis,
+ * spacing d_wl wavelengths, progressive phase beta_deg (element i gets
+ * i beta), weights w[i] in dB (NULL: all 0). */
+static cxl_array *linear(int n, double d_wl, double beta_deg, const double *w)
+{
+    cxl_array *a = new_array();
+    for (int i = 0; i < n; i++) {
+        size_t k;
+        ck_assert_int_eq(cxl_array_add(a, i * d_wl * LAMBDA_M, 0.0, 0.0, &k), CXL_OK);
+        ck_assert_uint_eq(k, (size_t)i);
+        ck_assert_int_eq(cxl_array_set_phase_offset(a, k, i * beta_deg), CXL_OK);
+        if (w) ck_assert_int_eq(cxl_array_set_weight(a, k, w[i]), CXL_OK);
+    }
+    ck_assert_uint_eq(cxl_array_count(a), (size_t)n);
+    return a;
+}
+
+/* Exact directivity of a uniform linear array of isotropic elements:
+ * peak |AF|^2 over its sphere mean N + 2 sum_m (N - m) cos(m beta)
+ * sin(m kd)/(m kd) (Balanis, Antenna Theory, 3rd ed., ch. 6, array factor
+ * AF = sum exp(j i psi), psi = kd cos(gamma) + beta, eq. 6-10 from memory;
+ * the mean term by term from the two-element average quoted above). */
+static double ula_d(int n, double kd, double beta, double peak_af2)
+{
+    double mean = n;
+    for (int m = 1; m < n; m++)
+        mean += 2.0 * (n - m) * cos(m * beta) * sin(m * kd) / (m * kd);
+    return 10.0 * log10(peak_af2 / mean);
+}
+
+START_TEST(test_uniform_linear_af)
+{
+    /* |AF| = |sin(N psi/2) / sin(psi/2)| (Balanis, 3rd ed., ch. 6,
+     * N-element uniform linear array, eq. 6-10 from memory) at several
+     * directions; psi = kd cos(gamma) + beta, gamma from the array axis
+     * (+x): cos(gamma) = cos(el) cos(az). */
+    for (int n = 2; n <= 8; n++) {
+        double d_wl = 0.3, beta = -40.0, kd = 2.0 * M_PI * d_wl;
+        cxl_array *a = linear(n, d_wl, beta, NULL);
+        for (int t = 0; t < 12; t++) {
+            double az = -170.0 + 31.0 * t, el = -60.0 + 11.0 * t, r;
+            double psi = kd * cos(el * DEG) * cos(az * DEG) + beta * DEG;
+            double af = sin(0.5 * n * psi) / sin(0.5 * psi);
+            ck_assert_int_eq(cxl_array_eval_response(a, F_HZ, az, el, &r), CXL_OK);
+            if (af * af > 1e-12)
+                ck_assert_double_eq_tol(r, 10.0 * log10(af * af), 1e-9);
+        }
+        cxl_array_free(a);
+    }
+}
+END_TEST
+
+START_TEST(test_broadside_and_endfire_directivity)
+{
+    /* Broadside (beta = 0), d = lambda/2: D = N exactly (the sin(m kd)
+     * terms vanish), Balanis 3rd ed. ch. 6, broadside D0 = 2 N d / lambda
+     * (from memory), exact here.  Ordinary end-fire (beta = -kd), d =
+     * lambda/4: the exact sum above; Balanis gives D0 ~ 4 N d / lambda = N
+     * for large N (from memory), within 15 % at N = 8. */
+    for (int n = 2; n <= 8; n++) {
+        double d;
+        cxl_array *a = linear(n, 0.5, 0.0, NULL);
+        ck_assert_int_eq(cxl_array_eval_directivity(a, F_HZ, &d), CXL_OK);
+        ck_assert_double_eq_tol(d, 10.0 * log10((double)n), 1e-6);
+        cxl_array_free(a);
+
+        double kd = M_PI / 2.0;
+        a = linear(n, 0.25, -90.0, NULL);
+        ck_assert_int_eq(cxl_array_eval_directivity(a, F_HZ, &d), CXL_OK);
+        ck_assert_double_eq_tol(d, ula_d(n, kd, -kd, (double)n * n), 1e-6);
+        /* the end-fire beam points forward: gain at azimuth 0 is the peak */
+        double g, az, el;
+        ck_assert_int_eq(cxl_array_eval_gain(a, F_HZ, 0.0, 0.0, &g), CXL_OK);
+        ck_assert_double_eq_tol(g, d, 1e-6);
+        ck_assert_int_eq(cxl_array_eval_peak(a, F_HZ, &az, &el), CXL_OK);
+        ck_assert_double_eq_tol(fabs(fmod(az + 180.0, 360.0) - 180.0), 0.0, 0.05);
+        if (n == 8)
+            ck_assert(fabs(pow(10.0, d / 10.0) / (4.0 * n * 0.25) - 1.0) < 0.15);
+        cxl_array_free(a);
+    }
+}
+END_TEST
+
+START_TEST(test_binomial)
+{
+    /* Binomial weights C(N-1, i), d = lambda/2 broadside: AF =
+     * (1 + e^{j psi})^{N-1}, |AF| = |2 cos(psi/2)|^{N-1} with no side
+     * lobes (Balanis 3rd ed. ch. 6, binomial array; the binomial theorem);
+     * D0 = (2N-2)!! / (2N-3)!! (Balanis, binomial array directivity for
+     * d = lambda/2, from memory; N = 3 gives 8/3, checked by hand:
+     * peak 16 over the mean 8 int_{-1}^{1} cos^4(pi x/2) dx / 2 = 6). */
+    for (int n = 2; n <= 7; n++) {
+        double w[8], c = 1.0, d, r;
+        for (int i = 0; i < n; i++) {
+            w[i] = 20.0 * log10(c);
+            c = c * (n - 1 - i) / (i + 1);
+        }
+        cxl_array *a = linear(n, 0.5, 0.0, w);
+        double num = 1.0, den = 1.0;
+        for (int i = 1; i < n; i++) {
+            num *= 2.0 * i;
+            den *= 2.0 * i - 1.0;
+        }
+        ck_assert_int_eq(cxl_array_eval_directivity(a, F_HZ, &d), CXL_OK);
+        ck_assert_double_eq_tol(d, 10.0 * log10(num / den), 1e-6);
+        for (int t = 0; t < 7; t++) {
+            double az = 10.0 + 23.0 * t;
+            double psi = M_PI * cos(az * DEG);
+            double af = pow(fabs(2.0 * cos(0.5 * psi)), n - 1);
+            ck_assert_int_eq(cxl_array_eval_response(a, F_HZ, az, 0.0, &r), CXL_OK);
+            if (af > 1e-3) ck_assert_double_eq_tol(r, 20.0 * log10(af), 1e-9);
+        }
+        cxl_array_free(a);
+    }
+}
+END_TEST
+
+START_TEST(test_reversed_broadside_element)
+{
+    /* Two elements side by side, lambda/2 apart across the forward axis,
+     * in phase: forward is broadside, |AF| = 2 (Balanis AF with psi = 0).
+     * Reversing one feed (a feed box wired the other way round) makes
+     * psi = pi on the forward axis: a null (|1 - 1| = 0), while the
+     * end-fire directions (azimuth 90 and 270) now add. */
+    cxl_array *a = new_array();
+    double r, fb, bw;
+    cxl_array_add(a, 0.0, -0.25 * LAMBDA_M, 0.0, NULL);
+    cxl_array_add(a, 0.0, 0.25 * LAMBDA_M, 0.0, NULL);
+    ck_assert_int_eq(cxl_array_eval_response(a, F_HZ, 0.0, 0.0, &r), CXL_OK);
+    ck_assert_double_eq_tol(r, 10.0 * log10(4.0), 1e-9);
+    ck_assert_int_eq(cxl_array_set_reversed(a, 1, 1), CXL_OK);
+    ck_assert_int_eq(cxl_array_eval_response(a, F_HZ, 0.0, 0.0, &r), CXL_OK);
+    ck_assert(r < -250.0);
+    ck_assert_int_eq(cxl_array_eval_response(a, F_HZ, 90.0, 0.0, &r), CXL_OK);
+    ck_assert_double_eq_tol(r, 10.0 * log10(4.0), 1e-9);
+    /* no forward response: the beamwidth referred to it is refused, the
+     * front-to-back is the model's floor (the rear is as deep, to rounding) */
+    ck_assert_int_eq(cxl_array_eval_beamwidth(a, F_HZ, 0.0, &bw), CXL_ERANGE);
+    ck_assert_int_eq(cxl_array_eval_front_to_back(a, F_HZ, 0.0, &fb), CXL_OK);
+    ck_assert(fb < -250.0);
+    cxl_array_free(a);
+}
+END_TEST
+
+START_TEST(test_compass_azimuth)
+{
+    /* Azimuth is a compass bearing: 90 is +y (right).  An end-fire pair
+     * along +y with the right-hand element delayed by the spacing hears
+     * azimuth 90 fully and azimuth 270 not at all (psi = kd (sin az - 1)). */
+    cxl_array *a = new_array();
+    double r90, r270, t;
+    cxl_array_add(a, 0.0, 0.125 * LAMBDA_M, 0.0, NULL);
+    cxl_array_add(a, 0.0, -0.125 * LAMBDA_M, 0.0, NULL);
+    cxl_line_delay_from_offset(0.25 * LAMBDA_M, &t);
+    cxl_array_set_delay(a, 0, t);
+    ck_assert_int_eq(cxl_array_eval_response(a, F_HZ, 90.0, 0.0, &r90), CXL_OK);
+    ck_assert_int_eq(cxl_array_eval_response(a, F_HZ, 270.0, 0.0, &r270), CXL_OK);
+    ck_assert_double_eq_tol(r90, 10.0 * log10(4.0), 1e-9);
+    ck_assert(r270 < -250.0);
+    cxl_array_free(a);
+}
+END_TEST
+
+START_TEST(test_pair_is_two_elements)
+{
+    /* The pair API and a two-element array built by hand from the pair's
+     * stated geometry (coaxline.h) give the same numbers. */
+    cxl_array_pair *p = new_pair();
+    cxl_array *a = new_array();
+    double t;
+    cxl_array_pair_set_geometry(p, 7.0, 20.0);
+    cxl_line_delay_from_offset(20.0, &t);
+    cxl_array_pair_set_delay(p, 1, t);
+    cxl_array_pair_set_flip(p, 1, 1);
+    cxl_array_pair_set_imbalance(p, 0.7);
+    cxl_array_add(a, 10.0, -3.5, 0.0, NULL);
+    cxl_array_add(a, -10.0, 3.5, 0.0, NULL);
+    cxl_array_set_delay(a, 1, t);
+    cxl_array_set_reversed(a, 1, 1);
+    cxl_array_set_weight(a, 1, -0.7);
+    double f = 3.6e6, x1, x2, y1, y2, fwd;
+    ck_assert_int_eq(cxl_array_front_to_back(p, f, 10.0, &x1), CXL_OK);
+    ck_assert_int_eq(cxl_array_eval_front_to_back(a, f, 10.0, &x2), CXL_OK);
+    ck_assert_double_eq_tol(x1, x2, 1e-12);
+    ck_assert_int_eq(cxl_array_rear_null(p, f, 10.0, &x1, &y1), CXL_OK);
+    ck_assert_int_eq(cxl_array_eval_rear_null(a, f, 10.0, &x2, &y2), CXL_OK);
+    ck_assert_double_eq_tol(x1, x2, 1e-9);
+    ck_assert_double_eq_tol(y1, y2, 1e-9);
+    ck_assert_int_eq(cxl_array_rdf(p, f, &x1), CXL_OK);
+    ck_assert_int_eq(cxl_array_eval_rdf(a, f, 0.0, &fwd, &x2), CXL_OK);
+    ck_assert_double_eq_tol(x1, x2, 1e-12);
+    cxl_array_pair_free(p);
+    cxl_array_free(a);
+}
+END_TEST
+
+START_TEST(test_vertical_over_ground)
+{
+    /* One short vertical on perfect ground: |E|^2 = 4 cos^2(el) above the
+     * ground (element and image), so over the upper hemisphere the mean is
+     * 4 * 2/3 and the peak 4: RDF 10 log10 1.5 = 1.76 dB, and the gain,
+     * referred to the whole sphere (half of it dark), 3 dB more: 4.77 dBi
+     * (Balanis 3rd ed., ch. 4, monopole over an infinite ground plane has
+     * twice the directivity of the dipole in free space, from memory;
+     * the short dipole's 1.5 is elementary). */
+    cxl_array *a = new_array();
+    double g, fwd, peak, r;
+    cxl_array_add(a, 0.0, 0.0, 0.0, NULL);
+    ck_assert_int_eq(cxl_array_set_element(a, CXL_ELEMENT_VERTICAL, 0.0, 0.0), CXL_OK);
+    ck_assert_int_eq(cxl_array_eval_rdf(a, F_HZ, 0.0, &fwd, &peak), CXL_OK);
+    ck_assert_double_eq_tol(peak, 10.0 * log10(1.5), 1e-6);
+    ck_assert_double_eq_tol(fwd, peak, 1e-6);
+    ck_assert_int_eq(cxl_array_eval_gain(a, F_HZ, 0.0, 0.0, &g), CXL_OK);
+    ck_assert_double_eq_tol(g, 10.0 * log10(3.0), 1e-6);
+    ck_assert_int_eq(cxl_array_eval_response(a, F_HZ, 0.0, -10.0, &r), CXL_OK);
+    ck_assert_double_eq(r, -CXL_DB_LIMIT);   /* below the ground */
+    cxl_array_free(a);
+}
+END_TEST
+
+START_TEST(test_line_model_loss)
+{
+    /* A modelled line: its attenuation lowers the element's amplitude and
+     * its phase constant sets the delay, so the array equals one with the
+     * weight -attenuation * L and the delay beta L / omega (the model's own
+     * gamma; the definition in coaxline.h). */
+    cxl_loss_model *m;
+    ck_assert_int_eq(cxl_loss_model_new(0.45e-3, 2.95e-3, 2.25, 2e-4, 58e6, 1.0, &m),
+                     CXL_OK);
+    double f = 7.1e6, alpha, beta, re1, im1, re2, im2;
+    ck_assert_int_eq(cxl_loss_model_gamma(m, f, 0, &alpha, &beta), CXL_OK);
+    cxl_array *a = new_array(), *b = new_array();
+    for (int i = 0; i < 2; i++) {
+        cxl_array_add(a, 3.0 * i, 1.0, 0.0, NULL);
+        cxl_array_add(b, 3.0 * i, 1.0, 0.0, NULL);
+    }
+    ck_assert_int_eq(cxl_array_set_line_model(a, 1, 40.0, m), CXL_OK);
+    cxl_array_set_weight(b, 1, -20.0 * log10(exp(1.0)) * alpha * 40.0);
+    cxl_array_set_delay(b, 1, beta * 40.0 / (2.0 * M_PI * f));
+    ck_assert_int_eq(cxl_array_eval_field(a, f, 33.0, 5.0, &re1, &im1), CXL_OK);
+    ck_assert_int_eq(cxl_array_eval_field(b, f, 33.0, 5.0, &re2, &im2), CXL_OK);
+    ck_assert_double_eq_tol(re1, re2, 1e-9);
+    ck_assert_double_eq_tol(im1, im2, 1e-9);
+    cxl_array_free(a);
+    cxl_array_free(b);
+    cxl_loss_model_free(m);
+}
+END_TEST
+
+START_TEST(test_size_limit)
+{
+    /* The documented bound: k D <= CXL_ARRAY_MAX_KSIZE, and
+     * cxl_array_max_freq names the frequency where it is reached. */
+    cxl_array *a = new_array(), *c = NULL;
+    double fmax, fb;
+    size_t k;
+    cxl_array_add(a, 0.0, 0.0, 0.0, NULL);
+    ck_assert_int_eq(cxl_array_max_freq(a, &fmax), CXL_ERANGE);
+    cxl_array_add(a, 20.0, 0.0, 0.0, NULL);
+    ck_assert_int_eq(cxl_array_max_freq(a, &fmax), CXL_OK);
+    ck_assert_double_eq_tol(fmax, CXL_ARRAY_MAX_KSIZE * CXL_C_M_PER_S / (2.0 * M_PI * 20.0),
+                            1e-3);
+    ck_assert_int_eq(cxl_array_eval_front_to_back(a, 0.999 * fmax, 0.0, &fb), CXL_OK);
+    ck_assert_int_eq(cxl_array_eval_front_to_back(a, 1.001 * fmax, 0.0, &fb), CXL_ERANGE);
+    ck_assert_int_eq(cxl_array_copy(a, &c), CXL_OK);
+    ck_assert_uint_eq(cxl_array_count(c), 2);
+    /* capacity */
+    for (int i = 2; i < CXL_ARRAY_MAX_ELEMENTS; i++)
+        ck_assert_int_eq(cxl_array_add(c, i, 0.0, 0.0, &k), CXL_OK);
+    ck_assert_int_eq(cxl_array_add(c, 0.0, 0.0, 0.0, &k), CXL_ERANGE);
+    ck_assert_uint_eq(k, CXL_ARRAY_MAX_ELEMENTS - 1);
+    cxl_array *e = new_array();
+    ck_assert_int_eq(cxl_array_eval_front_to_back(e, F_HZ, 0.0, &fb), CXL_EINVAL);
+    ck_assert_int_eq(cxl_array_set_delay(e, 0, 1e-9), CXL_EINVAL);
+    cxl_array_free(e);
+    cxl_array_free(a);
+    cxl_array_free(c);
+}
+END_TEST
+
+/* A small deterministic generator for the random layouts (the C
+ * standard's example rand, so every machine draws the same). */
+static unsigned long lcg_state = 1;
+static double uniform(double lo, double hi)
+{
+    lcg_state = lcg_state * 1103515245UL + 12345UL;
+    return lo + (hi - lo) * (double)((lcg_state / 65536UL) % 32768UL) / 32767.0;
+}
+
+START_TEST(test_python_reference)
+{
+    /* Random layouts of 2-8 elements against tests/array_ref.py, an
+     * independent numpy/scipy integration (its tolerances are stated
+     * there). */
+    const char *py = getenv("PYTHON3_SYSTEM");
+    const char *src = getenv("COAXLINE_SRCDIR");
+    char path[] = "/tmp/cxl_array_refXXXXXX", cmd[1024];
+    int fd = mkstemp(path);
+    ck_assert(fd >= 0);
+    FILE *fp = fdopen(fd, "w");
+    ck_assert_ptr_nonnull(fp);
+    lcg_state = 20261202UL;
+    for (int c = 0; c < 10; c++) {
+        int n = 2 + c % 7;
+        int kind = c % 3 == 2 ? CXL_ELEMENT_VERTICAL : CXL_ELEMENT_ISOTROPIC;
+        double f = uniform(1.8e6, 7.3e6), lambda = CXL_C_M_PER_S / f;
+        double el = kind == CXL_ELEMENT_VERTICAL ? uniform(0.0, 30.0) : uniform(-20.0, 30.0);
+        cxl_array *a = new_array();
+        cxl_array_set_element(a, (cxl_element_kind)kind, 0.0, 0.0);
+        fprintf(fp, "%d %.17g %.17g %d", kind, f, el, n);
+        for (int i = 0; i < n; i++) {
+            double x = uniform(-0.6, 0.6) * lambda, y = uniform(-0.6, 0.6) * lambda;
+            double z = c % 2 ? uniform(0.0, 0.1) * lambda : 0.0;
+            double tau = uniform(0.0, 1.0) / f, w = uniform(-3.0, 0.0);
+            int rev = uniform(0.0, 1.0) < 0.3;
+            ck_assert_int_eq(cxl_array_add(a, x, y, z, NULL), CXL_OK);
+            cxl_array_set_delay(a, (size_t)i, tau);
+            cxl_array_set_weight(a, (size_t)i, w);
+            cxl_array_set_reversed(a, (size_t)i, rev);
+            fprintf(fp, " %.17g %.17g %.17g %.17g %.17g %d", x, y, z, tau, w, rev);
+        }
+        double g, fb, naz, nd, rf, rp, bw;
+        ck_assert_int_eq(cxl_array_eval_gain(a, f, 0.0, el, &g), CXL_OK);
+        ck_assert_int_eq(cxl_array_eval_front_to_back(a, f, el, &fb), CXL_OK);
+        ck_assert_int_eq(cxl_array_eval_rear_null(a, f, el, &naz, &nd), CXL_OK);
+        ck_assert_int_eq(cxl_array_eval_rdf(a, f, el, &rf, &rp), CXL_OK);
+        ck_assert_int_eq(cxl_array_eval_beamwidth(a, f, el, &bw), CXL_OK);
+        fprintf(fp, " %.17g %.17g %.17g %.17g %.17g %.17g\n", g, fb, nd, rf, rp, bw);
+        cxl_array_free(a);
+    }
+    ck_assert_int_eq(fclose(fp), 0);
+    snprintf(cmd, sizeof cmd, "%s %s/tests/array_ref.py %s", py && py[0] ? py : "/usr/bin/python3",
+             src && src[0] ? src : ".", path);
+    int rc = system(cmd);
+    unlink(path);
+    ck_assert_msg(rc == 0, "tests/array_ref.py disagrees (exit %d)", rc);
+}
+END_TEST
+
 int main(void)
 {
     gsl_set_error_handler(gsl_abort);
@@ -454,6 +805,19 @@ int main(void)
     tcase_add_test(tc, test_invalid_arguments);
     tcase_add_test(tc, test_copy);
     suite_add_tcase(s, tc);
+    TCase *tn = tcase_create("n-element");
+    tcase_set_timeout(tn, 300);
+    tcase_add_test(tn, test_uniform_linear_af);
+    tcase_add_test(tn, test_broadside_and_endfire_directivity);
+    tcase_add_test(tn, test_binomial);
+    tcase_add_test(tn, test_reversed_broadside_element);
+    tcase_add_test(tn, test_compass_azimuth);
+    tcase_add_test(tn, test_pair_is_two_elements);
+    tcase_add_test(tn, test_vertical_over_ground);
+    tcase_add_test(tn, test_line_model_loss);
+    tcase_add_test(tn, test_size_limit);
+    tcase_add_test(tn, test_python_reference);
+    suite_add_tcase(s, tn);
     TCase *tb = tcase_create("budget");
     tcase_add_test(tb, test_budget_null);
     tcase_add_test(tb, test_budget_front_to_back);

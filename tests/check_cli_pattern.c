@@ -16,37 +16,9 @@
 #define F100 "--freq 2.99792458MHz"
 #define MODEL "free space, no ground, no mutual coupling"
 
-/* The number after "key": in the row-th object of a JSON array. */
-static double json_num(const char *json, int row, const char *key)
-{
-    char pat[80];
-    snprintf(pat, sizeof pat, "\"%s\":", key);
-    const char *p = json;
-    for (int i = 0; i <= row; i++) {
-        p = strstr(p, pat);
-        ck_assert_msg(p != NULL, "no %s in row %d of %s", key, row, json);
-        p += strlen(pat);
-    }
-    char tok[64];
-    size_t n = strcspn(p, ",}");
-    ck_assert(n < sizeof tok);
-    memcpy(tok, p, n);
-    tok[n] = '\0';
-    double v;
-    ck_assert_msg(cxl_units_parse_number(tok, &v, NULL) == CXL_OK, "%s is %s", key, tok);
-    return v;
-}
-
-static double run_num(const char *args, int row, const char *key)
-{
-    char full[1024];
-    snprintf(full, sizeof full, "%s --format json", args);
-    cli_result r = run_cli(NULL, full, NULL);
-    ck_assert_msg(r.rc == 0 || r.rc == 1, "'%s' exit %d: %s", args, r.rc, r.err);
-    double v = json_num(r.out, row, key);
-    cli_result_free(&r);
-    return v;
-}
+/* JSON number helpers shared with check_cli_array (testutil.c). */
+#define json_num json_number
+#define run_num run_json_number
 
 START_TEST(rdf_broadside_and_endfire)
 {
@@ -283,6 +255,11 @@ START_TEST(bad_input)
 {
     bad("pattern --spacing 10m", "band");
     bad("pattern --spacing -3m --freq 1.83MHz", "spacing");
+    /* the bounded work: 20 m at 8 GHz is 534 wavelengths, the limit for
+     * 20 m is 300 c / (2 pi 20 m) = 715.7 MHz (coaxline.h) */
+    bad_also("pattern --spacing 20m --freq 8GHz", "freq", "715.7");
+    bad_also("pattern --spacing 20m --freq 1.83MHz --plot /dev/null --plot-freq 1GHz", "plot-freq",
+             "stops at");
     bad("pattern --spacing 1,5m --freq 1.83MHz", "spacing");
     bad("pattern --stagger 10m --freq 1.83MHz --feed broadfire", "feed");
     bad("pattern --freq 1.83MHz --feed crossfire", "stagger");

@@ -8,6 +8,7 @@
 #include <string.h>
 #include <sys/wait.h>
 #include <unistd.h>
+#include "coaxline.h"
 #include "testutil.h"
 
 static char *slurp(const char *path)
@@ -251,4 +252,38 @@ int run_suite(Suite *s)
     int nf = srunner_ntests_failed(sr);
     srunner_free(sr);
     return nf ? EXIT_FAILURE : EXIT_SUCCESS;
+}
+
+/* ---- JSON numbers ---------------------------------------------------------- */
+
+/* The number after "key": in the row-th object of a JSON array. */
+double json_number(const char *json, int row, const char *key)
+{
+    char pat[80];
+    snprintf(pat, sizeof pat, "\"%s\":", key);
+    const char *p = json;
+    for (int i = 0; i <= row; i++) {
+        p = strstr(p, pat);
+        ck_assert_msg(p != NULL, "no %s in row %d of %s", key, row, json);
+        p += strlen(pat);
+    }
+    char tok[64];
+    size_t n = strcspn(p, ",}");
+    ck_assert(n < sizeof tok);
+    memcpy(tok, p, n);
+    tok[n] = '\0';
+    double v;
+    ck_assert_msg(cxl_units_parse_number(tok, &v, NULL) == CXL_OK, "%s is %s", key, tok);
+    return v;
+}
+
+double run_json_number(const char *args, int row, const char *key)
+{
+    char full[1024];
+    snprintf(full, sizeof full, "%s --format json", args);
+    cli_result r = run_cli(NULL, full, NULL);
+    ck_assert_msg(r.rc == 0 || r.rc == 1, "'%s' exit %d: %s", args, r.rc, r.err);
+    double v = json_number(r.out, row, key);
+    cli_result_free(&r);
+    return v;
 }

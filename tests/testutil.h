@@ -90,6 +90,11 @@ void json_holds(const char *json, const char *check);
  * rects (the shaded band rectangles, fill #e6e6e6). */
 void svg_holds(const char *path, const char *asserts);
 
+/* The number after "key": in the row-th object of a JSON array. */
+double json_number(const char *json, int row, const char *key);
+/* json_number of "coaxline ARGS --format json" (exit 0 or 1). */
+double run_json_number(const char *args, int row, const char *key);
+
 /* ---- main ---------------------------------------------------------------- */
 
 /* Run every test of s; EXIT_FAILURE when any failed, else EXIT_SUCCESS. */

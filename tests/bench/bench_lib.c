@@ -36,6 +36,7 @@ typedef struct fixture {
     cxl_loss_fit *fit;
     cxl_loss_model *model;
     cxl_array_pair *pair;
+    cxl_array *arr2, *arr8, *arr8v, *arr64;
     const cxl_bands *bands;
     cxl_bands *bands_owned;
 } fixture;
@@ -79,6 +80,17 @@ BENCH_BODY(loss_fit, "fit eval",
 BENCH_BODY(loss_model, "model attenuation",
            cxl_loss_model_attenuation(fx->model, 1.83e6 + WIGGLE(i) * 1e5, 0, &out))
 BENCH_BODY(array_rdf, "rdf", cxl_array_rdf(fx->pair, 1.83e6 + WIGGLE(i) * 1e4, &out))
+static cxl_status rdf_n(const cxl_array *a, long i, double *out)
+{
+    double fwd;
+    return cxl_array_eval_rdf(a, 1.83e6 + WIGGLE(i) * 1e4, 0.0, &fwd, out);
+}
+BENCH_BODY(array_rdf2, "rdf 2", rdf_n(fx->arr2, i, &out))
+BENCH_BODY(array_rdf8, "rdf 8", rdf_n(fx->arr8, i, &out))
+BENCH_BODY(array_rdf8v, "rdf 8 vertical", rdf_n(fx->arr8v, i, &out))
+BENCH_BODY(array_rdf64, "rdf 64", rdf_n(fx->arr64, i, &out))
+BENCH_BODY(array_fb8, "f/b 8",
+           cxl_array_eval_front_to_back(fx->arr8, 1.83e6 + WIGGLE(i) * 1e4, 0.0, &out))
 static const char *const length_text[4] = { "20.10m", "41ft 6in", "1250mm", "20.00m" };
 BENCH_BODY(parse_length, "parse",
            cxl_units_parse_length(length_text[i & 3], CXL_UNITS_METRIC, &out, NULL))
@@ -229,6 +241,23 @@ int main(int argc, char **argv)
     check(cxl_line_delay_from_offset(0.25 * lambda_m, &delay_s), "delay");
     check(cxl_array_pair_set_delay(fx.pair, 0, delay_s), "set delay");
 
+    /* N-element arrays at 1.83 MHz: the same end-fire pair; 8 elements as
+     * four such pairs side by side, half a wavelength apart (isotropic,
+     * and short verticals on the ground); 64 as 32 pairs (demo layouts) */
+    cxl_array **arrs[4] = { &fx.arr2, &fx.arr8, &fx.arr8v, &fx.arr64 };
+    const int ncols[4] = { 1, 4, 4, 32 };
+    for (int a = 0; a < 4; a++) {
+        check(cxl_array_new(arrs[a]), "array");
+        for (int c = 0; c < ncols[a]; c++) {
+            size_t k;
+            double y = (c - 0.5 * (ncols[a] - 1)) * 0.5 * lambda_m;
+            check(cxl_array_add(*arrs[a], 0.125 * lambda_m, y, 0.0, &k), "add");
+            check(cxl_array_set_delay(*arrs[a], k, delay_s), "delay");
+            check(cxl_array_add(*arrs[a], -0.125 * lambda_m, y, 0.0, NULL), "add");
+        }
+    }
+    check(cxl_array_set_element(fx.arr8v, CXL_ELEMENT_VERTICAL, 0.0, 1.0), "vertical");
+
     char cpu[256];
     cpu_model(cpu, sizeof cpu);
     printf("library cost per call: libcoaxline %s, %s\n", cxl_version(), cpu);
@@ -243,6 +272,13 @@ int main(int argc, char **argv)
     measure("cxl_loss_model_attenuation", "RG-213 geometry, 1.83 MHz", loss_model, &fx);
     measure("cxl_stub_fit (3 readings)", "new, 3 readings, fit, vf, free", stub_fit, &fx);
     measure("cxl_array_rdf", "end-fire cardioid pair, 1.83 MHz", array_rdf, &fx);
+    measure("cxl_array_eval_rdf (2 elements)", "the same pair as a cxl_array (target 0.3 ms)",
+            array_rdf2, &fx);
+    measure("cxl_array_eval_rdf (8 elements)", "4 such pairs, lambda/2 apart (target 2 ms)",
+            array_rdf8, &fx);
+    measure("cxl_array_eval_rdf (8 verticals)", "the same over perfect ground", array_rdf8v, &fx);
+    measure("cxl_array_eval_rdf (64 elements)", "32 such pairs, lambda/2 apart", array_rdf64, &fx);
+    measure("cxl_array_eval_front_to_back (8)", "4 pairs, no integral", array_fb8, &fx);
     printf("  -- the batch path and per-process set-up --\n");
     measure("cxl_units_parse_length", "20.10m, 41ft 6in, 1250mm", parse_length, &fx);
     measure("cxl_units_format_fixed", "3 decimals", format_fixed, &fx);
@@ -252,6 +288,7 @@ int main(int argc, char **argv)
     measure("cxl_loss_fit_new_cable + free", "RG-213 (GSL least squares)", fit_new, &fx);
 
     cxl_array_pair_free(fx.pair);
+    for (int a = 0; a < 4; a++) cxl_array_free(*arrs[a]);
     cxl_bands_free(fx.bands_owned);
     cxl_loss_model_free(fx.model);
     cxl_loss_fit_free(fx.fit);

@@ -1,0 +1,541 @@
+/* cmd_array.c - coaxline array: what an array of any number of elements
+ * described by a layout CSV does per band (forward gain, front-to-back,
+ * rear null, RDF, beamwidth), as designed, as built, and with each element
+ * reversed in turn (a feed box wired the other way round); polar and
+ * sweep plots.  The model is the library's (coaxline.h, array.c). */
+#include <config.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include "cli.h"
+
+#define RDF_TEXT "upper-hemisphere average"
+#define AZ_TEXT "compass bearing: 0 forward, clockwise seen from above"
+#define PLOT_POINTS 360
+#define MAX_PLOT_CURVES 8
+#define SWEEP_POINTS 41
+#define SWEEP_CEILING_DB 60.0
+
+static const cli_optdef array_opts[] = {
+    { "layout", "FILE", "layout CSV: label,x,y,z,delay,line,degrees,invert,weight", 0 },
+    { "vf", "X", "velocity factor of the layout's line lengths", 0 },
+    { "cable", "NAME", "feed-line cable from the catalog (its VF; its loss with --line-loss)", 0 },
+    { "line-loss", NULL, "lines lose as the cable's model says (the loss sets each amplitude)", 0 },
+    { "design-freq", "F", "frequency at which the degrees column holds", 0 },
+    { "element", "isotropic|wire|vertical", "element pattern (default isotropic)", 0 },
+    { "wire-length", "LEN", "length of each traveling-wave wire", 0 },
+    { "wire-vf", "X", "velocity factor along the wire", 0 },
+    { "elevation", "DEG", "elevation of the azimuth cut (default 0, 20 for wires)", 0 },
+    { "reverse-each", NULL, "also evaluate with each element reversed in turn", 0 },
+    { "as-built", "FILE", "per-element errors: label,line,phase_error,imbalance", 0 },
+    { "actual-vf", "X", "as built: the spool's real VF (the lines were cut for --vf/--cable)", 0 },
+    { "band", "LIST", "bands to evaluate, e.g. 160m,80m", 1 },
+    { "region", "N", "ITU Region 1, 2 or 3 (default: widest edges of all)", 0 },
+    { "exclude-footnotes", NULL, "leave out band segments allowed only by footnote", 0 },
+    { "freq", "F", "a single frequency to evaluate", 1 },
+    { "plot", "FILE", "write azimuth patterns as an SVG polar plot", 0 },
+    { "plot-freq", "LIST", "frequencies of the plot (default: each band centre or --freq)", 1 },
+    { "plot-range", "DB", "dB from the outer ring to the plot centre (default 40)", 0 },
+    { "sweep-plot", "FILE", "write front-to-back against frequency across each --band as SVG", 0 },
+    { "label", "TEXT", "name kept in every output row", 0 },
+    { NULL, NULL, NULL, 0 }
+};
+
+static const cli_col array_cols[] = {
+    { "label", -1 }, { "case", -1 }, { "band", -1 }, { "edge", -1 }, { "freq_mhz", 6 },
+    { "elevation_deg", 1 }, { "forward_gain_dbi", 2 }, { "front_to_back_db", 2 },
+    { "null_depth_db", 2 }, { "null_azimuth_deg", 1 }, { "rdf_forward_db", 2 },
+    { "rdf_db", 2 }, { "beamwidth_deg", 1 }, { "model", -1 }, { "rdf_reference", -1 },
+    { "azimuth", -1 },
+};
+#define NCOLS (sizeof array_cols / sizeof array_cols[0])
+
+typedef struct {
+    cli_layout lay;
+    double vf, actual_vf;
+    cxl_loss_model *model;   /* --line-loss */
+    int kind;
+    double wire_length_m, wire_vf;
+    double elevation_deg;
+    int as_built, reverse_each;
+    const char *model_text;
+} array_spec;
+
+typedef struct {
+    double gain, fb, null_db, null_az, rdf_fwd, rdf, bw;
+    int has_null, has_bw;   /* 0: undefined (no forward response) */
+} array_row;
+
+/* Case c: 0 design, 1 as built (when given), then one per reversed
+ * element. */
+static int ncases(const array_spec *s)
+{
+    return 1 + s->as_built + (s->reverse_each ? (int)s->lay.n : 0);
+}
+
+static void case_name(const array_spec *s, int c, char *buf, size_t size)
+{
+    if (c == 0) snprintf(buf, size, "design");
+    else if (c == 1 && s->as_built) snprintf(buf, size, "as-built");
+    else snprintf(buf, size, "reversed %s", s->lay.el[c - 1 - s->as_built].label);
+}
+
+static cxl_status build(const array_spec *s, int c, cxl_array **out)
+{
+    cxl_array *a;
+    cxl_status st = cxl_array_new(&a);
+    if (st) return st;
+    int built = c == 1 && s->as_built;
+    int reversed = c > s->as_built ? c - 1 - s->as_built : -1;
+    st = cxl_array_set_element(a, (cxl_element_kind)s->kind, s->wire_length_m, s->wire_vf);
+    for (size_t i = 0; st == CXL_OK && i < s->lay.n; i++) {
+        const cli_layout_elem *e = &s->lay.el[i];
+        st = cxl_array_add(a, e->x_m, e->y_m, e->z_m, NULL);
+        if (st) break;
+        if (e->has_line) {
+            double len = built ? e->built_line_m : e->line_m;
+            double vf = built ? s->actual_vf : s->vf;
+            if (s->model)
+                st = cxl_array_set_line_model(a, i, len * s->vf / vf, s->model);
+            else
+                st = cxl_array_set_line(a, i, len, vf);
+        } else {
+            st = cxl_array_set_delay(a, i, e->delay_s);
+        }
+        if (!st) st = cxl_array_set_reversed(a, i, e->invert != ((int)i == reversed));
+        double w = e->weight_db - (built ? e->imbalance_db : 0.0);
+        if (!st) st = cxl_array_set_weight(a, i, w);
+        if (!st && built) st = cxl_array_set_phase_offset(a, i, -e->phase_error_deg);
+    }
+    if (st) {
+        cxl_array_free(a);
+        return st;
+    }
+    *out = a;
+    return CXL_OK;
+}
+
+/* The frequency bound of the geometry, as a one-line error above it. */
+static int size_limit(cli_ctx *ctx, const char *field, const cxl_array *a, double f)
+{
+    double max_hz;
+    if (cxl_array_max_freq(a, &max_hz) != CXL_OK || f <= max_hz) return 0;
+    char b1[32], b2[32], want[96];
+    snprintf(want, sizeof want, "a frequency up to %s MHz for this layout",
+             cli_fmt(b1, sizeof b1, max_hz / 1e6, 3));
+    return cli_error(ctx, field, want,
+                     "at %s MHz the layout is too large for the pattern model "
+                     "(electrical size k D above %g, about %s wavelengths)",
+                     cli_fmt(b2, sizeof b2, f / 1e6, 6), CXL_ARRAY_MAX_KSIZE,
+                     cli_fmt(b1, sizeof b1, CXL_ARRAY_MAX_KSIZE / (2.0 * M_PI), 1));
+}
+
+static int evaluate(cli_ctx *ctx, const array_spec *s, int c, double f, array_row *r)
+{
+    cxl_array *a;
+    cxl_status st = build(s, c, &a);
+    if (st == CXL_OK && size_limit(ctx, "freq", a, f)) {
+        cxl_array_free(a);
+        return CLI_EXIT_USAGE;
+    }
+    double el = s->elevation_deg;
+    r->has_null = r->has_bw = 1;
+    if (st == CXL_OK) st = cxl_array_eval_gain(a, f, 0.0, el, &r->gain);
+    if (st == CXL_OK) st = cxl_array_eval_front_to_back(a, f, el, &r->fb);
+    if (st == CXL_OK) st = cxl_array_eval_rdf(a, f, el, &r->rdf_fwd, &r->rdf);
+    if (st == CXL_OK) {
+        /* a case with no forward response (a reversed element can do
+         * that) has no null depth or beamwidth referred to forward: those
+         * cells stay empty */
+        st = cxl_array_eval_rear_null(a, f, el, &r->null_az, &r->null_db);
+        if (st == CXL_ERANGE && c > 0) r->has_null = 0, st = CXL_OK;
+    }
+    if (st == CXL_OK) {
+        st = cxl_array_eval_beamwidth(a, f, el, &r->bw);
+        if (st == CXL_ERANGE && c > 0) r->has_bw = 0, st = CXL_OK;
+    }
+    cxl_array_free(a);
+    if (st != CXL_OK) {
+        char b[32], name[96];
+        case_name(s, c, name, sizeof name);
+        return cli_error(ctx, "freq", "a frequency and elevation at which the array has a forward response",
+                         "at %s MHz the %s array cannot be evaluated: %s",
+                         cli_fmt(b, sizeof b, f / 1e6, 6), name, cxl_strerror(st));
+    }
+    return 0;
+}
+
+static int parse_element(cli_ctx *ctx, const cli_args *a, array_spec *s)
+{
+    const char *el = cli_get(a, "element", 0);
+    s->kind = CXL_ELEMENT_ISOTROPIC;
+    s->wire_vf = 1.0;
+    if (el && strcmp(el, "wire") == 0) s->kind = CXL_ELEMENT_WIRE;
+    else if (el && strcmp(el, "vertical") == 0) s->kind = CXL_ELEMENT_VERTICAL;
+    else if (el && strcmp(el, "isotropic") != 0)
+        return cli_error(ctx, "element", "isotropic, wire or vertical", "unknown element '%s'", el);
+    if (s->kind != CXL_ELEMENT_WIRE) {
+        if (cli_count(a, "wire-length") || cli_count(a, "wire-vf"))
+            return cli_error(ctx, cli_count(a, "wire-length") ? "wire-length" : "wire-vf",
+                             "--element wire with --wire-length and --wire-vf",
+                             "wire values given for %s elements", el ? el : "isotropic");
+    } else {
+        if (!cli_count(a, "wire-length"))
+            return cli_error(ctx, "wire-length", "--wire-length 150m", "a wire element needs its length");
+        if (!cli_count(a, "wire-vf"))
+            return cli_error(ctx, "wire-vf", "0.45-0.8 for a wire on the ground, 0.95-0.99 raised",
+                             "a wire element needs its velocity factor");
+        if (cli_length(ctx, "wire-length", cli_get(a, "wire-length", 0), CLI_POSITIVE,
+                       &s->wire_length_m) ||
+            cli_vf(ctx, "wire-vf", cli_get(a, "wire-vf", 0), &s->wire_vf))
+            return CLI_EXIT_USAGE;
+    }
+    s->elevation_deg = s->kind == CXL_ELEMENT_WIRE ? 20.0 : 0.0;
+    if (cli_count(a, "elevation") &&
+        cli_number(ctx, "elevation", cli_get(a, "elevation", 0), 0.0, 89.0,
+                   "degrees above the horizon, 0 to 89", &s->elevation_deg))
+        return CLI_EXIT_USAGE;
+    if (s->kind == CXL_ELEMENT_WIRE && s->elevation_deg == 0.0)
+        return cli_error(ctx, "elevation", "an elevation above 0 for wires, such as 20",
+                         "a long wire has no response along its own axis at elevation 0");
+    s->model_text = s->kind == CXL_ELEMENT_VERTICAL
+                        ? "short verticals over perfect ground, no mutual coupling"
+                        : "free space, no ground, no mutual coupling";
+    return 0;
+}
+
+static int parse_spec(cli_ctx *ctx, const cli_args *a, array_spec *s)
+{
+    memset(s, 0, sizeof *s);
+    if (!cli_count(a, "layout"))
+        return cli_error(ctx, "layout", "--layout array.csv", "the array needs its layout file");
+    if (parse_element(ctx, a, s)) return CLI_EXIT_USAGE;
+    const char *cable = NULL;
+    if ((cli_count(a, "vf") || cli_count(a, "cable")) && cli_vf_or_cable(ctx, a, &s->vf, &cable))
+        return CLI_EXIT_USAGE;
+    double design_hz = 0.0;
+    if (cli_count(a, "design-freq") &&
+        cli_freq(ctx, "design-freq", cli_get(a, "design-freq", 0), &design_hz))
+        return CLI_EXIT_USAGE;
+    s->actual_vf = s->vf;
+    if (cli_count(a, "actual-vf")) {
+        if (!(s->vf > 0.0))
+            return cli_error(ctx, "actual-vf", "--actual-vf 0.81 with the design --vf or --cable",
+                             "the spool's VF needs the VF the lines were cut for");
+        if (cli_vf(ctx, "actual-vf", cli_get(a, "actual-vf", 0), &s->actual_vf))
+            return CLI_EXIT_USAGE;
+        s->as_built = 1;
+    }
+    if (cli_flag(a, "line-loss")) {
+        if (!cable || !cable[0])
+            return cli_error(ctx, "line-loss", "--cable NAME with --line-loss",
+                             "the lines' loss needs a catalog cable");
+        size_t idx;
+        if (cli_cable_index(ctx, cable, &idx)) return CLI_EXIT_USAGE;
+        if (cxl_loss_model_new_cable(cli_catalog(ctx), idx, &s->model) != CXL_OK)
+            return cli_error(ctx, "line-loss", "a cable with its geometry in the catalog",
+                             "cable '%s' has no geometry for a loss model", cable);
+    }
+    if (cli_layout_load(ctx, "layout", cli_get(a, "layout", 0), s->vf, design_hz, &s->lay))
+        return CLI_EXIT_USAGE;
+    if (cli_count(a, "as-built")) {
+        if (cli_layout_as_built(ctx, "as-built", cli_get(a, "as-built", 0), &s->lay))
+            return CLI_EXIT_USAGE;
+        s->as_built = 1;
+    } else {
+        for (size_t i = 0; i < s->lay.n; i++) s->lay.el[i].built_line_m = s->lay.el[i].line_m;
+    }
+    s->reverse_each = cli_flag(a, "reverse-each");
+    return 0;
+}
+
+static void free_spec(array_spec *s)
+{
+    cli_layout_free(&s->lay);
+    cxl_loss_model_free(s->model);
+    s->model = NULL;
+}
+
+/* Azimuth patterns at each plot frequency (design, and as built dashed). */
+static int plot(cli_ctx *ctx, const cli_args *a, const array_spec *s, const double *freqs,
+                int nf)
+{
+    double range_db = 40.0;
+    if (cli_count(a, "plot-range") &&
+        cli_number(ctx, "plot-range", cli_get(a, "plot-range", 0), 10.0, 200.0,
+                   "10 to 200 dB, such as 40", &range_db))
+        return CLI_EXIT_USAGE;
+    static double az[PLOT_POINTS], gain[MAX_PLOT_CURVES][PLOT_POINTS];
+    char names[MAX_PLOT_CURVES][96], title[200], b1[32], b2[32];
+    cli_svg_curve curves[MAX_PLOT_CURVES];
+    size_t nc = 0;
+    for (int i = 0; i < PLOT_POINTS; i++) az[i] = 360.0 * i / PLOT_POINTS;
+    for (int k = 0; k < nf; k++)
+        for (int c = 0; c <= s->as_built && nc < MAX_PLOT_CURVES; c++) {
+            cxl_array *arr;
+            double fwd, rdf;
+            cxl_status st = build(s, c, &arr);
+            if (st == CXL_OK && size_limit(ctx, "plot-freq", arr, freqs[k])) {
+                cxl_array_free(arr);
+                return CLI_EXIT_USAGE;
+            }
+            if (st == CXL_OK)
+                st = cxl_array_eval_pattern(arr, freqs[k], s->elevation_deg, PLOT_POINTS, gain[nc]);
+            if (st == CXL_OK) st = cxl_array_eval_rdf(arr, freqs[k], s->elevation_deg, &fwd, &rdf);
+            cxl_array_free(arr);
+            if (st != CXL_OK)
+                return cli_error(ctx, "plot-freq", "a frequency at which the array can be modelled",
+                                 "at %s MHz: %s", cli_fmt(b1, sizeof b1, freqs[k] / 1e6, 6),
+                                 cxl_strerror(st));
+            snprintf(names[nc], sizeof names[nc], "%s MHz%s (RDF %s dB)",
+                     cli_fmt(b1, sizeof b1, freqs[k] / 1e6, 4), c ? " as built" : "",
+                     cli_fmt(b2, sizeof b2, rdf, 2));
+            curves[nc] = (cli_svg_curve){ names[nc], az, gain[nc], PLOT_POINTS, c, 0 };
+            nc++;
+        }
+    const char *label = cli_label(a);
+    snprintf(title, sizeof title, "%s%sAzimuth pattern of %zu elements, elevation %s deg", label,
+             label[0] ? ": " : "", s->lay.n, cli_fmt(b2, sizeof b2, s->elevation_deg, 1));
+    char note0[160];
+    snprintf(note0, sizeof note0, "Model: %s, lossless ideal combiner; gain in dBi.", s->model_text);
+    cli_svg_polar polar = {
+        .title = title,
+        .note = { note0,
+                  "RDF = peak gain over the average over the upper hemisphere (elevation 0-90 deg).",
+                  "Azimuth is a compass bearing: 0 forward (+x), clockwise seen from above." },
+        .unit = "dBi",
+        .range_db = range_db,
+        .ring_step_db = range_db >= 30.0 ? 10.0 : 5.0,
+        .curves = curves,
+        .ncurves = nc,
+    };
+    return cli_svg_save(ctx, "plot", cli_get(a, "plot", 0), &polar, NULL);
+}
+
+/* Front-to-back across each band, design and as built. */
+static int sweep_plot(cli_ctx *ctx, const cli_args *a, const array_spec *s,
+                      const cli_freq_point *pts, int n)
+{
+    static double mhz[CLI_MAX_ITEMS * (SWEEP_POINTS + 1)];
+    static double fb[2][CLI_MAX_ITEMS * (SWEEP_POINTS + 1)];
+    cli_svg_span spans[CLI_MAX_ITEMS];
+    size_t m = 0, nspans = 0;
+    int nc = 1 + s->as_built;
+    char b1[32], title[200];
+    cxl_array *arr[2] = { NULL, NULL };
+    int code = 0;
+    for (int c = 0; c < nc && !code; c++)
+        if (build(s, c, &arr[c]) != CXL_OK)
+            code = cli_error(ctx, "sweep-plot", NULL, "out of memory");
+    for (int i = 0; !code && i + 2 < n; i++) {
+        if (!pts[i].band[0] || strcmp(pts[i].edge, "low") != 0) continue;
+        double lo = pts[i].freq_hz, hi = pts[i + 2].freq_hz;
+        spans[nspans++] = (cli_svg_span){ lo / 1e6, hi / 1e6, pts[i].band };
+        for (int k = 0; !code && k < SWEEP_POINTS; k++, m++) {
+            double f = lo + (hi - lo) * k / (SWEEP_POINTS - 1);
+            mhz[m] = f / 1e6;
+            for (int c = 0; !code && c < nc; c++) {
+                cxl_status st = cxl_array_eval_front_to_back(arr[c], f, s->elevation_deg, &fb[c][m]);
+                if (st != CXL_OK)
+                    code = cli_error(ctx, "sweep-plot", "bands on which the array can be modelled",
+                                     "at %s MHz: %s", cli_fmt(b1, sizeof b1, f / 1e6, 6),
+                                     cxl_strerror(st));
+                else
+                    fb[c][m] = fmax(fmin(fb[c][m], SWEEP_CEILING_DB), -SWEEP_CEILING_DB);
+            }
+        }
+        mhz[m] = NAN;
+        fb[0][m] = fb[1][m] = NAN;
+        m++;
+    }
+    for (int c = 0; c < nc; c++) cxl_array_free(arr[c]);
+    if (code) return code;
+    if (nspans == 0)
+        return cli_error(ctx, "sweep-plot", "--sweep-plot FILE with --band 160m,80m",
+                         "a sweep needs at least one --band");
+    cli_svg_curve curves[2] = { { "design", mhz, fb[0], m, 0, 0 },
+                                { "as built", mhz, fb[1], m, 1, 0 } };
+    const char *label = cli_label(a);
+    snprintf(title, sizeof title, "%s%sFront-to-back ratio across the bands, elevation %s deg", label,
+             label[0] ? ": " : "", cli_fmt(b1, sizeof b1, s->elevation_deg, 1));
+    cli_svg_xy xy = {
+        .title = title,
+        .note = { "Model: no mutual coupling, lossless ideal combiner.",
+                  "Ratios beyond +-60 dB are drawn at +-60 dB (a perfect null is infinite).",
+                  "Front-to-back: azimuth 0 over azimuth 180 (compass bearing)." },
+        .x_label = "frequency (MHz)",
+        .y_label = "front-to-back ratio (dB)",
+        .curves = curves,
+        .ncurves = (size_t)nc,
+        .spans = spans,
+        .nspans = nspans,
+    };
+    return cli_svg_save(ctx, "sweep-plot", cli_get(a, "sweep-plot", 0), NULL, &xy);
+}
+
+/* --plot-freq, or each band's centre and each --freq. */
+static int plot_freqs(cli_ctx *ctx, const cli_args *a, const cli_freq_point *pts, int n,
+                      double *freqs)
+{
+    int nf = 0;
+    if (cli_count(a, "plot-freq")) {
+        static char buf[4096];
+        const char *items[CLI_MAX_ITEMS];
+        int ni = cli_items(ctx, a, "plot-freq", buf, sizeof buf, items, CLI_MAX_ITEMS);
+        if (ni < 0) return -1;
+        if (ni > MAX_PLOT_CURVES)
+            return cli_error(ctx, "plot-freq", "at most 8 frequencies", "%d plot frequencies", ni), -1;
+        for (int i = 0; i < ni; i++)
+            if (cli_freq(ctx, "plot-freq", items[i], &freqs[nf++])) return -1;
+        return nf;
+    }
+    for (int i = 0; i < n && nf < MAX_PLOT_CURVES; i++)
+        if (!pts[i].band[0] || strcmp(pts[i].edge, "centre") == 0) freqs[nf++] = pts[i].freq_hz;
+    return nf;
+}
+
+static void describe(cli_ctx *ctx, const array_spec *s, const char *label)
+{
+    FILE *o = ctx->out;
+    char b[5][96];
+    fprintf(o, "array%s%s: %zu elements\n", label[0] ? ": " : "", label, s->lay.n);
+    fprintf(o, "  model        %s; lossless ideal combiner\n", s->model_text);
+    fprintf(o, "  azimuth      %s\n", AZ_TEXT);
+    fprintf(o, "  RDF          over the average over the upper hemisphere (elevation 0-90): "
+               "rdf_forward from azimuth 0, rdf from the peak\n");
+    if (s->kind == CXL_ELEMENT_WIRE)
+        fprintf(o, "  elements     traveling-wave wires %s, wire VF %s, along the forward axis\n",
+                cli_fmt_length(ctx, b[0], sizeof b[0], s->wire_length_m),
+                cli_fmt(b[1], sizeof b[1], s->wire_vf, 3));
+    else
+        fprintf(o, "  elements     %s\n", s->kind == CXL_ELEMENT_VERTICAL
+                                              ? "short verticals over perfect ground" : "isotropic");
+    fprintf(o, "\n  %-10s %9s %9s %8s %10s %-22s %s\n", "element", "x m", "y m", "z m", "delay ns",
+            "line", "");
+    for (size_t i = 0; i < s->lay.n; i++) {
+        const cli_layout_elem *e = &s->lay.el[i];
+        char line[128] = "";
+        if (e->has_line)
+            snprintf(line, sizeof line, "%s", cli_fmt_length(ctx, b[4], sizeof b[4], e->line_m));
+        fprintf(o, "  %-10s %9s %9s %8s %10s %-22s %s%s%s\n", e->label,
+                cli_fmt(b[0], sizeof b[0], e->x_m, 3), cli_fmt(b[1], sizeof b[1], e->y_m, 3),
+                cli_fmt(b[2], sizeof b[2], e->z_m, 3), cli_fmt(b[3], sizeof b[3], e->delay_s * 1e9, 3),
+                line, e->invert ? "inverted " : "", e->weight_db != 0.0 ? "weight " : "",
+                e->weight_db != 0.0 ? cli_fmt(b[0], sizeof b[0], e->weight_db, 2) : "");
+    }
+    if (s->as_built) {
+        fprintf(o, "  as built    ");
+        if (s->actual_vf != s->vf)
+            fprintf(o, " spool VF %s;", cli_fmt(b[0], sizeof b[0], s->actual_vf, 4));
+        for (size_t i = 0; i < s->lay.n; i++) {
+            const cli_layout_elem *e = &s->lay.el[i];
+            if (e->built_line_m != e->line_m)
+                fprintf(o, " %s line %s;", e->label, cli_fmt(b[0], sizeof b[0], e->built_line_m, 3));
+            if (e->phase_error_deg != 0.0)
+                fprintf(o, " %s lags %s deg;", e->label, cli_fmt(b[0], sizeof b[0], e->phase_error_deg, 2));
+            if (e->imbalance_db != 0.0)
+                fprintf(o, " %s %s dB weaker;", e->label, cli_fmt(b[0], sizeof b[0], e->imbalance_db, 2));
+        }
+        putc('\n', o);
+    }
+    fprintf(o, "  azimuth cut  elevation %s deg\n", cli_fmt(b[0], sizeof b[0], s->elevation_deg, 1));
+}
+
+static int array_run(cli_ctx *ctx, const cli_args *a)
+{
+    static cli_freq_point pts[4 * CLI_MAX_ITEMS];
+    array_spec s;
+    if (parse_spec(ctx, a, &s)) {
+        free_spec(&s);
+        return CLI_EXIT_USAGE;
+    }
+    int n = cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0], NULL);
+    int code = n < 0 ? CLI_EXIT_USAGE : 0;
+    if (!code && (cli_count(a, "plot-freq") || cli_count(a, "plot-range")) && !cli_count(a, "plot"))
+        code = cli_error(ctx, cli_count(a, "plot-freq") ? "plot-freq" : "plot-range",
+                         "--plot FILE.svg with it", "it only applies to --plot");
+    int nc = ncases(&s);
+    array_row *rows = NULL;
+    if (!code) {
+        rows = calloc((size_t)n * (size_t)nc, sizeof *rows);
+        if (!rows) code = cli_error(ctx, "layout", NULL, "out of memory");
+    }
+    for (int i = 0; !code && i < n; i++)
+        for (int c = 0; !code && c < nc; c++)
+            code = evaluate(ctx, &s, c, pts[i].freq_hz, &rows[(size_t)i * nc + c]);
+    if (!code && cli_count(a, "plot")) {
+        double freqs[MAX_PLOT_CURVES];
+        int nf = plot_freqs(ctx, a, pts, n, freqs);
+        code = nf < 0 ? CLI_EXIT_USAGE : plot(ctx, a, &s, freqs, nf);
+    }
+    if (!code && cli_count(a, "sweep-plot")) code = sweep_plot(ctx, a, &s, pts, n);
+    if (code) {
+        free(rows);
+        free_spec(&s);
+        return code;
+    }
+
+    const char *label = cli_label(a);
+    char name[96];
+    if (ctx->format != CLI_TEXT) {
+        for (int i = 0; i < n; i++)
+            for (int c = 0; c < nc; c++) {
+                const array_row *r = &rows[(size_t)i * nc + c];
+                case_name(&s, c, name, sizeof name);
+                cli_cell cells[NCOLS] = {
+                    CLI_TXT(label), CLI_TXT(name), CLI_TXT(pts[i].band), CLI_TXT(pts[i].edge),
+                    CLI_NUM(pts[i].freq_hz / 1e6), CLI_NUM(s.elevation_deg), CLI_NUM(r->gain),
+                    CLI_NUM(r->fb), r->has_null ? CLI_NUM(r->null_db) : CLI_NONE,
+                    r->has_null ? CLI_NUM(r->null_az) : CLI_NONE, CLI_NUM(r->rdf_fwd),
+                    CLI_NUM(r->rdf), r->has_bw ? CLI_NUM(r->bw) : CLI_NONE,
+                    CLI_TXT(s.model_text), CLI_TXT(RDF_TEXT),
+                    CLI_TXT(AZ_TEXT),
+                };
+                cli_table_row(ctx, array_cols, NCOLS, cells);
+            }
+        free(rows);
+        free_spec(&s);
+        return CLI_EXIT_OK;
+    }
+
+    FILE *o = ctx->out;
+    if (ctx->rows_out++) putc('\n', o);
+    describe(ctx, &s, label);
+    fprintf(o, "\n  %-6s %-6s %10s  %-16s %8s %7s %8s %6s %8s %6s %6s\n", "band", "edge",
+            "freq MHz", "case", "gain", "F/B", "null", "at az", "RDF fwd", "RDF", "-3 dB");
+    fprintf(o, "  %-6s %-6s %10s  %-16s %8s %7s %8s %6s %8s %6s %6s\n", "", "", "", "", "dBi",
+            "dB", "dB", "deg", "dB", "dB", "deg");
+    int at_limit = 0, undefined = 0;
+    for (int i = 0; i < n; i++)
+        for (int c = 0; c < nc; c++) {
+            const array_row *r = &rows[(size_t)i * nc + c];
+            char f[32], v[7][32];
+            case_name(&s, c, name, sizeof name);
+            at_limit |= fabs(r->fb) >= CXL_DB_LIMIT || (r->has_null && fabs(r->null_db) >= CXL_DB_LIMIT);
+            undefined |= !r->has_null || !r->has_bw;
+            fprintf(o, "  %-6s %-6s %10s  %-16s %8s %7s %8s %6s %8s %6s %6s\n",
+                    c ? "" : pts[i].band, c ? "" : pts[i].edge,
+                    c ? "" : cli_fmt(f, sizeof f, pts[i].freq_hz / 1e6, 6), name,
+                    cli_fmt(v[0], sizeof v[0], r->gain, 2), cli_fmt(v[1], sizeof v[1], r->fb, 2),
+                    r->has_null ? cli_fmt(v[2], sizeof v[2], r->null_db, 2) : "-",
+                    r->has_null ? cli_fmt(v[3], sizeof v[3], r->null_az, 1) : "-",
+                    cli_fmt(v[4], sizeof v[4], r->rdf_fwd, 2), cli_fmt(v[5], sizeof v[5], r->rdf, 2),
+                    r->has_bw ? cli_fmt(v[6], sizeof v[6], r->bw, 1) : "-");
+        }
+    if (at_limit) fprintf(o, "  (300 dB is the model's limit: a perfect null)\n");
+    if (undefined)
+        fprintf(o, "  (-: no forward response, so no null depth or beamwidth referred to it)\n");
+    free(rows);
+    free_spec(&s);
+    return CLI_EXIT_OK;
+}
+
+const cli_command cli_cmd_array = {
+    .name = "array",
+    .summary = "pattern of an array of any size from a layout file, designed, as built, reversed",
+    .synopsis = "--layout FILE.csv (--band LIST | --freq F) [--vf X | --cable NAME] [OPTIONS]",
+    .opts = array_opts,
+    .run = array_run,
+    .batch = 0,
+};
