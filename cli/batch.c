@@ -156,6 +156,8 @@ static int reader_stopped(const cli_ctx *ctx, const char *path, cxl_status st, i
     return cli_error(ctx, "input", "a CSV text file with a line end at least every 1 MiB",
                      "no line end in '%s' for over 1 MiB; reading stopped",
                      path);
+}
+
 /* Options that name a file the command writes (--plot, --sweep-plot). */
 static int writes_file(const cli_optdef *o)
 {
