@@ -133,7 +133,8 @@ cxl_status cxl_budget_phase_for_front_to_back(const cxl_array_pair *pair,
 /* Rear null (as cxl_array_rear_null measures it) with element 1's fixed
  * phase offset set to -sign * d_deg (B lagging by sign * d_deg, the way
  * pattern applies --phase-error), minus the wanted depth: negative while
- * the null is deep enough. */
+ * the null is deep enough, positive once it is not or once the error has
+ * cancelled the forward response itself. */
 typedef struct {
     cxl_array_pair *trial;   /* a copy of the caller's pair */
     double freq_hz, elevation_deg, depth_db, sign;
@@ -149,6 +150,9 @@ static double null_excess(double d_deg, void *params)
     if (st == CXL_OK)
         st = cxl_array_rear_null(np->trial, np->freq_hz, np->elevation_deg,
                                  &az, &depth);
+    /* no forward response left at this error: nothing to null against */
+    if (st == CXL_ERANGE)
+        return 1.0;
     if (st) {
         if (!np->status)
             np->status = st;

@@ -757,7 +757,9 @@ cxl_status cxl_budget_phase_for_front_to_back(const cxl_array_pair *pair,
  * pair it allows much less error.  The pair is the design (its imbalance
  * and element type count); each trial error replaces element 1's fixed
  * phase offset on a private copy (cxl_array_pair_set_phase_offset, B
- * lagging positive), the caller's pair is not changed.  Found by a scan in
+ * lagging positive), the caller's pair is not changed.  The tolerance also
+ * ends where an error cancels the forward response (a compact pair whose
+ * pattern turns round).  Found by a scan in
  * 0.25-degree steps and refined with gsl_root_fsolver_brent.  CXL_ERANGE
  * when the error-free pair's null is already shallower than depth_db (or
  * the pair has no forward response); 180 when no error up to 180 degrees
