@@ -225,9 +225,10 @@ static int check_point(cli_ctx *ctx, const pair_set *s, double f, int want_allow
                          cxl_pair_max_mismatch(s->tol, s->vf, f, &c->allowed_m) == CXL_OK &&
                          isfinite(c->allowed_m);
     }
-    if (!s->reachable || c->err_deg > s->tol) c->verdict = CXL_VERDICT_FAIL;
-    else if (c->err_deg + c->unc_deg > s->tol) c->verdict = CXL_VERDICT_PASS_UNCERTAIN;
-    else c->verdict = CXL_VERDICT_PASS;
+    /* no tolerance left (an unreachable null) fails whatever the lines */
+    if (!s->reachable) c->verdict = CXL_VERDICT_FAIL;
+    else if (cxl_pair_verdict(c->err_deg, c->unc_deg, s->tol, &c->verdict) != CXL_OK)
+        return cli_error(ctx, "freq", "a smaller frequency", "gives no finite phase error");
     return 0;
 }
 

@@ -169,7 +169,7 @@ cxl_status cxl_budget_phase_for_rear_null(const cxl_array_pair *pair,
 {
     double az, depth0, limit[2];
     if (!pair || !phase_error_deg || !isfinite(depth_db) ||
-        !(depth_db < 0.0) || depth_db <= -CXL_DB_LIMIT)
+        !(depth_db < 0.0) || depth_db < -CXL_DB_LIMIT)
         return CXL_EINVAL;
     cxl_array_pair *trial = NULL;
     cxl_status st = cxl_array_pair_copy(pair, &trial);

@@ -361,6 +361,13 @@ typedef enum cxl_verdict {
     CXL_VERDICT_FAIL = 2            /* outside tolerance */
 } cxl_verdict;
 
+/* The verdict of a phase error (its magnitude) with its uncertainty
+ * (>= 0) against tolerance_deg (> 0): CXL_VERDICT_FAIL when |error| is
+ * above the tolerance, CXL_VERDICT_PASS_UNCERTAIN when |error| +
+ * uncertainty is, else CXL_VERDICT_PASS.  The one rule cxl_pair_check and
+ * any other check (lines into a load, say) use. */
+cxl_status cxl_pair_verdict(double phase_error_deg, double uncertainty_deg,
+                            double tolerance_deg, cxl_verdict *verdict);
 /* Check count >= 2 lines meant to be equal: the worst pair's length
  * difference (longest minus shortest), its phase error at freq_hz, the
  * uncertainty of that error (each length within length_tol_m, VF within
@@ -751,7 +758,7 @@ cxl_status cxl_budget_phase_for_front_to_back(const cxl_array_pair *pair,
  * limits is returned, in [0, 180]) for which the pair's rear null at
  * freq_hz and elevation_deg, measured as cxl_array_rear_null measures it
  * (deepest response over azimuth 90..270 relative to the response at
- * azimuth 0), stays at or below depth_db (-CXL_DB_LIMIT < depth_db < 0).
+ * azimuth 0), stays at or below depth_db (-CXL_DB_LIMIT <= depth_db < 0).
  * This is the null relative to the forward response of the geometry
  * given, not to the in-phase sum (cxl_budget_phase_for_null): for a compact
  * pair it allows much less error.  The pair is the design (its imbalance
