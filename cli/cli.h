@@ -293,20 +293,30 @@ int cli_svg_save(const cli_ctx *ctx, const char *field, const char *path,
 /* A two-element receive pair as pattern and budget describe it
  * (pairspec.c).  Element A is the library's element 0, B element 1. */
 #define CLI_PAIR_OPTDEFS \
+    CLI_PAIR_PLACE_OPTDEFS, \
+    { "line-a", "LEN", "line making A's feed delay, at --vf or --cable", 0 }, \
+    { "line-b", "LEN", "line making B's feed delay", 0 }, \
+    CLI_PAIR_FEED_OPTDEFS, \
+    { "vf", "X", "velocity factor of the feed lines", 0 }, \
+    { "cable", "NAME", "feed-line cable from the catalog (VF, and loss for --line-loss)", 0 }, \
+    { "vf-from", "FILE|-", "feed-line VF from coaxline vf --format csv output (its --at row at --design-freq)", 0 }, \
+    CLI_PAIR_ELEMENT_OPTDEFS
+/* The pair's geometry without feed lines (pair takes these for
+ * --null-depth; its --vf and --cable are the measured lines'). */
+#define CLI_PAIR_GEOMETRY_OPTDEFS \
+    CLI_PAIR_PLACE_OPTDEFS, CLI_PAIR_FEED_OPTDEFS, CLI_PAIR_ELEMENT_OPTDEFS
+#define CLI_PAIR_PLACE_OPTDEFS \
     { "spacing", "LEN", "broadside distance between elements A and B (default 0)", 0 }, \
     { "stagger", "LEN", "how far B sits behind A along the forward axis, negative: in front (default 0)", 0 }, \
     { "feed", "crossfire|endfire", "design feed worked out from the stagger", 0 }, \
-    { "design-freq", "F", "frequency for --degrees-a/--degrees-b and --feed endfire", 0 }, \
-    { "line-a", "LEN", "line making A's feed delay, at --vf or --cable", 0 }, \
-    { "line-b", "LEN", "line making B's feed delay", 0 }, \
+    { "design-freq", "F", "frequency for --degrees-a/--degrees-b and --feed endfire", 0 }
+#define CLI_PAIR_FEED_OPTDEFS \
     { "delay-a", "TIME", "feed delay of A", 0 }, \
     { "delay-b", "TIME", "feed delay of B", 0 }, \
     { "degrees-a", "DEG", "feed delay of A in electrical degrees at --design-freq", 0 }, \
     { "degrees-b", "DEG", "feed delay of B in electrical degrees at --design-freq", 0 }, \
-    { "invert", "a|b", "reverse one element's polarity (crossfire)", 0 }, \
-    { "vf", "X", "velocity factor of the feed lines", 0 }, \
-    { "cable", "NAME", "feed-line cable from the catalog (VF, and loss for --line-loss)", 0 }, \
-    { "vf-from", "FILE|-", "feed-line VF from coaxline vf --format csv output (its --at row at --design-freq)", 0 }, \
+    { "invert", "a|b", "reverse one element's polarity (crossfire)", 0 }
+#define CLI_PAIR_ELEMENT_OPTDEFS \
     { "element", "isotropic|wire", "element type (default isotropic)", 0 }, \
     { "wire-length", "LEN", "length of each traveling-wave wire", 0 }, \
     { "wire-vf", "X", "velocity factor along the wire (0.45-0.8 on the ground, 0.95-0.99 raised)", 0 }, \
@@ -361,21 +371,41 @@ int cli_pair_spec_build(cli_ctx *ctx, const cli_pair_spec *spec, int as_built,
                         double *phase_error_deg, double *imbalance_db);
 
 /* Phase tolerance from a wanted result (budgettol.c).  A command declares
- * CLI_BUDGET_OPTDEFS; with --null-depth DB (< 0) the tolerance is the
- * largest phase error that keeps the closed-form null of the pair (with
- * --imbalance) at or below DB, the same at every frequency
- * (cxl_budget_phase_for_null); a command that also declares
- * { "front-to-back", ... } and CLI_PAIR_OPTDEFS may ask instead for the
- * largest error on B that keeps the pair's front-to-back ratio at freq_hz
- * at or above DB (cxl_budget_phase_for_front_to_back).  Returns 0 with
- * *tolerance_deg set; CLI_EXIT_TOLERANCE (nothing printed) when even an
- * error-free pair misses the goal at freq_hz; CLI_EXIT_USAGE after
- * cli_error(). */
+ * CLI_BUDGET_OPTDEFS and CLI_PAIR_GEOMETRY_OPTDEFS (or CLI_PAIR_OPTDEFS);
+ * one goal is given:
+ *   --null-depth DB (< 0): the rear null of the described pair relative to
+ *     its forward response, as pattern measures it
+ *     (cxl_budget_phase_for_rear_null); needs --stagger or --spacing;
+ *   --null-vs-inphase DB (< 0): the closed form relative to the two signals
+ *     adding in phase, any geometry (cxl_budget_phase_for_null);
+ *   --front-to-back DB (> 0), where the command declares it: the pair's
+ *     front-to-back ratio (cxl_budget_phase_for_front_to_back).
+ * --imbalance (B weaker, dB) counts in every goal. */
 #define CLI_BUDGET_OPTDEFS \
-    { "null-depth", "DB", "wanted worst rear null, e.g. -25 (dB below the forward response)", 0 }, \
+    { "null-depth", "DB", "wanted worst rear null, e.g. -25 (dB below the forward response of the pair described)", 0 }, \
+    { "null-vs-inphase", "DB", "wanted null relative to the in-phase sum of the two signals, any geometry (closed form)", 0 }, \
     { "imbalance", "DB", "amplitude imbalance between the elements (default 0)", 0 }
-int cli_budget_tolerance(cli_ctx *ctx, const cli_args *a, double freq_hz,
-                         double *tolerance_deg);
+
+typedef enum { CLI_GOAL_NULL, CLI_GOAL_INPHASE, CLI_GOAL_FB } cli_goal_kind;
+typedef struct cli_goal {
+    cli_goal_kind kind;
+    const char *option;         /* "null-depth", "null-vs-inphase", "front-to-back" */
+    double goal_db;
+    double imbalance_db;
+    cli_pair_spec spec;         /* the pair (geometric goals), the feed lines' VF */
+    int has_spec;
+} cli_goal;
+/* Exactly one goal, its number, --imbalance, and for a geometric goal the
+ * pair (a one-line error naming the options when no geometry is given).
+ * Returns 0, or CLI_EXIT_USAGE after cli_error(). */
+int cli_goal_parse(cli_ctx *ctx, const cli_args *a, cli_goal *goal);
+void cli_goal_free(cli_goal *goal);
+/* At freq_hz: the error-free result (null depth or front-to-back, dB) and
+ * the tolerance in degrees.  Returns 0 with both set; CLI_EXIT_TOLERANCE
+ * (nothing printed, *error_free_db set) when even an error-free pair misses
+ * the goal; CLI_EXIT_USAGE after cli_error(). */
+int cli_goal_tolerance(cli_ctx *ctx, const cli_goal *goal, double freq_hz,
+                       double *error_free_db, double *tolerance_deg);
 
 extern const cli_command cli_cmd_pattern;
 extern const cli_command cli_cmd_budget;

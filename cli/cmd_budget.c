@@ -29,53 +29,82 @@ typedef struct {
     int reachable;
 } budget_point;
 
-static int budget_run(cli_ctx *ctx, const cli_args *a)
+/* Error-free result and tolerance at every point; CLI_EXIT_USAGE after an
+ * error, else CLI_EXIT_TOLERANCE when a point misses the goal, else 0. */
+static int budget_points(cli_ctx *ctx, const cli_goal *g, const cli_freq_point *pts, int n,
+                         budget_point *res)
 {
-    cli_freq_point pts[3 * CLI_MAX_ITEMS + CLI_MAX_ITEMS];
-    budget_point res[sizeof pts / sizeof pts[0]];
-    int fb = cli_count(a, "front-to-back") > 0;
-    double goal_db = 0.0;
-    cli_pair_spec spec;
-
-    if (cli_pair_spec_parse(ctx, a, &spec)) return CLI_EXIT_USAGE;
-    int n = cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0], NULL);
-    if (n < 0) {
-        cli_pair_spec_free(&spec);
-        return CLI_EXIT_USAGE;
-    }
+    const cli_pair_spec *spec = &g->spec;
     int result = CLI_EXIT_OK;
     for (int i = 0; i < n; i++) {
         budget_point *r = &res[i];
         double f = pts[i].freq_hz;
         r->freq_hz = f;
-        cxl_array_pair *pair = NULL;
-        cxl_status st;
-        if (fb) {
-            if (cli_pair_spec_build(ctx, &spec, 1, f, &pair, NULL, NULL)) goto usage;
-            st = cxl_array_front_to_back(pair, f, spec.elevation_deg, &r->error_free_db);
-            cxl_array_pair_free(pair);
-        } else {
-            st = cxl_array_null_depth(0.0, spec.imbalance_db, &r->error_free_db);
-        }
-        char fs[32];
-        if (st != CXL_OK) {
-            cli_error(ctx, "freq", "a frequency at which the pair can be modelled", "at %s MHz: %s",
-                      cli_fmt(fs, sizeof fs, f / 1e6, 6), cxl_strerror(st));
-            goto usage;
-        }
-        int code = cli_budget_tolerance(ctx, a, f, &r->tol_deg);
-        if (code == CLI_EXIT_USAGE) goto usage;
-        /* the helper has checked the goal's number */
-        cxl_units_parse_number(cli_get(a, fb ? "front-to-back" : "null-depth", 0), &goal_db, NULL);
+        int code = cli_goal_tolerance(ctx, g, f, &r->error_free_db, &r->tol_deg);
+        if (code == CLI_EXIT_USAGE) return code;
         r->reachable = code == 0;
         if (!r->reachable) result = CLI_EXIT_TOLERANCE;
         r->len_m = NAN;
-        if (r->reachable && spec.has_vf &&
-            cxl_budget_length_for_phase(r->tol_deg, f, spec.vf, &r->len_m) != CXL_OK)
+        if (r->reachable && spec->has_vf &&
+            cxl_budget_length_for_phase(r->tol_deg, f, spec->vf, &r->len_m) != CXL_OK)
             r->len_m = NAN;
     }
+    return result;
+}
 
-    const char *label = cli_label(a), *goal = fb ? "front-to-back" : "null-depth";
+/* The goal's lines of the text output. */
+static void goal_text(cli_ctx *ctx, const cli_goal *g)
+{
+    FILE *o = ctx->out;
+    char b1[96], b2[96];
+    const cli_pair_spec *s = &g->spec;
+    if (g->kind == CLI_GOAL_FB) {
+        fprintf(o, "  goal          front-to-back at least %s dB at elevation %s deg; the error is\n"
+                   "                added to B's feed; free space, no ground, no mutual coupling\n",
+                cli_fmt(b1, sizeof b1, g->goal_db, 2), cli_fmt(b2, sizeof b2, s->elevation_deg, 1));
+        return;
+    }
+    if (g->kind == CLI_GOAL_INPHASE) {
+        fprintf(o, "  goal          null at or below %s dB relative to the two signals adding in\n"
+                   "                phase (closed form 20 log10 sin(d/2), any geometry; a compact\n"
+                   "                pair's null against its forward response is much shallower)\n",
+                cli_fmt(b1, sizeof b1, g->goal_db, 2));
+        return;
+    }
+    fprintf(o, "  goal          rear null at or below %s dB against the forward response of\n"
+               "                the pair below (deepest over azimuth 90-270 at elevation %s deg,\n"
+               "                as pattern measures it); the error is added to B's feed; free\n"
+               "                space, no ground, no mutual coupling\n",
+            cli_fmt(b1, sizeof b1, g->goal_db, 2), cli_fmt(b2, sizeof b2, s->elevation_deg, 1));
+    fprintf(o, "  pair          stagger %s, spacing %s\n"
+               "                feed %s, %s elements\n",
+            cli_fmt_length(ctx, b1, sizeof b1, s->stagger_m),
+            cli_fmt_length(ctx, b2, sizeof b2, s->spacing_m), s->feed,
+            s->wire ? "long-wire" : "isotropic");
+}
+
+static int budget_run(cli_ctx *ctx, const cli_args *a)
+{
+    cli_freq_point pts[3 * CLI_MAX_ITEMS + CLI_MAX_ITEMS];
+    budget_point res[sizeof pts / sizeof pts[0]];
+    cli_goal g;
+
+    if (cli_goal_parse(ctx, a, &g)) {
+        cli_goal_free(&g);
+        return CLI_EXIT_USAGE;
+    }
+    int fb = g.kind == CLI_GOAL_FB, geo = g.kind != CLI_GOAL_INPHASE;
+    double goal_db = g.goal_db;
+    cli_pair_spec spec = g.spec;
+    spec.imbalance_db = g.imbalance_db;
+    int n = cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0], NULL);
+    int result = n < 0 ? CLI_EXIT_USAGE : budget_points(ctx, &g, pts, n, res);
+    if (result == CLI_EXIT_USAGE) {
+        cli_goal_free(&g);
+        return result;
+    }
+
+    const char *label = cli_label(a), *goal = g.option;
     if (ctx->format != CLI_TEXT) {
         for (int i = 0; i < n; i++) {
             const budget_point *r = &res[i];
@@ -83,7 +112,7 @@ static int budget_run(cli_ctx *ctx, const cli_args *a)
             cli_cell cells[NCOLS] = {
                 CLI_TXT(label), CLI_TXT(pts[i].band), CLI_TXT(pts[i].edge),
                 CLI_NUM(r->freq_hz / 1e6), CLI_TXT(goal), CLI_NUM(goal_db),
-                fb ? CLI_NUM(spec.elevation_deg) : CLI_NONE, CLI_NUM(spec.imbalance_db),
+                geo ? CLI_NUM(spec.elevation_deg) : CLI_NONE, CLI_NUM(spec.imbalance_db),
                 CLI_NUM(r->error_free_db), r->reachable ? CLI_NUM(r->tol_deg) : CLI_NONE,
                 spec.has_vf ? CLI_NUM(spec.vf) : CLI_NONE,
                 has_len ? CLI_NUM(r->len_m) : CLI_NONE,
@@ -91,7 +120,7 @@ static int budget_run(cli_ctx *ctx, const cli_args *a)
             };
             cli_table_row(ctx, budget_cols, NCOLS, cells);
         }
-        cli_pair_spec_free(&spec);
+        cli_goal_free(&g);
         return result;
     }
 
@@ -99,14 +128,7 @@ static int budget_run(cli_ctx *ctx, const cli_args *a)
     char b1[96], b2[96], b3[96];
     if (ctx->rows_out++) putc('\n', o);
     fprintf(o, "budget%s%s\n", label[0] ? ": " : "", label);
-    if (fb)
-        fprintf(o, "  goal          front-to-back at least %s dB at elevation %s deg; the error is\n"
-                   "                added to B's feed; free space, no ground, no mutual coupling\n",
-                cli_fmt(b1, sizeof b1, goal_db, 2), cli_fmt(b2, sizeof b2, spec.elevation_deg, 1));
-    else
-        fprintf(o, "  goal          rear null at or below %s dB against the forward response\n"
-                   "                (closed form: two signals with a phase error, any geometry)\n",
-                cli_fmt(b1, sizeof b1, goal_db, 2));
+    goal_text(ctx, &g);
     fprintf(o, "  imbalance     %s dB\n", cli_fmt(b1, sizeof b1, spec.imbalance_db, 2));
     if (spec.has_vf)
         fprintf(o, "  feed-line VF  %s%s%s\n", cli_fmt(b1, sizeof b1, spec.vf, 4),
@@ -126,6 +148,10 @@ static int budget_run(cli_ctx *ctx, const cli_args *a)
             fprintf(o, "%11s  %s\n", cli_fmt(b3, sizeof b3, r->tol_deg, 2),
                     isfinite(r->len_m) ? cli_fmt_length(ctx, b2, sizeof b2, r->len_m) : "-");
     }
+    if (result == CLI_EXIT_TOLERANCE && g.kind != CLI_GOAL_FB)
+        fprintf(o, "  (where out of reach the error-free pair's null is already shallower\n"
+                   "  than %s dB: the imbalance or the geometry fills it, whatever the lines)\n",
+                cli_fmt(b1, sizeof b1, goal_db, 2));
     /* per band, the tightest of its points sets the limit */
     int first = 1;
     for (int i = 0; i < n; i++) {
@@ -146,18 +172,15 @@ static int budget_run(cli_ctx *ctx, const cli_args *a)
                     cli_fmt(b1, sizeof b1, tol, 2), isfinite(len) ? ", lines matched within " : "",
                     isfinite(len) ? cli_fmt_length(ctx, b2, sizeof b2, len) : "");
     }
-    cli_pair_spec_free(&spec);
+    cli_goal_free(&g);
     return result;
-
-usage:
-    cli_pair_spec_free(&spec);
-    return CLI_EXIT_USAGE;
 }
 
 const cli_command cli_cmd_budget = {
     .name = "budget",
     .summary = "phase error and length mismatch a wanted null depth or front-to-back allows",
-    .synopsis = "(--null-depth DB | --front-to-back DB [PAIR OPTIONS]) (--band LIST | --freq F) [OPTIONS]",
+    .synopsis = "(--null-depth DB | --front-to-back DB) PAIR OPTIONS (--band LIST | --freq F) [OPTIONS], "
+                "or --null-vs-inphase DB (--band LIST | --freq F) [OPTIONS]",
     .opts = budget_opts,
     .end = cli_vf_source_end,
     .run = budget_run,

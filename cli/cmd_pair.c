@@ -15,6 +15,7 @@ static const cli_optdef pair_opts[] = {
     { "vf-from", "FILE|-", "take the fitted VF from coaxline vf --format csv output", 0 },
     { "tolerance", "DEG", "largest phase difference allowed between the lines", 0 },
     CLI_BUDGET_OPTDEFS,
+    CLI_PAIR_GEOMETRY_OPTDEFS,
     { "band", "LIST", "bands to check, e.g. 160m,80m", 1 },
     { "region", "N", "ITU Region 1, 2 or 3 (default: widest edges across Regions)", 0 },
     { "exclude-footnotes", NULL, "band edges without footnote segments", 0 },
@@ -47,21 +48,28 @@ typedef struct pair_set {
     int nlen;
     double lo_m, hi_m;          /* shortest and longest line */
     double vf, length_tol_m, vf_tol;
-    double tol;                 /* degrees; 0 when unreachable */
-    int reachable;              /* 0: even a perfect pair misses --null-depth */
+    double tol;                 /* degrees at the point being checked; 0 when unreachable */
+    int reachable;              /* 0: even a perfect pair misses the goal there */
+    double tol_pt[MAX_POINTS];  /* per point: tolerance, reachable, error-free null */
+    int reach_pt[MAX_POINTS];
+    double free_pt[MAX_POINTS];
+    int has_goal;               /* the tolerance comes from a wanted null */
+    cli_goal goal;
     cli_load load;
 } pair_set;
 
-/* The phase tolerance in degrees: --tolerance, or what --null-depth (with
- * --imbalance) allows (cli_budget_tolerance).  *reachable is 0 when even
- * an error-free pair misses the wanted null. */
-static int resolve_tolerance(cli_ctx *ctx, const cli_args *a, double freq_hz,
-                             double *tolerance_deg, int *reachable)
+/* The phase tolerance in degrees at every point: --tolerance, or what
+ * --null-depth (the pair's geometry) or --null-vs-inphase allows
+ * (cli_goal_tolerance).  reach_pt[i] is 0 where even an error-free pair
+ * misses the wanted null. */
+static int resolve_tolerance(cli_ctx *ctx, const cli_args *a, pair_set *s,
+                             const cli_freq_point *pts, int np)
 {
     static const char expected[] = "a phase tolerance from 0.001 to 360 degrees, such as 2";
     const char *t = cli_get(a, "tolerance", 0);
-    int goal = cli_count(a, "null-depth") > 0;
-    *reachable = 1;
+    int goal = cli_count(a, "null-depth") > 0 || cli_count(a, "null-vs-inphase") > 0;
+    double tol = 0.0;
+    s->has_goal = 0;
     if (t && goal)
         return cli_error(ctx, "tolerance", "--tolerance 2 or --null-depth -30, not both",
                          "give the tolerance or the null depth");
@@ -69,22 +77,41 @@ static int resolve_tolerance(cli_ctx *ctx, const cli_args *a, double freq_hz,
         return cli_error(ctx, "imbalance", "--imbalance 0.5 with --null-depth -30",
                          "goes with --null-depth only");
     if (goal) {
-        int code = cli_budget_tolerance(ctx, a, freq_hz, tolerance_deg);
-        if (code != CLI_EXIT_TOLERANCE) return code;
-        *reachable = 0;
-        *tolerance_deg = 0.0;
+        if (cli_goal_parse(ctx, a, &s->goal)) {
+            cli_goal_free(&s->goal);
+            return CLI_EXIT_USAGE;
+        }
+        s->has_goal = 1;
+        for (int i = 0; i < np; i++) {
+            s->tol_pt[i] = 0.0;
+            int code = cli_goal_tolerance(ctx, &s->goal, pts[i].freq_hz, &s->free_pt[i],
+                                          &s->tol_pt[i]);
+            if (code == CLI_EXIT_USAGE) return code;
+            s->reach_pt[i] = code == 0;
+        }
         return 0;
     }
     if (!t)
         return cli_error(ctx, "tolerance", "--tolerance 2 or --null-depth -30",
                          "the tolerance is needed");
-    if (cli_number(ctx, "tolerance", t, -1e9, 360.0, expected, tolerance_deg)) return CLI_EXIT_USAGE;
-    if (!(*tolerance_deg > 0.0))
+    if (cli_number(ctx, "tolerance", t, -1e9, 360.0, expected, &tol)) return CLI_EXIT_USAGE;
+    if (!(tol > 0.0))
         return cli_error(ctx, "tolerance", expected, "'%s' must be greater than zero", t);
     /* below what the output shows, a tolerance would print as 0.000 */
-    if (*tolerance_deg < 0.001)
+    if (tol < 0.001)
         return cli_error(ctx, "tolerance", expected, "'%s' is below 0.001 degrees", t);
+    for (int i = 0; i < np; i++) {
+        s->tol_pt[i] = tol;
+        s->reach_pt[i] = 1;
+    }
     return 0;
+}
+
+/* The tolerance of point i becomes the one checked against. */
+static void at_point(pair_set *s, int i)
+{
+    s->tol = s->tol_pt[i];
+    s->reachable = s->reach_pt[i];
 }
 
 /* Per point results. */
@@ -198,9 +225,10 @@ static int check_point(cli_ctx *ctx, const pair_set *s, double f, int want_allow
                          cxl_pair_max_mismatch(s->tol, s->vf, f, &c->allowed_m) == CXL_OK &&
                          isfinite(c->allowed_m);
     }
-    if (!s->reachable || c->err_deg > s->tol) c->verdict = CXL_VERDICT_FAIL;
-    else if (c->err_deg + c->unc_deg > s->tol) c->verdict = CXL_VERDICT_PASS_UNCERTAIN;
-    else c->verdict = CXL_VERDICT_PASS;
+    /* no tolerance left (an unreachable null) fails whatever the lines */
+    if (!s->reachable) c->verdict = CXL_VERDICT_FAIL;
+    else if (cxl_pair_verdict(c->err_deg, c->unc_deg, s->tol, &c->verdict) != CXL_OK)
+        return cli_error(ctx, "freq", "a smaller frequency", "gives no finite phase error");
     return 0;
 }
 
@@ -238,41 +266,78 @@ static int plot(cli_ctx *ctx, const cli_args *a, pair_set *s, const cli_freq_poi
         snprintf(n2, sizeof n2, "Load %s.", cli_fmt_load(l, sizeof l, &s->load));
         spec.note[1] = n2;
     }
-    char n3[160];
+    char n3[160], b4[48];
     if (!s->reachable) {
         spec.note[2] = "No tolerance: even an error-free pair misses the null depth.";
-    } else if (cli_count(a, "null-depth")) {
-        snprintf(n3, sizeof n3, "Tolerance from a wanted rear null of %s dB (closed form).",
-                 cli_get(a, "null-depth", 0));
+    } else if (s->has_goal) {
+        snprintf(n3, sizeof n3, "Tolerance from a wanted %s of %s dB (%s).",
+                 s->goal.kind == CLI_GOAL_NULL ? "rear null" : "null",
+                 cli_fmt(b4, sizeof b4, s->goal.goal_db, 2),
+                 s->goal.kind == CLI_GOAL_NULL ? "against the forward response; the tightest point"
+                                                : "against the in-phase sum, closed form");
         spec.note[2] = n3;
     }
     return cli_errplot_save(ctx, "plot", cli_get(a, "plot", 0), pts, np, plot_point, s, &spec);
 }
 
-static void tolerance_text(cli_ctx *ctx, const cli_args *a, const pair_set *s)
+/* --null-depth / --null-vs-inphase: what the tolerance is for. */
+static void goal_tolerance_text(cli_ctx *ctx, const pair_set *s, int np)
 {
     char b1[96], b2[96], b3[96];
     FILE *o = ctx->out;
-    fprintf(o, "  tolerance         ");
-    if (cli_count(a, "null-depth")) {
-        double depth = 0.0, imb = 0.0, free_db = 0.0;
-        /* resolve_tolerance has checked both numbers */
-        cxl_units_parse_number(cli_get(a, "null-depth", 0), &depth, NULL);
-        if (cli_count(a, "imbalance")) cxl_units_parse_number(cli_get(a, "imbalance", 0), &imb, NULL);
-        if (!s->reachable) {
-            cxl_array_null_depth(0.0, imb, &free_db);
-            fprintf(o, "none: with %s dB imbalance even an error-free pair nulls only to %s dB,"
-                       " not %s dB\n", cli_fmt(b1, sizeof b1, imb, 2),
-                    cli_fmt(b2, sizeof b2, free_db, 2), cli_fmt(b3, sizeof b3, depth, 2));
-            return;
+    const cli_goal *g = &s->goal;
+    const cli_pair_spec *p = &g->spec;
+    double lo = INFINITY, hi = -INFINITY, free_db = -INFINITY;
+    int all = 1;
+    for (int i = 0; i < np; i++) {
+        if (!s->reach_pt[i]) {
+            all = 0;
+            free_db = fmax(free_db, s->free_pt[i]);
+            continue;
         }
-        fprintf(o, "%s deg, for a rear null of %s dB", cli_fmt(b1, sizeof b1, s->tol, 3),
-                cli_fmt(b2, sizeof b2, depth, 2));
-        fprintf(o, " with %s dB imbalance\n", cli_fmt(b1, sizeof b1, imb, 2));
-        fprintf(o, "                    (closed form: two signals with a phase error)\n");
-    } else {
-        fprintf(o, "%s deg\n", cli_fmt(b1, sizeof b1, s->tol, 3));
+        lo = fmin(lo, s->tol_pt[i]);
+        hi = fmax(hi, s->tol_pt[i]);
     }
+    if (!all && g->kind == CLI_GOAL_INPHASE) {
+        fprintf(o, "none: with %s dB imbalance even an error-free pair nulls only to %s dB,"
+                   " not %s dB\n", cli_fmt(b1, sizeof b1, g->imbalance_db, 2),
+                cli_fmt(b2, sizeof b2, free_db, 2), cli_fmt(b3, sizeof b3, g->goal_db, 2));
+        return;
+    }
+    if (g->kind == CLI_GOAL_INPHASE) {
+        fprintf(o, "%s deg, for a null of %s dB", cli_fmt(b1, sizeof b1, lo, 3),
+                cli_fmt(b2, sizeof b2, g->goal_db, 2));
+        fprintf(o, " with %s dB imbalance\n", cli_fmt(b1, sizeof b1, g->imbalance_db, 2));
+        fprintf(o, "                    (closed form, relative to the two signals in phase)\n");
+        return;
+    }
+    if (!all)
+        fprintf(o, "none at some points: the error-free pair nulls only to %s dB there, not %s dB\n"
+                   "                    ", cli_fmt(b1, sizeof b1, free_db, 2),
+                cli_fmt(b2, sizeof b2, g->goal_db, 2));
+    if (lo <= hi && lo < hi)
+        fprintf(o, "%s to %s deg across the points,\n                    ",
+                cli_fmt(b1, sizeof b1, lo, 3), cli_fmt(b2, sizeof b2, hi, 3));
+    else if (lo <= hi)
+        fprintf(o, "%s deg, ", cli_fmt(b1, sizeof b1, lo, 3));
+    fprintf(o, "for a rear null of %s dB with %s dB imbalance\n",
+            cli_fmt(b1, sizeof b1, g->goal_db, 2), cli_fmt(b2, sizeof b2, g->imbalance_db, 2));
+    fprintf(o, "                    against the forward response of the pair: stagger %s,\n",
+            cli_fmt_length(ctx, b1, sizeof b1, p->stagger_m));
+    fprintf(o, "                    spacing %s, feed %s, %s elements, elevation %s deg\n",
+            cli_fmt_length(ctx, b2, sizeof b2, p->spacing_m), p->feed,
+            p->wire ? "long-wire" : "isotropic", cli_fmt(b3, sizeof b3, p->elevation_deg, 1));
+}
+
+static void tolerance_text(cli_ctx *ctx, const pair_set *s, int np)
+{
+    char b1[96], b2[96];
+    FILE *o = ctx->out;
+    fprintf(o, "  tolerance         ");
+    if (s->has_goal)
+        goal_tolerance_text(ctx, s, np);
+    else
+        fprintf(o, "%s deg\n", cli_fmt(b1, sizeof b1, s->tol, 3));
     if (s->length_tol_m > 0.0 || s->vf_tol > 0.0)
         fprintf(o, "  measured within   each length %s m, VF %s\n", cli_fmt(b1, sizeof b1, s->length_tol_m, 3),
                 cli_fmt(b2, sizeof b2, s->vf_tol, 4));
@@ -303,7 +368,7 @@ static void load_text(cli_ctx *ctx, const pair_set *s, const cli_freq_point *pts
     }
 }
 
-static void text_output(cli_ctx *ctx, const cli_args *a, const pair_set *s, const char *from,
+static void text_output(cli_ctx *ctx, const cli_args *a, pair_set *s, const char *from,
                         const cli_freq_point *pts, const check *c, int np)
 {
     char b1[200], b2[96], b3[96], b4[96];
@@ -320,7 +385,7 @@ static void text_output(cli_ctx *ctx, const cli_args *a, const pair_set *s, cons
         fprintf(o, "  load              %s\n"
                    "                    error = largest delay into it - smallest\n",
                 cli_fmt_load(b1, sizeof b1, &s->load));
-    tolerance_text(ctx, a, s);
+    tolerance_text(ctx, s, np);
     fprintf(o, "  %-6s %16s  %9s  %11s  %-27s  %s\n", "band", "worst at", "error deg",
             "uncert. deg", "allowed mismatch", "verdict");
     int worst = -1, ngroups = 0;
@@ -352,6 +417,7 @@ static void text_output(cli_ctx *ctx, const cli_args *a, const pair_set *s, cons
     }
     if (s->load.given) load_text(ctx, s, pts, group_worst, names, ngroups);
     const check *wc = &c[worst];
+    at_point(s, worst);
     if (pts[worst].band[0])
         snprintf(b4, sizeof b4, "%s", pts[worst].band);
     else
@@ -406,16 +472,25 @@ static int pair_run(cli_ctx *ctx, const cli_args *a)
     check c[MAX_POINTS];
     if (cli_line_freq_items(ctx, a)) return CLI_EXIT_USAGE;
     int np = cli_freq_points(ctx, a, pts, MAX_POINTS, NULL);
-    if (np < 0 || resolve_tolerance(ctx, a, pts[0].freq_hz, &s.tol, &s.reachable))
-        return CLI_EXIT_USAGE;
-    int code = cli_load_parse(ctx, a, s.vf, &s.load), failed = 0;
+    s.has_goal = 0;
+    if (np < 0) return CLI_EXIT_USAGE;
+    int code = resolve_tolerance(ctx, a, &s, pts, np), failed = 0;
+    if (!code) code = cli_load_parse(ctx, a, s.vf, &s.load);
     for (int i = 0; !code && i < np; i++) {
+        at_point(&s, i);
         code = check_point(ctx, &s, pts[i].freq_hz, 1, &c[i]);
         if (!code && c[i].verdict == CXL_VERDICT_FAIL) failed = 1;
     }
-    if (!code && cli_count(a, "plot")) code = plot(ctx, a, &s, pts, np);
+    if (!code && cli_count(a, "plot")) {
+        /* one line on the plot: the tightest tolerance of the points */
+        at_point(&s, 0);
+        for (int i = 1; i < np; i++)
+            if (!s.reach_pt[i] || s.tol_pt[i] < s.tol) at_point(&s, i);
+        code = plot(ctx, a, &s, pts, np);
+    }
     if (code) {
         cli_load_free(&s.load);
+        if (s.has_goal) cli_goal_free(&s.goal);
         return code;
     }
 
@@ -427,7 +502,7 @@ static int pair_run(cli_ctx *ctx, const cli_args *a)
             cli_cell cells[NCOLS] = {
                 CLI_TXT(label), CLI_TXT(pts[i].band), CLI_TXT(pts[i].edge),
                 CLI_NUM(pts[i].freq_hz / 1e6), CLI_NUM(c[i].delta_m), CLI_NUM(c[i].err_deg),
-                s.reachable ? CLI_NUM(s.tol) : CLI_NONE, CLI_TXT(verdict_name[c[i].verdict]),
+                s.reach_pt[i] ? CLI_NUM(s.tol_pt[i]) : CLI_NONE, CLI_TXT(verdict_name[c[i].verdict]),
                 c[i].has_allowed ? CLI_NUM(c[i].allowed_m) : CLI_NONE, CLI_NUM(c[i].unc_deg),
                 CLI_NUM(c[i].elec_deg), s.load.given ? CLI_NUM(c[i].imbalance_db) : CLI_NONE,
             };
@@ -435,6 +510,7 @@ static int pair_run(cli_ctx *ctx, const cli_args *a)
         }
     }
     cli_load_free(&s.load);
+    if (s.has_goal) cli_goal_free(&s.goal);
     return failed ? CLI_EXIT_TOLERANCE : CLI_EXIT_OK;
 }
 
@@ -442,7 +518,8 @@ const cli_command cli_cmd_pair = {
     .name = "pair",
     .summary = "lines meant to be equal against a phase tolerance, per band edge",
     .synopsis = "--length LEN --length LEN ... (--vf X | --cable NAME | --vf-from FILE|-) "
-                "(--tolerance DEG | --null-depth DB [--imbalance DB]) (--band LIST | --freq F) "
+                "(--tolerance DEG | --null-depth DB PAIR GEOMETRY | --null-vs-inphase DB) [--imbalance DB] "
+                "(--band LIST | --freq F) "
                 "[--load R+jX [--z0 OHM]] [--plot FILE.svg] [OPTIONS]",
     .opts = pair_opts,
     .end = cli_vf_source_end,

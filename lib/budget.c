@@ -35,8 +35,60 @@ typedef struct {
     cxl_status status;   /* first failure inside the root finder */
 } fb_params;
 
-/* Front-to-back ratio with an error of sign * d_deg, minus the wanted one. */
-static double fb_excess(double d_deg, void *params)
+/* Smallest d in (0, 180] where g(d) turns from <= 0 to > 0 (g reports a
+ * failure through *failed): scan in 0.25-degree steps, refine the bracket with
+ * gsl_root_fsolver_brent; 180 when it never turns. */
+static cxl_status first_rise(double (*g)(double, void *), void *params,
+                             const cxl_status *failed, double *limit_deg)
+{
+    const double step = 0.25;
+    const int n = (int)(180.0 / step);
+    double lo = 0.0, g_lo = g(0.0, params);
+    for (int i = 1; i <= n && !*failed; i++) {
+        double hi = i * step, g_hi = g(hi, params);
+        if (*failed)
+            break;
+        if (!(g_hi > 0.0)) {
+            lo = hi;
+            g_lo = g_hi;
+            continue;
+        }
+        if (g_lo == 0.0) {
+            *limit_deg = lo;
+            return CXL_OK;
+        }
+        gsl_function fn = { g, params };
+        gsl_root_fsolver *s = gsl_root_fsolver_alloc(gsl_root_fsolver_brent);
+        if (!s)
+            return CXL_ENOMEM;
+        cxl_status st = CXL_ENOCONV;
+        /* g(lo) < 0 < g(hi): a valid bracket for GSL */
+        if (gsl_root_fsolver_set(s, &fn, lo, hi) == GSL_SUCCESS) {
+            for (int it = 0; it < 200 && !*failed; it++) {
+                if (gsl_root_fsolver_iterate(s) != GSL_SUCCESS)
+                    break;
+                double xl = gsl_root_fsolver_x_lower(s);
+                double xu = gsl_root_fsolver_x_upper(s);
+                if (gsl_root_test_interval(xl, xu, 1e-12, 0.0) ==
+                    GSL_SUCCESS) {
+                    *limit_deg = gsl_root_fsolver_root(s);
+                    st = CXL_OK;
+                    break;
+                }
+            }
+        }
+        gsl_root_fsolver_free(s);
+        return *failed ? *failed : st;
+    }
+    if (*failed)
+        return *failed;
+    *limit_deg = 180.0;
+    return CXL_OK;
+}
+
+/* The wanted front-to-back ratio minus the ratio with an error of
+ * sign * d_deg on element 1: positive once the ratio falls short. */
+static double fb_shortfall(double d_deg, void *params)
 {
     fb_params *fp = params;
     double fb;
@@ -48,55 +100,7 @@ static double fb_excess(double d_deg, void *params)
             fp->status = st;
         return 0.0;
     }
-    return fb - fp->ratio_db;
-}
-
-/* Smallest error of one sign at which the ratio falls below the wanted
- * one; 180 when none does. */
-static cxl_status first_crossing(fb_params *fp, double *limit_deg)
-{
-    const double step = 0.25;
-    const int n = (int)(180.0 / step);
-    double lo = 0.0, g_lo = fb_excess(0.0, fp);
-    for (int i = 1; i <= n && !fp->status; i++) {
-        double hi = i * step, g_hi = fb_excess(hi, fp);
-        if (fp->status)
-            break;
-        if (!(g_hi < 0.0)) {
-            lo = hi;
-            g_lo = g_hi;
-            continue;
-        }
-        if (g_lo == 0.0) {
-            *limit_deg = lo;
-            return CXL_OK;
-        }
-        gsl_function fn = { fb_excess, fp };
-        gsl_root_fsolver *s = gsl_root_fsolver_alloc(gsl_root_fsolver_brent);
-        if (!s)
-            return CXL_ENOMEM;
-        /* g_lo > 0 > g_hi here, so the bracket is valid for GSL. */
-        cxl_status st = CXL_ENOCONV;
-        if (gsl_root_fsolver_set(s, &fn, lo, hi) == GSL_SUCCESS) {
-            for (int it = 0; it < 200 && !fp->status; it++) {
-                if (gsl_root_fsolver_iterate(s) != GSL_SUCCESS)
-                    break;
-                if (gsl_root_test_interval(gsl_root_fsolver_x_lower(s),
-                                           gsl_root_fsolver_x_upper(s),
-                                           1e-12, 0.0) == GSL_SUCCESS) {
-                    *limit_deg = gsl_root_fsolver_root(s);
-                    st = CXL_OK;
-                    break;
-                }
-            }
-        }
-        gsl_root_fsolver_free(s);
-        return fp->status ? fp->status : st;
-    }
-    if (fp->status)
-        return fp->status;
-    *limit_deg = 180.0;
-    return CXL_OK;
+    return fp->ratio_db - fb;
 }
 
 cxl_status cxl_budget_phase_for_front_to_back(const cxl_array_pair *pair,
@@ -118,10 +122,73 @@ cxl_status cxl_budget_phase_for_front_to_back(const cxl_array_pair *pair,
     for (int k = 0; k < 2; k++) {
         fb_params fp = { pair, freq_hz, elevation_deg, ratio_db,
                          k ? -1.0 : 1.0, CXL_OK };
-        st = first_crossing(&fp, &limit[k]);
+        st = first_rise(fb_shortfall, &fp, &fp.status, &limit[k]);
         if (st)
             return st;
     }
+    *phase_error_deg = fmin(limit[0], limit[1]);
+    return CXL_OK;
+}
+
+/* Rear null (as cxl_array_rear_null measures it) with element 1's fixed
+ * phase offset set to -sign * d_deg (B lagging by sign * d_deg, the way
+ * pattern applies --phase-error), minus the wanted depth: negative while
+ * the null is deep enough, positive once it is not or once the error has
+ * cancelled the forward response itself. */
+typedef struct {
+    cxl_array_pair *trial;   /* a copy of the caller's pair */
+    double freq_hz, elevation_deg, depth_db, sign;
+    cxl_status status;
+} null_params;
+
+static double null_excess(double d_deg, void *params)
+{
+    null_params *np = params;
+    double az, depth;
+    cxl_status st = cxl_array_pair_set_phase_offset(np->trial, 1,
+                                                    -np->sign * d_deg);
+    if (st == CXL_OK)
+        st = cxl_array_rear_null(np->trial, np->freq_hz, np->elevation_deg,
+                                 &az, &depth);
+    /* no forward response left at this error: nothing to null against */
+    if (st == CXL_ERANGE)
+        return 1.0;
+    if (st) {
+        if (!np->status)
+            np->status = st;
+        return 0.0;
+    }
+    return depth - np->depth_db;
+}
+
+cxl_status cxl_budget_phase_for_rear_null(const cxl_array_pair *pair,
+                                          double freq_hz,
+                                          double elevation_deg,
+                                          double depth_db,
+                                          double *phase_error_deg)
+{
+    double az, depth0, limit[2];
+    if (!pair || !phase_error_deg || !isfinite(depth_db) ||
+        !(depth_db < 0.0) || depth_db < -CXL_DB_LIMIT)
+        return CXL_EINVAL;
+    cxl_array_pair *trial = NULL;
+    cxl_status st = cxl_array_pair_copy(pair, &trial);
+    if (st)
+        return st;
+    st = cxl_array_pair_set_phase_offset(trial, 1, 0.0);
+    if (st == CXL_OK)
+        st = cxl_array_rear_null(trial, freq_hz, elevation_deg, &az,
+                                 &depth0);
+    if (st == CXL_OK && depth0 > depth_db)
+        st = CXL_ERANGE;   /* even the error-free pair misses the goal */
+    for (int k = 0; k < 2 && st == CXL_OK; k++) {
+        null_params np = { trial, freq_hz, elevation_deg, depth_db,
+                           k ? -1.0 : 1.0, CXL_OK };
+        st = first_rise(null_excess, &np, &np.status, &limit[k]);
+    }
+    cxl_array_pair_free(trial);
+    if (st)
+        return st;
     *phase_error_deg = fmin(limit[0], limit[1]);
     return CXL_OK;
 }

@@ -416,6 +416,13 @@ typedef enum cxl_verdict {
     CXL_VERDICT_FAIL = 2            /* outside tolerance */
 } cxl_verdict;
 
+/* The verdict of a phase error (its magnitude) with its uncertainty
+ * (>= 0) against tolerance_deg (> 0): CXL_VERDICT_FAIL when |error| is
+ * above the tolerance, CXL_VERDICT_PASS_UNCERTAIN when |error| +
+ * uncertainty is, else CXL_VERDICT_PASS.  The one rule cxl_pair_check and
+ * any other check (lines into a load, say) use. */
+cxl_status cxl_pair_verdict(double phase_error_deg, double uncertainty_deg,
+                            double tolerance_deg, cxl_verdict *verdict);
 /* Check count >= 2 lines meant to be equal: the worst pair's length
  * difference (longest minus shortest), its phase error at freq_hz, the
  * uncertainty of that error (each length within length_tol_m, VF within
@@ -950,6 +957,28 @@ cxl_status cxl_budget_phase_for_front_to_back(const cxl_array_pair *pair,
                                               double elevation_deg,
                                               double ratio_db,
                                               double *phase_error_deg);
+/* Largest phase error on element 1 (either sign; the smaller of the two
+ * limits is returned, in [0, 180]) for which the pair's rear null at
+ * freq_hz and elevation_deg, measured as cxl_array_rear_null measures it
+ * (deepest response over azimuth 90..270 relative to the response at
+ * azimuth 0), stays at or below depth_db (-CXL_DB_LIMIT <= depth_db < 0).
+ * This is the null relative to the forward response of the geometry
+ * given, not to the in-phase sum (cxl_budget_phase_for_null): for a compact
+ * pair it allows much less error.  The pair is the design (its imbalance
+ * and element type count); each trial error replaces element 1's fixed
+ * phase offset on a private copy (cxl_array_pair_set_phase_offset, B
+ * lagging positive), the caller's pair is not changed.  The tolerance also
+ * ends where an error cancels the forward response (a compact pair whose
+ * pattern turns round).  Found by a scan in
+ * 0.25-degree steps and refined with gsl_root_fsolver_brent.  CXL_ERANGE
+ * when the error-free pair's null is already shallower than depth_db (or
+ * the pair has no forward response); 180 when no error up to 180 degrees
+ * makes the null shallower than depth_db. */
+cxl_status cxl_budget_phase_for_rear_null(const cxl_array_pair *pair,
+                                          double freq_hz,
+                                          double elevation_deg,
+                                          double depth_db,
+                                          double *phase_error_deg);
 /* Length mismatch of a line with velocity factor vf that makes
  * phase_error_deg (>= 0) at freq_hz (cxl_line_length_from_degrees). */
 cxl_status cxl_budget_length_for_phase(double phase_error_deg,

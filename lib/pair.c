@@ -90,6 +90,19 @@ cxl_status cxl_pair_phase_uncertainty(double length_m, double reference_m,
                            uncertainty_deg);
 }
 
+cxl_status cxl_pair_verdict(double phase_error_deg, double uncertainty_deg,
+                            double tolerance_deg, cxl_verdict *verdict)
+{
+    if (!verdict || !isfinite(phase_error_deg) || !cxl__finite_nonneg(uncertainty_deg) ||
+        !cxl__finite_pos(tolerance_deg))
+        return CXL_EINVAL;
+    double err = fabs(phase_error_deg);
+    if (err > tolerance_deg) *verdict = CXL_VERDICT_FAIL;
+    else if (err + uncertainty_deg > tolerance_deg) *verdict = CXL_VERDICT_PASS_UNCERTAIN;
+    else *verdict = CXL_VERDICT_PASS;
+    return CXL_OK;
+}
+
 cxl_status cxl_pair_check(const double *lengths_m, size_t count, double vf,
                           double freq_hz, double tolerance_deg,
                           double length_tol_m, double vf_tol,
@@ -112,11 +125,10 @@ cxl_status cxl_pair_check(const double *lengths_m, size_t count, double vf,
     double u = phase_uncertainty(delta, vf, freq_hz, length_tol_m, 2, vf_tol);
     if (!isfinite(delta) || !isfinite(err) || !isfinite(u))
         return CXL_ERANGE; /* huge lengths or tolerances overflow */
+    cxl_status st = cxl_pair_verdict(err, u, tolerance_deg, verdict);
+    if (st != CXL_OK) return st;
     *delta_m = delta;
     *phase_error_deg = err;
     *uncertainty_deg = u;
-    if (err > tolerance_deg) *verdict = CXL_VERDICT_FAIL;
-    else if (err + u > tolerance_deg) *verdict = CXL_VERDICT_PASS_UNCERTAIN;
-    else *verdict = CXL_VERDICT_PASS;
     return CXL_OK;
 }

@@ -475,6 +475,13 @@ ADAPTER(pair_phase_uncertainty)
 {
     return cxl_pair_phase_uncertainty(a[0], a[1], a[2], a[3], a[4], a[5], P(0, &o[0]));
 }
+ADAPTER(pair_verdict)
+{
+    cxl_verdict v = (cxl_verdict)SENT;
+    cxl_status st = cxl_pair_verdict(a[0], a[1], a[2], P(0, &v));
+    o[0] = (double)v;
+    return st;
+}
 ADAPTER(pair_check)
 {
     double lengths[2] = { a[0], a[1] };
@@ -849,6 +856,10 @@ ADAPTER(budget_phase_for_front_to_back)
 {
     return cxl_budget_phase_for_front_to_back(P(0, g_pair), a[0], a[1], a[2], P(1, &o[0]));
 }
+ADAPTER(budget_phase_for_rear_null)
+{
+    return cxl_budget_phase_for_rear_null(P(0, g_pair), a[0], a[1], a[2], P(1, &o[0]));
+}
 ADAPTER(budget_length_for_phase)
 {
     return cxl_budget_length_for_phase(a[0], a[1], a[2], P(0, &o[0]));
@@ -1164,6 +1175,8 @@ static api_case cases[] = {
     { "cxl_pair_phase_uncertainty", call_pair_phase_uncertainty, 6, {10.1, 10.0, 0.66, F, 0.005, 0.01},
       {&K_POS, &K_POS, &K_VF, &K_POS, &K_NONNEG, &K_NONNEG}, 1, 0, 1,
       1, {{10.1, 10.0, 0.66, F, 0.005, 0.66}} /* vf_tol not below vf */ },
+    { "cxl_pair_verdict", call_pair_verdict, 3, {1.5, 0.3, 2}, {&K_FIN, &K_NONNEG, &K_POS}, 1, 0, 1,
+      0, {{0}} },
     { "cxl_pair_check", call_pair_check, 8, {10.0, 10.02, 2, 0.66, F, 5, 0.005, 0.01},
       {&K_POS, &K_POS, &K_COUNT1, &K_VF, &K_POS, &K_POS, &K_NONNEG, &K_NONNEG}, 5, 0, 4,
       2, {{10.0, 10.02, 1, 0.66, F, 5, 0.005, 0.01}, {10.0, 10.02, 2, 0.66, F, 5, 0.005, 0.7}} },
@@ -1270,6 +1283,8 @@ static api_case cases[] = {
       1, {{-40, 3.0}} /* the imbalance alone misses -40 dB */ },
     { "cxl_budget_phase_for_front_to_back", call_budget_phase_for_front_to_back, 3, {F, 15, 3},
       {&K_POS, &K_ELEV, &K_RATIO_DB}, 2, 0, 1, 1, {{F, 15, 299}} /* the pair never reaches it */ },
+    { "cxl_budget_phase_for_rear_null", call_budget_phase_for_rear_null, 3, {F, 15, -3},
+      {&K_POS, &K_ELEV, &K_DEPTH}, 2, 0, 1, 1, {{F, 15, -299}} /* the pair never reaches it */ },
     { "cxl_budget_length_for_phase", call_budget_length_for_phase, 3, {5, F, 0.66},
       {&K_NONNEG, &K_POS, &K_VF}, 1, 0, 1, 0, {{0}} },
     /* hybrid.c */

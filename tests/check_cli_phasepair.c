@@ -204,6 +204,18 @@ END_TEST
 
 /* ---- tolerance from a null depth -------------------------------------- */
 
+/* Text output of ARGS: exit 1 (a band fails), nothing on stderr, and the
+ * texts want (and also, unless NULL) on stdout. */
+static void text_fails_with(const char *args, const char *want, const char *also)
+{
+    cli_result r = run_cli(NULL, args, NULL);
+    ck_assert_int_eq(r.rc, 1);
+    ck_assert_str_eq(r.err, "");
+    has(r.out, want);
+    if (also) has(r.out, also);
+    cli_result_free(&r);
+}
+
 START_TEST(pair_null_depth)
 {
     /* 20 log10 sin(d/2) = -21.19 dB gives d = 2 asin(10^(-21.19/20)) =
@@ -216,7 +228,7 @@ START_TEST(pair_null_depth)
     cli_result t = run_cli(NULL, a1, NULL);
     ck_assert_int_eq(t.rc, 1);
     char *path = temp_file(t.out, strlen(t.out));
-    snprintf(a2, sizeof a2, "%s --null-depth -21.19", lines);
+    snprintf(a2, sizeof a2, "%s --null-vs-inphase -21.19", lines);
     char check[1024];
     snprintf(check, sizeof check,
              "[r[\"verdict\"] for r in d]==[x.split(\",\")[7] for x in open(\"%s\").read().split()[1:]] "
@@ -229,33 +241,42 @@ START_TEST(pair_null_depth)
     /* text names the goal */
     cli_result r = run_cli(NULL, a2, NULL);
     ck_assert_int_eq(r.rc, 1);
-    has(r.out, "tolerance         10.005 deg, for a rear null of -21.19 dB with 0.00 dB imbalance");
+    has(r.out, "tolerance         10.005 deg, for a null of -21.19 dB with 0.00 dB imbalance");
     cli_result_free(&r);
     /* 1 dB imbalance alone leaves -24.81 dB [NULL, the same closed form
      * with amplitudes 1 and 0.891]: -30 dB is out of reach: every verdict
      * fails, no tolerance, nothing on stderr, exit 1 */
-    snprintf(a2, sizeof a2, "%s --null-depth -30 --imbalance 1", lines);
+    snprintf(a2, sizeof a2, "%s --null-vs-inphase -30 --imbalance 1", lines);
     json_run_holds(a2, 1, "all(r[\"verdict\"]==\"fail\" and r[\"tolerance_deg\"] is None "
                           "and r[\"allowed_mismatch_m\"] is None for r in d)");
-    r = run_cli(NULL, a2, NULL);
-    ck_assert_int_eq(r.rc, 1);
-    ck_assert_str_eq(r.err, "");
-    has(r.out, "even an error-free pair nulls only to -24.81 dB, not -30.00 dB");
-    cli_result_free(&r);
+    text_fails_with(a2, "even an error-free pair nulls only to -24.81 dB, not -30.00 dB", NULL);
     /* with --imbalance the tolerance shrinks */
-    snprintf(a2, sizeof a2, "%s --null-depth -21.19 --imbalance 0.5", lines);
+    snprintf(a2, sizeof a2, "%s --null-vs-inphase -21.19 --imbalance 0.5", lines);
     json_run_holds(a2, 1, "all(0<r[\"tolerance_deg\"]<10.0047 for r in d)");
-    /* one of the two ways, and --imbalance only with --null-depth */
-    snprintf(a2, sizeof a2, "%s --null-depth -21.19 --tolerance 10", lines);
+    /* one of the two ways, and --imbalance only with --null-vs-inphase */
+    snprintf(a2, sizeof a2, "%s --null-vs-inphase -21.19 --tolerance 10", lines);
     expect_usage_error(NULL, a2, "tolerance", NULL);
     snprintf(a2, sizeof a2, "%s --tolerance 10 --imbalance 1", lines);
     expect_usage_error(NULL, a2, "imbalance", NULL);
-    snprintf(a2, sizeof a2, "%s --null-depth 3", lines);
-    expect_usage_error(NULL, a2, "null-depth", NULL);
-    snprintf(a2, sizeof a2, "%s --null-depth x", lines);
-    expect_usage_error(NULL, a2, "null-depth", NULL);
+    snprintf(a2, sizeof a2, "%s --null-vs-inphase 3", lines);
+    expect_usage_error(NULL, a2, "null-vs-inphase", NULL);
+    snprintf(a2, sizeof a2, "%s --null-vs-inphase x", lines);
+    expect_usage_error(NULL, a2, "null-vs-inphase", NULL);
     snprintf(a2, sizeof a2, "%s", lines);
     expect_usage_error(NULL, a2, "tolerance", "--null-depth");
+    /* --null-depth is against the pair's forward response: without the
+     * pair's geometry it is refused, naming the options */
+    snprintf(a2, sizeof a2, "%s --null-depth -21.19", lines);
+    expect_usage_error(NULL, a2, "null-depth", "--stagger");
+    /* with it the tolerance is the budget's per point: a crossfire pair
+     * 20 m along the axis allows 2 atan(r sin kd / (1 - r cos kd)) at each
+     * frequency (array factor, Balanis, Antenna Theory, 3rd ed., ch. 6;
+     * tests/check_array.c), so the tolerance grows with the band */
+    snprintf(a2, sizeof a2, "%s --null-depth -21.19 --stagger 20m --feed crossfire", lines);
+    json_run_holds(a2, 1, "all(abs(r[\"tolerance_deg\"]-2*math.degrees(math.atan(10**(-21.19/20)"
+                          "*math.sin(2*math.pi*r[\"freq_mhz\"]*1e6*20/299792458)/(1-10**(-21.19/20)"
+                          "*math.cos(2*math.pi*r[\"freq_mhz\"]*1e6*20/299792458)))))<1e-4 for r in d)");
+    text_fails_with(a2, "across the points,", "against the forward response of the pair: stagger 20.000 m");
 }
 END_TEST
 
@@ -289,7 +310,7 @@ START_TEST(pair_plot)
 {
     /* two bands of 50 samples each: 49 segments each, one break between;
      * the tolerance 10.005 deg of pair_null_depth [NULL] */
-    char *path = plot_same_bytes("pair --length 20m,20.3m --vf 0.66 --null-depth -21.19 "
+    char *path = plot_same_bytes("pair --length 20m,20.3m --vf 0.66 --null-vs-inphase -21.19 "
                                  "--band 160m,40m --label 'east <&> set'", 0);
     svg_holds(path, "assert len(paths)==1, len(paths); d=paths[0].get(\"d\"); "
               "assert d.count(\"L\")==2*49 and d.count(\"M\")==2, d; "
@@ -411,7 +432,7 @@ START_TEST(limits_no_nan)
         "pair --length 1mm,1000000m --vf 0.02 --vf-tol 0.01 --length-tol 1000000m --tolerance 360 "
         "--freq 1000GHz --freq 1Hz",
         "pair --length 1mm,1000000m --vf 0.01 --tolerance 0.001 --freq 1000GHz --z0 50 --load 1e9",
-        "pair --length 1mm,1mm --vf 1 --null-depth -299 --freq 1Hz --z0 50 --load 21+j20",
+        "pair --length 1mm,1mm --vf 1 --null-vs-inphase -299 --freq 1Hz --z0 50 --load 21+j20",
     };
     const char *fmt[] = { "", " --format csv", " --format json" };
     for (size_t i = 0; i < sizeof edge / sizeof edge[0]; i++)
@@ -436,7 +457,7 @@ START_TEST(batch_with_load_and_goal)
     /* as a spreadsheet saves it: BOM, CRLF, quoted cells; a bad load and a
      * missing z0 are reported by line, the good rows still printed */
     const char csv[] =
-        "\xEF\xBB\xBF" "label,length,vf,z0,load,null-depth,tolerance,band\r\n"
+        "\xEF\xBB\xBF" "label,length,vf,z0,load,null-vs-inphase,tolerance,band\r\n"
         "a,\"20.00m;20.30m\",0.66,50,\"21+j20\",-21.19,,40m\r\n"
         "b,20.00m;20.30m,0.66,50,21+20,,2,40m\r\n"
         "c,20.00m;20.00m,0.66,75,1e9,,2,40m\r\n"
@@ -479,9 +500,9 @@ START_TEST(comma_locale_same_bytes)
         "phase --length 20.3m --reference 20m --vf 0.66 --z0 50 --load 21.5-j20.25 --band 160m",
         "phase --length 20.3m --reference 20m --vf 0.66 --z0 50 --load 21.5-j20.25 --band 160m --format csv",
         "phase --length 20.3m --reference 20m --cable RG-58 --load 21.5+j20 --band 160m --format json",
-        "pair --length 20m,20.3m --vf 0.66 --null-depth -21.19 --imbalance 0.5 --band 40m --z0 50 "
+        "pair --length 20m,20.3m --vf 0.66 --null-vs-inphase -21.19 --imbalance 0.5 --band 40m --z0 50 "
         "--load 21.5+j20 --length-tol 1cm",
-        "pair --length 20m,20.3m --vf 0.66 --null-depth -21.19 --band 40m --format csv",
+        "pair --length 20m,20.3m --vf 0.66 --null-vs-inphase -21.19 --band 40m --format csv",
         "pair --length 20m,20.3m --cable RG-58 --tolerance 2.5 --band 40m --load 1e9 --format json",
     };
     expect_same_bytes_in_comma_locale(cases, sizeof cases / sizeof cases[0], 1);

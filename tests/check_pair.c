@@ -164,6 +164,35 @@ START_TEST(test_pass_not_certain)
 }
 END_TEST
 
+START_TEST(test_verdict_rule)
+{
+    /* The rule of DESIGN.md's pair check (common practice, no source): fail
+     * above the tolerance, pass not certain when error + uncertainty is
+     * above it, else pass; the sign of the error does not matter. */
+    cxl_verdict v = (cxl_verdict)77;
+    ck_assert_int_eq(cxl_pair_verdict(1.0, 0.5, 2.0, &v), CXL_OK);
+    ck_assert_int_eq(v, CXL_VERDICT_PASS);
+    ck_assert_int_eq(cxl_pair_verdict(-1.8, 0.5, 2.0, &v), CXL_OK);
+    ck_assert_int_eq(v, CXL_VERDICT_PASS_UNCERTAIN);
+    ck_assert_int_eq(cxl_pair_verdict(2.1, 0.0, 2.0, &v), CXL_OK);
+    ck_assert_int_eq(v, CXL_VERDICT_FAIL);
+    ck_assert_int_eq(cxl_pair_verdict(2.0, 0.0, 2.0, &v), CXL_OK);
+    ck_assert_int_eq(v, CXL_VERDICT_PASS);   /* at the tolerance: within */
+    v = (cxl_verdict)77;
+    ck_assert_int_eq(cxl_pair_verdict(1.0, -0.1, 2.0, &v), CXL_EINVAL);
+    ck_assert_int_eq(cxl_pair_verdict(1.0, 0.1, 0.0, &v), CXL_EINVAL);
+    ck_assert_int_eq((int)v, 77);
+    /* cxl_pair_check gives the same verdict as the rule on its own error */
+    const double len[2] = { 20.0, 20.02 };
+    double d, e, u;
+    cxl_verdict w;
+    ck_assert_int_eq(cxl_pair_check(len, 2, 0.66, 7.3e6, 0.6, 0.005, 0.01, &d, &e, &u, &w),
+                     CXL_OK);
+    ck_assert_int_eq(cxl_pair_verdict(e, u, 0.6, &v), CXL_OK);
+    ck_assert_int_eq(v, w);
+}
+END_TEST
+
 START_TEST(test_bad_arguments)
 {
     double out = 5.0, d = 5.0, ph = 5.0, u = 5.0;
@@ -226,6 +255,7 @@ int main(void)
     tcase_add_test(tc, test_uncertainty);
     tcase_add_test(tc, test_pass_not_certain);
     tcase_add_test(tc, test_bad_arguments);
+    tcase_add_test(tc, test_verdict_rule);
     suite_add_tcase(s, tc);
     SRunner *sr = srunner_create(s);
     srunner_run_all(sr, CK_NORMAL);
