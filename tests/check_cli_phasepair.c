@@ -475,22 +475,26 @@ START_TEST(batch_with_load_and_goal)
     has(r.err, "stdin line 3: load:");
     has(r.err, "stdin line 5: z0:");
     cli_result_free(&r);
-    /* phase: a plot column gives each row its own file */
-    char *p1 = temp_file("", 0), *p2 = temp_file("", 0);
-    char rows[1024];
-    snprintf(rows, sizeof rows, "label,length,reference,vf,z0,load,band,plot\n"
-                                "x,20.3m,20m,0.66,50,21+j20,160m,%s\n"
-                                "y,20.3m,20m,0.66,,,80m,%s\n", p1, p2);
-    r = run_cli(NULL, "phase --input - --format csv", rows);
+    /* phase: a --plot pattern gives each row its own file (a plot column
+     * in the batch file is refused: coaxline(1), --input) */
+    char dir[] = "/tmp/coaxline-pp-XXXXXX";
+    ck_assert_ptr_nonnull(mkdtemp(dir));
+    char rows[1024], args[256], p1[96], p2[96];
+    snprintf(rows, sizeof rows, "label,length,reference,vf,z0,load,band\n"
+                                "x,20.3m,20m,0.66,50,21+j20,160m\n"
+                                "y,20.3m,20m,0.66,,,80m\n");
+    snprintf(args, sizeof args, "phase --input - --format csv --plot '%s/{label}.svg'", dir);
+    r = run_cli(NULL, args, rows);
     ck_assert_msg(r.rc == 0, "%s", r.err);
     ck_assert_int_eq(count_lines(r.out), 1 + 2 * 3);
     cli_result_free(&r);
+    snprintf(p1, sizeof p1, "%s/x.svg", dir);
+    snprintf(p2, sizeof p2, "%s/y.svg", dir);
     svg_holds(p1, "assert \"160m\" in texts and \"into the load\" in texts");
     svg_holds(p2, "assert \"80m\" in texts and \"electrical length\" in texts");
     unlink(p1);
     unlink(p2);
-    free(p1);
-    free(p2);
+    rmdir(dir);
 }
 END_TEST
 
