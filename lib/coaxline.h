@@ -992,6 +992,133 @@ cxl_status cxl_trim_result_reading(const cxl_trim_result *result,
                                    double *vf, double *expected_hz,
                                    double *resolution_m);
 
+/* ---- sweep.c: one-port analyzer sweeps --------------------------------- */
+
+/* A one-port sweep read from a file: frequency points and the reflection
+ * coefficient against the file's reference, from which Z(f) and Gamma(f)
+ * against any reference follow.  Formats (chosen from the first line that
+ * is neither blank nor a comment):
+ *   - Touchstone 1.0: "! comments", an option line
+ *     "# Hz|kHz|MHz|GHz S|Z|Y RI|MA|DB R n" (any order, case ignored; a
+ *     missing option line or item takes the defaults GHz S MA R 50; later
+ *     option lines are ignored), then "freq a b" per point.  Z and Y data
+ *     are normalised to R (z = Z / R, y = Y R).
+ *   - Touchstone 2.0: "[Version] 2.0", the option line, "[Number of Ports]
+ *     1", optional "[Number of Frequencies] n" (checked), "[Reference] R"
+ *     (overrides the option line's R), "[Matrix Format]", "[Begin
+ *     Information]...[End Information]" (skipped), "[Network Data]", the
+ *     points, "[End]".  Z and Y data are in ohms and siemens, not
+ *     normalised.
+ *   - CSV: a header naming freq_hz or freq_mhz and one of the column sets
+ *     r_ohm,x_ohm | z_ohm,z_deg | s11_re,s11_im | s11_db,s11_deg | swr
+ *     (s11 and swr against 50 ohm).  An swr column holds the magnitude of
+ *     the reflection only: no reactance, no sign of the mismatch, so only
+ *     SWR minima and no Z, reactance crossing, fit or distance-to-fault
+ *     profile come from it (CXL_ENOTFOUND there).
+ * Every frequency must be finite, >= 0 and above the one before; every
+ * value finite; no line longer than CXL_SWEEP_MAX_LINE bytes; text only
+ * (a NUL or other control byte is binary data).  Memory grows with the
+ * number of points only. */
+typedef struct cxl_sweep cxl_sweep;
+
+#define CXL_SWEEP_MAX_LINE 4096
+
+typedef enum cxl_sweep_source {
+    CXL_SWEEP_TOUCHSTONE1 = 0,
+    CXL_SWEEP_TOUCHSTONE2 = 1,
+    CXL_SWEEP_CSV = 2
+} cxl_sweep_source;
+
+/* Read a sweep from a stream the caller owns (read to its end).  On error
+ * nothing is kept: CXL_EPARSE for anything the format does not allow
+ * (empty file, bad option, two-port data, a missing or extra column, a
+ * non-number, NaN or infinity, a frequency not above the one before, a line
+ * over CXL_SWEEP_MAX_LINE bytes, binary data), CXL_ENOMEM, CXL_EIO; then
+ * *error_line (may be NULL) is the 1-based line at fault (0 when the whole
+ * file is) and error_text (may be NULL) gets one line "what is wrong
+ * (expected ...)". */
+cxl_status cxl_sweep_read(FILE *stream, cxl_sweep **sweep, size_t *error_line,
+                          char *error_text, size_t error_size);
+/* The same from size bytes of text (no terminating NUL needed). */
+cxl_status cxl_sweep_read_buffer(const char *text, size_t size, cxl_sweep **sweep,
+                                 size_t *error_line, char *error_text,
+                                 size_t error_size);
+void cxl_sweep_free(cxl_sweep *sweep);
+/* Number of points; 0 for NULL. */
+size_t cxl_sweep_count(const cxl_sweep *sweep);
+/* First and last frequency, the file's reference impedance, its format and
+ * whether it holds the phase (0 for an swr column).  Any output may be
+ * NULL. */
+cxl_status cxl_sweep_info(const cxl_sweep *sweep, double *start_hz, double *stop_hz,
+                          double *reference_ohm, cxl_sweep_source *source,
+                          int *has_phase);
+/* Point index against reference_ohm (> 0): frequency, reflection
+ * coefficient Gamma = (Z - Zref)/(Z + Zref) and impedance.  Any output may
+ * be NULL.  CXL_ENOTFOUND for a sweep without phase; CXL_ERANGE when Z is
+ * an open circuit (Gamma = 1) and z_re_ohm or z_im_ohm is asked for. */
+cxl_status cxl_sweep_point(const cxl_sweep *sweep, size_t index, double reference_ohm,
+                           double *freq_hz, double *gamma_re, double *gamma_im,
+                           double *z_re_ohm, double *z_im_ohm);
+/* |Gamma| of point index against reference_ohm (SWR = (1 + |G|)/(1 - |G|)).
+ * A sweep without phase gives it only against its own reference
+ * (CXL_ENOTFOUND for any other). */
+cxl_status cxl_sweep_magnitude(const cxl_sweep *sweep, size_t index,
+                               double reference_ohm, double *freq_hz,
+                               double *gamma_mag);
+
+/* Resonances of a sweep.  Kinds (what an analyzer's "dip" can mean):
+ *   CXL_SWEEP_X_ZERO  the reactance crosses zero, interpolated linearly
+ *                     between the two points around it (in X for a series
+ *                     resonance, where X rises through zero; in the
+ *                     susceptance for a parallel one, where X falls);
+ *   CXL_SWEEP_Z_MIN   a minimum of |Z|;
+ *   CXL_SWEEP_SWR_MIN a minimum of SWR against the reference;
+ * minima are the vertex of the parabola through the lowest point and its
+ * two neighbours (in |Z|^2 and |Gamma|^2, which are smooth there), and
+ * count only when both sides rise by at least CXL_SWEEP_MIN_PROMINENCE
+ * (a ratio of |Z| or of SWR) before a lower point.  Each resonance has a
+ * frequency uncertainty of half the point spacing around it: the truth
+ * lies within it wherever the sweep samples the curve finely enough to
+ * show the resonance at all (a half step bounds linear and parabolic
+ * interpolation errors; tests/check_sweep.c checks it by simulation). */
+typedef enum cxl_sweep_kind {
+    CXL_SWEEP_X_ZERO = 0,
+    CXL_SWEEP_Z_MIN = 1,
+    CXL_SWEEP_SWR_MIN = 2
+} cxl_sweep_kind;
+
+#define CXL_SWEEP_MIN_PROMINENCE 1.4142135623730951
+
+typedef struct cxl_sweep_res cxl_sweep_res;
+
+/* Find the resonances against reference_ohm (> 0) and number them for a
+ * line whose far end is `end`: a series (low impedance) resonance is the
+ * n-th at (2n-1)/4 wavelength (open) or n/2 (short), a parallel one the
+ * n-th at n/2 (open) or (2n-1)/4 (short).  With length_m and vf_guess
+ * both > 0 the order is the nearest one for that line; with both 0 it is
+ * inferred from the spacing of consecutive series resonances (half a
+ * wavelength apart), and is 0 (unknown) when the sweep shows fewer than
+ * two.  CXL_EINVAL for one of the two 0 and the other not. */
+cxl_status cxl_sweep_resonances(const cxl_sweep *sweep, double reference_ohm,
+                                cxl_stub_end end, double length_m, double vf_guess,
+                                cxl_sweep_res **res);
+void cxl_sweep_res_free(cxl_sweep_res *res);
+/* Number of resonances (all kinds, ascending frequency); 0 for NULL. */
+size_t cxl_sweep_res_count(const cxl_sweep_res *res);
+/* Resonance index: its kind, 1 for series and 0 for parallel, its order
+ * (0 when unknown), frequency and uncertainty, and the value there (R in
+ * ohm at a reactance zero, |Z| in ohm at a |Z| minimum, the SWR at an SWR
+ * minimum).  Any output may be NULL. */
+cxl_status cxl_sweep_res_get(const cxl_sweep_res *res, size_t index,
+                             cxl_sweep_kind *kind, int *series, int *order,
+                             double *freq_hz, double *freq_err_hz, double *value);
+/* The series resonances of one kind as readings for cxl_stub_add_reading
+ * and cxl_trim_add_reading: up to max frequencies and orders (0 when
+ * unknown) in ascending frequency, *count how many were written. */
+cxl_status cxl_sweep_res_readings(const cxl_sweep_res *res, cxl_sweep_kind kind,
+                                  double *freq_hz, int *order, size_t max,
+                                  size_t *count);
+
 #ifdef __cplusplus
 }
 #endif
