@@ -227,6 +227,14 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
         cli_print_command_help(cmd, stdout);
         return CLI_EXIT_OK;
     }
+    if (optind < argc && cmd->positional && optind + 1 == argc) {
+        int k = 0;
+        while (cmd->opts[k].name && strcmp(cmd->opts[k].name, cmd->positional) != 0) k++;
+        if (cmd->opts[k].name && args.nval[k] == 0) {
+            args.val[k][args.nval[k]++] = argv[optind];
+            optind++;
+        }
+    }
     if (optind < argc)
         return cli_error(&ctx, NULL, "options only, such as --offset 10m",
                          "unexpected argument '%s'", argv[optind]);

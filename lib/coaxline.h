@@ -1119,6 +1119,81 @@ cxl_status cxl_sweep_res_readings(const cxl_sweep_res *res, cxl_sweep_kind kind,
                                   double *freq_hz, int *order, size_t max,
                                   size_t *count);
 
+/* ---- fault.c: distance to fault ------------------------------------- */
+
+/* Reflection against distance along the line from a one-port sweep with
+ * phase: Gamma(f) against reference_ohm, windowed, zero-padded (to a power
+ * of two at least 4 times the points) and transformed back with GSL's
+ * FFT.  A reflection g at round-trip delay t shows as a peak of height g
+ * at distance VF c t / 2.
+ *   Band-pass (any sweep): the magnitude of the complex response.
+ *   Low-pass (a sweep whose first frequency is k df, k an integer up to
+ *   10, and CXL_FAULT_BANDPASS not given): Gamma is completed down to DC
+ *   (the real part extrapolated linearly from the first two points, the
+ *   harmonics below the first point interpolated) and mirrored as the
+ *   conjugate at negative frequencies; the real impulse response is
+ *   positive where the impedance steps up and negative where it steps down,
+ *   and its running sum is the step response (Gamma seen up to that
+ *   distance).
+ * Windows (applied over the band in band-pass, as the right half centred
+ * on DC in low-pass): CXL_FAULT_RECT (none: sharpest, sidelobes at
+ * -13 dB), CXL_FAULT_HANN (0.5 + 0.5 cos, sidelobes at -31 dB, main lobe
+ * twice as wide), CXL_FAULT_KAISER (I0(beta sqrt(1 - u^2)) / I0(beta);
+ * beta 6 gives about -44 dB, larger beta lower sidelobes and a wider
+ * lobe).  Peaks are the local maxima that stand above the window's highest
+ * sidelobe of the strongest peak plus 6 dB and above -60 dB, refined by a
+ * parabola through three samples.
+ * Resolution VF c / (2 span) (span: the highest frequency in low-pass,
+ * stop - start in band-pass; a window widens the peaks by its main-lobe
+ * factor) and unambiguous range VF c / (2 df): a line longer than the
+ * range folds back.
+ * VF: vf (0 < vf <= 1), or with vf 0 the model's VF at the sweep's centre
+ * frequency.  Loss compensation: each distance d is scaled by
+ * 10^(2 loss_db_per_m d / 20) (the round trip), loss_db_per_m >= 0 (0:
+ * none), or with CXL_FAULT_MODEL_LOSS the model's attenuation at the
+ * centre frequency.
+ * Errors: CXL_EINVAL (bad argument, vf 0 without a model), CXL_ENOTFOUND (a
+ * sweep without phase, e.g. an swr column), CXL_EINCONSISTENT (the points
+ * are not evenly spaced), CXL_ERANGE (fewer than two points, a result that
+ * overflows). */
+typedef struct cxl_fault cxl_fault;
+
+typedef enum cxl_fault_window {
+    CXL_FAULT_RECT = 0,
+    CXL_FAULT_HANN = 1,
+    CXL_FAULT_KAISER = 2
+} cxl_fault_window;
+
+#define CXL_FAULT_MAX_BETA 50.0
+#define CXL_FAULT_BANDPASS   0x1u /* band-pass even when low-pass would apply */
+#define CXL_FAULT_MODEL_LOSS 0x2u /* compensate the model's loss */
+
+cxl_status cxl_fault_new(const cxl_sweep *sweep, double reference_ohm, double vf,
+                         const cxl_loss_model *model, cxl_fault_window window,
+                         double kaiser_beta, double loss_db_per_m, unsigned flags,
+                         cxl_fault **fault);
+void cxl_fault_free(cxl_fault *fault);
+/* Mode (1 low-pass, 0 band-pass), the VF used, resolution, unambiguous
+ * range and the sweep's step.  Any output may be NULL. */
+cxl_status cxl_fault_info(const cxl_fault *fault, int *lowpass, double *vf,
+                          double *resolution_m, double *range_m, double *step_hz);
+/* Profile points, evenly spaced from distance 0 over the range; 0 for
+ * NULL. */
+size_t cxl_fault_count(const cxl_fault *fault);
+/* Profile point index: distance, reflection (>= 0), the signed reflection
+ * (low-pass; the reflection again in band-pass) and the step response
+ * (low-pass; 0 in band-pass).  Any output may be NULL. */
+cxl_status cxl_fault_point(const cxl_fault *fault, size_t index, double *distance_m,
+                           double *reflection, double *signed_reflection,
+                           double *step);
+/* Peaks in ascending distance; 0 for NULL. */
+size_t cxl_fault_peak_count(const cxl_fault *fault);
+/* Peak index: distance, reflection, return loss -20 log10(reflection) (dB)
+ * and the change (low-pass: +1 to a higher impedance, -1 to a lower one;
+ * 0 in band-pass, where the sign is not known).  Any output may be NULL. */
+cxl_status cxl_fault_peak(const cxl_fault *fault, size_t index, double *distance_m,
+                          double *reflection, double *return_loss_db, int *change);
+
 #ifdef __cplusplus
 }
 #endif

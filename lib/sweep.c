@@ -813,18 +813,26 @@ static cxl_status minima(cxl_sweep_res *r, const double *f, const double *v,
     const double need = CXL_SWEEP_MIN_PROMINENCE * CXL_SWEEP_MIN_PROMINENCE;
     for (size_t i = 1; i + 1 < n; i++) {
         if (!(v[i] <= v[i - 1] && v[i] < v[i + 1])) continue;
-        size_t li = i, ri = i;
-        for (size_t j = i; j-- > 0 && v[j] >= v[i];) if (v[j] > v[li]) li = j;
-        for (size_t j = i + 1; j < n && v[j] >= v[i]; j++) if (v[j] > v[ri]) ri = j;
         double here = prom_value(kind, v[i]);
         if (!(here > 0.0)) here = DBL_MIN;
-        if (!(prom_value(kind, v[li]) >= need * here && prom_value(kind, v[ri]) >= need * here))
-            continue;
-        /* and deeper than the noise on both sides */
         double h = sqrt(here);
-        if (!(sqrt(prom_value(kind, v[li])) - h >= CXL__NOISE_K * hypot(noise[li], noise[i]) &&
-              sqrt(prom_value(kind, v[ri])) - h >= CXL__NOISE_K * hypot(noise[ri], noise[i])))
-            continue;
+        /* on each side, before a lower point: a rise by the ratio, and a
+         * rise that stands out of the noise at both points */
+        int ok = 1;
+        for (int side = 0; side < 2 && ok; side++) {
+            int ratio = 0, sig = 0;
+            for (size_t j = i;;) {
+                if (side == 0) { if (j == 0) break; j--; }
+                else { if (j + 1 >= n) break; j++; }
+                if (v[j] < v[i]) break;
+                double pj = prom_value(kind, v[j]);
+                if (pj >= need * here) ratio = 1;
+                if (sqrt(pj) - h >= CXL__NOISE_K * hypot(noise[j], noise[i])) sig = 1;
+                if (ratio && sig) break;
+            }
+            ok = ratio && sig;
+        }
+        if (!ok) continue;
         double y;
         double x = vertex(f[i - 1], v[i - 1], f[i], v[i], f[i + 1], v[i + 1], &y);
         double step = fmax(f[i] - f[i - 1], f[i + 1] - f[i]);
@@ -886,16 +894,20 @@ static int order_at(double q, int series, cxl_stub_end end)
 }
 
 /* Half-wave spacing from the median gap between consecutive series
- * resonances of the kind that has the most of them; 0 when none. */
+ * resonances: of the |Z| minima (checked against the noise) when there
+ * are two or more, else of the reactance zeros, else of the SWR minima;
+ * 0 when none. */
 static double spacing(const cxl_sweep_res *r)
 {
+    static const int pref[3] = { CXL_SWEEP_Z_MIN, CXL_SWEEP_X_ZERO, CXL_SWEEP_SWR_MIN };
     double best = 0.0;
     size_t best_n = 0;
-    for (int k = 0; k < 3; k++) {
+    for (int pi = 0; pi < 3 && best_n == 0; pi++) {
+        int k = pref[pi];
         size_t m = 0;
         for (size_t i = 0; i < r->n; i++)
             if ((int)r->item[i].kind == k && r->item[i].series) m++;
-        if (m < 2 || m <= best_n) continue;
+        if (m < 2) continue;
         double *gap = malloc((m - 1) * sizeof *gap);
         if (!gap) return 0.0;
         double prev = NAN;

@@ -99,6 +99,8 @@ static const kind K_ORDER0 = { "order or 0", LIST(-1, INT_MIN, 1001, INT_MAX), L
 static const kind K_ELEMENT = { "element", LIST(-1, 2, INT_MIN, INT_MAX), NONE };
 static const kind K_ENUM2 = { "enum of two", LIST(-1, 2, 99, INT_MIN, INT_MAX), NONE };
 static const kind K_ENUM3 = { "enum of three", LIST(-1, 3, 99, INT_MIN, INT_MAX), NONE };
+static const kind K_BETA = { "Kaiser beta", LIST(NONFINITE, -0.1, 50.0001, DBL_MAX), LIST(0.0, 50.0, DBL_TRUE_MIN) };
+static const kind K_FAULT_FLAGS = { "fault flags", LIST(4, 8, 0x80000000u, UINT_MAX), LIST(0, 1, 3) };
 static const kind K_REGION = { "region", LIST(-1, 4, INT_MIN, INT_MAX), LIST(0, 3) };
 static const kind K_DECIMALS = { "decimals", LIST(-1, 18, INT_MIN, INT_MAX), LIST(0, 17) };
 static const kind K_PROP = { "cable property", LIST(-1, 11, INT_MIN, INT_MAX), NONE };
@@ -193,6 +195,7 @@ static cxl_trim_result *g_trim_res;
 static char *g_sweep_text;      /* an open stub, 10 m at VF 0.66, 1-40 MHz */
 static cxl_sweep *g_sweep;
 static cxl_sweep_res *g_sres;
+static cxl_fault *g_fault;      /* profile of g_sweep */
 
 /* A read stream over text (a new one per call). */
 static FILE *text_stream(const char *text)
@@ -957,6 +960,47 @@ ADAPTER(sweep_res_readings)
     return st;
 }
 
+/* fault.c: the profile of the stub sweep */
+ADAPTER(fault_new)
+{
+    cxl_fault *h = SENT_PTR;
+    cxl_status st = cxl_fault_new(P(0, g_sweep), a[0], a[1], P(1, g_model),
+                                  (cxl_fault_window)to_int(a[2]), a[3], a[4], to_uint(a[5]),
+                                  P(2, &h));
+    o[0] = ptr_out(h);
+    if (st == CXL_OK) {
+        for (size_t i = 0; i < cxl_fault_count(h); i += 97) {
+            double d, r, sr, stp;
+            ck_assert_int_eq(cxl_fault_point(h, i, &d, &r, &sr, &stp), CXL_OK);
+            ck_assert(isfinite(d) && isfinite(r) && isfinite(sr) && isfinite(stp));
+        }
+        cxl_fault_free(h);
+    }
+    return st;
+}
+ADAPTER(fault_info)
+{
+    (void)a;
+    int lowpass = (int)SENT;
+    cxl_status st = cxl_fault_info(P(0, g_fault), P(1, &lowpass), P(2, &o[1]), P(3, &o[2]),
+                                   P(4, &o[3]), P(5, &o[4]));
+    o[0] = (double)lowpass;
+    return st;
+}
+ADAPTER(fault_point)
+{
+    return cxl_fault_point(P(0, g_fault), to_size(a[0]), P(1, &o[0]), P(2, &o[1]), P(3, &o[2]),
+                           P(4, &o[3]));
+}
+ADAPTER(fault_peak)
+{
+    int change = (int)SENT;
+    cxl_status st = cxl_fault_peak(P(0, g_fault), to_size(a[0]), P(1, &o[0]), P(2, &o[1]),
+                                   P(3, &o[2]), P(4, &change));
+    o[3] = (double)change;
+    return st;
+}
+
 /* trim.c: a 30 m piece, open end, read at its first three resonances at
  * VF 0.66 with a 1 kHz step, trimmed to 90 degrees at 1.83 MHz */
 #define TRIM_LEN 30.0
@@ -1278,6 +1322,12 @@ static api_case cases[] = {
       {{50, CXL_STUB_OPEN, 10, 0}, {50, CXL_STUB_SHORT, 0, 0.66}} },
     { "cxl_sweep_res_get", call_sweep_res_get, 1, {0}, {&K_INDEX}, 7, 0x7E, 6, 0, {{0}} },
     { "cxl_sweep_res_readings", call_sweep_res_readings, 1, {CXL_SWEEP_X_ZERO}, {&K_ENUM3}, 4, 0, 1, 0, {{0}} },
+    /* fault.c */
+    { "cxl_fault_new", call_fault_new, 6, {50, 0.66, CXL_FAULT_HANN, 6, 0.01, 0},
+      {&K_POS, &K_VF0, &K_ENUM3, &K_BETA, &K_NONNEG, &K_FAULT_FLAGS}, 3, 0x2, 1, 0, {{0}} },
+    { "cxl_fault_info", call_fault_info, 0, {0}, {0}, 6, 0x3E, 5, 0, {{0}} },
+    { "cxl_fault_point", call_fault_point, 1, {3}, {&K_INDEX}, 5, 0x1E, 4, 0, {{0}} },
+    { "cxl_fault_peak", call_fault_peak, 1, {0}, {&K_INDEX}, 5, 0x1E, 4, 0, {{0}} },
     /* trim.c */
     { "cxl_trim_new", call_trim_new, 2, {CXL_STUB_OPEN, TRIM_LEN}, {&K_ENUM2, &K_POS}, 1, 0, 11, 0, {{0}} },
     { "cxl_trim_set_fixture", call_trim_set_fixture, 3, {0.3, 0.7, 0.005},
@@ -1445,6 +1495,10 @@ START_TEST(free_and_count_null)
     cxl_sweep_res_free(NULL);
     ck_assert_uint_eq(cxl_sweep_count(NULL), 0);
     ck_assert_uint_eq(cxl_sweep_res_count(NULL), 0);
+    cxl_fault_free(NULL);
+    ck_assert_uint_eq(cxl_fault_count(NULL), 0);
+    ck_assert_uint_eq(cxl_fault_peak_count(NULL), 0);
+    ck_assert_uint_ge(cxl_fault_count(g_fault), 1024);
     ck_assert_uint_eq(cxl_sweep_count(g_sweep), 391);
     ck_assert_uint_gt(cxl_sweep_res_count(g_sres), 3);
     ck_assert_uint_eq(cxl_trim_count(NULL), 0);
@@ -2008,6 +2062,8 @@ static void setup_objects(void)
     NEED(cxl_sweep_read_buffer(g_sweep_text, used, &g_sweep, NULL, NULL, 0) == CXL_OK);
     NEED(cxl_sweep_resonances(g_sweep, 50.0, CXL_STUB_OPEN, 0, 0, &g_sres) == CXL_OK);
     NEED(cxl_sweep_res_count(g_sres) > 3);
+    NEED(cxl_fault_new(g_sweep, 50.0, 0.66, NULL, CXL_FAULT_HANN, 0, 0, 0, &g_fault) == CXL_OK);
+    NEED(cxl_fault_peak_count(g_fault) > 0);
 }
 
 /* How many probes the table makes (printed for the record). */
@@ -2062,6 +2118,7 @@ int main(void)
     int nf = srunner_ntests_failed(sr);
     srunner_free(sr);
 
+    cxl_fault_free(g_fault);
     cxl_sweep_res_free(g_sres);
     cxl_sweep_free(g_sweep);
     free(g_sweep_text);

@@ -5,7 +5,8 @@ Line model (the reference the tests check against):
   gamma(f) = alpha(f) + j 2 pi f / (VF(f) c),  VF(f) = vf_hf - drop / sqrt(f),
   alpha(f) = (a sqrt(f) + b f) / (20 log10 e) Np/m,  real Z0;
 scikit-rf's DefinedGammaZ0 media cascades line ** line ** termination (all
-ports at 50 ohm), which is the lossy-line input impedance
+ports at 50 ohm, a line of another Z0 embedded with line(..., z0=Z0,
+embed=True)), which is the lossy-line input impedance
 Z0 (ZL + Z0 tanh(gamma l)) / (Z0 + ZL tanh(gamma l))
 (Pozar, Microwave Engineering, 4th ed., sec. 2.7, from memory).  The
 resonance truths are found with scipy.optimize on that closed form, apart
@@ -33,9 +34,10 @@ def gamma_of(f, vf_hf, drop, a, b):
     return alpha + 1j * 2 * np.pi * f / (vf * C)
 
 
-def media(freq, z0_line, vf_hf, drop, a, b):
+def media(freq, vf_hf, drop, a, b):
+    """Ports at 50 ohm; a line of another impedance is embedded in them."""
     f = np.maximum(freq.f, 1.0)
-    return DefinedGammaZ0(frequency=freq, z0=50, Z0=z0_line,
+    return DefinedGammaZ0(frequency=freq, z0=50, Z0=50,
                           gamma=gamma_of(f, vf_hf, drop, a, b))
 
 
@@ -50,9 +52,9 @@ def zin(f, length, end, z0_line, vf_hf, drop, a, b, load=None):
 
 
 def stub(freq, length, end, z0_line=50.0, vf_hf=0.66, drop=0.0, a=0.0, b=0.0):
-    m = media(freq, z0_line, vf_hf, drop, a, b)
+    m = media(freq, vf_hf, drop, a, b)
     term = m.open() if end == 'open' else m.short()
-    n = m.line(length, 'm') ** term
+    n = m.line(length, 'm', z0=z0_line, embed=True) ** term
     n.name = 'line'
     return n
 
@@ -183,11 +185,36 @@ def resonances(d, seed, count):
     truth.close()
 
 
+def fault(d):
+    """A 50 ohm run (VF 0.66, 2e-6 sqrt(f) dB/m) with 1.5 m of 75 ohm cable
+    spliced in at 12 m and the far end open at 21.5 m; the same swept on a
+    harmonic grid from 0.5 MHz (low-pass), from 2.3 MHz (band-pass) and
+    from 0 Hz (for scikit-rf's own transform), and with noise."""
+    def run(freq):
+        m = media(freq, 0.66, 0.0, 2e-6, 0.0)
+        n = (m.line(12.0, 'm') ** m.line(1.5, 'm', z0=75, embed=True) ** m.line(8.0, 'm') **
+             m.open())
+        n.name = 'run'
+        return n
+    grids = {'lowpass': (0.5e6, 500e6, 1000), 'bandpass': (2.3e6, 501.8e6, 1000),
+             'dc': (0.0, 499.5e6, 1000)}
+    rng = np.random.default_rng(5)
+    for name, (a, b, n) in grids.items():
+        net = run(skrf.Frequency(a, b, n, 'Hz'))
+        net.write_touchstone(os.path.join(d, name), form='ri')
+        if name == 'lowpass':
+            net.s = net.s + 2e-3 * (rng.standard_normal(net.s.shape) +
+                                    1j * rng.standard_normal(net.s.shape))
+            net.write_touchstone(os.path.join(d, 'noisy'), form='ri')
+
+
 def main():
     cmd, d = sys.argv[1], sys.argv[2]
     os.makedirs(d, exist_ok=True)
     if cmd == 'formats':
         formats(d)
+    elif cmd == 'fault':
+        fault(d)
     elif cmd == 'resonances':
         resonances(d, int(sys.argv[3]), int(sys.argv[4]))
     else:
