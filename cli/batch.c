@@ -485,17 +485,19 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
      * beginning of a name ("--freq" for "--freq-step"): --NAME VALUE,
      * --NAME=VALUE, --NAME for a flag, "--" ends the options.  A value is
      * the next word whatever it looks like (--offset -3m). */
-    int argi = 1, first_operand = 0;
+    int argi = 1, first_operand = 0, n_operands = 0;
     while (argi < argc) {
         const char *arg = argv[argi++];
         if (strcmp(arg, "--") == 0) {
             if (argi < argc && !first_operand) first_operand = argi;
+            n_operands += argc - argi;
             break;
         }
         if (strncmp(arg, "--", 2) != 0 || arg[2] == '\0') {
             if (arg[0] == '-' && arg[1] != '\0')
                 return unknown_option(&ctx, arg, arg + 1 + (arg[1] == '-'), strlen(arg + 1));
             if (!first_operand) first_operand = argi - 1;
+            n_operands++;
             continue;
         }
         const char *name = arg + 2, *eq = strchr(name, '=');
@@ -541,6 +543,15 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
     if (help) {
         cli_print_command_help(cmd, stdout);
         return CLI_EXIT_OK; /* main checks that stdout was written */
+    }
+    if (first_operand && cmd->positional && n_operands == 1) {
+        /* one bare argument is the command's positional option (sweep FILE) */
+        int k = 0;
+        while (cmd->opts[k].name && strcmp(cmd->opts[k].name, cmd->positional) != 0) k++;
+        if (cmd->opts[k].name && args.nval[k] == 0) {
+            args.val[k][args.nval[k]++] = argv[first_operand];
+            first_operand = 0;
+        }
     }
     if (first_operand)
         return cli_error(&ctx, NULL, "options only, such as --offset 10m",

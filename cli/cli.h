@@ -46,6 +46,9 @@ typedef struct cli_command {
      * cli_error() and printed nothing else for this row. */
     int (*run)(cli_ctx *ctx, const cli_args *args);
     int batch;                       /* accepts --input */
+    /* Optional: the option one bare argument fills ("file" makes
+     * `coaxline sweep FILE` the same as --file FILE), or NULL. */
+    const char *positional;
 } cli_command;
 
 /* One invocation's option values: a batch row's cells first, then the
@@ -278,6 +281,11 @@ typedef struct cli_svg_xy {
     size_t nspans;
     const cli_svg_hline *hlines;
     size_t nhlines;
+    /* optional second y axis on the right, fitted to its own curves
+     * (drawn dashed, after the others in the legend) */
+    const char *y2_label;
+    const cli_svg_curve *curves2;
+    size_t ncurves2;
 } cli_svg_xy;
 
 /* Write a polar plot (azimuth 0 at the top, clockwise as seen from above
@@ -532,6 +540,19 @@ int cli_errplot_save(cli_ctx *ctx, const char *field, const char *path,
                      const cli_freq_point *pts, int n, cli_err_fn fn, void *user,
                      const cli_errplot *plot);
 
+/* ---- analyzer sweeps: sweep, fault (sweepfile.c) ---------------------- */
+
+/* The sweep named by --file (or the bare argument; "-" for standard
+ * input).  *path_out (may be NULL) gets the name to print.  Returns 0, or
+ * CLI_EXIT_USAGE after a one-line error "file: NAME:N: what (expected
+ * ...)", N the line of the file. */
+int cli_sweep_load(const cli_ctx *ctx, const cli_args *a, cxl_sweep **sweep,
+                   const char **path_out);
+/* "reactance-zero", "impedance-min" or "swr-min". */
+const char *cli_sweep_kind_name(cxl_sweep_kind kind);
+
+extern const cli_command cli_cmd_sweep;
+extern const cli_command cli_cmd_fault;
 
 
 /* ---- array layouts (layout.c): shared by array and harness ------------ */

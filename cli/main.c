@@ -19,6 +19,8 @@ static const cli_command *const commands[] = {
     &cli_cmd_array,
     &cli_cmd_budget,
     &cli_cmd_hybrid,
+    &cli_cmd_sweep,
+    &cli_cmd_fault,
     &cli_cmd_demo,
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])

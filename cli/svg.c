@@ -304,6 +304,40 @@ int cli_svg_xy_write(FILE *fp, const cli_svg_xy *p)
             fprintf(fp, " r=\"3\" fill=\"%s\"/>\n", colour);
         }
     }
+    if (p->ncurves2) {
+        double vlo = INFINITY, vhi = -INFINITY, v0, v1, vs;
+        for (size_t c = 0; c < p->ncurves2; c++)
+            for (size_t i = 0; i < p->curves2[c].n; i++) {
+                double v = p->curves2[c].y[i];
+                if (isfinite(v) && isfinite(p->curves2[c].x[i])) {
+                    vlo = fmin(vlo, v);
+                    vhi = fmax(vhi, v);
+                }
+            }
+        fit_axis(vlo, vhi, &v0, &v1, &vs);
+#define SY2(v) (bottom - ((v) - v0) / (v1 - v0) * (bottom - top))
+        int vd = tick_decimals(vs);
+        for (double v = v0; v <= v1 + 0.5 * vs; v += vs)
+            label(fp, right + 6.0, SY2(v) + 4.0, "start", 11, cli_fmt(t, sizeof t, v, vd));
+        for (size_t k = 0; k < p->ncurves2; k++) {
+            const cli_svg_curve *cv = &p->curves2[k];
+            int pen = 0;
+            fputs("<path d=\"", fp);
+            for (size_t i = 0; i < cv->n; i++) {
+                if (!isfinite(cv->x[i]) || !isfinite(cv->y[i])) { pen = 0; continue; }
+                fputs(pen ? " L" : (i ? " M" : "M"), fp);
+                xy(fp, SX(cv->x[i]), SY2(cv->y[i]));
+                pen = 1;
+            }
+            end_curve(fp, palette[(p->ncurves + k) % NPALETTE], 1);
+        }
+#undef SY2
+        fputs("<text x=\"0\" y=\"0\" font-size=\"13\" text-anchor=\"middle\" transform=\"translate(712,", fp);
+        num(fp, 0.5 * (top + bottom), 2);
+        fputs(") rotate(90)\">", fp);
+        text(fp, p->y2_label ? p->y2_label : "");
+        fputs("</text>\n", fp);
+    }
     label(fp, 0.5 * (left + right), bottom + 40.0, "middle", 13, p->x_label);
     fputs("<text x=\"0\" y=\"0\" font-size=\"13\" text-anchor=\"middle\" transform=\"translate(22,", fp);
     num(fp, 0.5 * (top + bottom), 2);

@@ -1273,6 +1273,208 @@ cxl_status cxl_trim_result_reading(const cxl_trim_result *result,
                                    double *vf, double *expected_hz,
                                    double *resolution_m);
 
+/* ---- sweep.c: one-port analyzer sweeps --------------------------------- */
+
+/* A one-port sweep read from a file: frequency points and the reflection
+ * coefficient against the file's reference, from which Z(f) and Gamma(f)
+ * against any reference follow.  Formats (chosen from the first line that
+ * is neither blank nor a comment):
+ *   - Touchstone 1.0: "! comments", an option line
+ *     "# Hz|kHz|MHz|GHz S|Z|Y RI|MA|DB R n" (any order, case ignored; a
+ *     missing option line or item takes the defaults GHz S MA R 50; later
+ *     option lines are ignored), then "freq a b" per point.  Z and Y data
+ *     are normalised to R (z = Z / R, y = Y R).
+ *   - Touchstone 2.0: "[Version] 2.0", the option line, "[Number of Ports]
+ *     1", optional "[Number of Frequencies] n" (checked), "[Reference] R"
+ *     (overrides the option line's R), "[Matrix Format]", "[Begin
+ *     Information]...[End Information]" (skipped), "[Network Data]", the
+ *     points, "[End]".  Z and Y data are in ohms and siemens, not
+ *     normalised.
+ *   - CSV: a header naming freq_hz or freq_mhz and one of the column sets
+ *     r_ohm,x_ohm | z_ohm,z_deg | s11_re,s11_im | s11_db,s11_deg | swr
+ *     (s11 and swr against 50 ohm).  An swr column holds the magnitude of
+ *     the reflection only: no reactance, no sign of the mismatch, so only
+ *     SWR minima and no Z, reactance crossing, fit or distance-to-fault
+ *     profile come from it (CXL_ENOTFOUND there).
+ * Every frequency must be finite, >= 0 and above the one before; every
+ * value finite; no line longer than CXL_SWEEP_MAX_LINE bytes; text only
+ * (a NUL or other control byte is binary data).  Memory grows with the
+ * number of points only. */
+typedef struct cxl_sweep cxl_sweep;
+
+#define CXL_SWEEP_MAX_LINE 4096
+
+typedef enum cxl_sweep_source {
+    CXL_SWEEP_TOUCHSTONE1 = 0,
+    CXL_SWEEP_TOUCHSTONE2 = 1,
+    CXL_SWEEP_CSV = 2
+} cxl_sweep_source;
+
+/* Read a sweep from a stream the caller owns (read to its end).  On error
+ * nothing is kept: CXL_EPARSE for anything the format does not allow
+ * (empty file, bad option, two-port data, a missing or extra column, a
+ * non-number, NaN or infinity, a frequency not above the one before, a line
+ * over CXL_SWEEP_MAX_LINE bytes, binary data), CXL_ENOMEM, CXL_EIO; then
+ * *error_line (may be NULL) is the 1-based line at fault (0 when the whole
+ * file is) and error_text (may be NULL) gets one line "what is wrong
+ * (expected ...)". */
+cxl_status cxl_sweep_read(FILE *stream, cxl_sweep **sweep, size_t *error_line,
+                          char *error_text, size_t error_size);
+/* The same from size bytes of text (no terminating NUL needed). */
+cxl_status cxl_sweep_read_buffer(const char *text, size_t size, cxl_sweep **sweep,
+                                 size_t *error_line, char *error_text,
+                                 size_t error_size);
+void cxl_sweep_free(cxl_sweep *sweep);
+/* Number of points; 0 for NULL. */
+size_t cxl_sweep_count(const cxl_sweep *sweep);
+/* First and last frequency, the file's reference impedance, its format and
+ * whether it holds the phase (0 for an swr column).  Any output may be
+ * NULL. */
+cxl_status cxl_sweep_info(const cxl_sweep *sweep, double *start_hz, double *stop_hz,
+                          double *reference_ohm, cxl_sweep_source *source,
+                          int *has_phase);
+/* Point index against reference_ohm (> 0): frequency, reflection
+ * coefficient Gamma = (Z - Zref)/(Z + Zref) and impedance.  Any output may
+ * be NULL.  CXL_ENOTFOUND for a sweep without phase; CXL_ERANGE when Z is
+ * an open circuit (Gamma = 1) and z_re_ohm or z_im_ohm is asked for. */
+cxl_status cxl_sweep_point(const cxl_sweep *sweep, size_t index, double reference_ohm,
+                           double *freq_hz, double *gamma_re, double *gamma_im,
+                           double *z_re_ohm, double *z_im_ohm);
+/* |Gamma| of point index against reference_ohm (SWR = (1 + |G|)/(1 - |G|)).
+ * A sweep without phase gives it only against its own reference
+ * (CXL_ENOTFOUND for any other). */
+cxl_status cxl_sweep_magnitude(const cxl_sweep *sweep, size_t index,
+                               double reference_ohm, double *freq_hz,
+                               double *gamma_mag);
+
+/* Resonances of a sweep.  Kinds (what an analyzer's "dip" can mean):
+ *   CXL_SWEEP_X_ZERO  the reactance crosses zero, interpolated linearly
+ *                     between the two points around it (in X for a series
+ *                     resonance, where X rises through zero; in the
+ *                     susceptance for a parallel one, where X falls);
+ *   CXL_SWEEP_Z_MIN   a minimum of |Z|;
+ *   CXL_SWEEP_SWR_MIN a minimum of SWR against the reference;
+ * minima are the vertex of the parabola through the lowest point and its
+ * two neighbours (in |Z|^2 and |Gamma|^2, which are smooth there), and
+ * count only when both sides rise by at least CXL_SWEEP_MIN_PROMINENCE
+ * (a ratio of |Z| or of SWR) before a lower point.  Each resonance has a
+ * frequency uncertainty of half the point spacing around it: the truth
+ * lies within it wherever the sweep samples the curve finely enough to
+ * show the resonance at all (a half step bounds linear and parabolic
+ * interpolation errors; tests/check_sweep.c checks it by simulation). */
+typedef enum cxl_sweep_kind {
+    CXL_SWEEP_X_ZERO = 0,
+    CXL_SWEEP_Z_MIN = 1,
+    CXL_SWEEP_SWR_MIN = 2
+} cxl_sweep_kind;
+
+#define CXL_SWEEP_MIN_PROMINENCE 1.4142135623730951
+
+typedef struct cxl_sweep_res cxl_sweep_res;
+
+/* Find the resonances against reference_ohm (> 0) and number them for a
+ * line whose far end is `end`: a series (low impedance) resonance is the
+ * n-th at (2n-1)/4 wavelength (open) or n/2 (short), a parallel one the
+ * n-th at n/2 (open) or (2n-1)/4 (short).  With length_m and vf_guess
+ * both > 0 the order is the nearest one for that line; with both 0 it is
+ * inferred from the spacing of consecutive series resonances (half a
+ * wavelength apart), and is 0 (unknown) when the sweep shows fewer than
+ * two.  CXL_EINVAL for one of the two 0 and the other not. */
+cxl_status cxl_sweep_resonances(const cxl_sweep *sweep, double reference_ohm,
+                                cxl_stub_end end, double length_m, double vf_guess,
+                                cxl_sweep_res **res);
+void cxl_sweep_res_free(cxl_sweep_res *res);
+/* Number of resonances (all kinds, ascending frequency); 0 for NULL. */
+size_t cxl_sweep_res_count(const cxl_sweep_res *res);
+/* Resonance index: its kind, 1 for series and 0 for parallel, its order
+ * (0 when unknown), frequency and uncertainty, and the value there (R in
+ * ohm at a reactance zero, |Z| in ohm at a |Z| minimum, the SWR at an SWR
+ * minimum).  Any output may be NULL. */
+cxl_status cxl_sweep_res_get(const cxl_sweep_res *res, size_t index,
+                             cxl_sweep_kind *kind, int *series, int *order,
+                             double *freq_hz, double *freq_err_hz, double *value);
+/* The series resonances of one kind as readings for cxl_stub_add_reading
+ * and cxl_trim_add_reading: up to max frequencies and orders (0 when
+ * unknown) in ascending frequency, *count how many were written. */
+cxl_status cxl_sweep_res_readings(const cxl_sweep_res *res, cxl_sweep_kind kind,
+                                  double *freq_hz, int *order, size_t max,
+                                  size_t *count);
+
+/* ---- fault.c: distance to fault ------------------------------------- */
+
+/* Reflection against distance along the line from a one-port sweep with
+ * phase: Gamma(f) against reference_ohm, windowed, zero-padded (to a power
+ * of two at least 4 times the points) and transformed back with GSL's
+ * FFT.  A reflection g at round-trip delay t shows as a peak of height g
+ * at distance VF c t / 2.
+ *   Band-pass (any sweep): the magnitude of the complex response.
+ *   Low-pass (a sweep whose first frequency is k df, k an integer up to
+ *   10, and CXL_FAULT_BANDPASS not given): Gamma is completed down to DC
+ *   (the real part extrapolated linearly from the first two points, the
+ *   harmonics below the first point interpolated) and mirrored as the
+ *   conjugate at negative frequencies; the real impulse response is
+ *   positive where the impedance steps up and negative where it steps down,
+ *   and its running sum is the step response (Gamma seen up to that
+ *   distance).
+ * Windows (applied over the band in band-pass, as the right half centred
+ * on DC in low-pass): CXL_FAULT_RECT (none: sharpest, sidelobes at
+ * -13 dB), CXL_FAULT_HANN (0.5 + 0.5 cos, sidelobes at -31 dB, main lobe
+ * twice as wide), CXL_FAULT_KAISER (I0(beta sqrt(1 - u^2)) / I0(beta);
+ * beta 6 gives about -44 dB, larger beta lower sidelobes and a wider
+ * lobe).  Peaks are the local maxima that stand above the window's highest
+ * sidelobe of the strongest peak plus 6 dB and above -60 dB, refined by a
+ * parabola through three samples.
+ * Resolution VF c / (2 span) (span: the highest frequency in low-pass,
+ * stop - start in band-pass; a window widens the peaks by its main-lobe
+ * factor) and unambiguous range VF c / (2 df): a line longer than the
+ * range folds back.
+ * VF: vf (0 < vf <= 1), or with vf 0 the model's VF at the sweep's centre
+ * frequency.  Loss compensation: each distance d is scaled by
+ * 10^(2 loss_db_per_m d / 20) (the round trip), loss_db_per_m >= 0 (0:
+ * none), or with CXL_FAULT_MODEL_LOSS the model's attenuation at the
+ * centre frequency.
+ * Errors: CXL_EINVAL (bad argument, vf 0 without a model), CXL_ENOTFOUND (a
+ * sweep without phase, e.g. an swr column), CXL_EINCONSISTENT (the points
+ * are not evenly spaced), CXL_ERANGE (fewer than two points, a result that
+ * overflows). */
+typedef struct cxl_fault cxl_fault;
+
+typedef enum cxl_fault_window {
+    CXL_FAULT_RECT = 0,
+    CXL_FAULT_HANN = 1,
+    CXL_FAULT_KAISER = 2
+} cxl_fault_window;
+
+#define CXL_FAULT_MAX_BETA 50.0
+#define CXL_FAULT_BANDPASS   0x1u /* band-pass even when low-pass would apply */
+#define CXL_FAULT_MODEL_LOSS 0x2u /* compensate the model's loss */
+
+cxl_status cxl_fault_new(const cxl_sweep *sweep, double reference_ohm, double vf,
+                         const cxl_loss_model *model, cxl_fault_window window,
+                         double kaiser_beta, double loss_db_per_m, unsigned flags,
+                         cxl_fault **fault);
+void cxl_fault_free(cxl_fault *fault);
+/* Mode (1 low-pass, 0 band-pass), the VF used, resolution, unambiguous
+ * range and the sweep's step.  Any output may be NULL. */
+cxl_status cxl_fault_info(const cxl_fault *fault, int *lowpass, double *vf,
+                          double *resolution_m, double *range_m, double *step_hz);
+/* Profile points, evenly spaced from distance 0 over the range; 0 for
+ * NULL. */
+size_t cxl_fault_count(const cxl_fault *fault);
+/* Profile point index: distance, reflection (>= 0), the signed reflection
+ * (low-pass; the reflection again in band-pass) and the step response
+ * (low-pass; 0 in band-pass).  Any output may be NULL. */
+cxl_status cxl_fault_point(const cxl_fault *fault, size_t index, double *distance_m,
+                           double *reflection, double *signed_reflection,
+                           double *step);
+/* Peaks in ascending distance; 0 for NULL. */
+size_t cxl_fault_peak_count(const cxl_fault *fault);
+/* Peak index: distance, reflection, return loss -20 log10(reflection) (dB)
+ * and the change (low-pass: +1 to a higher impedance, -1 to a lower one;
+ * 0 in band-pass, where the sign is not known).  Any output may be NULL. */
+cxl_status cxl_fault_peak(const cxl_fault *fault, size_t index, double *distance_m,
+                          double *reflection, double *return_loss_db, int *change);
+
 #ifdef __cplusplus
 }
 #endif

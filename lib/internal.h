@@ -67,4 +67,10 @@ cxl_status cxl__transfer_stub_points(const cxl_loss_model *model, unsigned flags
                                      cxl_dip_kind kind, double ref_ohm,
                                      double *wave_hz, double *dip_hz);
 
+/* sweep.c: Gamma of point i against ref_ohm (> 0) of a sweep with phase,
+ * and the frequency array. */
+cxl_status cxl__sweep_gamma(const cxl_sweep *sweep, size_t i, double ref_ohm,
+                            double *re, double *im);
+const double *cxl__sweep_freqs(const cxl_sweep *sweep);
+
 #endif

@@ -100,6 +100,8 @@ static const kind K_ELEMENT = { "element", LIST(-1, 2, INT_MIN, INT_MAX), NONE }
 static const kind K_ELKIND = { "element kind", LIST(-1, 3, 99, INT_MIN, INT_MAX), NONE };
 static const kind K_ENUM2 = { "enum of two", LIST(-1, 2, 99, INT_MIN, INT_MAX), NONE };
 static const kind K_ENUM3 = { "enum of three", LIST(-1, 3, 99, INT_MIN, INT_MAX), NONE };
+static const kind K_BETA = { "Kaiser beta", LIST(NONFINITE, -0.1, 50.0001, DBL_MAX), LIST(0.0, 50.0, DBL_TRUE_MIN) };
+static const kind K_FAULT_FLAGS = { "fault flags", LIST(4, 8, 0x80000000u, UINT_MAX), LIST(0, 1, 3) };
 static const kind K_REGION = { "region", LIST(-1, 4, INT_MIN, INT_MAX), LIST(0, 3) };
 static const kind K_DECIMALS = { "decimals", LIST(-1, 18, INT_MIN, INT_MAX), LIST(0, 17) };
 static const kind K_PROP = { "cable property", LIST(-1, 11, INT_MIN, INT_MAX), NONE };
@@ -153,6 +155,7 @@ static const char *const lenient[] = {
     "cxl_pair_check",             /* the same */
     "cxl_hybrid_response",        /* |Gamma| of 1 with another one */
     "cxl_trim_add_reading",       /* order 0 among given orders */
+    "cxl_sweep_resonances",       /* a length of 0 with a VF guess */
 };
 
 static int is_lenient(const char *fn)
@@ -193,6 +196,10 @@ static cxl_loss_model *g_clad;  /* g_model with a copper-clad steel centre */
 static cxl_drift *g_drift;      /* VF at three frequencies */
 static cxl_trim *g_trim;        /* a piece read at three orders, with a target */
 static cxl_trim_result *g_trim_res;
+static char *g_sweep_text;      /* an open stub, 10 m at VF 0.66, 1-40 MHz */
+static cxl_sweep *g_sweep;
+static cxl_sweep_res *g_sres;
+static cxl_fault *g_fault;      /* profile of g_sweep */
 
 /* A read stream over text (a new one per call). */
 static FILE *text_stream(const char *text)
@@ -982,6 +989,132 @@ ADAPTER(drift_range)
 ADAPTER(drift_vf) { return cxl_drift_vf(P(0, g_drift), a[0], P(1, &o[0]), P(2, &o[1])); }
 ADAPTER(drift_allowance) { return cxl_drift_allowance(a[0], a[1], P(0, &o[0]), P(1, &o[1])); }
 
+/* sweep.c: the stub of g_sweep_text */
+ADAPTER(sweep_read)
+{
+    (void)a;
+    FILE *fp = text_stream(g_sweep_text);
+    cxl_sweep *h = SENT_PTR;
+    size_t line = 0;
+    char msg[100];
+    cxl_status st = cxl_sweep_read(P(0, fp), P(1, &h), P(2, &line), P(3, msg), sizeof msg);
+    o[0] = ptr_out(h);
+    if (st == CXL_OK) cxl_sweep_free(h);
+    fclose(fp);
+    return st;
+}
+ADAPTER(sweep_read_buffer)
+{
+    cxl_sweep *h = SENT_PTR;
+    size_t line = 0, size = to_size(a[0]);
+    char msg[100];
+    if (size > strlen(g_sweep_text)) size = strlen(g_sweep_text);
+    cxl_status st = cxl_sweep_read_buffer(P(0, g_sweep_text), size, P(1, &h), P(2, &line),
+                                          P(3, msg), sizeof msg);
+    o[0] = ptr_out(h);
+    if (st == CXL_OK) cxl_sweep_free(h);
+    return st;
+}
+ADAPTER(sweep_info)
+{
+    (void)a;
+    cxl_sweep_source src = (cxl_sweep_source)SENT;
+    int phase = (int)SENT;
+    cxl_status st = cxl_sweep_info(P(0, g_sweep), P(1, &o[0]), P(2, &o[1]), P(3, &o[2]),
+                                   P(4, &src), P(5, &phase));
+    o[3] = (double)src;
+    o[4] = (double)phase;
+    return st;
+}
+ADAPTER(sweep_point)
+{
+    return cxl_sweep_point(P(0, g_sweep), to_size(a[0]), a[1], P(1, &o[0]), P(2, &o[1]),
+                           P(3, &o[2]), P(4, &o[3]), P(5, &o[4]));
+}
+ADAPTER(sweep_magnitude)
+{
+    return cxl_sweep_magnitude(P(0, g_sweep), to_size(a[0]), a[1], P(1, &o[0]), P(2, &o[1]));
+}
+ADAPTER(sweep_resonances)
+{
+    cxl_sweep_res *h = SENT_PTR;
+    cxl_status st = cxl_sweep_resonances(P(0, g_sweep), a[0], (cxl_stub_end)to_int(a[1]), a[2],
+                                         a[3], P(1, &h));
+    o[0] = ptr_out(h);
+    if (st == CXL_OK) {
+        o[1] = (double)cxl_sweep_res_count(h);
+        for (size_t i = 0; i < cxl_sweep_res_count(h); i++) {
+            double f, e, v;
+            ck_assert_int_eq(cxl_sweep_res_get(h, i, NULL, NULL, NULL, &f, &e, &v), CXL_OK);
+            ck_assert(isfinite(f) && isfinite(e) && isfinite(v));
+        }
+        cxl_sweep_res_free(h);
+    }
+    return st;
+}
+ADAPTER(sweep_res_get)
+{
+    cxl_sweep_kind kind = (cxl_sweep_kind)SENT;
+    int series = (int)SENT, order = (int)SENT;
+    cxl_status st = cxl_sweep_res_get(P(0, g_sres), to_size(a[0]), P(1, &kind), P(2, &series),
+                                      P(3, &order), P(4, &o[3]), P(5, &o[4]), P(6, &o[5]));
+    o[0] = (double)kind;
+    o[1] = (double)series;
+    o[2] = (double)order;
+    return st;
+}
+ADAPTER(sweep_res_readings)
+{
+    double f[8];
+    int order[8];
+    size_t count = (size_t)SENT;
+    cxl_status st = cxl_sweep_res_readings(P(0, g_sres), (cxl_sweep_kind)to_int(a[0]), P(1, f),
+                                           P(2, order), 8, P(3, &count));
+    o[0] = (double)count;
+    return st;
+}
+
+/* fault.c: the profile of the stub sweep */
+ADAPTER(fault_new)
+{
+    cxl_fault *h = SENT_PTR;
+    cxl_status st = cxl_fault_new(P(0, g_sweep), a[0], a[1], P(1, g_model),
+                                  (cxl_fault_window)to_int(a[2]), a[3], a[4], to_uint(a[5]),
+                                  P(2, &h));
+    o[0] = ptr_out(h);
+    if (st == CXL_OK) {
+        for (size_t i = 0; i < cxl_fault_count(h); i += 97) {
+            double d, r, sr, stp;
+            ck_assert_int_eq(cxl_fault_point(h, i, &d, &r, &sr, &stp), CXL_OK);
+            ck_assert(isfinite(d) && isfinite(r) && isfinite(sr) && isfinite(stp));
+        }
+        cxl_fault_free(h);
+    }
+    return st;
+}
+ADAPTER(fault_info)
+{
+    (void)a;
+    int lowpass = (int)SENT;
+    cxl_status st = cxl_fault_info(P(0, g_fault), P(1, &lowpass), P(2, &o[1]), P(3, &o[2]),
+                                   P(4, &o[3]), P(5, &o[4]));
+    o[0] = (double)lowpass;
+    return st;
+}
+ADAPTER(fault_point)
+{
+    return cxl_fault_point(P(0, g_fault), to_size(a[0]), P(1, &o[0]), P(2, &o[1]), P(3, &o[2]),
+                           P(4, &o[3]));
+}
+ADAPTER(fault_peak)
+{
+    int change = (int)SENT;
+    cxl_status st = cxl_fault_peak(P(0, g_fault), to_size(a[0]), P(1, &o[0]), P(2, &o[1]),
+                                   P(3, &o[2]), P(4, &change));
+    o[3] = (double)change;
+    return st;
+}
+
 /* trim.c: a 30 m piece, open end, read at its first three resonances at
  * VF 0.66 with a 1 kHz step, trimmed to 90 degrees at 1.83 MHz */
 #define TRIM_LEN 30.0
@@ -1339,6 +1472,23 @@ static api_case cases[] = {
     { "cxl_drift_vf", call_drift_vf, 1, {3.5e6}, {&K_POS}, 3, 0x4, 2, 0, {{0}} },
     { "cxl_drift_allowance", call_drift_allowance, 2, {7e6, 1.83e6}, {&K_POS, &K_POS}, 2, 0, 2,
       1, {{7e6, 1e4}} /* below the law's range */ },
+    /* sweep.c */
+    { "cxl_sweep_read", call_sweep_read, 0, {0}, {0}, 4, 0xC, 1, 0, {{0}} },
+    { "cxl_sweep_read_buffer", call_sweep_read_buffer, 1, {1e9}, {&K_TEXTSIZE}, 4, 0xC, 1, 0, {{0}} },
+    { "cxl_sweep_info", call_sweep_info, 0, {0}, {0}, 6, 0x3E, 5, 0, {{0}} },
+    { "cxl_sweep_point", call_sweep_point, 2, {5, 50}, {&K_INDEX, &K_POS}, 6, 0x3E, 5, 0, {{0}} },
+    { "cxl_sweep_magnitude", call_sweep_magnitude, 2, {5, 75}, {&K_INDEX, &K_POS}, 3, 0x2, 2, 0, {{0}} },
+    { "cxl_sweep_resonances", call_sweep_resonances, 4, {50, CXL_STUB_OPEN, 10, 0.66},
+      {&K_POS, &K_ENUM2, &K_NONNEG, &K_VF0}, 2, 0, 2, 2,
+      {{50, CXL_STUB_OPEN, 10, 0}, {50, CXL_STUB_SHORT, 0, 0.66}} },
+    { "cxl_sweep_res_get", call_sweep_res_get, 1, {0}, {&K_INDEX}, 7, 0x7E, 6, 0, {{0}} },
+    { "cxl_sweep_res_readings", call_sweep_res_readings, 1, {CXL_SWEEP_X_ZERO}, {&K_ENUM3}, 4, 0, 1, 0, {{0}} },
+    /* fault.c */
+    { "cxl_fault_new", call_fault_new, 6, {50, 0.66, CXL_FAULT_HANN, 6, 0.01, 0},
+      {&K_POS, &K_VF0, &K_ENUM3, &K_BETA, &K_NONNEG, &K_FAULT_FLAGS}, 3, 0x2, 1, 0, {{0}} },
+    { "cxl_fault_info", call_fault_info, 0, {0}, {0}, 6, 0x3E, 5, 0, {{0}} },
+    { "cxl_fault_point", call_fault_point, 1, {3}, {&K_INDEX}, 5, 0x1E, 4, 0, {{0}} },
+    { "cxl_fault_peak", call_fault_peak, 1, {0}, {&K_INDEX}, 5, 0x1E, 4, 0, {{0}} },
     /* trim.c */
     { "cxl_trim_new", call_trim_new, 2, {CXL_STUB_OPEN, TRIM_LEN}, {&K_ENUM2, &K_POS}, 1, 0, 11, 0, {{0}} },
     { "cxl_trim_set_fixture", call_trim_set_fixture, 3, {0.3, 0.7, 0.005},
@@ -1508,6 +1658,16 @@ START_TEST(free_and_count_null)
     cxl_drift_free(NULL);
     cxl_trim_free(NULL);
     cxl_trim_result_free(NULL);
+    cxl_sweep_free(NULL);
+    cxl_sweep_res_free(NULL);
+    ck_assert_uint_eq(cxl_sweep_count(NULL), 0);
+    ck_assert_uint_eq(cxl_sweep_res_count(NULL), 0);
+    cxl_fault_free(NULL);
+    ck_assert_uint_eq(cxl_fault_count(NULL), 0);
+    ck_assert_uint_eq(cxl_fault_peak_count(NULL), 0);
+    ck_assert_uint_ge(cxl_fault_count(g_fault), 1024);
+    ck_assert_uint_eq(cxl_sweep_count(g_sweep), 391);
+    ck_assert_uint_gt(cxl_sweep_res_count(g_sres), 3);
     ck_assert_uint_eq(cxl_trim_count(NULL), 0);
     ck_assert_uint_eq(cxl_trim_result_count(NULL), 0);
     ck_assert_uint_eq(cxl_trim_count(g_trim), 3);
@@ -2120,6 +2280,24 @@ static void setup_objects(void)
         NEED(cxl_trim_add_reading(g_trim, trim_reading_hz(n), n) == CXL_OK);
     NEED(cxl_trim_target_degrees(g_trim, 90.0, 1.83e6) == CXL_OK);
     NEED(cxl_trim_solve(g_trim, &g_trim_res) == CXL_OK);
+    /* an open stub: Z = -j 50 cot(beta l), 10 m at VF 0.66, 1-40 MHz in
+     * 0.1 MHz steps, slightly lossy (Gamma scaled by 0.98) */
+    size_t cap = 400 * 64 + 64, used = 0;
+    g_sweep_text = malloc(cap);
+    NEED(g_sweep_text != NULL);
+    /* integers with an exponent: no decimal mark, whatever the locale */
+    used += (size_t)snprintf(g_sweep_text, cap, "! stub\n# kHz S RI R 50\n");
+    for (int i = 0; i < 391; i++) {
+        double f = 1e6 + 1e5 * i, ph = -2 * 2 * M_PI * f * 10.0 / (0.66 * C);
+        used += (size_t)snprintf(g_sweep_text + used, cap - used, "%d %lde-9 %lde-9\n",
+                                 1000 + 100 * i, lround(0.98e9 * cos(ph)),
+                                 lround(0.98e9 * sin(ph)));
+    }
+    NEED(cxl_sweep_read_buffer(g_sweep_text, used, &g_sweep, NULL, NULL, 0) == CXL_OK);
+    NEED(cxl_sweep_resonances(g_sweep, 50.0, CXL_STUB_OPEN, 0, 0, &g_sres) == CXL_OK);
+    NEED(cxl_sweep_res_count(g_sres) > 3);
+    NEED(cxl_fault_new(g_sweep, 50.0, 0.66, NULL, CXL_FAULT_HANN, 0, 0, 0, &g_fault) == CXL_OK);
+    NEED(cxl_fault_peak_count(g_fault) > 0);
 }
 
 /* How many probes the table makes (printed for the record). */
@@ -2175,6 +2353,10 @@ int main(void)
     int nf = srunner_ntests_failed(sr);
     srunner_free(sr);
 
+    cxl_fault_free(g_fault);
+    cxl_sweep_res_free(g_sres);
+    cxl_sweep_free(g_sweep);
+    free(g_sweep_text);
     cxl_trim_result_free(g_trim_res);
     cxl_trim_free(g_trim);
     cxl_drift_free(g_drift);

@@ -17,6 +17,7 @@
 #include <stdlib.h>
 #include <string.h>
 #include <gsl/gsl_errno.h>
+#include <math.h>
 #include "coaxline.h"
 #include "timing.h"
 
@@ -184,6 +185,62 @@ static double fit_new(void *ctx, long n)
     return acc;
 }
 
+/* A 10,001-point sweep of an open 30 m line (VF 0.66, |Gamma| 0.98) from
+ * 0.1 MHz in 0.1 MHz steps, as Touchstone text: a harmonic grid, so the
+ * fault profile is the low-pass one.  Invented values for timing only. */
+static char *sweep_text(size_t *size)
+{
+    size_t n = 10001, cap = n * 48 + 64, used = 0;
+    char *t = malloc(cap);
+    if (!t) exit(2);
+    used += (size_t)snprintf(t, cap, "# kHz S RI R 50\n");
+    for (size_t i = 0; i < n; i++) {
+        double f = 1e5 * (double)(i + 1), ph = -4.0 * M_PI * f * 30.0 / (0.66 * CXL_C_M_PER_S);
+        used += (size_t)snprintf(t + used, cap - used, "%zu %ld %ld\n", 100 * (i + 1),
+                                 lround(0.98e6 * cos(ph)), lround(0.98e6 * sin(ph)));
+    }
+    *size = used;
+    return t;
+}
+
+static double sweep_read_res(void *ctx, long n)
+{
+    (void)ctx;
+    size_t size;
+    char *text = sweep_text(&size);
+    double acc = 0.0;
+    for (long i = 0; i < n; i++) {
+        cxl_sweep *s;
+        cxl_sweep_res *r;
+        check(cxl_sweep_read_buffer(text, size, &s, NULL, NULL, 0), "sweep read");
+        check(cxl_sweep_resonances(s, 50.0, CXL_STUB_OPEN, 0, 0, &r), "resonances");
+        acc += (double)cxl_sweep_res_count(r);
+        cxl_sweep_res_free(r);
+        cxl_sweep_free(s);
+    }
+    free(text);
+    return acc;
+}
+
+static double sweep_fault(void *ctx, long n)
+{
+    (void)ctx;
+    size_t size;
+    char *text = sweep_text(&size);
+    cxl_sweep *s;
+    check(cxl_sweep_read_buffer(text, size, &s, NULL, NULL, 0), "sweep read");
+    double acc = 0.0;
+    for (long i = 0; i < n; i++) {
+        cxl_fault *f;
+        check(cxl_fault_new(s, 50.0, 0.66, NULL, CXL_FAULT_HANN, 0.0, 0.0, 0, &f), "fault");
+        acc += (double)cxl_fault_peak_count(f);
+        cxl_fault_free(f);
+    }
+    cxl_sweep_free(s);
+    free(text);
+    return acc;
+}
+
 static void measure(const char *name, const char *note, bench_body fn, const fixture *fx)
 {
     char med[32], min[32];
@@ -286,6 +343,9 @@ int main(int argc, char **argv)
     measure("cxl_bands_new + free", "built-in band table", bands_new, &fx);
     measure("cxl_catalog_new + free", "built-in cable catalog", catalog_new, &fx);
     measure("cxl_loss_fit_new_cable + free", "RG-213 (GSL least squares)", fit_new, &fx);
+    printf("  -- analyzer sweeps (targets: read + resonances <= 5 ms, profile <= 10 ms) --\n");
+    measure("sweep read + resonances", "10,001 points, text in memory", sweep_read_res, &fx);
+    measure("cxl_fault_new (profile, peaks)", "10,001 points, low-pass, Hann", sweep_fault, &fx);
 
     cxl_array_pair_free(fx.pair);
     for (int a = 0; a < 4; a++) cxl_array_free(*arrs[a]);
