@@ -294,7 +294,7 @@ START_TEST(spreadsheet_engine_opens_every_command)
         "cables",
         "loss --label '@x' --cable RG-213 --length 100m --band 160m --swr 1.5",
         "pattern --label '=x' --stagger 20m --feed crossfire --vf 0.83 --band 160m",
-        "budget --label '=y' --null-depth -25 --vf 0.83 --band 160m",
+        "budget --label '=y' --null-depth -25 --stagger 5m --feed crossfire --vf 0.83 --band 160m",
         "hybrid --label '=z' --impedance 75",
     };
     char dir[] = "/tmp/coaxline-ss-XXXXXX";

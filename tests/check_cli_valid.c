@@ -69,7 +69,7 @@ START_TEST(json_no_negative_zero)
         "phase --reference 10m --length 10m --vf 0.66 --band 160m --format json",
         "pair --length 10m,10m --vf 0.66 --tolerance 5 --band 160m,80m --format json",
         "pattern --band 160m --stagger 20m --feed crossfire --format json",
-        "budget --null-depth -25 --band 160m --format json",
+        "budget --null-depth -25 --stagger 5m --feed crossfire --band 160m --format json",
         "hybrid --impedance 75 --format json",
         "cut --offset 10m --vf 0.66 --freq 1.83MHz --format json",
     };
