@@ -103,9 +103,9 @@ run_case() {
     done
 }
 
-# one transcript per source; a command already run from that source is
+# one record per source; a command already run from that source is
 # not run again
-transcript() {
+record_runs() {
     : >"$tmp/seen"
     while IFS= read -r c; do
         grep -Fxq -- "$c" "$tmp/seen" && continue
@@ -116,9 +116,9 @@ transcript() {
 }
 
 : >"$tmp/all"
-readme_cases | transcript >"$tmp/actual/readme.txt"
-man_cases | transcript >"$tmp/actual/man.txt"
-list_cases | transcript >"$tmp/actual/cases.txt"
+readme_cases | record_runs >"$tmp/actual/readme.txt"
+man_cases | record_runs >"$tmp/actual/man.txt"
+list_cases | record_runs >"$tmp/actual/cases.txt"
 
 # ---- every command covered -------------------------------------------
 
