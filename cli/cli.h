@@ -369,6 +369,11 @@ typedef struct cli_pair_spec {
  * measured-a, measured-b, actual-vf, phase-error, imbalance, line-loss).
  * Returns 0, or CLI_EXIT_USAGE after cli_error(). */
 int cli_pair_spec_parse(cli_ctx *ctx, const cli_args *a, cli_pair_spec *spec);
+/* --wire-length and --wire-vf: both needed for a wire element (wire != 0),
+ * neither for elements of another kind (named in the error).  Returns 0,
+ * or CLI_EXIT_USAGE after cli_error(). */
+int cli_wire_parse(cli_ctx *ctx, const cli_args *a, int wire, const char *kind,
+                   double *length_m, double *vf);
 void cli_pair_spec_free(cli_pair_spec *spec);
 /* The design pair (as_built 0) or the as-built one at freq_hz, with the
  * as-built phase error (deg, B lagging positive, wrapped to +-180) and
@@ -540,6 +545,23 @@ int cli_errplot_save(cli_ctx *ctx, const char *field, const char *path,
                      const cli_freq_point *pts, int n, cli_err_fn fn, void *user,
                      const cli_errplot *plot);
 
+/* Front-to-back ratio against frequency across each band of pts (pattern,
+ * array): fn gives curve c's ratio at freq_hz (0, or CLI_EXIT_USAGE after
+ * cli_error()); ratios beyond +-CLI_FB_SWEEP_CEILING_DB are drawn there.
+ * Written to --sweep-plot.  Returns 0, or CLI_EXIT_USAGE after cli_error()
+ * (also when pts holds no band). */
+#define CLI_FB_SWEEP_POINTS 41     /* per band */
+#define CLI_FB_SWEEP_CEILING_DB 60.0
+typedef int (*cli_fb_fn)(cli_ctx *ctx, void *user, int curve, double freq_hz, double *fb_db);
+typedef struct cli_fb_sweep {
+    const char *names[2];     /* legend: first curve solid, second dashed */
+    int ncurves;              /* 1 or 2 */
+    const char *note[3];
+    double elevation_deg;
+} cli_fb_sweep;
+int cli_fb_sweep_save(cli_ctx *ctx, const cli_args *a, const cli_freq_point *pts, int n,
+                      const cli_fb_sweep *plot, cli_fb_fn fn, void *user);
+
 /* ---- analyzer sweeps: sweep, fault (sweepfile.c) ---------------------- */
 
 /* The sweep named by --file (or the bare argument; "-" for standard
@@ -592,5 +614,6 @@ void cli_layout_free(cli_layout *layout);
  * does not name keep the design values). */
 int cli_layout_as_built(cli_ctx *ctx, const char *field, const char *path, cli_layout *layout);
 extern const cli_command cli_cmd_array;
+extern const cli_command cli_cmd_harness;
 
 #endif

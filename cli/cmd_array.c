@@ -14,8 +14,6 @@
 #define AZ_TEXT "compass bearing: 0 forward, clockwise seen from above"
 #define PLOT_POINTS 360
 #define MAX_PLOT_CURVES 8
-#define SWEEP_POINTS 41
-#define SWEEP_CEILING_DB 60.0
 
 static const cli_optdef array_opts[] = {
     { "layout", "FILE", "layout CSV: label,x,y,z,delay,line,degrees,invert,weight", 0 },
@@ -30,10 +28,7 @@ static const cli_optdef array_opts[] = {
     { "reverse-each", NULL, "also evaluate with each element reversed in turn", 0 },
     { "as-built", "FILE", "per-element errors: label,line,phase_error,imbalance", 0 },
     { "actual-vf", "X", "as built: the spool's real VF (the lines were cut for --vf/--cable)", 0 },
-    { "band", "LIST", "bands to evaluate, e.g. 160m,80m", 1 },
-    { "region", "N", "ITU Region 1, 2 or 3 (default: widest edges of all)", 0 },
-    { "exclude-footnotes", NULL, "leave out band segments allowed only by footnote", 0 },
-    { "freq", "F", "a single frequency to evaluate", 1 },
+    CLI_PAIR_BAND_OPTDEFS,
     { "plot", "FILE", "write azimuth patterns as an SVG polar plot", 0 },
     { "plot-freq", "LIST", "frequencies of the plot (default: each band centre or --freq)", 1 },
     { "plot-range", "DB", "dB from the outer ring to the plot centre (default 40)", 0 },
@@ -175,22 +170,9 @@ static int parse_element(cli_ctx *ctx, const cli_args *a, array_spec *s)
     else if (el && strcmp(el, "vertical") == 0) s->kind = CXL_ELEMENT_VERTICAL;
     else if (el && strcmp(el, "isotropic") != 0)
         return cli_error(ctx, "element", "isotropic, wire or vertical", "unknown element '%s'", el);
-    if (s->kind != CXL_ELEMENT_WIRE) {
-        if (cli_count(a, "wire-length") || cli_count(a, "wire-vf"))
-            return cli_error(ctx, cli_count(a, "wire-length") ? "wire-length" : "wire-vf",
-                             "--element wire with --wire-length and --wire-vf",
-                             "wire values given for %s elements", el ? el : "isotropic");
-    } else {
-        if (!cli_count(a, "wire-length"))
-            return cli_error(ctx, "wire-length", "--wire-length 150m", "a wire element needs its length");
-        if (!cli_count(a, "wire-vf"))
-            return cli_error(ctx, "wire-vf", "0.45-0.8 for a wire on the ground, 0.95-0.99 raised",
-                             "a wire element needs its velocity factor");
-        if (cli_length(ctx, "wire-length", cli_get(a, "wire-length", 0), CLI_POSITIVE,
-                       &s->wire_length_m) ||
-            cli_vf(ctx, "wire-vf", cli_get(a, "wire-vf", 0), &s->wire_vf))
-            return CLI_EXIT_USAGE;
-    }
+    if (cli_wire_parse(ctx, a, s->kind == CXL_ELEMENT_WIRE, el ? el : "isotropic",
+                       &s->wire_length_m, &s->wire_vf))
+        return CLI_EXIT_USAGE;
     s->elevation_deg = s->kind == CXL_ELEMENT_WIRE ? 20.0 : 0.0;
     if (cli_count(a, "elevation") &&
         cli_number(ctx, "elevation", cli_get(a, "elevation", 0), 0.0, 89.0,
@@ -314,64 +296,41 @@ static int plot(cli_ctx *ctx, const cli_args *a, const array_spec *s, const doub
 }
 
 /* Front-to-back across each band, design and as built. */
+typedef struct {
+    cxl_array *arr[2];
+    double elevation_deg;
+} array_sweep;
+
+static int array_fb(cli_ctx *ctx, void *user, int c, double f, double *fb_db)
+{
+    const array_sweep *sw = user;
+    char b1[32];
+    cxl_status st = cxl_array_eval_front_to_back(sw->arr[c], f, sw->elevation_deg, fb_db);
+    if (st != CXL_OK)
+        return cli_error(ctx, "sweep-plot", "bands on which the array can be modelled",
+                         "at %s MHz: %s", cli_fmt(b1, sizeof b1, f / 1e6, 6), cxl_strerror(st));
+    return 0;
+}
+
 static int sweep_plot(cli_ctx *ctx, const cli_args *a, const array_spec *s,
                       const cli_freq_point *pts, int n)
 {
-    static double mhz[CLI_MAX_ITEMS * (SWEEP_POINTS + 1)];
-    static double fb[2][CLI_MAX_ITEMS * (SWEEP_POINTS + 1)];
-    cli_svg_span spans[CLI_MAX_ITEMS];
-    size_t m = 0, nspans = 0;
-    int nc = 1 + s->as_built;
-    char b1[32], title[200];
-    cxl_array *arr[2] = { NULL, NULL };
-    int code = 0;
-    for (int c = 0; c < nc && !code; c++)
-        if (build(s, c, &arr[c]) != CXL_OK)
-            code = cli_error(ctx, "sweep-plot", NULL, "out of memory");
-    for (int i = 0; !code && i + 2 < n; i++) {
-        if (!pts[i].band[0] || strcmp(pts[i].edge, "low") != 0) continue;
-        double lo = pts[i].freq_hz, hi = pts[i + 2].freq_hz;
-        spans[nspans++] = (cli_svg_span){ lo / 1e6, hi / 1e6, pts[i].band };
-        for (int k = 0; !code && k < SWEEP_POINTS; k++, m++) {
-            double f = lo + (hi - lo) * k / (SWEEP_POINTS - 1);
-            mhz[m] = f / 1e6;
-            for (int c = 0; !code && c < nc; c++) {
-                cxl_status st = cxl_array_eval_front_to_back(arr[c], f, s->elevation_deg, &fb[c][m]);
-                if (st != CXL_OK)
-                    code = cli_error(ctx, "sweep-plot", "bands on which the array can be modelled",
-                                     "at %s MHz: %s", cli_fmt(b1, sizeof b1, f / 1e6, 6),
-                                     cxl_strerror(st));
-                else
-                    fb[c][m] = fmax(fmin(fb[c][m], SWEEP_CEILING_DB), -SWEEP_CEILING_DB);
-            }
-        }
-        mhz[m] = NAN;
-        fb[0][m] = fb[1][m] = NAN;
-        m++;
-    }
-    for (int c = 0; c < nc; c++) cxl_array_free(arr[c]);
-    if (code) return code;
-    if (nspans == 0)
-        return cli_error(ctx, "sweep-plot", "--sweep-plot FILE with --band 160m,80m",
-                         "a sweep needs at least one --band");
-    cli_svg_curve curves[2] = { { "design", mhz, fb[0], m, 0, 0 },
-                                { "as built", mhz, fb[1], m, 1, 0 } };
-    const char *label = cli_label(a);
-    snprintf(title, sizeof title, "%s%sFront-to-back ratio across the bands, elevation %s deg", label,
-             label[0] ? ": " : "", cli_fmt(b1, sizeof b1, s->elevation_deg, 1));
-    cli_svg_xy xy = {
-        .title = title,
+    array_sweep sw = { { NULL, NULL }, s->elevation_deg };
+    cli_fb_sweep plot = {
+        .names = { "design", "as built" },
+        .ncurves = 1 + s->as_built,
         .note = { "Model: no mutual coupling, lossless ideal combiner.",
                   "Ratios beyond +-60 dB are drawn at +-60 dB (a perfect null is infinite).",
                   "Front-to-back: azimuth 0 over azimuth 180 (compass bearing)." },
-        .x_label = "frequency (MHz)",
-        .y_label = "front-to-back ratio (dB)",
-        .curves = curves,
-        .ncurves = (size_t)nc,
-        .spans = spans,
-        .nspans = nspans,
+        .elevation_deg = s->elevation_deg,
     };
-    return cli_svg_save(ctx, "sweep-plot", cli_get(a, "sweep-plot", 0), NULL, &xy);
+    int code = 0;
+    for (int c = 0; c < plot.ncurves && !code; c++)
+        if (build(s, c, &sw.arr[c]) != CXL_OK)
+            code = cli_error(ctx, "sweep-plot", NULL, "out of memory");
+    if (!code) code = cli_fb_sweep_save(ctx, a, pts, n, &plot, array_fb, &sw);
+    for (int c = 0; c < 2; c++) cxl_array_free(sw.arr[c]);
+    return code;
 }
 
 /* --plot-freq, or each band's centre and each --freq. */
@@ -537,5 +496,5 @@ const cli_command cli_cmd_array = {
     .synopsis = "--layout FILE.csv (--band LIST | --freq F) [--vf X | --cable NAME] [OPTIONS]",
     .opts = array_opts,
     .run = array_run,
-    .batch = 0,
+    .batch = 1,
 };

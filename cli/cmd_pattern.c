@@ -11,8 +11,6 @@
 #define MODEL_TEXT "free space, no ground, no mutual coupling"
 #define RDF_TEXT "peak over upper-hemisphere average"
 #define PLOT_POINTS 360
-#define SWEEP_POINTS 41     /* per band */
-#define SWEEP_CEILING_DB 60.0
 
 static const cli_optdef pattern_opts[] = {
     CLI_PAIR_OPTDEFS,
@@ -140,59 +138,32 @@ static int plot(cli_ctx *ctx, const cli_args *a, const cli_pair_spec *s, double 
 }
 
 /* Front-to-back of both cases across each band, as an x-y SVG file. */
+static int pair_fb(cli_ctx *ctx, void *user, int c, double f, double *fb_db)
+{
+    const cli_pair_spec *s = user;
+    cxl_array_pair *p;
+    char b1[32];
+    if (cli_pair_spec_build(ctx, s, c, f, &p, NULL, NULL)) return CLI_EXIT_USAGE;
+    cxl_status st = cxl_array_front_to_back(p, f, s->elevation_deg, fb_db);
+    cxl_array_pair_free(p);
+    if (st != CXL_OK)
+        return cli_error(ctx, "sweep-plot", "bands on which the pair can be modelled",
+                         "at %s MHz: %s", cli_fmt(b1, sizeof b1, f / 1e6, 6), cxl_strerror(st));
+    return 0;
+}
+
 static int sweep_plot(cli_ctx *ctx, const cli_args *a, const cli_pair_spec *s,
                       const cli_freq_point *pts, int n)
 {
-    static double mhz[CLI_MAX_ITEMS * (SWEEP_POINTS + 1)];
-    static double fb[2][CLI_MAX_ITEMS * (SWEEP_POINTS + 1)];
-    cli_svg_span spans[CLI_MAX_ITEMS];
-    size_t m = 0, nspans = 0;
-    int ncases = s->has_errors ? 2 : 1;
-    char b1[32], title[200];
-    for (int i = 0; i + 2 < n; i++) {
-        if (!pts[i].band[0] || strcmp(pts[i].edge, "low") != 0) continue;
-        double lo = pts[i].freq_hz, hi = pts[i + 2].freq_hz;
-        spans[nspans++] = (cli_svg_span){ lo / 1e6, hi / 1e6, pts[i].band };
-        for (int k = 0; k < SWEEP_POINTS; k++, m++) {
-            double f = lo + (hi - lo) * k / (SWEEP_POINTS - 1);
-            mhz[m] = f / 1e6;
-            for (int c = 0; c < ncases; c++) {
-                cxl_array_pair *p;
-                if (cli_pair_spec_build(ctx, s, c, f, &p, NULL, NULL)) return CLI_EXIT_USAGE;
-                cxl_status st = cxl_array_front_to_back(p, f, s->elevation_deg, &fb[c][m]);
-                cxl_array_pair_free(p);
-                if (st != CXL_OK)
-                    return cli_error(ctx, "sweep-plot", "bands on which the pair can be modelled",
-                                     "at %s MHz: %s", cli_fmt(b1, sizeof b1, f / 1e6, 6),
-                                     cxl_strerror(st));
-                fb[c][m] = fmax(fmin(fb[c][m], SWEEP_CEILING_DB), -SWEEP_CEILING_DB);
-            }
-        }
-        mhz[m] = NAN;   /* no line across the gap to the next band */
-        fb[0][m] = fb[1][m] = NAN;
-        m++;
-    }
-    if (nspans == 0)
-        return cli_error(ctx, "sweep-plot", "--sweep-plot FILE with --band 160m,80m",
-                         "a sweep needs at least one --band");
-    cli_svg_curve curves[2] = { { "ideal", mhz, fb[0], m, 0, 0 },
-                                { "as built", mhz, fb[1], m, 1, 0 } };
-    const char *label = cli_label(a);
-    snprintf(title, sizeof title, "%s%sFront-to-back ratio across the bands, elevation %s deg", label,
-             label[0] ? ": " : "", cli_fmt(b1, sizeof b1, s->elevation_deg, 1));
-    cli_svg_xy xy = {
-        .title = title,
+    cli_fb_sweep plot = {
+        .names = { "ideal", "as built" },
+        .ncurves = s->has_errors ? 2 : 1,
         .note = { "Model: free space, no ground, no mutual coupling, lossless ideal combiner.",
                   "Ratios beyond +-60 dB are drawn at +-60 dB (a perfect null is infinite).",
                   "RDF and gain are in the text, CSV and JSON output." },
-        .x_label = "frequency (MHz)",
-        .y_label = "front-to-back ratio (dB)",
-        .curves = curves,
-        .ncurves = (size_t)ncases,
-        .spans = spans,
-        .nspans = nspans,
+        .elevation_deg = s->elevation_deg,
     };
-    return cli_svg_save(ctx, "sweep-plot", cli_get(a, "sweep-plot", 0), NULL, &xy);
+    return cli_fb_sweep_save(ctx, a, pts, n, &plot, pair_fb, (void *)s);
 }
 
 static void describe(cli_ctx *ctx, const cli_pair_spec *s, const char *label)

@@ -96,11 +96,17 @@ static int parse_element(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
     if (el && strcmp(el, "wire") == 0) s->wire = 1;
     else if (el && strcmp(el, "isotropic") != 0)
         return cli_error(ctx, "element", "isotropic or wire", "unknown element '%s'", el);
-    if (!s->wire) {
+    return cli_wire_parse(ctx, a, s->wire, "isotropic", &s->wire_length_m, &s->wire_vf);
+}
+
+int cli_wire_parse(cli_ctx *ctx, const cli_args *a, int wire, const char *kind,
+                   double *length_m, double *vf)
+{
+    if (!wire) {
         if (cli_count(a, "wire-length") || cli_count(a, "wire-vf"))
             return cli_error(ctx, cli_count(a, "wire-length") ? "wire-length" : "wire-vf",
                              "--element wire with --wire-length and --wire-vf",
-                             "wire values given for isotropic elements");
+                             "wire values given for %s elements", kind);
         return 0;
     }
     if (!cli_count(a, "wire-length"))
@@ -108,9 +114,8 @@ static int parse_element(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
     if (!cli_count(a, "wire-vf"))
         return cli_error(ctx, "wire-vf", "0.45-0.8 for a wire on the ground, 0.95-0.99 raised",
                          "a wire element needs its velocity factor");
-    if (cli_length(ctx, "wire-length", cli_get(a, "wire-length", 0), CLI_POSITIVE,
-                   &s->wire_length_m) ||
-        cli_vf(ctx, "wire-vf", cli_get(a, "wire-vf", 0), &s->wire_vf))
+    if (cli_length(ctx, "wire-length", cli_get(a, "wire-length", 0), CLI_POSITIVE, length_m) ||
+        cli_vf(ctx, "wire-vf", cli_get(a, "wire-vf", 0), vf))
         return CLI_EXIT_USAGE;
     return 0;
 }

@@ -1475,6 +1475,85 @@ size_t cxl_fault_peak_count(const cxl_fault *fault);
 cxl_status cxl_fault_peak(const cxl_fault *fault, size_t index, double *distance_m,
                           double *reflection, double *return_loss_db, int *change);
 
+/* ---- harness.c: phasing-harness cut list and drum packing ----------- */
+
+/* The harness of an array cut from one cable of velocity factor vf:
+ *   - every element gets a feed run to the combiner; each must reach the
+ *     straight-line ground distance in (x, y) from the element to the
+ *     combiner plus the slack, and all runs are cut to the same length, the
+ *     longest one needed (equal electrical length);
+ *   - an element with an extra delay (the delay line its layout asks for)
+ *     gets it as a second piece, CXL_PIECE_DELAY, of delay_s VF c;
+ *   - the connector allowance is line already in each piece's connectors
+ *     whose delay counts (as cxl_line_cut_length()): every piece is cut
+ *     allowance_m shorter, so per element the pieces' (cut + allowance) sum
+ *     to (feed delay + extra delay) VF c;
+ *   - each piece takes its cut length plus one kerf from a drum; pieces
+ *     are packed by first-fit decreasing and by best-fit decreasing, and
+ *     the packing that leaves fewer pieces out, then uses fewer drums, is
+ *     kept (first-fit on a tie).
+ * Positions, lengths and drums are bounded by CXL_HARNESS_MAX_M, delays by
+ * CXL_HARNESS_MAX_DELAY_S (CXL_ERANGE beyond). */
+#define CXL_HARNESS_MAX_ELEMENTS 256
+#define CXL_HARNESS_MAX_DRUMS 64
+#define CXL_HARNESS_MAX_M 1e7
+#define CXL_HARNESS_MAX_DELAY_S 1.0
+/* Shortest piece that can be cut. */
+#define CXL_HARNESS_MIN_PIECE_M 1e-3
+/* The drum of a piece no drum could hold (or when no drum was given). */
+#define CXL_HARNESS_NO_DRUM ((size_t)-1)
+
+typedef enum {
+    CXL_PIECE_FEED = 0,   /* feed run from the element to the combiner */
+    CXL_PIECE_DELAY = 1   /* the element's extra delay line */
+} cxl_piece_kind;
+
+typedef struct cxl_harness cxl_harness;
+
+/* A new harness of cable with velocity factor vf: no elements, combiner at
+ * (0, 0), no slack, allowance or kerf, no drums. */
+cxl_status cxl_harness_new(double vf, cxl_harness **harness);
+void cxl_harness_free(cxl_harness *harness);
+/* Append an element at (x_m, y_m) needing the extra delay delay_s (>= 0;
+ * 0: no delay piece); its index to *index (may be NULL).  CXL_ERANGE
+ * beyond the bounds or CXL_HARNESS_MAX_ELEMENTS. */
+cxl_status cxl_harness_add_element(cxl_harness *harness, double x_m,
+                                   double y_m, double delay_s, size_t *index);
+cxl_status cxl_harness_set_combiner(cxl_harness *harness, double x_m,
+                                    double y_m);
+/* Slack added to the longest run, connector allowance per piece and saw
+ * kerf per cut, each >= 0. */
+cxl_status cxl_harness_set_cuts(cxl_harness *harness, double slack_m,
+                                double allowance_m, double kerf_m);
+/* Append a drum holding length_m (> 0) of the cable; its index to *index
+ * (may be NULL).  CXL_ERANGE beyond CXL_HARNESS_MAX_DRUMS. */
+cxl_status cxl_harness_add_drum(cxl_harness *harness, double length_m,
+                                size_t *index);
+/* Work out the pieces and pack them onto the drums.  CXL_EINVAL without
+ * elements; CXL_EINCONSISTENT when a piece would be shorter than
+ * CXL_HARNESS_MIN_PIECE_M (the allowance takes all of it); CXL_ERANGE when
+ * the drums cannot hold every piece: the plan is still made, and the
+ * pieces left out have the drum CXL_HARNESS_NO_DRUM.  Without drums every
+ * piece has CXL_HARNESS_NO_DRUM and the status is CXL_OK.  Any setter
+ * called afterwards discards the plan. */
+cxl_status cxl_harness_plan(cxl_harness *harness);
+/* Number of pieces of the plan (0 for NULL or before a plan): per element
+ * in the order added, its feed run, then its delay piece if any. */
+size_t cxl_harness_piece_count(const cxl_harness *harness);
+/* Piece i: its element's index, kind, cut length, the quarter-wave
+ * frequency of the cut piece with its far end open (the analyzer check,
+ * cxl_line_quarter_wave_freq()) and its drum (CXL_HARNESS_NO_DRUM: none). */
+cxl_status cxl_harness_piece(const cxl_harness *harness, size_t i,
+                             size_t *element, cxl_piece_kind *kind,
+                             double *length_m, double *check_hz,
+                             size_t *drum);
+/* The common feed run: its length with the allowance and its delay. */
+cxl_status cxl_harness_feed_run(const cxl_harness *harness, double *length_m,
+                                double *delay_s);
+/* Drum d: cable taken (cut lengths plus kerfs) and cable left. */
+cxl_status cxl_harness_drum(const cxl_harness *harness, size_t d,
+                            double *used_m, double *left_m);
+
 #ifdef __cplusplus
 }
 #endif

@@ -1237,6 +1237,72 @@ ADAPTER(trim_result_reading)
 #define F 1.83e6 /* a frequency in the 160 m band */
 #define C CXL_C_M_PER_S
 
+/* harness.c */
+static cxl_harness *g_harness;  /* planned: two elements, drums of 30 m and 20 m */
+NEW_ADAPTER(harness_new, cxl_harness, cxl_harness_new(a[0], P(0, &h)), cxl_harness_free)
+/* Setters work on a new harness like g_harness; an accepted value must
+ * leave a harness whose plan is finite or refused. */
+static cxl_harness *fresh_harness(void)
+{
+    cxl_harness *p = NULL;
+    ck_assert_int_eq(cxl_harness_new(0.66, &p), CXL_OK);
+    ck_assert_int_eq(cxl_harness_add_element(p, 10.0, 0.0, 50e-9, NULL), CXL_OK);
+    ck_assert_int_eq(cxl_harness_add_element(p, -10.0, 0.0, 0.0, NULL), CXL_OK);
+    ck_assert_int_eq(cxl_harness_set_cuts(p, 1.0, 0.05, 0.003), CXL_OK);
+    ck_assert_int_eq(cxl_harness_add_drum(p, 100.0, NULL), CXL_OK);
+    return p;
+}
+static void probe_harness(cxl_harness *p, double *o)
+{
+    size_t el, drum;
+    cxl_piece_kind kind;
+    double len, f;
+    cxl_status st = cxl_harness_plan(p);
+    if ((st == CXL_OK || st == CXL_ERANGE) &&
+        cxl_harness_piece(p, 0, &el, &kind, &len, &f, &drum) == CXL_OK)
+        o[0] = len + f;
+}
+#define HARNESS_SETTER(name, call)                                           \
+    ADAPTER(name)                                                            \
+    {                                                                        \
+        cxl_harness *p = fresh_harness();                                    \
+        cxl_status st = call;                                                \
+        if (st == CXL_OK) probe_harness(p, o);                               \
+        cxl_harness_free(p);                                                 \
+        return st;                                                           \
+    }
+HARNESS_SETTER(harness_add_element,
+               cxl_harness_add_element(P(0, p), a[0], a[1], a[2], P(1, &(size_t){ 0 })))
+HARNESS_SETTER(harness_set_combiner, cxl_harness_set_combiner(P(0, p), a[0], a[1]))
+HARNESS_SETTER(harness_set_cuts, cxl_harness_set_cuts(P(0, p), a[0], a[1], a[2]))
+HARNESS_SETTER(harness_add_drum, cxl_harness_add_drum(P(0, p), a[0], P(1, &(size_t){ 0 })))
+HARNESS_SETTER(harness_plan, ((void)a, cxl_harness_plan(P(0, p))))
+ADAPTER(harness_piece)
+{
+    size_t el = 0, drum = 0;
+    cxl_piece_kind kind = CXL_PIECE_FEED;
+    double len = SENT, f = SENT;
+    cxl_status st = cxl_harness_piece(P(0, g_harness), to_size(a[0]), P(1, &el), P(2, &kind),
+                                      P(3, &len), P(4, &f), P(5, &drum));
+    if (st == CXL_OK) {
+        o[0] = (double)el;
+        o[1] = (double)kind;
+        o[2] = len;
+        o[3] = f;
+        o[4] = (double)drum;
+    }
+    return st;
+}
+ADAPTER(harness_feed_run)
+{
+    (void)a;
+    return cxl_harness_feed_run(P(0, g_harness), P(1, &o[0]), P(2, &o[1]));
+}
+ADAPTER(harness_drum)
+{
+    return cxl_harness_drum(P(0, g_harness), to_size(a[0]), P(1, &o[0]), P(2, &o[1]));
+}
+
 static api_case cases[] = {
     /* units.c */
     { "cxl_units_parse_number", call_parse_number, 0, {0}, {0}, 3, 0x4, 2, 0, {{0}} },
@@ -1519,6 +1585,17 @@ static api_case cases[] = {
     { "cxl_trim_result_vf", call_trim_result_vf, 0, {0}, {0}, 4, 0xE, 3, 0, {{0}} },
     { "cxl_trim_result_flags", call_trim_result_flags, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
     { "cxl_trim_result_reading", call_trim_result_reading, 1, {1}, {&K_INDEX}, 6, 0x3E, 5, 0, {{0}} },
+    { "cxl_harness_new", call_harness_new, 1, {0.66}, {&K_VF}, 1, 0, 1, 0, {{0}} },
+    { "cxl_harness_add_element", call_harness_add_element, 3, {5, -5, 20e-9},
+      {&K_FIN, &K_FIN, &K_NONNEG}, 2, 0x2, 1, 0, {{0}} },
+    { "cxl_harness_set_combiner", call_harness_set_combiner, 2, {1, -2}, {&K_FIN, &K_FIN}, 1, 0, 1, 0, {{0}} },
+    { "cxl_harness_set_cuts", call_harness_set_cuts, 3, {2, 0.1, 0.01},
+      {&K_NONNEG, &K_NONNEG, &K_NONNEG}, 1, 0, 1, 0, {{0}} },
+    { "cxl_harness_add_drum", call_harness_add_drum, 1, {50}, {&K_POS}, 2, 0x2, 1, 0, {{0}} },
+    { "cxl_harness_plan", call_harness_plan, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
+    { "cxl_harness_piece", call_harness_piece, 1, {1}, {&K_INDEX}, 6, 0, 5, 0, {{0}} },
+    { "cxl_harness_feed_run", call_harness_feed_run, 0, {0}, {0}, 3, 0, 2, 0, {{0}} },
+    { "cxl_harness_drum", call_harness_drum, 1, {1}, {&K_INDEX}, 3, 0, 2, 0, {{0}} },
 };
 #define NCASES (sizeof cases / sizeof cases[0])
 
@@ -2203,6 +2280,34 @@ START_TEST(clad_and_drift_ranges)
 }
 END_TEST
 
+/* harness.c: free, count and the plan's life (by hand: size_t, void) */
+START_TEST(harness_by_hand)
+{
+    cxl_harness_free(NULL);
+    ck_assert_uint_eq(cxl_harness_piece_count(NULL), 0);
+    /* two feed runs and one delay line */
+    ck_assert_uint_eq(cxl_harness_piece_count(g_harness), 3);
+    cxl_harness *h = NULL;
+    ck_assert_int_eq(cxl_harness_new(0.66, &h), CXL_OK);
+    ck_assert_uint_eq(cxl_harness_piece_count(h), 0);
+    double m = SENT, t = SENT;
+    ck_assert_int_eq(cxl_harness_feed_run(h, &m, &t), CXL_EINVAL);
+    ck_assert_int_eq(cxl_harness_plan(h), CXL_EINVAL);
+    /* the element bound */
+    for (int i = 0; i < CXL_HARNESS_MAX_ELEMENTS; i++)
+        ck_assert_int_eq(cxl_harness_add_element(h, i, 0.0, 0.0, NULL), CXL_OK);
+    ck_assert_int_eq(cxl_harness_add_element(h, -1.0, 0.0, 0.0, NULL), CXL_ERANGE);
+    for (int i = 0; i < CXL_HARNESS_MAX_DRUMS; i++)
+        ck_assert_int_eq(cxl_harness_add_drum(h, 1e6, NULL), CXL_OK);
+    ck_assert_int_eq(cxl_harness_add_drum(h, 1.0, NULL), CXL_ERANGE);
+    ck_assert_int_eq(cxl_harness_set_cuts(h, 1.0, 0.0, 0.0), CXL_OK);
+    ck_assert_int_eq(cxl_harness_plan(h), CXL_OK);
+    ck_assert_uint_eq(cxl_harness_piece_count(h), CXL_HARNESS_MAX_ELEMENTS);
+    ck_assert_double_eq(m, SENT);
+    cxl_harness_free(h);
+}
+END_TEST
+
 /* ---- set-up ------------------------------------------------------------- */
 
 static void gsl_abort_loudly(const char *reason, const char *file, int line, int gsl_errno)
@@ -2266,6 +2371,13 @@ static void setup_objects(void)
     NEED(cxl_array_set_line(g_array, 1, 13.2, 0.66) == CXL_OK);
     NEED(cxl_array_set_line_model(g_array, 2, 13.2, g_model) == CXL_OK);
     NEED(cxl_array_set_reversed(g_array, 1, 1) == CXL_OK);
+    NEED(cxl_harness_new(0.66, &g_harness) == CXL_OK);
+    NEED(cxl_harness_add_element(g_harness, 10.0, 0.0, 50e-9, NULL) == CXL_OK);
+    NEED(cxl_harness_add_element(g_harness, -10.0, 0.0, 0.0, NULL) == CXL_OK);
+    NEED(cxl_harness_set_cuts(g_harness, 1.0, 0.05, 0.003) == CXL_OK);
+    NEED(cxl_harness_add_drum(g_harness, 30.0, NULL) == CXL_OK);
+    NEED(cxl_harness_add_drum(g_harness, 20.0, NULL) == CXL_OK);
+    NEED(cxl_harness_plan(g_harness) == CXL_OK);
 
     /* the same cable with 0.05 mm of copper over steel (sigma 5.8e6 S/m,
      * mu_r 100; invented round values) */
@@ -2347,6 +2459,7 @@ int main(void)
     tcase_add_test(hand, overflow_never_ok);
     tcase_add_test(hand, trim_bad_sets);
     tcase_add_test(hand, clad_and_drift_ranges);
+    tcase_add_test(hand, harness_by_hand);
     suite_add_tcase(s, hand);
     SRunner *sr = srunner_create(s);
     srunner_run_all(sr, CK_NORMAL);
@@ -2363,6 +2476,7 @@ int main(void)
     cxl_loss_model_free(g_clad);
     cxl_array_pair_free(g_pair);
     cxl_array_free(g_array);
+    cxl_harness_free(g_harness);
     cxl_loss_model_free(g_model);
     cxl_loss_fit_free(g_fit);
     cxl_stub_result_free(g_res2);

@@ -149,6 +149,47 @@ START_TEST(bad_layouts)
 }
 END_TEST
 
+/* array --input: one row per layout file and frequency; good rows are
+ * computed as the same command line computes them, a bad row is one error
+ * line naming its batch line and no row is invented for it. */
+START_TEST(batch_of_layouts)
+{
+    char *lay = temp_file(PAIR_LAYOUT, strlen(PAIR_LAYOUT));
+    char batch[1024];
+    snprintf(batch, sizeof batch,
+             "label,layout,freq\none,%s,1.83MHz\nmissing,/nonexistent/l.csv,1.83MHz\n"
+             "two,%s,3.6MHz\nbadfreq,%s,0Hz\n", lay, lay, lay);
+    char *in = temp_file(batch, strlen(batch));
+    char args[1024];
+    snprintf(args, sizeof args, "array --input %s --vf 0.66 --format csv", in);
+    cli_result r = run_cli(NULL, args, NULL);
+    ck_assert_int_eq(r.rc, 2);
+    ck_assert_int_eq(count_lines(r.out), 3);   /* header and the two good rows */
+    has(r.out, "\none,design,,freq,1.830000,");
+    has(r.out, "\ntwo,design,,freq,3.600000,");
+    ck_assert_int_eq(count_lines(r.err), 2);
+    has(r.err, "line 3: layout");
+    has(r.err, "line 5: freq");
+    cli_result_free(&r);
+    /* each good row is what its own command line gives */
+    unlink(in);
+    free(in);
+    snprintf(batch, sizeof batch, "label,layout,freq\none,%s,1.83MHz\ntwo,%s,3.6MHz\n", lay, lay);
+    in = temp_file(batch, strlen(batch));
+    const char *keys[] = { "front_to_back_db", "rdf_db" };
+    for (size_t k = 0; k < 2; k++) {
+        snprintf(args, sizeof args, "array --input %s --vf 0.66", in);
+        double b = run_json_number(args, 1, keys[k]);
+        double one = array_num(PAIR_LAYOUT, "--vf 0.66 --freq 3.6MHz", 0, keys[k]);
+        ck_assert_double_eq_tol(b, one, 1e-12);
+    }
+    unlink(in);
+    free(in);
+    unlink(lay);
+    free(lay);
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("cli_array");
@@ -158,6 +199,7 @@ int main(void)
     tcase_add_test(tc, reverse_each_and_compass);
     tcase_add_test(tc, text_csv_and_plots);
     tcase_add_test(tc, bad_layouts);
+    tcase_add_test(tc, batch_of_layouts);
     suite_add_tcase(s, tc);
     return run_suite(s);
 }
