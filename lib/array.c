@@ -71,8 +71,9 @@ struct cxl_array_pair {
 };
 
 /* What depends on the frequency only, worked out once per call.
- * Positions are stored multiplied by k (radians per unit direction). */
-typedef struct {
+ * Positions are stored multiplied by k (radians per unit direction).
+ * yield.c sees it as the opaque cxl__array_eval of internal.h. */
+typedef struct cxl__array_eval {
     double k;
     size_t n;
     int kind;
@@ -309,6 +310,37 @@ cxl_status cxl_array_max_freq(const cxl_array *array, double *freq_hz)
 
 /* ---- evaluation -------------------------------------------------------- */
 
+/* Element el's feed at freq_hz split into its parts (internal.h,
+ * cxl__array_feed); the weight is worked out from them by prepare() and,
+ * with a trial's errors, by yield.c. */
+static cxl_status feed_of(const array_elem *el, double freq_hz, double omega,
+                          cxl__array_feed *fd)
+{
+    fd->amp = pow(10.0, el->weight_db / 20.0);
+    if (el->reversed)
+        fd->amp = -fd->amp;
+    fd->phase_rad = el->phase_rad - fmod(omega * el->delay_s, 2.0 * M_PI);
+    fd->line_m = 0.0;
+    fd->line_vf = 0.0;
+    fd->beta_rad_per_m = 0.0;
+    fd->alpha_np_per_m = 0.0;
+    if (el->line_m > 0.0 && el->line_vf > 0.0) {
+        fd->line_m = el->line_m;
+        fd->line_vf = el->line_vf;
+    } else if (el->line_m > 0.0 && el->line_model) {
+        double alpha, beta;
+        cxl_status st = cxl_loss_model_gamma(el->line_model, freq_hz, 0,
+                                             &alpha, &beta);
+        if (st)
+            return st;
+        fd->line_m = el->line_m;
+        fd->line_vf = omega / (beta * CXL_C_M_PER_S);
+        fd->beta_rad_per_m = beta;
+        fd->alpha_np_per_m = alpha;
+    }
+    return CXL_OK;
+}
+
 static cxl_status prepare(const cxl_array *a, double freq_hz,
                           array_eval *e)
 {
@@ -332,24 +364,20 @@ static cxl_status prepare(const cxl_array *a, double freq_hz,
     double sum_w = 0.0;
     for (size_t i = 0; i < a->n; i++) {
         const array_elem *el = &a->el[i];
-        double amp = pow(10.0, el->weight_db / 20.0);
-        double ph = el->phase_rad - fmod(omega * el->delay_s, 2.0 * M_PI);
+        cxl__array_feed fd;
+        cxl_status st = feed_of(el, freq_hz, omega, &fd);
+        if (st)
+            return st;
+        double amp = fd.amp, ph = fd.phase_rad;
         if (el->line_m > 0.0 && el->line_vf > 0.0) {
-            ph -= fmod(omega * el->line_m / (el->line_vf * CXL_C_M_PER_S),
+            ph -= fmod(omega * fd.line_m / (fd.line_vf * CXL_C_M_PER_S),
                        2.0 * M_PI);
         } else if (el->line_m > 0.0 && el->line_model) {
-            double alpha, beta;
-            cxl_status st = cxl_loss_model_gamma(el->line_model, freq_hz, 0,
-                                                 &alpha, &beta);
-            if (st)
-                return st;
-            amp *= exp(-alpha * el->line_m);
-            ph -= fmod(beta * el->line_m, 2.0 * M_PI);
+            amp *= exp(-fd.alpha_np_per_m * fd.line_m);
+            ph -= fmod(fd.beta_rad_per_m * fd.line_m, 2.0 * M_PI);
         }
         if (!isfinite(ph) || !isfinite(amp))
             return CXL_ERANGE;
-        if (el->reversed)
-            amp = -amp;
         e->wr[i] = amp * cos(ph);
         e->wi[i] = amp * sin(ph);
         e->kx[i] = e->k * el->x_m;
@@ -1361,4 +1389,77 @@ cxl_status cxl_array_null_depth(double phase_error_deg, double imbalance_db,
     double num = (1.0 - a) * (1.0 - a) + 4.0 * a * s * s;
     *depth_db = cxl__power_db(num / ((1.0 + a) * (1.0 + a)));
     return CXL_OK;
+}
+
+/* ---- hooks for the Monte-Carlo of yield.c (internal.h) ------------------ */
+
+cxl_status cxl__array_feeds(const cxl_array *array, double freq_hz,
+                            cxl__array_feed *feeds)
+{
+    if (!array || !feeds || !cxl__finite_pos(freq_hz) || array->n == 0)
+        return CXL_EINVAL;
+    double omega = 2.0 * M_PI * freq_hz;
+    if (!isfinite(omega))
+        return CXL_ERANGE;
+    for (size_t i = 0; i < array->n; i++) {
+        cxl__array_feed *fd = &feeds[i];
+        cxl_status st = feed_of(&array->el[i], freq_hz, omega, fd);
+        if (st)
+            return st;
+        if (!isfinite(fd->phase_rad) || !isfinite(fd->line_vf) ||
+            !isfinite(fd->alpha_np_per_m) ||
+            (fd->line_m > 0.0 && !(fd->line_vf > 0.0)))
+            return CXL_ERANGE;
+    }
+    return CXL_OK;
+}
+
+cxl_status cxl__array_eval_new(const cxl_array *array, double freq_hz,
+                               cxl__array_eval **eval)
+{
+    if (!eval)
+        return CXL_EINVAL;
+    array_eval *e = malloc(sizeof *e);
+    if (!e)
+        return CXL_ENOMEM;
+    cxl_status st = prepare(array, freq_hz, e);
+    if (st) {
+        free(e);
+        return st;
+    }
+    *eval = e;
+    return CXL_OK;
+}
+
+void cxl__array_eval_steer(const cxl__array_eval *e, double az_rad,
+                           double el_rad, double *re, double *im)
+{
+    double ce = cos(el_rad);
+    double ux = ce * cos(az_rad), uy = ce * sin(az_rad), uz = sin(el_rad);
+    double f = element_field(e, ux, el_rad);
+    for (size_t i = 0; i < e->n; i++) {
+        double ph, g = f;
+        if (e->kind == CXL_ELEMENT_VERTICAL) {
+            ph = e->kx[i] * ux + e->ky[i] * uy;
+            g *= 2.0 * cos(e->kz[i] * uz);   /* element + image */
+        } else {
+            ph = e->kx[i] * ux + e->ky[i] * uy + e->kz[i] * uz;
+        }
+        re[i] = g * cos(ph);
+        im[i] = g * sin(ph);
+    }
+}
+
+void cxl__array_eval_set_weight(cxl__array_eval *e, size_t i, double re,
+                                double im)
+{
+    e->wr[i] = re;
+    e->wi[i] = im;
+}
+
+cxl_status cxl__array_eval_rear_null(const cxl__array_eval *e, double el_rad,
+                                     double *depth_db)
+{
+    double az;
+    return rear_null(e, el_rad, &az, depth_db);
 }

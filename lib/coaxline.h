@@ -1553,6 +1553,97 @@ cxl_status cxl_harness_feed_run(const cxl_harness *harness, double *length_m,
 /* Drum d: cable taken (cut lengths plus kerfs) and cable left. */
 cxl_status cxl_harness_drum(const cxl_harness *harness, size_t d,
                             double *used_m, double *left_m);
+/* ---- yield.c: Monte-Carlo yield of as-built arrays ----------------------- */
+
+/* How many arrays built to a layout within given tolerances meet a goal.
+ * Each trial builds the array once, drawing independently and uniformly:
+ *   - each element's feed-line length within +-length_tol_m (elements with
+ *     a line of positive length, cxl_array_set_line or _line_model; an
+ *     element fed by a fixed delay alone has no piece to cut);
+ *   - ONE velocity-factor error within +-vf_tol for all lines (they come
+ *     from the same drum; a modelled line's VF is omega / (beta c) at each
+ *     frequency, its loss per metre is kept);
+ *   - each element's amplitude within +-imbalance_tol_db (voltage dB);
+ *   - each element's extra phase within +-phase_tol_deg (connectors,
+ *     transformers, anything that is not the line).
+ * The nominal is the array as given.  Every trial draws the VF error and
+ * then, element by element, length, amplitude and phase (4 N + 1 numbers,
+ * also for a zero tolerance), so a change of one tolerance keeps the
+ * others' draws.  The same trial gives the same array at every frequency,
+ * so calls for the points of a band describe one population of builds.
+ *
+ * Per frequency the results follow the array module: front-to-back as
+ * cxl_array_eval_front_to_back (azimuth 0 over 180 at the evaluation
+ * elevation), rear null as cxl_array_eval_rear_null (deepest response over
+ * azimuth 90..270 relative to azimuth 0, a negative number when the null
+ * is below the forward response); a trial without forward response counts
+ * as a null of +CXL_DB_LIMIT.  The goal is a front-to-back ratio of at
+ * least goal_db, or a null at least as deep as depth_db (null <= depth_db).
+ * The yield is the fraction of trials meeting it, with its binomial
+ * standard error sqrt(p (1 - p) / trials) (0 when every trial or none
+ * passes: then about 3 / trials is a 95 % one-sided bound).  Quantiles go
+ * from the worst trial: the median and the "p5" level that 95 % of the
+ * trials reach (front-to-back: the 5th percentile; null depth, where lower
+ * is better: the 95th percentile of the depth in dB), each the k-th worst
+ * trial's value with k = ceil(q trials), read from a histogram of
+ * CXL_YIELD_BIN_DB bins over +-CXL_DB_LIMIT (the bin's centre, so within
+ * CXL_YIELD_BIN_DB / 2 of the exact order statistic).
+ *
+ * Random numbers: GSL's gsl_rng_mt19937.  Trials go in blocks of
+ * CXL_YIELD_BLOCK; block b has its own generator seeded with
+ * (h(seed) + b) mod 2^32, h a fixed 64-bit mix, so the result depends on
+ * the seed only: the same on any machine and for any number of threads
+ * (the counts are integers, summed in any order).  Default seed
+ * CXL_YIELD_DEFAULT_SEED.
+ * Threads: 0 means one per processor online (sysconf); a worker thread
+ * that cannot be started leaves its share to the others.
+ * Speed: front-to-back needs two directions per trial (about a
+ * microsecond for a few elements); the null needs a scan and a Brent
+ * refinement per trial (tens of times slower), so it is computed only
+ * when asked for (null outputs not NULL) or when it is the goal. */
+#define CXL_YIELD_DEFAULT_SEED 1UL
+#define CXL_YIELD_DEFAULT_TRIALS 10000
+#define CXL_YIELD_MAX_TRIALS 100000000
+#define CXL_YIELD_MAX_THREADS 256
+#define CXL_YIELD_BLOCK 1024
+#define CXL_YIELD_BIN_DB 0.01
+
+typedef struct cxl_yield cxl_yield;
+
+/* A new plan: zero tolerances, goal front-to-back >= 20 dB,
+ * CXL_YIELD_DEFAULT_TRIALS trials, seed CXL_YIELD_DEFAULT_SEED, 1 thread. */
+cxl_status cxl_yield_new(cxl_yield **yield);
+void cxl_yield_free(cxl_yield *yield);
+/* Tolerances (each >= 0): line length (m), velocity factor (absolute,
+ * < 1), amplitude (dB, <= 200) and phase (degrees, <= 180).  A length
+ * tolerance longer than a line or a VF tolerance that takes a line's VF
+ * out of (0, 1] is refused when the plan is run (CXL_ERANGE). */
+cxl_status cxl_yield_set_tolerances(cxl_yield *yield, double length_tol_m,
+                                    double vf_tol, double imbalance_tol_db,
+                                    double phase_tol_deg);
+/* Goal: front-to-back of at least goal_db (|goal_db| < CXL_DB_LIMIT). */
+cxl_status cxl_yield_set_goal_front_to_back(cxl_yield *yield, double goal_db);
+/* Goal: a rear null at least as deep as depth_db (-CXL_DB_LIMIT <=
+ * depth_db < 0, e.g. -25). */
+cxl_status cxl_yield_set_goal_null(cxl_yield *yield, double depth_db);
+/* Trials (1..CXL_YIELD_MAX_TRIALS), the seed (any value) and threads
+ * (0 = one per processor, at most CXL_YIELD_MAX_THREADS). */
+cxl_status cxl_yield_set_run(cxl_yield *yield, size_t trials,
+                             unsigned long seed, unsigned threads);
+/* Run the plan on array at freq_hz, elevation_deg: the yield (fraction in
+ * [0, 1]) and its standard error, median and p5 front-to-back (dB), and,
+ * when null_median_db or null_p5_db is not NULL, the
+ * median and p5 rear-null depth (dB) (each may be NULL).  Errors: those of
+ * cxl_array_eval_front_to_back and cxl_array_eval_rear_null for the
+ * nominal array (CXL_ERANGE when it has neither forward nor backward
+ * response), CXL_ERANGE for a tolerance the lines cannot take (see
+ * cxl_yield_set_tolerances), CXL_ENOMEM. */
+cxl_status cxl_yield_eval(const cxl_yield *yield, const cxl_array *array,
+                          double freq_hz, double elevation_deg,
+                          double *yield_frac, double *yield_se,
+                          double *front_to_back_median_db,
+                          double *front_to_back_p5_db,
+                          double *null_median_db, double *null_p5_db);
 
 #ifdef __cplusplus
 }

@@ -57,6 +57,52 @@ cxl_status cxl__array_front_to_back(const cxl_array_pair *pair,
                                     double freq_hz, double elevation_deg,
                                     double extra_phase_rad, double *ratio_db);
 
+/* array.c, for the Monte-Carlo of yield.c.  Element i's feed at one
+ * frequency, split so that a trial can change its parts: the signed
+ * amplitude 10^(weight/20) (negative when reversed; the line's loss not
+ * included), the phase without the line (fixed offset minus the fixed
+ * delay's, radians), and the line (line_m 0 when none): its VF (for a
+ * modelled line omega / (beta c) at this frequency), beta and alpha of a
+ * modelled line (0 for a lossless one).  The element's weight is then
+ * amp exp(-alpha L) exp(j (phase - omega L / (vf c))), with beta L in
+ * place of omega L / (vf c) for a modelled line, as cxl_array_eval_* use it. */
+typedef struct {
+    double amp, phase_rad;
+    double line_m, line_vf, beta_rad_per_m, alpha_np_per_m;
+} cxl__array_feed;
+cxl_status cxl__array_feeds(const cxl_array *array, double freq_hz,
+                            cxl__array_feed *feeds);
+/* The array prepared at one frequency (free with free()); the signal of
+ * element i for a unit weight and a wave from (az, el) in radians (element
+ * pattern, ground image and path phase: the output is sum w_i s_i), the
+ * weights replaced, and the rear null as cxl_array_eval_rear_null finds it
+ * (CXL_ERANGE when there is no forward response). */
+typedef struct cxl__array_eval cxl__array_eval;
+cxl_status cxl__array_eval_new(const cxl_array *array, double freq_hz,
+                               cxl__array_eval **eval);
+void cxl__array_eval_steer(const cxl__array_eval *e, double az_rad,
+                           double el_rad, double *re, double *im);
+void cxl__array_eval_set_weight(cxl__array_eval *e, size_t i, double re,
+                                double im);
+cxl_status cxl__array_eval_rear_null(const cxl__array_eval *e, double el_rad,
+                                     double *depth_db);
+
+/* pool.c: a small pool of worker threads.  The calling thread is worker 0
+ * and nthreads - 1 threads are started (fewer when the system refuses
+ * one: the work is the same, only slower).  cxl__pool_run hands tasks
+ * 0..ntasks-1 out in increasing order to whichever worker is free and
+ * returns when all are done; a task's result must therefore not depend on
+ * which worker ran it (keep per-worker scratch space only). */
+typedef struct cxl__pool cxl__pool;
+typedef void (*cxl__pool_fn)(void *ctx, unsigned worker, size_t task);
+cxl_status cxl__pool_new(unsigned nthreads, cxl__pool **pool);
+/* Workers actually running (>= 1), the caller included. */
+unsigned cxl__pool_size(const cxl__pool *pool);
+void cxl__pool_run(cxl__pool *pool, size_t ntasks, cxl__pool_fn fn, void *ctx);
+void cxl__pool_free(cxl__pool *pool);
+/* Processors online (sysconf), at least 1. */
+unsigned cxl__pool_cores(void);
+
 /* transfer.c: for the order-th series resonance of length_m of a modelled
  * stub, the frequency at which the line is exactly (2n-1)/4 or n/2
  * wavelengths long (wave_hz) and the one at which its input reactance is

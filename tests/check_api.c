@@ -114,6 +114,16 @@ static const kind K_MAXTURNS = { "max turns", LIST(0, 257, UINT_MAX), LIST(1, 25
 static const kind K_COUNT1 = { "count >= 1 (within the test's buffer)", LIST(0), NONE };
 static const kind K_INDEX = { "index", LIST(1e6, 1e15, (double)SIZE_MAX), NONE };
 static const kind K_COUNT3 = { "count of 3 readings", LIST(0, 2, 4, 1e6, (double)SIZE_MAX), NONE };
+/* yield.c */
+static const kind K_VFTOL = { "VF tolerance", LIST(NONFINITE, -0.01, -DBL_TRUE_MIN, 1.0, 2.0, DBL_MAX),
+    LIST(0.0, 0.999, DBL_TRUE_MIN) };
+static const kind K_DBTOL = { "dB tolerance", LIST(NONFINITE, -0.5, 200.0001, DBL_MAX),
+    LIST(0.0, 200.0, DBL_TRUE_MIN) };
+static const kind K_PHTOL = { "phase tolerance", LIST(NONFINITE, -1.0, 180.0001, DBL_MAX),
+    LIST(0.0, 180.0, DBL_TRUE_MIN) };
+static const kind K_TRIALS = { "trials", LIST(0, 100000001, 1e15, (double)SIZE_MAX), LIST(1) };
+static const kind K_SEED = { "seed", NONE, LIST(0, 1, 4294967295.0) };
+static const kind K_THREADS = { "threads", LIST(257, UINT_MAX), LIST(0, 1, 256) };
 static const kind K_BUFSIZE = { "buffer size", LIST(0), LIST(1, 2, 5) };
 static const kind K_TEXTSIZE = { "text size (within the text)", NONE, LIST(0, 1) };
 
@@ -192,6 +202,7 @@ static cxl_loss_fit *g_fit;
 static cxl_loss_model *g_model;
 static cxl_array_pair *g_pair;  /* end-fire pair of long wires */
 static cxl_array *g_array;      /* three elements, one fed by a modelled line */
+static cxl_yield *g_yield;      /* all four tolerances, a few trials on 2 threads */
 static cxl_loss_model *g_clad;  /* g_model with a copper-clad steel centre */
 static cxl_drift *g_drift;      /* VF at three frequencies */
 static cxl_trim *g_trim;        /* a piece read at three orders, with a target */
@@ -770,6 +781,30 @@ ADAPTER(array_peak) { return cxl_array_peak(P(0, g_pair), a[0], P(1, &o[0]), P(2
 ADAPTER(array_directivity) { return cxl_array_directivity(P(0, g_pair), a[0], P(1, &o[0])); }
 ADAPTER(array_rdf) { return cxl_array_rdf(P(0, g_pair), a[0], P(1, &o[0])); }
 ADAPTER(array_null_depth) { return cxl_array_null_depth(a[0], a[1], P(0, &o[0])); }
+
+/* yield.c: setters on a fresh plan, the run on g_yield and g_array */
+NEW_ADAPTER(yield_new, cxl_yield, cxl_yield_new(P(0, &h)), cxl_yield_free)
+#define YIELD_SETTER(name, call)                                             \
+    ADAPTER(name)                                                            \
+    {                                                                        \
+        cxl_yield *p = NULL;                                                 \
+        ck_assert_int_eq(cxl_yield_new(&p), CXL_OK);                         \
+        cxl_status st = call;                                                \
+        if (st == CXL_OK) o[0] = 0.0;                                        \
+        cxl_yield_free(p);                                                   \
+        return st;                                                           \
+    }
+YIELD_SETTER(yield_set_tolerances, cxl_yield_set_tolerances(P(0, p), a[0], a[1], a[2], a[3]))
+YIELD_SETTER(yield_set_goal_front_to_back, cxl_yield_set_goal_front_to_back(P(0, p), a[0]))
+YIELD_SETTER(yield_set_goal_null, cxl_yield_set_goal_null(P(0, p), a[0]))
+YIELD_SETTER(yield_set_run, cxl_yield_set_run(P(0, p), to_size(a[0]),
+                                              a[1] >= 4294967295.0 ? 4294967295UL : (unsigned long)a[1],
+                                              to_uint(a[2])))
+ADAPTER(yield_eval)
+{
+    return cxl_yield_eval(P(0, g_yield), P(1, g_array), a[0], a[1], P(2, &o[0]), P(3, &o[1]),
+                          P(4, &o[2]), P(5, &o[3]), P(6, &o[4]), P(7, &o[5]));
+}
 
 /* array.c: the N-element array */
 NEW_ADAPTER(array_new, cxl_array, cxl_array_new(P(0, &h)), cxl_array_free)
@@ -1447,6 +1482,15 @@ static api_case cases[] = {
     { "cxl_array_directivity", call_array_directivity, 1, {F}, {&K_POS}, 2, 0, 1, 0, {{0}} },
     { "cxl_array_rdf", call_array_rdf, 1, {F}, {&K_POS}, 2, 0, 1, 0, {{0}} },
     { "cxl_array_null_depth", call_array_null_depth, 2, {2, 0.5}, {&K_FIN, &K_IMB}, 1, 0, 1, 0, {{0}} },
+    { "cxl_yield_new", call_yield_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
+    { "cxl_yield_set_tolerances", call_yield_set_tolerances, 4, {0.1, 0.01, 0.5, 3},
+      {&K_NONNEG, &K_VFTOL, &K_DBTOL, &K_PHTOL}, 1, 0, 1, 0, {{0}} },
+    { "cxl_yield_set_goal_front_to_back", call_yield_set_goal_front_to_back, 1, {20},
+      {&K_RATIO_DB}, 1, 0, 1, 0, {{0}} },
+    { "cxl_yield_set_goal_null", call_yield_set_goal_null, 1, {-25}, {&K_DEPTH}, 1, 0, 1, 0, {{0}} },
+    { "cxl_yield_set_run", call_yield_set_run, 3, {500, 7, 2}, {&K_TRIALS, &K_SEED, &K_THREADS},
+      1, 0, 1, 0, {{0}} },
+    { "cxl_yield_eval", call_yield_eval, 2, {F, 15}, {&K_POS, &K_ELEV}, 8, 0xC0, 6, 0, {{0}} },
     { "cxl_array_new", call_array_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
     { "cxl_array_copy", call_array_copy, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
     { "cxl_array_add", call_array_add, 3, {3, -4, 0}, {&K_FIN, &K_FIN, &K_FIN}, 1, 0, 1, 0, {{0}} },
@@ -2378,6 +2422,10 @@ static void setup_objects(void)
     NEED(cxl_harness_add_drum(g_harness, 30.0, NULL) == CXL_OK);
     NEED(cxl_harness_add_drum(g_harness, 20.0, NULL) == CXL_OK);
     NEED(cxl_harness_plan(g_harness) == CXL_OK);
+    NEED(cxl_yield_new(&g_yield) == CXL_OK);
+    NEED(cxl_yield_set_tolerances(g_yield, 0.1, 0.01, 0.5, 3.0) == CXL_OK);
+    NEED(cxl_yield_set_goal_front_to_back(g_yield, 10.0) == CXL_OK);
+    NEED(cxl_yield_set_run(g_yield, 40, 3, 2) == CXL_OK);
 
     /* the same cable with 0.05 mm of copper over steel (sigma 5.8e6 S/m,
      * mu_r 100; invented round values) */
@@ -2475,6 +2523,8 @@ int main(void)
     cxl_drift_free(g_drift);
     cxl_loss_model_free(g_clad);
     cxl_array_pair_free(g_pair);
+    cxl_yield_free(g_yield);
+    cxl_yield_free(NULL);
     cxl_array_free(g_array);
     cxl_harness_free(g_harness);
     cxl_loss_model_free(g_model);

@@ -38,6 +38,8 @@ typedef struct fixture {
     cxl_loss_model *model;
     cxl_array_pair *pair;
     cxl_array *arr2, *arr8, *arr8v, *arr64;
+    cxl_array *arr4;           /* yield: two end-fire pairs fed by lines */
+    cxl_yield *yield1, *yield_all, *yield_null;
     const cxl_bands *bands;
     cxl_bands *bands_owned;
 } fixture;
@@ -92,6 +94,16 @@ BENCH_BODY(array_rdf8v, "rdf 8 vertical", rdf_n(fx->arr8v, i, &out))
 BENCH_BODY(array_rdf64, "rdf 64", rdf_n(fx->arr64, i, &out))
 BENCH_BODY(array_fb8, "f/b 8",
            cxl_array_eval_front_to_back(fx->arr8, 1.83e6 + WIGGLE(i) * 1e4, 0.0, &out))
+/* Monte-Carlo yield: one call runs yield_trials trials at one frequency. */
+static size_t yield_trials = 100000;
+static cxl_status yield_run(const cxl_yield *y, const cxl_array *a, long i, double *out)
+{
+    double se, med, p5;
+    return cxl_yield_eval(y, a, 1.83e6 + WIGGLE(i) * 1e4, 0.0, out, &se, &med, &p5, NULL, NULL);
+}
+BENCH_BODY(yield_fb1, "yield 1 thread", yield_run(fx->yield1, fx->arr4, i, &out))
+BENCH_BODY(yield_fball, "yield all threads", yield_run(fx->yield_all, fx->arr4, i, &out))
+BENCH_BODY(yield_null, "yield null", yield_run(fx->yield_null, fx->arr4, i, &out))
 static const char *const length_text[4] = { "20.10m", "41ft 6in", "1250mm", "20.00m" };
 BENCH_BODY(parse_length, "parse",
            cxl_units_parse_length(length_text[i & 3], CXL_UNITS_METRIC, &out, NULL))
@@ -250,6 +262,18 @@ static void measure(const char *name, const char *note, bench_body fn, const fix
     fflush(stdout);
 }
 
+/* The same, and the rate in trial-frequencies per second. */
+static void measure_rate(const char *name, const char *note, bench_body fn, const fixture *fx,
+                         size_t trials)
+{
+    char med[32], min[32];
+    bench_timing t = bench_time(fn, (void *)fx, target_s, repeats);
+    printf("  %-34s %11s %11s %11ld  %s: %.0f trial-frequencies/s\n", name,
+           bench_fmt_ns(med, sizeof med, t.median_ns), bench_fmt_ns(min, sizeof min, t.min_ns),
+           t.calls, note, (double)trials / t.median_ns * 1e9);
+    fflush(stdout);
+}
+
 static void cpu_model(char *buf, size_t size)
 {
     FILE *fp = fopen("/proc/cpuinfo", "r");
@@ -274,6 +298,7 @@ int main(int argc, char **argv)
     if (argc > 1 && strcmp(argv[1], "--quick") == 0) {
         target_s = 0.002;
         repeats = 3;
+        yield_trials = 10000;
     } else if (argc > 1) {
         fprintf(stderr, "usage: bench_lib [--quick]\n");
         return 2;
@@ -314,6 +339,26 @@ int main(int argc, char **argv)
         }
     }
     check(cxl_array_set_element(fx.arr8v, CXL_ELEMENT_VERTICAL, 0.0, 1.0), "vertical");
+    /* yield: two such pairs half a wavelength apart, every element fed by
+     * 5 m of VF 0.66 line and the front ones by a delay line as well;
+     * tolerances 5 cm, VF 0.01, 0.5 dB, 3 degrees (demo values) */
+    check(cxl_array_new(&fx.arr4), "array");
+    for (int c = 0; c < 2; c++) {
+        size_t k;
+        double y = (c - 0.5) * 0.5 * lambda_m;
+        check(cxl_array_add(fx.arr4, 0.125 * lambda_m, y, 0.0, &k), "add");
+        check(cxl_array_set_line(fx.arr4, k, 5.0 + delay_s * 0.66 * CXL_C_M_PER_S, 0.66), "line");
+        check(cxl_array_add(fx.arr4, -0.125 * lambda_m, y, 0.0, &k), "add");
+        check(cxl_array_set_line(fx.arr4, k, 5.0, 0.66), "line");
+    }
+    cxl_yield **ys[3] = { &fx.yield1, &fx.yield_all, &fx.yield_null };
+    for (int k = 0; k < 3; k++) {
+        check(cxl_yield_new(ys[k]), "yield");
+        check(cxl_yield_set_tolerances(*ys[k], 0.05, 0.01, 0.5, 3.0), "tolerances");
+        check(cxl_yield_set_run(*ys[k], k == 2 ? yield_trials / 100 : yield_trials, 1,
+                                k == 1 ? 0 : 1), "run");
+    }
+    check(cxl_yield_set_goal_null(fx.yield_null, -25.0), "null goal");
 
     char cpu[256];
     cpu_model(cpu, sizeof cpu);
@@ -336,6 +381,14 @@ int main(int argc, char **argv)
     measure("cxl_array_eval_rdf (8 verticals)", "the same over perfect ground", array_rdf8v, &fx);
     measure("cxl_array_eval_rdf (64 elements)", "32 such pairs, lambda/2 apart", array_rdf64, &fx);
     measure("cxl_array_eval_front_to_back (8)", "4 pairs, no integral", array_fb8, &fx);
+    printf("  -- Monte-Carlo yield, 4 isotropic elements (target >= 1 million trial-frequencies/s) --\n");
+    char note[96];
+    snprintf(note, sizeof note, "%zu trials, front-to-back, 1 thread", yield_trials);
+    measure_rate("cxl_yield_eval", note, yield_fb1, &fx, yield_trials);
+    snprintf(note, sizeof note, "the same, one thread per processor");
+    measure_rate("cxl_yield_eval", note, yield_fball, &fx, yield_trials);
+    snprintf(note, sizeof note, "%zu trials, rear-null goal, 1 thread", yield_trials / 100);
+    measure_rate("cxl_yield_eval", note, yield_null, &fx, yield_trials / 100);
     printf("  -- the batch path and per-process set-up --\n");
     measure("cxl_units_parse_length", "20.10m, 41ft 6in, 1250mm", parse_length, &fx);
     measure("cxl_units_format_fixed", "3 decimals", format_fixed, &fx);
@@ -349,6 +402,8 @@ int main(int argc, char **argv)
 
     cxl_array_pair_free(fx.pair);
     for (int a = 0; a < 4; a++) cxl_array_free(*arrs[a]);
+    cxl_array_free(fx.arr4);
+    for (int k = 0; k < 3; k++) cxl_yield_free(*ys[k]);
     cxl_bands_free(fx.bands_owned);
     cxl_loss_model_free(fx.model);
     cxl_loss_fit_free(fx.fit);
