@@ -1400,6 +1400,65 @@ cxl_status cxl_sweep_res_readings(const cxl_sweep_res *res, cxl_sweep_kind kind,
                                   double *freq_hz, int *order, size_t max,
                                   size_t *count);
 
+/* ---- sweepfit.c: the line fitted to a whole sweep ---------------------- */
+
+/* A piece of line of known length, swept at one end with the far end open,
+ * shorted or on a known load, fitted to the line model over every point
+ * of the sweep: VF(f) = vf_hf - drop / sqrt(f) (the law of cxl_drift),
+ * attenuation a sqrt(f) + b f in dB/m (as cxl_loss_fit), a real Z0, and
+ * optionally the length of a fixture (a lossless line matched to the
+ * sweep's reference, VF fixture_vf, or the piece's vf_hf with 0) between
+ * the reference plane and the piece.  The input reflection is Pozar,
+ * Microwave Engineering, 4th ed., eq. 2.44; the residuals are the real
+ * and imaginary parts of Gamma against the sweep's own reference; GSL's
+ * nonlinear least squares (Levenberg-Marquardt) starts from the sweep's
+ * series resonances (numbered from their spacing) and |Z|.  The
+ * uncertainties are one standard deviation from the fit's covariance,
+ * scaled by the residual (chi^2 per degree of freedom): they hold where
+ * the model does and the noise is the same at every point.
+ * Far end: `end` (CXL_STUB_OPEN or CXL_STUB_SHORT) or, with
+ * CXL_SWEEPFIT_LOAD, load_re_ohm (>= 0) + j load_im_ohm (both 0 without
+ * the flag).  Errors: CXL_EINVAL (bad argument, a fixture VF without
+ * CXL_SWEEPFIT_FIXTURE), CXL_ENOTFOUND (a sweep without phase),
+ * CXL_EEXTRAPOLATE (fewer than two series resonances of one kind, or fewer
+ * points than parameters + 2: the model cannot be pinned down),
+ * CXL_ENOCONV (no fit, or one outside any line: VF not in (0, 1], Z0 not
+ * above 0), CXL_ERANGE, CXL_ENOMEM.  A DC point is left out. */
+typedef struct cxl_sweepfit cxl_sweepfit;
+
+#define CXL_SWEEPFIT_LOAD    0x1u /* far end on load_re_ohm + j load_im_ohm */
+#define CXL_SWEEPFIT_FIXTURE 0x2u /* fit a fixture length too */
+
+cxl_status cxl_sweepfit_new(const cxl_sweep *sweep, double length_m, cxl_stub_end end,
+                            double load_re_ohm, double load_im_ohm, double fixture_vf,
+                            unsigned flags, cxl_sweepfit **fit);
+void cxl_sweepfit_free(cxl_sweepfit *fit);
+/* vf_hf, drop (sqrt(Hz)) and Z0 (ohm) with their standard deviations.
+ * Any output may be NULL. */
+cxl_status cxl_sweepfit_line(const cxl_sweepfit *fit, double *vf_hf, double *vf_hf_err,
+                             double *drop_sqrt_hz, double *drop_err, double *z0_ohm,
+                             double *z0_err);
+/* Attenuation coefficients a (dB/m/sqrt(Hz)) and b (dB/m/Hz) with their
+ * standard deviations.  Any output may be NULL. */
+cxl_status cxl_sweepfit_loss_coefficients(const cxl_sweepfit *fit, double *a_db_per_m_sqrt_hz,
+                                          double *a_err, double *b_db_per_m_hz, double *b_err);
+/* The fixture's length and its standard deviation (both 0 when the fit
+ * had none).  Any output may be NULL. */
+cxl_status cxl_sweepfit_fixture(const cxl_sweepfit *fit, double *length_m, double *length_err);
+/* VF at freq_hz and its standard deviation (covariance of vf_hf and the
+ * drop); CXL_ERANGE where the trend leaves (0, 1].  vf_err may be NULL. */
+cxl_status cxl_sweepfit_vf(const cxl_sweepfit *fit, double freq_hz, double *vf, double *vf_err);
+/* Attenuation in dB/m at freq_hz and its standard deviation.  loss_err may
+ * be NULL. */
+cxl_status cxl_sweepfit_loss(const cxl_sweepfit *fit, double freq_hz, double *loss_db_per_m,
+                             double *loss_err);
+/* How well the model fits: the rms and the largest |Gamma_model -
+ * Gamma_sweep| over the points, the frequency of the largest, and the band
+ * fitted.  Any output may be NULL. */
+cxl_status cxl_sweepfit_quality(const cxl_sweepfit *fit, double *rms_residual,
+                                double *max_residual, double *max_residual_hz,
+                                double *min_freq_hz, double *max_freq_hz);
+
 /* ---- fault.c: distance to fault ------------------------------------- */
 
 /* Reflection against distance along the line from a one-port sweep with

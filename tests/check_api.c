@@ -101,6 +101,7 @@ static const kind K_ELKIND = { "element kind", LIST(-1, 3, 99, INT_MIN, INT_MAX)
 static const kind K_ENUM2 = { "enum of two", LIST(-1, 2, 99, INT_MIN, INT_MAX), NONE };
 static const kind K_ENUM3 = { "enum of three", LIST(-1, 3, 99, INT_MIN, INT_MAX), NONE };
 static const kind K_BETA = { "Kaiser beta", LIST(NONFINITE, -0.1, 50.0001, DBL_MAX), LIST(0.0, 50.0, DBL_TRUE_MIN) };
+static const kind K_SFIT_FLAGS = { "sweepfit flags", LIST(4, 8, 0x80000000u, UINT_MAX), LIST(0) };
 static const kind K_FAULT_FLAGS = { "fault flags", LIST(4, 8, 0x80000000u, UINT_MAX), LIST(0, 1, 3) };
 static const kind K_REGION = { "region", LIST(-1, 4, INT_MIN, INT_MAX), LIST(0, 3) };
 static const kind K_DECIMALS = { "decimals", LIST(-1, 18, INT_MIN, INT_MAX), LIST(0, 17) };
@@ -166,6 +167,7 @@ static const char *const lenient[] = {
     "cxl_hybrid_response",        /* |Gamma| of 1 with another one */
     "cxl_trim_add_reading",       /* order 0 among given orders */
     "cxl_sweep_resonances",       /* a length of 0 with a VF guess */
+    "cxl_sweepfit_new",           /* a load or fixture VF without its flag */
 };
 
 static int is_lenient(const char *fn)
@@ -211,6 +213,7 @@ static char *g_sweep_text;      /* an open stub, 10 m at VF 0.66, 1-40 MHz */
 static cxl_sweep *g_sweep;
 static cxl_sweep_res *g_sres;
 static cxl_fault *g_fault;      /* profile of g_sweep */
+static cxl_sweepfit *g_sfit;    /* g_sweep fitted as a 10 m open line */
 
 /* A read stream over text (a new one per call). */
 static FILE *text_stream(const char *text)
@@ -1109,6 +1112,47 @@ ADAPTER(sweep_res_readings)
     return st;
 }
 
+/* sweepfit.c: the stub sweep fitted */
+ADAPTER(sweepfit_new)
+{
+    cxl_sweepfit *h = SENT_PTR;
+    cxl_status st = cxl_sweepfit_new(P(0, g_sweep), a[0], (cxl_stub_end)to_int(a[1]), a[2], a[3],
+                                     a[4], to_uint(a[5]), P(1, &h));
+    o[0] = ptr_out(h);
+    if (st == CXL_OK) {
+        double v, e;
+        ck_assert_int_eq(cxl_sweepfit_line(h, &v, &e, NULL, NULL, NULL, NULL), CXL_OK);
+        ck_assert(isfinite(v) && isfinite(e));
+        cxl_sweepfit_free(h);
+    }
+    return st;
+}
+ADAPTER(sweepfit_line)
+{
+    (void)a;
+    return cxl_sweepfit_line(P(0, g_sfit), P(1, &o[0]), P(2, &o[1]), P(3, &o[2]), P(4, &o[3]),
+                             P(5, &o[4]), P(6, &o[5]));
+}
+ADAPTER(sweepfit_loss_coefficients)
+{
+    (void)a;
+    return cxl_sweepfit_loss_coefficients(P(0, g_sfit), P(1, &o[0]), P(2, &o[1]), P(3, &o[2]),
+                                          P(4, &o[3]));
+}
+ADAPTER(sweepfit_fixture)
+{
+    (void)a;
+    return cxl_sweepfit_fixture(P(0, g_sfit), P(1, &o[0]), P(2, &o[1]));
+}
+ADAPTER(sweepfit_vf) { return cxl_sweepfit_vf(P(0, g_sfit), a[0], P(1, &o[0]), P(2, &o[1])); }
+ADAPTER(sweepfit_loss) { return cxl_sweepfit_loss(P(0, g_sfit), a[0], P(1, &o[0]), P(2, &o[1])); }
+ADAPTER(sweepfit_quality)
+{
+    (void)a;
+    return cxl_sweepfit_quality(P(0, g_sfit), P(1, &o[0]), P(2, &o[1]), P(3, &o[2]), P(4, &o[3]),
+                                P(5, &o[4]));
+}
+
 /* fault.c: the profile of the stub sweep */
 ADAPTER(fault_new)
 {
@@ -1593,6 +1637,16 @@ static api_case cases[] = {
       {{50, CXL_STUB_OPEN, 10, 0}, {50, CXL_STUB_SHORT, 0, 0.66}} },
     { "cxl_sweep_res_get", call_sweep_res_get, 1, {0}, {&K_INDEX}, 7, 0x7E, 6, 0, {{0}} },
     { "cxl_sweep_res_readings", call_sweep_res_readings, 1, {CXL_SWEEP_X_ZERO}, {&K_ENUM3}, 4, 0, 1, 0, {{0}} },
+    /* sweepfit.c */
+    { "cxl_sweepfit_new", call_sweepfit_new, 6, {10, CXL_STUB_OPEN, 0, 0, 0, 0},
+      {&K_POS, &K_ENUM2, &K_NONNEG, &K_FIN, &K_VF0, &K_SFIT_FLAGS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_sweepfit_line", call_sweepfit_line, 0, {0}, {0}, 7, 0x7E, 6, 0, {{0}} },
+    { "cxl_sweepfit_loss_coefficients", call_sweepfit_loss_coefficients, 0, {0}, {0}, 5, 0x1E, 4,
+      0, {{0}} },
+    { "cxl_sweepfit_fixture", call_sweepfit_fixture, 0, {0}, {0}, 3, 0x6, 2, 0, {{0}} },
+    { "cxl_sweepfit_vf", call_sweepfit_vf, 1, {10e6}, {&K_POS}, 3, 0x4, 2, 0, {{0}} },
+    { "cxl_sweepfit_loss", call_sweepfit_loss, 1, {10e6}, {&K_POS}, 3, 0x4, 2, 0, {{0}} },
+    { "cxl_sweepfit_quality", call_sweepfit_quality, 0, {0}, {0}, 6, 0x3E, 5, 0, {{0}} },
     /* fault.c */
     { "cxl_fault_new", call_fault_new, 6, {50, 0.66, CXL_FAULT_HANN, 6, 0.01, 0},
       {&K_POS, &K_VF0, &K_ENUM3, &K_BETA, &K_NONNEG, &K_FAULT_FLAGS}, 3, 0x2, 1, 0, {{0}} },
@@ -1784,6 +1838,7 @@ START_TEST(free_and_count_null)
     ck_assert_uint_eq(cxl_sweep_count(NULL), 0);
     ck_assert_uint_eq(cxl_sweep_res_count(NULL), 0);
     cxl_fault_free(NULL);
+    cxl_sweepfit_free(NULL);
     ck_assert_uint_eq(cxl_fault_count(NULL), 0);
     ck_assert_uint_eq(cxl_fault_peak_count(NULL), 0);
     ck_assert_uint_ge(cxl_fault_count(g_fault), 1024);
@@ -2458,6 +2513,7 @@ static void setup_objects(void)
     NEED(cxl_sweep_res_count(g_sres) > 3);
     NEED(cxl_fault_new(g_sweep, 50.0, 0.66, NULL, CXL_FAULT_HANN, 0, 0, 0, &g_fault) == CXL_OK);
     NEED(cxl_fault_peak_count(g_fault) > 0);
+    NEED(cxl_sweepfit_new(g_sweep, 10.0, CXL_STUB_OPEN, 0, 0, 0, 0, &g_sfit) == CXL_OK);
 }
 
 /* How many probes the table makes (printed for the record). */
@@ -2515,6 +2571,7 @@ int main(void)
     srunner_free(sr);
 
     cxl_fault_free(g_fault);
+    cxl_sweepfit_free(g_sfit);
     cxl_sweep_res_free(g_sres);
     cxl_sweep_free(g_sweep);
     free(g_sweep_text);

@@ -112,22 +112,7 @@ static Suite *suite(void)
 
 int main(void)
 {
-    const char *tmp = getenv("TMPDIR");
-    snprintf(g_dir, sizeof g_dir, "%s/check_cli_fault.XXXXXX", tmp && *tmp ? tmp : "/tmp");
-    if (!mkdtemp(g_dir)) {
-        perror("mkdtemp");
-        return EXIT_FAILURE;
-    }
-    const char *src = getenv("COAXLINE_SRCDIR");
-    char cmd[2048];
-    snprintf(cmd, sizeof cmd, "%s '%s/tests/sweep_gen.py' fault '%s' 2>/dev/null", python3(),
-             src ? src : ".", g_dir);
-    if (system(cmd) != 0) {
-        fprintf(stderr, "sweep_gen.py failed: %s\n", cmd);
-        return EXIT_FAILURE;
-    }
-    int rc = run_suite(suite());
-    snprintf(cmd, sizeof cmd, "rm -rf '%s'", g_dir);
-    if (system(cmd) != 0) fprintf(stderr, "could not remove %s\n", g_dir);
-    return rc;
+    static const char *const gen[] = { "fault '%s'" };
+    return run_suite_with_sweeps(suite(), g_dir, sizeof g_dir, "check_cli_fault", gen,
+                                 sizeof gen / sizeof gen[0]);
 }

@@ -17,14 +17,7 @@ static char g_dir[256];
 
 static cxl_sweep *load(const char *name)
 {
-    char path[512];
-    snprintf(path, sizeof path, "%s/%s", g_dir, name);
-    FILE *fp = fopen(path, "rb");
-    ck_assert_msg(fp != NULL, "%s", path);
-    cxl_sweep *s = NULL;
-    ck_assert_int_eq(cxl_sweep_read(fp, &s, NULL, NULL, 0), CXL_OK);
-    fclose(fp);
-    return s;
+    return load_sweep(g_dir, name);
 }
 
 /* The three changes of the run, where sweep_gen.py put them: 50 to 75 ohm
@@ -183,22 +176,7 @@ static Suite *suite(void)
 int main(void)
 {
     gsl_set_error_handler(NULL);
-    const char *tmp = getenv("TMPDIR");
-    snprintf(g_dir, sizeof g_dir, "%s/check_fault.XXXXXX", tmp && *tmp ? tmp : "/tmp");
-    if (!mkdtemp(g_dir)) {
-        perror("mkdtemp");
-        return EXIT_FAILURE;
-    }
-    const char *src = getenv("COAXLINE_SRCDIR");
-    char cmd[2048];
-    snprintf(cmd, sizeof cmd, "%s '%s/tests/sweep_gen.py' fault '%s' 2>/dev/null", python3(),
-             src ? src : ".", g_dir);
-    if (system(cmd) != 0) {
-        fprintf(stderr, "sweep_gen.py failed: %s\n", cmd);
-        return EXIT_FAILURE;
-    }
-    int rc = run_suite(suite());
-    snprintf(cmd, sizeof cmd, "rm -rf '%s'", g_dir);
-    if (system(cmd) != 0) fprintf(stderr, "could not remove %s\n", g_dir);
-    return rc;
+    static const char *const gen[] = { "fault '%s'" };
+    return run_suite_with_sweeps(suite(), g_dir, sizeof g_dir, "check_fault", gen,
+                                 sizeof gen / sizeof gen[0]);
 }

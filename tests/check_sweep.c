@@ -15,22 +15,13 @@
 
 #define C0 299792458.0
 #define NCASES 24
+#define NCASES_TEXT "24" /* the same, for sweep_gen.py */
 
 static char g_dir[256];   /* generated sweeps */
 
 static cxl_sweep *read_file(const char *name)
 {
-    char path[512];
-    snprintf(path, sizeof path, "%s/%s", g_dir, name);
-    FILE *fp = fopen(path, "rb");
-    ck_assert_msg(fp != NULL, "cannot open %s", path);
-    cxl_sweep *s = NULL;
-    size_t line = 99;
-    char text[200] = "";
-    cxl_status st = cxl_sweep_read(fp, &s, &line, text, sizeof text);
-    fclose(fp);
-    ck_assert_msg(st == CXL_OK, "%s: status %d line %zu: %s", name, st, line, text);
-    return s;
+    return load_sweep(g_dir, name);
 }
 
 /* ---- every format against scikit-rf's truth ------------------------- */
@@ -525,23 +516,7 @@ static Suite *suite(void)
 int main(void)
 {
     gsl_set_error_handler(NULL);
-    const char *tmp = getenv("TMPDIR");
-    snprintf(g_dir, sizeof g_dir, "%s/check_sweep.XXXXXX", tmp && *tmp ? tmp : "/tmp");
-    if (!mkdtemp(g_dir)) {
-        perror("mkdtemp");
-        return EXIT_FAILURE;
-    }
-    const char *src = getenv("COAXLINE_SRCDIR");
-    char cmd[2048];
-    snprintf(cmd, sizeof cmd, "%s '%s/tests/sweep_gen.py' formats '%s/f' 2>/dev/null && "
-             "%s '%s/tests/sweep_gen.py' resonances '%s/r' 13 %d 2>/dev/null",
-             python3(), src ? src : ".", g_dir, python3(), src ? src : ".", g_dir, NCASES);
-    if (system(cmd) != 0) {
-        fprintf(stderr, "sweep_gen.py failed: %s\n", cmd);
-        return EXIT_FAILURE;
-    }
-    int rc = run_suite(suite());
-    snprintf(cmd, sizeof cmd, "rm -rf '%s'", g_dir);
-    if (system(cmd) != 0) fprintf(stderr, "could not remove %s\n", g_dir);
-    return rc;
+    static const char *const gen[] = { "formats '%s/f'", "resonances '%s/r' 13 " NCASES_TEXT };
+    return run_suite_with_sweeps(suite(), g_dir, sizeof g_dir, "check_sweep", gen,
+                                 sizeof gen / sizeof gen[0]);
 }

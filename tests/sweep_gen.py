@@ -12,7 +12,7 @@ Z0 (ZL + Z0 tanh(gamma l)) / (Z0 + ZL tanh(gamma l))
 resonance truths are found with scipy.optimize on that closed form, apart
 from scikit-rf.
 
-usage: sweep_gen.py formats DIR | resonances DIR SEED COUNT | fault DIR
+usage: sweep_gen.py formats DIR | resonances DIR SEED COUNT | fault DIR | fit DIR
 """
 import math
 import os
@@ -208,6 +208,41 @@ def fault(d):
             net.write_touchstone(os.path.join(d, 'noisy'), form='ri')
 
 
+def fit(d):
+    """Pieces for the whole-sweep fit: open, short and loaded ends, one
+    behind a fixture (a lossless 50 ohm line of VF 0.7 between the
+    reference plane and the piece), noise on each; parameters in NAME.txt
+    as end length vf_hf drop a b z0 load_r load_x fixture noise."""
+    cases = (
+        ('fit_open', 'open', 12.0, 0.66, 25.0, 1.2e-5, 2e-10, 51.0, 0, 0, 0.0, 1e-3),
+        ('fit_short', 'short', 7.5, 0.78, 15.0, 8e-6, 1e-10, 75.0, 0, 0, 0.0, 1e-3),
+        ('fit_load', 'load', 9.0, 0.70, 20.0, 1e-5, 0.0, 52.0, 12.0, -30.0, 0.0, 1e-3),
+        ('fit_fixture', 'open', 10.0, 0.66, 20.0, 1e-5, 1e-10, 75.0, 0, 0, 0.4, 1e-3),
+    )
+    rng = np.random.default_rng(29)
+    for (name, end, length, vf_hf, drop, a, b, z0, lr, lx, fix, noise) in cases:
+        freq = skrf.Frequency(1, 80, 801, 'MHz')
+        m = media(freq, vf_hf, drop, a, b)
+        if end == 'open':
+            term = m.open()
+        elif end == 'short':
+            term = m.short()
+        else:
+            term = m.load((lr + 1j * lx - 50.0) / (lr + 1j * lx + 50.0))
+        n = m.line(length, 'm', z0=z0, embed=True) ** term
+        if fix > 0:
+            mf = DefinedGammaZ0(frequency=freq, z0=50, Z0=50,
+                                gamma=1j * 2 * np.pi * freq.f / (0.7 * C))
+            n = mf.line(fix, 'm') ** n
+        n.s = n.s + noise * (rng.standard_normal(n.s.shape) +
+                             1j * rng.standard_normal(n.s.shape))
+        n.name = name
+        n.write_touchstone(os.path.join(d, name), form='ri')
+        with open(os.path.join(d, name + '.txt'), 'w') as fp:
+            fp.write('%s %.17g %.17g %.17g %.17g %.17g %.17g %.17g %.17g %.17g %.17g\n'
+                     % (end, length, vf_hf, drop, a, b, z0, lr, lx, fix, noise))
+
+
 def main():
     cmd, d = sys.argv[1], sys.argv[2]
     os.makedirs(d, exist_ok=True)
@@ -215,6 +250,8 @@ def main():
         formats(d)
     elif cmd == 'fault':
         fault(d)
+    elif cmd == 'fit':
+        fit(d)
     elif cmd == 'resonances':
         resonances(d, int(sys.argv[3]), int(sys.argv[4]))
     else:

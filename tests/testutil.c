@@ -287,3 +287,46 @@ double run_json_number(const char *args, int row, const char *key)
     cli_result_free(&r);
     return v;
 }
+
+/* ---- sweeps written by tests/sweep_gen.py ------------------------------- */
+
+int run_suite_with_sweeps(Suite *s, char *dir, size_t size, const char *name,
+                          const char *const *gen, size_t ngen)
+{
+    const char *tmp = getenv("TMPDIR");
+    snprintf(dir, size, "%s/%s.XXXXXX", tmp && *tmp ? tmp : "/tmp", name);
+    if (!mkdtemp(dir)) {
+        perror("mkdtemp");
+        return EXIT_FAILURE;
+    }
+    const char *src = getenv("COAXLINE_SRCDIR");
+    char args[1024], cmd[2048];
+    for (size_t i = 0; i < ngen; i++) {
+        snprintf(args, sizeof args, gen[i], dir);
+        snprintf(cmd, sizeof cmd, "%s '%s/tests/sweep_gen.py' %s 2>/dev/null", python3(),
+                 src ? src : ".", args);
+        if (system(cmd) != 0) {
+            fprintf(stderr, "sweep_gen.py failed: %s\n", cmd);
+            return EXIT_FAILURE;
+        }
+    }
+    int rc = run_suite(s);
+    snprintf(cmd, sizeof cmd, "rm -rf '%s'", dir);
+    if (system(cmd) != 0) fprintf(stderr, "could not remove %s\n", dir);
+    return rc;
+}
+
+cxl_sweep *load_sweep(const char *dir, const char *name)
+{
+    char path[1024];
+    snprintf(path, sizeof path, "%s/%s", dir, name);
+    FILE *fp = fopen(path, "rb");
+    ck_assert_msg(fp != NULL, "cannot open %s", path);
+    cxl_sweep *s = NULL;
+    size_t line = 0;
+    char text[200] = "";
+    cxl_status st = cxl_sweep_read(fp, &s, &line, text, sizeof text);
+    fclose(fp);
+    ck_assert_msg(st == CXL_OK, "%s: status %d line %zu: %s", name, st, line, text);
+    return s;
+}

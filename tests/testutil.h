@@ -100,4 +100,16 @@ double run_json_number(const char *args, int row, const char *key);
 /* Run every test of s; EXIT_FAILURE when any failed, else EXIT_SUCCESS. */
 int run_suite(Suite *s);
 
+/* ---- sweeps written by tests/sweep_gen.py ------------------------------- */
+
+/* Make a fresh folder "$TMPDIR/NAME.XXXXXX" into dir (size bytes), run
+ * "python3 tests/sweep_gen.py GEN" for each of the ngen strings gen (printf
+ * formats where %s stands for the folder, e.g. "fault '%s'"), then s, and
+ * remove the folder; EXIT_FAILURE when the folder or a sweep cannot be
+ * made or a test failed. */
+int run_suite_with_sweeps(Suite *s, char *dir, size_t size, const char *name,
+                          const char *const *gen, size_t ngen);
+/* The sweep dir/name, which must read (the test fails otherwise). */
+struct cxl_sweep *load_sweep(const char *dir, const char *name);
+
 #endif
