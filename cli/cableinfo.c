@@ -41,8 +41,9 @@ const char *cli_fmt_fit(char *buf, size_t size, const cxl_loss_fit *fit)
         return buf;
     }
     cli_fmt_range_mhz(range, sizeof range, lo, hi);
-    cli_fmt_range_mhz(usable, sizeof usable, lo / (1.0 + CXL_LOSS_FIT_MARGIN),
-                      hi * (1.0 + CXL_LOSS_FIT_MARGIN));
+    double use_lo = lo, use_hi = hi;
+    cxl_loss_fit_usable_range(fit, &use_lo, &use_hi);
+    cli_fmt_range_mhz(usable, sizeof usable, use_lo, use_hi);
     snprintf(buf, size, "a*sqrt(f) + b*f fitted to %zu table points %s "
              "(usable %s), largest residual %s %%", n, range, usable,
              cli_fmt(res, sizeof res, 100.0 * rel, 1));

@@ -361,8 +361,7 @@ typedef struct cli_pair_spec {
     double phase_error_deg;     /* B lags by this much more */
     double imbalance_db;        /* B weaker by this much */
     int line_loss;              /* add the lines' loss difference */
-    cxl_loss_model *loss_model; /* owned; one of the two for line_loss */
-    cxl_loss_fit *loss_fit;
+    cxl_loss_cable *loss;       /* owned; the lines' loss for line_loss */
 } cli_pair_spec;
 
 /* Parse CLI_PAIR_OPTDEFS (and, where the command declares them,
@@ -508,6 +507,7 @@ typedef struct cli_load {
     double vf;                /* lossless form */
     double z0_ohm;            /* lossless form */
     cxl_loss_model *model;    /* owned; the physical form, or NULL */
+    cxl_pair_load *handle;    /* owned; the library's load and line */
     const char *cable;        /* catalog name, "" for --vf / --vf-from */
 } cli_load;
 
@@ -522,6 +522,9 @@ void cli_load_free(cli_load *load);
 int cli_load_transfer(const cli_ctx *ctx, const cli_load *load, double length_m,
                       double freq_hz, double *transfer_db, double *delay_deg,
                       double *electrical_deg);
+/* The one-line error of a library status st for the load at freq_hz;
+ * returns CLI_EXIT_USAGE. */
+int cli_load_error(const cli_ctx *ctx, const cli_load *load, double freq_hz, cxl_status st);
 /* "21.000+j20.000 ohm into a lossless line, Z0 50.000 ohm" and the like. */
 const char *cli_fmt_load(char *buf, size_t size, const cli_load *load);
 

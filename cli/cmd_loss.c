@@ -122,8 +122,8 @@ static int eval_point(cli_ctx *ctx, const loss_setup *s, const char *name,
         : cxl_loss_fit_eval(s->fit, p->freq_hz, s->flags, db_per_m);
     double lo, hi;
     model_range(s, &lo, &hi);
-    double use_lo = s->physical ? lo : lo / (1.0 + CXL_LOSS_FIT_MARGIN);
-    double use_hi = s->physical ? hi : hi * (1.0 + CXL_LOSS_FIT_MARGIN);
+    double use_lo = lo, use_hi = hi;
+    if (!s->physical) cxl_loss_fit_usable_range(s->fit, &use_lo, &use_hi);
     *extrapolated = p->freq_hz < use_lo || p->freq_hz > use_hi;
     char f[48], where[64], range[96], usable[96];
     cli_fmt(f, sizeof f, p->freq_hz / 1e6, 6);

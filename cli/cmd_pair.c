@@ -128,95 +128,37 @@ static int worse_check(const check *a, const check *b)
     return b->err_deg + b->unc_deg > a->err_deg + a->unc_deg;
 }
 
-/* The delay into the load of each corner of the tolerance box (each
- * length within length_tol_m, the VF within vf_tol, taken as the same
- * electrical length on a line scaled by VF / VF'; exact for the lossless
- * form, Z0 and loss held for the physical one): the worst spread. */
-static int load_worst_spread(cli_ctx *ctx, const pair_set *s, double f, double *worst_deg)
-{
-    double db, e, da, db_;
-    *worst_deg = 0.0;
-    for (int v = -1; v <= 1; v += 2) {
-        double k = s->vf / (s->vf + v * s->vf_tol);
-        for (int sign = -1; sign <= 1; sign += 2) {
-            double a = (s->hi_m + sign * s->length_tol_m) * k;
-            double b = fmax(s->lo_m - sign * s->length_tol_m, 0.0) * k;
-            if (cli_load_transfer(ctx, &s->load, fmax(a, 0.0), f, &db, &da, &e) ||
-                cli_load_transfer(ctx, &s->load, b, f, &db, &db_, &e))
-                return CLI_EXIT_USAGE;
-            *worst_deg = fmax(*worst_deg, fabs(da - db_));
-        }
-    }
-    return 0;
-}
-
-/* How much longer than the shortest line a line may be before its delay
- * into the load is the tolerance more: the delay grows with length, by
- * exactly 180 degrees per half wavelength on a lossless line, so the
- * answer lies within ceil(tol / 180) + 1 half wavelengths (bisection).
- * 0 with *found 0 when the bracket fails (a very lossy model). */
-static int load_allowed(cli_ctx *ctx, const pair_set *s, double f, double *allowed_m, int *found)
-{
-    double db, d0, e0, d, e;
-    *found = 0;
-    if (cli_load_transfer(ctx, &s->load, s->lo_m, f, &db, &d0, &e0)) return CLI_EXIT_USAGE;
-    if (!(e0 > 0.0)) return 0;
-    double lo = 0.0, hi = s->lo_m * 180.0 / e0 * (ceil(s->tol / 180.0) + 1.0);
-    if (cli_load_transfer(ctx, &s->load, s->lo_m + hi, f, &db, &d, &e)) return CLI_EXIT_USAGE;
-    if (!(d - d0 >= s->tol)) return 0;
-    for (int i = 0; i < 200 && hi - lo > 1e-12 * (s->lo_m + hi); i++) {
-        double mid = 0.5 * (lo + hi);
-        if (cli_load_transfer(ctx, &s->load, s->lo_m + mid, f, &db, &d, &e)) return CLI_EXIT_USAGE;
-        if (d - d0 >= s->tol) hi = mid;
-        else lo = mid;
-    }
-    *allowed_m = 0.5 * (lo + hi);
-    *found = 1;
-    return 0;
-}
-
-/* Error, spread of gains and uncertainty of the lines into the load. */
+/* Error, spread of gains, uncertainty and allowed mismatch of the lines
+ * into the load (the library's check). */
 static int load_check(cli_ctx *ctx, const pair_set *s, double f, int want_allowed, check *c)
 {
-    double dmin = INFINITY, dmax = -INFINITY, gmin = INFINITY, gmax = -INFINITY;
-    double elo = 0.0, ehi = 0.0;
-    for (int i = 0; i < s->nlen; i++) {
-        double g, d, e;
-        if (cli_load_transfer(ctx, &s->load, s->len[i], f, &g, &d, &e)) return CLI_EXIT_USAGE;
-        dmin = fmin(dmin, d);
-        dmax = fmax(dmax, d);
-        gmin = fmin(gmin, g);
-        gmax = fmax(gmax, g);
-        if (s->len[i] == s->lo_m) elo = e;
-        if (s->len[i] == s->hi_m) ehi = e;
-    }
-    c->err_deg = dmax - dmin;
-    c->imbalance_db = gmax - gmin;
-    c->elec_deg = ehi - elo;
-    c->unc_deg = 0.0;
-    if (s->length_tol_m > 0.0 || s->vf_tol > 0.0) {
-        double worst;
-        if (load_worst_spread(ctx, s, f, &worst)) return CLI_EXIT_USAGE;
-        c->unc_deg = fmax(worst - c->err_deg, 0.0);
-    }
+    cxl_status st = cxl_pair_load_check(s->load.handle, s->len, (size_t)s->nlen, s->vf, f,
+                                        s->reachable ? s->tol : 360.0, s->length_tol_m,
+                                        s->vf_tol, &c->err_deg, &c->unc_deg, &c->elec_deg,
+                                        &c->imbalance_db, &c->verdict);
+    if (st != CXL_OK) return cli_load_error(ctx, &s->load, f, st);
     c->has_allowed = 0;
-    if (want_allowed && s->reachable &&
-        load_allowed(ctx, s, f, &c->allowed_m, &c->has_allowed))
-        return CLI_EXIT_USAGE;
+    if (want_allowed && s->reachable) {
+        st = cxl_pair_load_max_mismatch(s->load.handle, s->tol, s->lo_m, s->vf, f,
+                                        &c->allowed_m);
+        if (st != CXL_OK && st != CXL_ENOCONV) return cli_load_error(ctx, &s->load, f, st);
+        c->has_allowed = st == CXL_OK;
+    }
     return 0;
 }
 
+/* The library's check of the lines at f (into the load with --load), its
+ * verdict the one rule of cxl_pair_verdict. */
 static int check_point(cli_ctx *ctx, const pair_set *s, double f, int want_allowed, check *c)
 {
-    cxl_verdict v;
     /* the library's verdict needs a tolerance; an unreachable goal fails */
     if (cxl_pair_check(s->len, (size_t)s->nlen, s->vf, f, s->reachable ? s->tol : 360.0,
                        s->length_tol_m, s->vf_tol, &c->delta_m, &c->err_deg, &c->unc_deg,
-                       &v) != CXL_OK ||
+                       &c->verdict) != CXL_OK ||
         !isfinite(c->err_deg) || !isfinite(c->unc_deg))
         return cli_error(ctx, "freq", "a smaller frequency", "gives no finite phase error");
     if (s->load.given) {
-        /* into the load: error, uncertainty and allowance replaced */
+        /* into the load: error, uncertainty, allowance and verdict replaced */
         if (load_check(ctx, s, f, want_allowed, c)) return CLI_EXIT_USAGE;
     } else {
         c->elec_deg = c->err_deg;
@@ -227,8 +169,6 @@ static int check_point(cli_ctx *ctx, const pair_set *s, double f, int want_allow
     }
     /* no tolerance left (an unreachable null) fails whatever the lines */
     if (!s->reachable) c->verdict = CXL_VERDICT_FAIL;
-    else if (cxl_pair_verdict(c->err_deg, c->unc_deg, s->tol, &c->verdict) != CXL_OK)
-        return cli_error(ctx, "freq", "a smaller frequency", "gives no finite phase error");
     return 0;
 }
 

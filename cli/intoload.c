@@ -107,6 +107,17 @@ static int cable_line(cli_ctx *ctx, const char *name, const char *z0_text, cli_l
     return parse_z0(ctx, z0_text, &load->z0_ohm);
 }
 
+/* The load and the line as the library's handle. */
+static int load_handle(cli_ctx *ctx, cli_load *load)
+{
+    cxl_status st = load->model
+        ? cxl_pair_load_new_model(load->model, load->re_ohm, load->im_ohm, &load->handle)
+        : cxl_pair_load_new_lossless(load->z0_ohm, load->re_ohm, load->im_ohm, &load->handle);
+    if (st != CXL_OK)
+        return cli_error(ctx, "load", LOAD_EXPECTED, "%s", cxl_strerror(st));
+    return 0;
+}
+
 int cli_load_parse(cli_ctx *ctx, const cli_args *a, double vf, cli_load *load)
 {
     const char *text = cli_get(a, "load", 0), *z0 = cli_get(a, "z0", 0);
@@ -120,36 +131,28 @@ int cli_load_parse(cli_ctx *ctx, const cli_args *a, double vf, cli_load *load)
     }
     if (parse_load(ctx, text, load)) return CLI_EXIT_USAGE;
     load->given = 1;
-    if (cable) return cable_line(ctx, cable, z0, load);
+    if (cable) {
+        if (cable_line(ctx, cable, z0, load)) return CLI_EXIT_USAGE;
+        return load_handle(ctx, load);
+    }
     /* 50 and 75 ohm lines are both used for phasing: no default */
     if (!z0)
         return cli_error(ctx, "z0", "--z0 50 or --z0 75",
                          "--load on a line given by its velocity factor needs the line's impedance");
-    return parse_z0(ctx, z0, &load->z0_ohm);
+    if (parse_z0(ctx, z0, &load->z0_ohm)) return CLI_EXIT_USAGE;
+    return load_handle(ctx, load);
 }
 
 void cli_load_free(cli_load *load)
 {
+    cxl_pair_load_free(load->handle);
+    load->handle = NULL;
     cxl_loss_model_free(load->model);
     load->model = NULL;
 }
 
-int cli_load_transfer(const cli_ctx *ctx, const cli_load *load, double length_m,
-                      double freq_hz, double *transfer_db, double *delay_deg,
-                      double *electrical_deg)
+int cli_load_error(const cli_ctx *ctx, const cli_load *load, double freq_hz, cxl_status st)
 {
-    double db, delay, el;
-    cxl_status st = load->model
-        ? cxl_transfer_model(load->model, freq_hz, 0, length_m, load->re_ohm, load->im_ohm,
-                             &db, &delay, &el)
-        : cxl_transfer_lossless(load->z0_ohm, load->vf, length_m, freq_hz, load->re_ohm,
-                                load->im_ohm, &db, &delay, &el);
-    if (st == CXL_OK && isfinite(db) && isfinite(delay) && isfinite(el)) {
-        *transfer_db = db;
-        *delay_deg = delay;
-        *electrical_deg = el;
-        return 0;
-    }
     char f[64], b1[32], b2[32];
     cli_fmt(f, sizeof f, freq_hz / 1e6, 6);
     if (st == CXL_EEXTRAPOLATE) {
@@ -161,11 +164,20 @@ int cli_load_transfer(const cli_ctx *ctx, const cli_load *load, double length_m,
                          load->cable, cli_fmt(b1, sizeof b1, lo / 1e6, 3),
                          cli_fmt(b2, sizeof b2, hi / 1e6, 3));
     }
-    if (st == CXL_ERANGE || st == CXL_OK)
+    if (st == CXL_ERANGE)
         return cli_error(ctx, "load", "a load that leaves a voltage to measure",
                          "at %s MHz no voltage reaches the load (the line turns it into a "
                          "short at its input, or loses everything on the way)", f);
     return cli_error(ctx, "load", LOAD_EXPECTED, "at %s MHz: %s", f, cxl_strerror(st));
+}
+
+int cli_load_transfer(const cli_ctx *ctx, const cli_load *load, double length_m,
+                      double freq_hz, double *transfer_db, double *delay_deg,
+                      double *electrical_deg)
+{
+    cxl_status st = cxl_pair_load_transfer(load->handle, length_m, load->vf, freq_hz,
+                                           transfer_db, delay_deg, electrical_deg);
+    return st == CXL_OK ? 0 : cli_load_error(ctx, load, freq_hz, st);
 }
 
 /* Ohms with up to three decimals and no trailing zeros: "21", "1000000000". */

@@ -29,7 +29,8 @@ static int parse_manual_delay(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s,
                              "a line length needs the cable's velocity factor");
         if (cli_length(ctx, line_opt, cli_get(a, line_opt, 0), CLI_NONNEG, &s->line_m[k]))
             return CLI_EXIT_USAGE;
-        s->delay_s[k] = s->line_m[k] / (s->vf * CXL_C_M_PER_S);
+        if (cxl_line_delay_from_length(s->line_m[k], s->vf, &s->delay_s[k]) != CXL_OK)
+            return cli_error(ctx, line_opt, "a shorter line", "gives no delay");
         s->has_line[k] = 1;
     } else if (cli_count(a, delay_opt)) {
         if (cli_time(ctx, delay_opt, cli_get(a, delay_opt, 0), CLI_NONNEG, &s->delay_s[k]))
@@ -61,30 +62,33 @@ static int parse_preset(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s, doubl
     if (s->stagger_m == 0.0)
         return cli_error(ctx, "stagger", "a stagger such as --stagger 20m with --feed",
                          "--feed %s needs the elements staggered along the forward axis", feed);
-    int front = s->stagger_m > 0.0 ? 0 : 1, rear = 1 - front;
-    double lag_s = fabs(s->stagger_m) / CXL_C_M_PER_S;
+    cxl_feed kind;
     if (strcmp(feed, "crossfire") == 0) {
-        /* rear wave: the rear element hears it first by the stagger; wait
-         * that long, then the inversion cancels it at every frequency */
-        s->feed = "crossfire";
-        s->delay_s[rear] = lag_s;
-        s->flip[rear] = 1;
+        kind = CXL_FEED_CROSSFIRE;
     } else if (strcmp(feed, "endfire") == 0) {
         if (!(design_hz > 0.0))
             return cli_error(ctx, "design-freq", "--feed endfire --design-freq 1.83MHz",
                              "an end-fire feed is cut for one frequency");
-        /* front element waits 180 deg minus the stagger, so a rear wave
-         * arrives 180 deg apart at the design frequency only */
-        double deg = fmod(180.0 - 360.0 * design_hz * lag_s, 360.0);
-        if (deg < 0.0) deg += 360.0;
-        s->feed = "endfire";
-        s->delay_s[front] = deg / (360.0 * design_hz);
+        kind = CXL_FEED_ENDFIRE;
     } else {
         return cli_error(ctx, "feed", "crossfire or endfire", "unknown feed '%s'", feed);
     }
+    /* the library's design feed, read back element by element */
+    cxl_array_pair *p = NULL;
+    cxl_status st = cxl_array_pair_new(&p);
+    if (st == CXL_OK) st = cxl_array_pair_set_geometry(p, s->spacing_m, s->stagger_m);
+    if (st == CXL_OK) st = cxl_array_pair_set_feed(p, kind, design_hz);
+    for (int k = 0; k < 2 && st == CXL_OK; k++)
+        st = cxl_array_pair_feed(p, k, &s->delay_s[k], &s->flip[k]);
+    cxl_array_pair_free(p);
+    if (st != CXL_OK)
+        return cli_error(ctx, "stagger", "smaller values", "the feed cannot be designed: %s",
+                         cxl_strerror(st));
+    s->feed = kind == CXL_FEED_CROSSFIRE ? "crossfire" : "endfire";
     for (int k = 0; k < 2; k++)
         if (s->has_vf && s->delay_s[k] > 0.0) {
-            s->line_m[k] = s->delay_s[k] * s->vf * CXL_C_M_PER_S;
+            if (cxl_line_length_from_delay(s->delay_s[k], s->vf, &s->line_m[k]) != CXL_OK)
+                return cli_error(ctx, "stagger", "smaller values", "gives no line length");
             s->has_line[k] = 1;
         }
     return 0;
@@ -120,16 +124,6 @@ int cli_wire_parse(cli_ctx *ctx, const cli_args *a, int wire, const char *kind,
     return 0;
 }
 
-/* Loss per metre of the --cable at freq_hz, from the model chosen as the
- * loss command chooses by default: the fit to the attenuation table when
- * the cable has one, else the physical model from its geometry.  No
- * extrapolation: CXL_EEXTRAPOLATE outside the model's range. */
-static cxl_status loss_db_per_m(const cli_pair_spec *s, double freq_hz, double *db_per_m)
-{
-    if (s->loss_fit) return cxl_loss_fit_eval(s->loss_fit, freq_hz, 0, db_per_m);
-    return cxl_loss_model_attenuation(s->loss_model, freq_hz, 0, db_per_m);
-}
-
 static int parse_as_built(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
 {
     s->actual_vf = s->vf;
@@ -156,7 +150,9 @@ static int parse_as_built(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
         } else if (!s->has_line[k]) {
             continue;   /* a delay given as time or degrees: no line to re-measure */
         }
-        s->built_delay_s[k] = s->built_line_m[k] / (s->actual_vf * CXL_C_M_PER_S);
+        if (cxl_line_delay_from_length(s->built_line_m[k], s->actual_vf,
+                                       &s->built_delay_s[k]) != CXL_OK)
+            return cli_error(ctx, opt, "a shorter line", "gives no delay");
     }
     if (cli_count(a, "actual-vf") && !s->has_line[0] && !s->has_line[1] &&
         !cli_count(a, "measured-a") && !cli_count(a, "measured-b"))
@@ -181,8 +177,8 @@ static int parse_as_built(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
                              "the loss of the lines needs a cable from the catalog");
         if (cli_cable_index(ctx, s->cable, &idx)) return CLI_EXIT_USAGE;
         const cxl_catalog *cat = cli_catalog(ctx);
-        s->loss_fit = cli_cable_fit(cat, idx);
-        if (!s->loss_fit && cxl_loss_model_new_cable(cat, idx, &s->loss_model) != CXL_OK)
+        /* the table where the cable has one, else its physical model */
+        if (cxl_loss_cable_new(cat, idx, &s->loss) != CXL_OK)
             return cli_error(ctx, "line-loss", "a cable with diameters or attenuation points",
                              "cable '%s' has no loss data", s->cable);
         if (!s->has_line[0] && !s->has_line[1] && !cli_count(a, "measured-a") &&
@@ -246,10 +242,8 @@ int cli_pair_spec_parse(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
 
 void cli_pair_spec_free(cli_pair_spec *s)
 {
-    cxl_loss_model_free(s->loss_model);
-    cxl_loss_fit_free(s->loss_fit);
-    s->loss_model = NULL;
-    s->loss_fit = NULL;
+    cxl_loss_cable_free(s->loss);
+    s->loss = NULL;
 }
 
 int cli_pair_spec_build(cli_ctx *ctx, const cli_pair_spec *s, int as_built, double freq_hz,
@@ -259,27 +253,24 @@ int cli_pair_spec_build(cli_ctx *ctx, const cli_pair_spec *s, int as_built, doub
     double phase = 0.0, imbalance = 0.0;
     if (as_built) {
         /* extra lag of B over A against the design, in degrees */
-        double extra_s = (delay[1] - delay[0]) - (s->delay_s[1] - s->delay_s[0]);
-        phase = remainder(360.0 * freq_hz * extra_s + s->phase_error_deg, 360.0);
+        if (cxl_array_pair_built_phase(s->delay_s, delay, freq_hz, s->phase_error_deg,
+                                       &phase) != CXL_OK)
+            return cli_error(ctx, "phase-error", "smaller values",
+                             "the as-built phase error cannot be worked out");
         imbalance = s->imbalance_db;
         if (s->line_loss) {
-            double db_per_m, lo, hi;
+            double loss_db, lo, hi;
             char f[32], range[96], expected[160];
-            if (loss_db_per_m(s, freq_hz, &db_per_m) != CXL_OK) {
-                if (s->loss_fit) {
-                    cxl_loss_fit_range(s->loss_fit, &lo, &hi);
-                    lo /= 1.0 + CXL_LOSS_FIT_MARGIN;
-                    hi *= 1.0 + CXL_LOSS_FIT_MARGIN;
-                } else {
-                    cxl_loss_model_range(s->loss_model, &lo, &hi);
-                }
+            if (cxl_loss_cable_difference(s->loss, s->built_line_m[0], s->built_line_m[1],
+                                          freq_hz, &loss_db) != CXL_OK) {
+                cxl_loss_cable_range(s->loss, &lo, &hi);
                 snprintf(expected, sizeof expected, "a frequency within %s, or --imbalance DB instead",
                          cli_fmt_range_mhz(range, sizeof range, lo, hi));
                 return cli_error(ctx, "line-loss", expected,
                                  "%s MHz is outside the loss data of cable '%s'",
                                  cli_fmt(f, sizeof f, freq_hz / 1e6, 6), s->cable);
             }
-            imbalance += db_per_m * (s->built_line_m[1] - s->built_line_m[0]);
+            imbalance += loss_db;
         }
     }
     cxl_array_pair *p = NULL;

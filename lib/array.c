@@ -1462,4 +1462,71 @@ cxl_status cxl__array_eval_rear_null(const cxl__array_eval *e, double el_rad,
 {
     double az;
     return rear_null(e, el_rad, &az, depth_db);
+/* ---- design feed and as-built errors of the pair ----------------------
+ *
+ * Crossfire: a wave from the rear reaches the rear element first, by the
+ * stagger's free-space delay; the rear element waits that long and is
+ * inverted, so the rear wave cancels at every frequency (broadband).
+ * End-fire: the front element waits 180 degrees minus the stagger's
+ * electrical length at the design frequency, so a rear wave arrives 180
+ * degrees apart there only (Balanis, Antenna Theory, 3rd ed., sec. 6.3:
+ * the progressive phase beta = -kd of the ordinary end-fire array, plus the
+ * half turn). */
+cxl_status cxl_array_pair_set_feed(cxl_array_pair *pair, cxl_feed feed,
+                                   double design_freq_hz)
+{
+    if (!pair || (feed != CXL_FEED_CROSSFIRE && feed != CXL_FEED_ENDFIRE) ||
+        !cxl__finite_nonneg(design_freq_hz) || pair->stagger_m == 0.0)
+        return CXL_EINVAL;
+    if (feed == CXL_FEED_ENDFIRE && !(design_freq_hz > 0.0)) return CXL_EINVAL;
+    int front = pair->stagger_m > 0.0 ? 0 : 1, rear = 1 - front;
+    double lag_s, deg;
+    cxl_status st = cxl_line_delay_from_offset(fabs(pair->stagger_m), &lag_s);
+    if (st != CXL_OK) return st;
+    if (feed == CXL_FEED_CROSSFIRE) {
+        pair->delay_s[front] = 0.0;
+        pair->delay_s[rear] = lag_s;
+        pair->flip[front] = 0;
+        pair->flip[rear] = 1;
+        return CXL_OK;
+    }
+    st = cxl_line_degrees_from_delay(lag_s, design_freq_hz, &deg);
+    if (st != CXL_OK) return st;
+    deg = fmod(180.0 - deg, 360.0);
+    if (deg < 0.0) deg += 360.0;
+    if (!isfinite(deg / (360.0 * design_freq_hz))) return CXL_ERANGE;
+    st = cxl_array_pair_set_delay_deg(pair, front, deg, design_freq_hz);
+    if (st != CXL_OK) return st;
+    pair->delay_s[rear] = 0.0;
+    pair->flip[0] = pair->flip[1] = 0;
+    return CXL_OK;
+}
+
+cxl_status cxl_array_pair_feed(const cxl_array_pair *pair, int element,
+                               double *delay_s, int *flipped)
+{
+    if (!pair || !valid_element(element) || !delay_s || !flipped) return CXL_EINVAL;
+    *delay_s = pair->delay_s[element];
+    *flipped = pair->flip[element];
+    return CXL_OK;
+}
+
+cxl_status cxl_array_pair_built_phase(const double *design_delay_s,
+                                      const double *built_delay_s,
+                                      double freq_hz, double extra_phase_deg,
+                                      double *phase_error_deg)
+{
+    if (!design_delay_s || !built_delay_s || !phase_error_deg || !cxl__finite_pos(freq_hz) ||
+        !isfinite(extra_phase_deg))
+        return CXL_EINVAL;
+    for (int k = 0; k < 2; k++)
+        if (!cxl__finite_nonneg(design_delay_s[k]) || !cxl__finite_nonneg(built_delay_s[k]))
+            return CXL_EINVAL;
+    /* extra lag of B over A against the design */
+    double extra_s = (built_delay_s[1] - built_delay_s[0]) -
+                     (design_delay_s[1] - design_delay_s[0]);
+    double deg;
+    cxl_status st = cxl_line_degrees_from_delay(extra_s, freq_hz, &deg);
+    if (st != CXL_OK) return st;
+    return cxl__put_finite(remainder(deg + extra_phase_deg, 360.0), phase_error_deg);
 }

@@ -432,6 +432,54 @@ cxl_status cxl_pair_check(const double *lengths_m, size_t count, double vf,
                           double length_tol_m, double vf_tol,
                           double *delta_m, double *phase_error_deg,
                           double *uncertainty_deg, cxl_verdict *verdict);
+/* Lines into a load.  A phasing line is judged by the phase of the voltage
+ * it delivers into what it feeds, which departs from its electrical length
+ * whenever the load does not match the line (cxl_transfer_*).  A
+ * cxl_pair_load holds the load (load_re_ohm >= 0, not a short) and the
+ * line's form: lossless of real impedance z0_ohm (the velocity factor given
+ * per call), or a physical cable model (kept by reference: it must outlive
+ * the handle).  Free with cxl_pair_load_free. */
+typedef struct cxl_pair_load cxl_pair_load;
+typedef struct cxl_loss_model cxl_loss_model; /* loss.c, below (C11 allows the repeat) */
+cxl_status cxl_pair_load_new_lossless(double z0_ohm, double load_re_ohm,
+                                      double load_im_ohm,
+                                      cxl_pair_load **load);
+cxl_status cxl_pair_load_new_model(const cxl_loss_model *model,
+                                   double load_re_ohm, double load_im_ohm,
+                                   cxl_pair_load **load);
+void cxl_pair_load_free(cxl_pair_load *load);
+/* length_m of the line into the load at freq_hz: transfer in dB, delay in
+ * degrees (the phase lag of V_load behind V_in) and the electrical length
+ * in degrees (may be NULL); vf is the lossless form's (checked, unused by a
+ * model).  CXL_EEXTRAPOLATE outside a model's range, CXL_ERANGE when no
+ * voltage reaches the load. */
+cxl_status cxl_pair_load_transfer(const cxl_pair_load *load, double length_m,
+                                  double vf, double freq_hz,
+                                  double *transfer_db, double *delay_deg,
+                                  double *electrical_deg);
+/* cxl_pair_check into the load: the error is the largest delay into it
+ * minus the smallest, the uncertainty the worst spread over the corners of
+ * the tolerance box (each length within length_tol_m, the VF within vf_tol,
+ * as the same electrical length on a line scaled by VF / VF') minus the
+ * error, the electrical error the longest line's electrical length minus
+ * the shortest's, the imbalance the spread of the lines' gains (dB), and
+ * the verdict of cxl_pair_verdict. */
+cxl_status cxl_pair_load_check(const cxl_pair_load *load,
+                               const double *lengths_m, size_t count,
+                               double vf, double freq_hz,
+                               double tolerance_deg, double length_tol_m,
+                               double vf_tol, double *phase_error_deg,
+                               double *uncertainty_deg,
+                               double *electrical_error_deg,
+                               double *imbalance_db, cxl_verdict *verdict);
+/* How much longer than length_m a line may be before its delay into the
+ * load is tolerance_deg more (bisection to 1e-12 relative); CXL_ENOCONV
+ * when no such length lies within ceil(tolerance / 180) + 1 half waves (a
+ * very lossy line or a reactive load). */
+cxl_status cxl_pair_load_max_mismatch(const cxl_pair_load *load,
+                                      double tolerance_deg, double length_m,
+                                      double vf, double freq_hz,
+                                      double *delta_m);
 /* ---- cable.c: cable catalog ------------------------------------------- */
 
 /* A catalog of cables: the built-in rows (compiled in from data/cables.csv
@@ -528,10 +576,9 @@ cxl_status cxl_catalog_loss_point(const cxl_catalog *catalog, size_t index,
 
 /* Fitted model: loss_db_per_m(f) = a sqrt(f) + b f, least squares (GSL,
  * weighted by 1/loss^2 so every point counts with its relative error) over
- * table points.  Evaluation outside [f_min / (1 + m), f_max (1 + m)] with
- * m = CXL_LOSS_FIT_MARGIN returns CXL_EEXTRAPOLATE unless
- * CXL_LOSS_EXTRAPOLATE is given. */
-#define CXL_LOSS_FIT_MARGIN 0.1
+ * table points.  Evaluation outside the usable range
+ * (cxl_loss_fit_usable_range: the table's range and 10 % beyond each end)
+ * returns CXL_EEXTRAPOLATE unless CXL_LOSS_EXTRAPOLATE is given. */
 typedef struct cxl_loss_fit cxl_loss_fit;
 
 /* From n >= 2 points at two or more distinct frequencies (CXL_ERANGE
@@ -553,6 +600,9 @@ cxl_status cxl_loss_fit_range(const cxl_loss_fit *fit, double *min_freq_hz,
                               double *max_freq_hz);
 /* Table points and residuals (fitted - table). */
 cxl_status cxl_loss_fit_count(const cxl_loss_fit *fit, size_t *count);
+/* The range evaluation accepts without CXL_LOSS_EXTRAPOLATE. */
+cxl_status cxl_loss_fit_usable_range(const cxl_loss_fit *fit,
+                                     double *min_freq_hz, double *max_freq_hz);
 cxl_status cxl_loss_fit_point(const cxl_loss_fit *fit, size_t point,
                               double *freq_hz, double *table_db_per_m,
                               double *residual_db_per_m);
@@ -879,6 +929,30 @@ cxl_status cxl_array_pair_set_phase_offset(cxl_array_pair *pair,
 cxl_status cxl_array_pair_set_flip(cxl_array_pair *pair, int element,
                                    int flipped);
 /* Element 1 weaker than element 0 by imbalance_db (|dB| <= 200). */
+/* The design feed of a staggered pair (the geometry's stagger must not be
+ * 0; element A is ahead when it is positive): CXL_FEED_CROSSFIRE delays
+ * the rear element by the stagger's free-space delay and inverts it
+ * (broadband; design_freq_hz may be 0); CXL_FEED_ENDFIRE delays the front
+ * element by 180 degrees minus the stagger's electrical length at
+ * design_freq_hz (> 0), modulo 360, and inverts neither.  Sets both
+ * elements' delays and inversions. */
+typedef enum cxl_feed {
+    CXL_FEED_CROSSFIRE = 0,
+    CXL_FEED_ENDFIRE = 1
+} cxl_feed;
+cxl_status cxl_array_pair_set_feed(cxl_array_pair *pair, cxl_feed feed,
+                                   double design_freq_hz);
+/* An element's feed delay (s) and inversion (0 or 1). */
+cxl_status cxl_array_pair_feed(const cxl_array_pair *pair, int element,
+                               double *delay_s, int *flipped);
+/* As-built phase error of element B against A at freq_hz (degrees, B
+ * lagging positive, wrapped to +-180): the change of B's delay over A's
+ * from the design (design_delay_s[0..1]) to the lines as built
+ * (built_delay_s[0..1], all >= 0), plus a fixed extra_phase_deg. */
+cxl_status cxl_array_pair_built_phase(const double *design_delay_s,
+                                      const double *built_delay_s,
+                                      double freq_hz, double extra_phase_deg,
+                                      double *phase_error_deg);
 cxl_status cxl_array_pair_set_imbalance(cxl_array_pair *pair,
                                         double imbalance_db);
 cxl_status cxl_array_pair_set_isotropic(cxl_array_pair *pair);
@@ -1030,6 +1104,34 @@ cxl_status cxl_hybrid_response(double gamma_common_re,
                                double gamma_common_im,
                                double gamma_idle_re, double gamma_idle_im,
                                double *common_db, double *isolation_db);
+
+/* A catalog cable's loss, from the model the trade would choose: the fit
+ * to its attenuation table where it has two or more points, else the
+ * physical model from its geometry (CXL_ENOTFOUND when it has neither).
+ * cxl_loss_cable_kind says which was used; cxl_loss_cable_range gives the
+ * usable range (the fit's with its margin, or the model's), outside which
+ * cxl_loss_cable_db_per_m returns CXL_EEXTRAPOLATE unless
+ * CXL_LOSS_EXTRAPOLATE is given (its only flag). */
+typedef struct cxl_loss_cable cxl_loss_cable;
+typedef enum cxl_loss_kind {
+    CXL_LOSS_KIND_FIT = 0,      /* a sqrt(f) + b f fitted to the table */
+    CXL_LOSS_KIND_PHYSICAL = 1  /* RLGC from the geometry */
+} cxl_loss_kind;
+cxl_status cxl_loss_cable_new(const cxl_catalog *catalog, size_t index,
+                              cxl_loss_cable **loss);
+void cxl_loss_cable_free(cxl_loss_cable *loss);
+cxl_status cxl_loss_cable_kind(const cxl_loss_cable *loss,
+                               cxl_loss_kind *kind);
+cxl_status cxl_loss_cable_range(const cxl_loss_cable *loss,
+                                double *min_freq_hz, double *max_freq_hz);
+cxl_status cxl_loss_cable_db_per_m(const cxl_loss_cable *loss,
+                                   double freq_hz, unsigned flags,
+                                   double *loss_db_per_m);
+/* Matched loss of line B minus that of line A (dB; B weaker when
+ * positive) at freq_hz, no extrapolation. */
+cxl_status cxl_loss_cable_difference(const cxl_loss_cable *loss,
+                                     double length_a_m, double length_b_m,
+                                     double freq_hz, double *loss_db);
 
 /* ---- transfer.c: a line into a load ----------------------------------- */
 

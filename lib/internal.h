@@ -22,6 +22,10 @@ static inline cxl_status cxl__put_finite(double v, double *out)
     return CXL_OK;
 }
 
+/* loss.c: a fitted loss table is used up to this fraction beyond its
+ * lowest and highest point (cxl_loss_fit_usable_range). */
+#define CXL__LOSS_FIT_MARGIN 0.1
+
 /* Case-insensitive ASCII comparison of n bytes, locale-free. */
 int cxl__ascii_ncaseeq(const char *a, const char *b, size_t n);
 

@@ -268,13 +268,22 @@ cxl_status cxl_loss_fit_max_relative_residual(const cxl_loss_fit *fit,
     return CXL_OK;
 }
 
+cxl_status cxl_loss_fit_usable_range(const cxl_loss_fit *fit, double *min_freq_hz,
+                                     double *max_freq_hz)
+{
+    if (!fit || !min_freq_hz || !max_freq_hz) return CXL_EINVAL;
+    *min_freq_hz = fit->freq_hz[0] / (1.0 + CXL__LOSS_FIT_MARGIN);
+    *max_freq_hz = fit->freq_hz[fit->n - 1] * (1.0 + CXL__LOSS_FIT_MARGIN);
+    return CXL_OK;
+}
+
 cxl_status cxl_loss_fit_eval(const cxl_loss_fit *fit, double freq_hz,
                              unsigned flags, double *loss_db_per_m)
 {
     if (!fit || !loss_db_per_m || !cxl__finite_pos(freq_hz) || (flags & ~fit_flags))
         return CXL_EINVAL;
-    double lo = fit->freq_hz[0] / (1.0 + CXL_LOSS_FIT_MARGIN);
-    double hi = fit->freq_hz[fit->n - 1] * (1.0 + CXL_LOSS_FIT_MARGIN);
+    double lo = fit->freq_hz[0] / (1.0 + CXL__LOSS_FIT_MARGIN);
+    double hi = fit->freq_hz[fit->n - 1] * (1.0 + CXL__LOSS_FIT_MARGIN);
     if (!(flags & CXL_LOSS_EXTRAPOLATE) && (freq_hz < lo || freq_hz > hi))
         return CXL_EEXTRAPOLATE;
     double v = fit_value(fit, freq_hz);
@@ -585,4 +594,76 @@ cxl_status cxl_loss_model_vf(const cxl_loss_model *model, double freq_hz,
     cxl_status st = cxl_loss_model_gamma(model, freq_hz, flags, &alpha, &beta);
     if (st != CXL_OK) return st;
     return cxl__put_finite(2.0 * M_PI * freq_hz / (beta * CXL_C_M_PER_S), vf);
+}
+
+/* ---- a catalog cable's loss: the fitted table or the physical model ---- */
+
+struct cxl_loss_cable {
+    cxl_loss_fit *fit;     /* one of the two */
+    cxl_loss_model *model;
+};
+
+cxl_status cxl_loss_cable_new(const cxl_catalog *catalog, size_t index, cxl_loss_cable **loss)
+{
+    if (!catalog || !loss) return CXL_EINVAL;
+    cxl_loss_cable *l = calloc(1, sizeof *l);
+    if (!l) return CXL_ENOMEM;
+    /* the table where the cable has one: it is what was measured */
+    cxl_status st = cxl_loss_fit_new_cable(catalog, index, &l->fit);
+    if (st == CXL_ENOMEM) {
+        free(l);
+        return st;
+    }
+    if (st != CXL_OK) {
+        l->fit = NULL;
+        st = cxl_loss_model_new_cable(catalog, index, &l->model);
+        if (st != CXL_OK) {
+            free(l);
+            return st;
+        }
+    }
+    *loss = l;
+    return CXL_OK;
+}
+
+void cxl_loss_cable_free(cxl_loss_cable *loss)
+{
+    if (!loss) return;
+    cxl_loss_fit_free(loss->fit);
+    cxl_loss_model_free(loss->model);
+    free(loss);
+}
+
+cxl_status cxl_loss_cable_kind(const cxl_loss_cable *loss, cxl_loss_kind *kind)
+{
+    if (!loss || !kind) return CXL_EINVAL;
+    *kind = loss->fit ? CXL_LOSS_KIND_FIT : CXL_LOSS_KIND_PHYSICAL;
+    return CXL_OK;
+}
+
+cxl_status cxl_loss_cable_range(const cxl_loss_cable *loss, double *min_freq_hz,
+                                double *max_freq_hz)
+{
+    if (!loss || !min_freq_hz || !max_freq_hz) return CXL_EINVAL;
+    if (loss->fit) return cxl_loss_fit_usable_range(loss->fit, min_freq_hz, max_freq_hz);
+    return cxl_loss_model_range(loss->model, min_freq_hz, max_freq_hz);
+}
+
+cxl_status cxl_loss_cable_db_per_m(const cxl_loss_cable *loss, double freq_hz, unsigned flags,
+                                   double *loss_db_per_m)
+{
+    if (!loss || (flags & ~CXL_LOSS_EXTRAPOLATE)) return CXL_EINVAL;
+    if (loss->fit) return cxl_loss_fit_eval(loss->fit, freq_hz, flags, loss_db_per_m);
+    return cxl_loss_model_attenuation(loss->model, freq_hz, flags, loss_db_per_m);
+}
+
+cxl_status cxl_loss_cable_difference(const cxl_loss_cable *loss, double length_a_m,
+                                     double length_b_m, double freq_hz, double *loss_db)
+{
+    double db_per_m;
+    if (!loss_db || !cxl__finite_nonneg(length_a_m) || !cxl__finite_nonneg(length_b_m))
+        return CXL_EINVAL;
+    cxl_status st = cxl_loss_cable_db_per_m(loss, freq_hz, 0, &db_per_m);
+    if (st != CXL_OK) return st;
+    return cxl__put_finite(db_per_m * (length_b_m - length_a_m), loss_db);
 }

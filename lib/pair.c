@@ -20,6 +20,7 @@
  */
 #include <config.h>
 #include <math.h>
+#include <stdlib.h>
 #include "coaxline.h"
 #include "internal.h"
 
@@ -131,4 +132,180 @@ cxl_status cxl_pair_check(const double *lengths_m, size_t count, double vf,
     *phase_error_deg = err;
     *uncertainty_deg = u;
     return CXL_OK;
+}
+
+/* ---- lines into a load ----------------------------------------------
+ *
+ * A phasing line is judged by the phase of the voltage it delivers into
+ * what it feeds (a combiner input, a preamplifier), which departs from its
+ * electrical length whenever the load does not match the line:
+ *     V_load / V_in = (1 + G) / (e^{gamma l} + G e^{-gamma l})
+ * (Pozar, Microwave Engineering, 4th ed., sec. 2.3; cxl_transfer_*).  The
+ * error of a set of lines is the largest delay into the load minus the
+ * smallest; its uncertainty the worst spread over the corners of the
+ * tolerance box, each length within length_tol_m and the VF within vf_tol
+ * (taken as the same electrical length on a line scaled by VF / VF':
+ * exact for the lossless form, Z0 and loss held for the physical one). */
+
+struct cxl_pair_load {
+    const cxl_loss_model *model; /* borrowed; NULL: the lossless form */
+    double z0_ohm;               /* the lossless form */
+    double re_ohm, im_ohm;       /* the load */
+};
+
+static int valid_load(double re_ohm, double im_ohm)
+{
+    return cxl__finite_nonneg(re_ohm) && isfinite(im_ohm) && (re_ohm > 0.0 || im_ohm != 0.0);
+}
+
+static cxl_status load_alloc(const cxl_loss_model *model, double z0_ohm, double re_ohm,
+                             double im_ohm, cxl_pair_load **load)
+{
+    cxl_pair_load *l = malloc(sizeof *l);
+    if (!l) return CXL_ENOMEM;
+    l->model = model;
+    l->z0_ohm = z0_ohm;
+    l->re_ohm = re_ohm;
+    l->im_ohm = im_ohm;
+    *load = l;
+    return CXL_OK;
+}
+
+cxl_status cxl_pair_load_new_lossless(double z0_ohm, double load_re_ohm, double load_im_ohm,
+                                      cxl_pair_load **load)
+{
+    if (!load || !cxl__finite_pos(z0_ohm) || !valid_load(load_re_ohm, load_im_ohm))
+        return CXL_EINVAL;
+    return load_alloc(NULL, z0_ohm, load_re_ohm, load_im_ohm, load);
+}
+
+cxl_status cxl_pair_load_new_model(const cxl_loss_model *model, double load_re_ohm,
+                                   double load_im_ohm, cxl_pair_load **load)
+{
+    if (!load || !model || !valid_load(load_re_ohm, load_im_ohm)) return CXL_EINVAL;
+    return load_alloc(model, 0.0, load_re_ohm, load_im_ohm, load);
+}
+
+void cxl_pair_load_free(cxl_pair_load *load)
+{
+    free(load);
+}
+
+cxl_status cxl_pair_load_transfer(const cxl_pair_load *load, double length_m, double vf,
+                                  double freq_hz, double *transfer_db, double *delay_deg,
+                                  double *electrical_deg)
+{
+    double db, delay, el;
+    if (!load || !transfer_db || !delay_deg || !cxl__valid_vf(vf)) return CXL_EINVAL;
+    cxl_status st = load->model
+        ? cxl_transfer_model(load->model, freq_hz, 0, length_m, load->re_ohm, load->im_ohm,
+                             &db, &delay, &el)
+        : cxl_transfer_lossless(load->z0_ohm, vf, length_m, freq_hz, load->re_ohm,
+                                load->im_ohm, &db, &delay, &el);
+    if (st != CXL_OK) return st;
+    if (!isfinite(db) || !isfinite(delay) || !isfinite(el)) return CXL_ERANGE;
+    *transfer_db = db;
+    *delay_deg = delay;
+    if (electrical_deg) *electrical_deg = el;
+    return CXL_OK;
+}
+
+/* The delay into the load of each corner of the tolerance box: the worst
+ * spread between the longest and the shortest line. */
+static cxl_status load_worst_spread(const cxl_pair_load *load, double lo_m, double hi_m,
+                                    double vf, double freq_hz, double length_tol_m,
+                                    double vf_tol, double *worst_deg)
+{
+    double db, da, dl;
+    *worst_deg = 0.0;
+    for (int v = -1; v <= 1; v += 2) {
+        double k = vf / (vf + v * vf_tol);
+        for (int sign = -1; sign <= 1; sign += 2) {
+            double a = (hi_m + sign * length_tol_m) * k;
+            double b = fmax(lo_m - sign * length_tol_m, 0.0) * k;
+            if (!isfinite(a) || !isfinite(b)) return CXL_ERANGE; /* huge tolerances */
+            cxl_status st = cxl_pair_load_transfer(load, fmax(a, 0.0), vf, freq_hz, &db, &da, NULL);
+            if (st == CXL_OK) st = cxl_pair_load_transfer(load, b, vf, freq_hz, &db, &dl, NULL);
+            if (st != CXL_OK) return st;
+            *worst_deg = fmax(*worst_deg, fabs(da - dl));
+        }
+    }
+    return CXL_OK;
+}
+
+cxl_status cxl_pair_load_check(const cxl_pair_load *load, const double *lengths_m,
+                               size_t count, double vf, double freq_hz,
+                               double tolerance_deg, double length_tol_m, double vf_tol,
+                               double *phase_error_deg, double *uncertainty_deg,
+                               double *electrical_error_deg, double *imbalance_db,
+                               cxl_verdict *verdict)
+{
+    if (!load || !lengths_m || count < 2 || !phase_error_deg || !uncertainty_deg ||
+        !electrical_error_deg || !imbalance_db || !verdict || !cxl__valid_vf(vf) ||
+        !cxl__finite_pos(freq_hz) || !cxl__finite_pos(tolerance_deg) ||
+        !valid_tolerances(length_tol_m, vf, vf_tol))
+        return CXL_EINVAL;
+    double lo = lengths_m[0], hi = lengths_m[0];
+    for (size_t i = 0; i < count; i++) {
+        if (!cxl__finite_pos(lengths_m[i])) return CXL_EINVAL;
+        lo = fmin(lo, lengths_m[i]);
+        hi = fmax(hi, lengths_m[i]);
+    }
+    double dmin = INFINITY, dmax = -INFINITY, gmin = INFINITY, gmax = -INFINITY;
+    double elo = 0.0, ehi = 0.0;
+    for (size_t i = 0; i < count; i++) {
+        double g, d, e;
+        cxl_status st = cxl_pair_load_transfer(load, lengths_m[i], vf, freq_hz, &g, &d, &e);
+        if (st != CXL_OK) return st;
+        dmin = fmin(dmin, d);
+        dmax = fmax(dmax, d);
+        gmin = fmin(gmin, g);
+        gmax = fmax(gmax, g);
+        if (lengths_m[i] == lo) elo = e;
+        if (lengths_m[i] == hi) ehi = e;
+    }
+    double err = dmax - dmin, unc = 0.0;
+    if (length_tol_m > 0.0 || vf_tol > 0.0) {
+        double worst;
+        cxl_status st = load_worst_spread(load, lo, hi, vf, freq_hz, length_tol_m, vf_tol, &worst);
+        if (st != CXL_OK) return st;
+        unc = fmax(worst - err, 0.0);
+    }
+    double elec = ehi - elo, imb = gmax - gmin;
+    if (!isfinite(err) || !isfinite(unc) || !isfinite(elec) || !isfinite(imb)) return CXL_ERANGE;
+    cxl_status st = cxl_pair_verdict(err, unc, tolerance_deg, verdict);
+    if (st != CXL_OK) return st;
+    *phase_error_deg = err;
+    *uncertainty_deg = unc;
+    *electrical_error_deg = elec;
+    *imbalance_db = imb;
+    return CXL_OK;
+}
+
+/* The delay grows with length, by exactly 180 degrees per half wavelength
+ * on a lossless line, so the answer lies within ceil(tol / 180) + 1 half
+ * wavelengths of the shortest line: bisection on that bracket. */
+cxl_status cxl_pair_load_max_mismatch(const cxl_pair_load *load, double tolerance_deg,
+                                      double length_m, double vf, double freq_hz,
+                                      double *delta_m)
+{
+    double db, d0, e0, d, e;
+    if (!load || !delta_m || !cxl__finite_pos(tolerance_deg) || !cxl__finite_pos(length_m))
+        return CXL_EINVAL;
+    cxl_status st = cxl_pair_load_transfer(load, length_m, vf, freq_hz, &db, &d0, &e0);
+    if (st != CXL_OK) return st;
+    if (!(e0 > 0.0)) return CXL_ENOCONV;
+    double lo = 0.0, hi = length_m * 180.0 / e0 * (ceil(tolerance_deg / 180.0) + 1.0);
+    if (!isfinite(length_m + hi)) return CXL_ERANGE;
+    st = cxl_pair_load_transfer(load, length_m + hi, vf, freq_hz, &db, &d, &e);
+    if (st != CXL_OK) return st;
+    if (!(d - d0 >= tolerance_deg)) return CXL_ENOCONV;
+    for (int i = 0; i < 200 && hi - lo > 1e-12 * (length_m + hi); i++) {
+        double mid = 0.5 * (lo + hi);
+        st = cxl_pair_load_transfer(load, length_m + mid, vf, freq_hz, &db, &d, &e);
+        if (st != CXL_OK) return st;
+        if (d - d0 >= tolerance_deg) hi = mid;
+        else lo = mid;
+    }
+    return cxl__put_finite(0.5 * (lo + hi), delta_m);
 }

@@ -107,6 +107,7 @@ static const kind K_REGION = { "region", LIST(-1, 4, INT_MIN, INT_MAX), LIST(0, 
 static const kind K_DECIMALS = { "decimals", LIST(-1, 18, INT_MIN, INT_MAX), LIST(0, 17) };
 static const kind K_PROP = { "cable property", LIST(-1, 11, INT_MIN, INT_MAX), NONE };
 static const kind K_ANYINT = { "any int", NONE, LIST(0, -1, INT_MIN, INT_MAX) };
+static const kind K_EFLAGS = { "extrapolate flag", LIST(2, 4, 8, 0x80000000u, UINT_MAX), LIST(0, 1) };
 static const kind K_FLAGS = { "loss flags", LIST(4, 8, 0x80000000u, UINT_MAX), LIST(0, 1, 2, 3) };
 /* the physical model also takes CXL_LOSS_THIN_SKIN (4) */
 static const kind K_MFLAGS = { "model flags", LIST(8, 16, 0x80000000u, UINT_MAX), LIST(0, 1, 2, 3, 4, 7) };
@@ -164,6 +165,8 @@ static const char *const lenient[] = {
     "cxl_stub_set_vf_range",      /* a VF of 1 above vf_max, a tiny vf_max */
     "cxl_pair_phase_uncertainty", /* a tiny VF under vf_tol, a huge vf_tol */
     "cxl_pair_check",             /* the same */
+    "cxl_pair_load_check",        /* the same */
+    "cxl_array_pair_set_feed",    /* a frequency of 0 with an end-fire feed */
     "cxl_hybrid_response",        /* |Gamma| of 1 with another one */
     "cxl_trim_add_reading",       /* order 0 among given orders */
     "cxl_sweep_resonances",       /* a length of 0 with a VF guess */
@@ -513,6 +516,54 @@ ADAPTER(pair_check)
     return st;
 }
 
+/* lines into a load: a lossless 50 ohm line into 75+j10 ohm */
+static cxl_pair_load *fresh_pair_load(void)
+{
+    cxl_pair_load *l = NULL;
+    ck_assert_int_eq(cxl_pair_load_new_lossless(50, 75, 10, &l), CXL_OK);
+    return l;
+}
+NEW_ADAPTER(pair_load_new_lossless, cxl_pair_load,
+            cxl_pair_load_new_lossless(a[0], a[1], a[2], P(0, &h)), cxl_pair_load_free)
+NEW_ADAPTER(pair_load_new_model, cxl_pair_load,
+            cxl_pair_load_new_model(P(0, g_model), a[0], a[1], P(1, &h)), cxl_pair_load_free)
+ADAPTER(pair_load_transfer)
+{
+    cxl_pair_load *l = fresh_pair_load();
+    cxl_status st = cxl_pair_load_transfer(P(0, l), a[0], a[1], a[2], P(1, &o[0]), P(2, &o[1]),
+                                           P(3, &o[2]));
+    cxl_pair_load_free(l);
+    return st;
+}
+ADAPTER(pair_load_transfer_model)
+{
+    cxl_pair_load *l = NULL;
+    ck_assert_int_eq(cxl_pair_load_new_model(g_model, 75, 10, &l), CXL_OK);
+    cxl_status st = cxl_pair_load_transfer(P(0, l), a[0], a[1], a[2], P(1, &o[0]), P(2, &o[1]),
+                                           P(3, &o[2]));
+    cxl_pair_load_free(l);
+    return st;
+}
+ADAPTER(pair_load_check)
+{
+    double lengths[2] = { a[0], a[1] };
+    cxl_verdict v = (cxl_verdict)SENT;
+    cxl_pair_load *l = fresh_pair_load();
+    cxl_status st = cxl_pair_load_check(P(0, l), P(1, lengths), to_size(a[2]), a[3], a[4], a[5],
+                                        a[6], a[7], P(2, &o[0]), P(3, &o[1]), P(4, &o[2]),
+                                        P(5, &o[3]), P(6, &v));
+    o[4] = (double)v;
+    cxl_pair_load_free(l);
+    return st;
+}
+ADAPTER(pair_load_max_mismatch)
+{
+    cxl_pair_load *l = fresh_pair_load();
+    cxl_status st = cxl_pair_load_max_mismatch(P(0, l), a[0], a[1], a[2], a[3], P(1, &o[0]));
+    cxl_pair_load_free(l);
+    return st;
+}
+
 /* cable.c */
 NEW_ADAPTER(catalog_new, cxl_catalog, cxl_catalog_new(P(0, &h)), cxl_catalog_free)
 ADAPTER(catalog_load_cables)
@@ -627,6 +678,52 @@ ADAPTER(loss_fit_coefficients)
 {
     (void)a;
     return cxl_loss_fit_coefficients(P(0, g_fit), P(1, &o[0]), P(2, &o[1]));
+}
+/* a catalog cable's loss: RG-174 (index 0, a table from 30 MHz) */
+NEW_ADAPTER(loss_cable_new, cxl_loss_cable,
+            cxl_loss_cable_new(P(0, g_cat), to_size(a[0]), P(1, &h)), cxl_loss_cable_free)
+static cxl_loss_cable *fresh_loss_cable(void)
+{
+    cxl_loss_cable *l = NULL;
+    ck_assert_int_eq(cxl_loss_cable_new(g_cat, 0, &l), CXL_OK);
+    return l;
+}
+ADAPTER(loss_cable_kind)
+{
+    (void)a;
+    cxl_loss_cable *l = fresh_loss_cable();
+    cxl_loss_kind k = (cxl_loss_kind)SENT;
+    cxl_status st = cxl_loss_cable_kind(P(0, l), P(1, &k));
+    o[0] = k;
+    cxl_loss_cable_free(l);
+    return st;
+}
+ADAPTER(loss_cable_range)
+{
+    (void)a;
+    cxl_loss_cable *l = fresh_loss_cable();
+    cxl_status st = cxl_loss_cable_range(P(0, l), P(1, &o[0]), P(2, &o[1]));
+    cxl_loss_cable_free(l);
+    return st;
+}
+ADAPTER(loss_cable_db_per_m)
+{
+    cxl_loss_cable *l = fresh_loss_cable();
+    cxl_status st = cxl_loss_cable_db_per_m(P(0, l), a[0], to_uint(a[1]), P(1, &o[0]));
+    cxl_loss_cable_free(l);
+    return st;
+}
+ADAPTER(loss_cable_difference)
+{
+    cxl_loss_cable *l = fresh_loss_cable();
+    cxl_status st = cxl_loss_cable_difference(P(0, l), a[0], a[1], a[2], P(1, &o[0]));
+    cxl_loss_cable_free(l);
+    return st;
+}
+ADAPTER(loss_fit_usable_range)
+{
+    (void)a;
+    return cxl_loss_fit_usable_range(P(0, g_fit), P(1, &o[0]), P(2, &o[1]));
 }
 ADAPTER(loss_fit_range)
 {
@@ -753,6 +850,33 @@ PAIR_SETTER(pair_set_flip, cxl_array_pair_set_flip(P(0, p), to_int(a[0]), to_int
 PAIR_SETTER(pair_set_imbalance, cxl_array_pair_set_imbalance(P(0, p), a[0]))
 PAIR_SETTER(pair_set_isotropic, ((void)a, cxl_array_pair_set_isotropic(P(0, p))))
 PAIR_SETTER(pair_set_long_wire, cxl_array_pair_set_long_wire(P(0, p), a[0], a[1]))
+
+/* design feed of a pair staggered 20 m, read back */
+ADAPTER(pair_set_feed)
+{
+    cxl_array_pair *p = fresh_pair();
+    ck_assert_int_eq(cxl_array_pair_set_geometry(p, 0.0, 20.0), CXL_OK);
+    cxl_status st = cxl_array_pair_set_feed(P(0, p), (cxl_feed)to_int(a[0]), a[1]);
+    for (int k = 0; k < 2 && st == CXL_OK; k++) {
+        int flip = -1;
+        ck_assert_int_eq(cxl_array_pair_feed(p, k, &o[2 * k], &flip), CXL_OK);
+        o[2 * k + 1] = flip;
+    }
+    cxl_array_pair_free(p);
+    return st;
+}
+ADAPTER(pair_feed)
+{
+    int flip = (int)SENT;
+    cxl_status st = cxl_array_pair_feed(P(0, g_pair), to_int(a[0]), P(1, &o[0]), P(2, &flip));
+    o[1] = flip;
+    return st;
+}
+ADAPTER(pair_built_phase)
+{
+    double design[2] = { a[0], a[1] }, built[2] = { a[2], a[3] };
+    return cxl_array_pair_built_phase(P(0, design), P(1, built), a[4], a[5], P(2, &o[0]));
+}
 
 ADAPTER(array_field)
 {
@@ -1458,6 +1582,19 @@ static api_case cases[] = {
     { "cxl_pair_check", call_pair_check, 8, {10.0, 10.02, 2, 0.66, F, 5, 0.005, 0.01},
       {&K_POS, &K_POS, &K_COUNT1, &K_VF, &K_POS, &K_POS, &K_NONNEG, &K_NONNEG}, 5, 0, 4,
       2, {{10.0, 10.02, 1, 0.66, F, 5, 0.005, 0.01}, {10.0, 10.02, 2, 0.66, F, 5, 0.005, 0.7}} },
+    { "cxl_pair_load_new_lossless", call_pair_load_new_lossless, 3, {50, 75, 10},
+      {&K_POS, &K_NONNEG, &K_FIN}, 1, 0, 1, 1, {{50, 0, 0}} /* a short */ },
+    { "cxl_pair_load_new_model", call_pair_load_new_model, 2, {75, -10}, {&K_NONNEG, &K_FIN}, 2, 0,
+      1, 1, {{0, 0}} /* a short */ },
+    { "cxl_pair_load_transfer", call_pair_load_transfer, 3, {30, 0.66, F},
+      {&K_NONNEG, &K_VF, &K_POS}, 4, 0x8, 3, 0, {{0}} },
+    { "cxl_pair_load_transfer", call_pair_load_transfer_model, 3, {30, 0.66, 10e6},
+      {&K_NONNEG, &K_VF, &K_POS}, 4, 0x8, 3, 1, {{30, 0.66, 1e3}} /* below the model's range */ },
+    { "cxl_pair_load_check", call_pair_load_check, 8, {10.0, 10.02, 2, 0.66, F, 5, 0.005, 0.01},
+      {&K_POS, &K_POS, &K_COUNT1, &K_VF, &K_POS, &K_POS, &K_NONNEG, &K_NONNEG}, 7, 0, 5,
+      2, {{10.0, 10.02, 1, 0.66, F, 5, 0.005, 0.01}, {10.0, 10.02, 2, 0.66, F, 5, 0.005, 0.7}} },
+    { "cxl_pair_load_max_mismatch", call_pair_load_max_mismatch, 4, {5, 10.0, 0.66, F},
+      {&K_POS, &K_POS, &K_VF, &K_POS}, 2, 0, 1, 0, {{0}} },
     /* cable.c */
     { "cxl_catalog_new", call_catalog_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
     { "cxl_catalog_load_cables", call_catalog_load_cables, 0, {0}, {0}, 5, 0x1C, 1, 0, {{0}} },
@@ -1477,6 +1614,14 @@ static api_case cases[] = {
       2, {{1.8e6, 30e6, 0.012, 0.055, 1}, {30e6, 30e6, 0.012, 0.055, 2}} },
     { "cxl_loss_fit_new_cable", call_loss_fit_new_cable, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
     { "cxl_loss_fit_coefficients", call_loss_fit_coefficients, 0, {0}, {0}, 3, 0, 2, 0, {{0}} },
+    { "cxl_loss_fit_usable_range", call_loss_fit_usable_range, 0, {0}, {0}, 3, 0, 2, 0, {{0}} },
+    { "cxl_loss_cable_new", call_loss_cable_new, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
+    { "cxl_loss_cable_kind", call_loss_cable_kind, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
+    { "cxl_loss_cable_range", call_loss_cable_range, 0, {0}, {0}, 3, 0, 2, 0, {{0}} },
+    { "cxl_loss_cable_db_per_m", call_loss_cable_db_per_m, 2, {50e6, 0}, {&K_POS, &K_EFLAGS}, 2, 0, 1,
+      1, {{1e6, 0}} /* below the table's usable range */ },
+    { "cxl_loss_cable_difference", call_loss_cable_difference, 3, {20, 20.3, 50e6},
+      {&K_NONNEG, &K_NONNEG, &K_POS}, 2, 0, 1, 1, {{20, 20.3, 1e6}} /* below the range */ },
     { "cxl_loss_fit_range", call_loss_fit_range, 0, {0}, {0}, 3, 0, 2, 0, {{0}} },
     { "cxl_loss_fit_count", call_loss_fit_count, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
     { "cxl_loss_fit_point", call_loss_fit_point, 1, {1}, {&K_INDEX}, 4, 0, 3, 0, {{0}} },
@@ -1511,6 +1656,13 @@ static api_case cases[] = {
     { "cxl_array_pair_set_delay_deg", call_pair_set_delay_deg, 3, {1, 90, F},
       {&K_ELEMENT, &K_NONNEG, &K_POS}, 1, 0, 1, 0, {{0}} },
     { "cxl_array_pair_set_phase_offset", call_pair_set_phase_offset, 2, {1, 5}, {&K_ELEMENT, &K_FIN}, 1, 0, 1, 0, {{0}} },
+    { "cxl_array_pair_set_feed", call_pair_set_feed, 2, {CXL_FEED_CROSSFIRE, 0}, {&K_ENUM2, &K_NONNEG},
+      1, 0, 4, 0, {{0}} },
+    { "cxl_array_pair_set_feed", call_pair_set_feed, 2, {CXL_FEED_ENDFIRE, F}, {&K_ENUM2, &K_NONNEG},
+      1, 0, 4, 1, {{CXL_FEED_ENDFIRE, 0}} /* end-fire needs its frequency */ },
+    { "cxl_array_pair_feed", call_pair_feed, 1, {1}, {&K_ELEMENT}, 3, 0, 2, 0, {{0}} },
+    { "cxl_array_pair_built_phase", call_pair_built_phase, 6, {0, 60e-9, 1e-9, 62e-9, F, 2},
+      {&K_NONNEG, &K_NONNEG, &K_NONNEG, &K_NONNEG, &K_POS, &K_FIN}, 3, 0, 1, 0, {{0}} },
     { "cxl_array_pair_set_flip", call_pair_set_flip, 2, {1, 1}, {&K_ELEMENT, &K_ANYINT}, 1, 0, 1, 0, {{0}} },
     { "cxl_array_pair_set_imbalance", call_pair_set_imbalance, 1, {1}, {&K_IMB}, 1, 0, 1, 0, {{0}} },
     { "cxl_array_pair_set_isotropic", call_pair_set_isotropic, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },

@@ -1010,6 +1010,113 @@ START_TEST(test_rear_null_budget_limits)
 }
 END_TEST
 
+/* ---- design feeds (Balanis, Antenna Theory, 3rd ed., sec. 6.2-6.3: the
+ * two-element array factor AF = 1 + a e^{j psi}, psi = k d cos(theta) +
+ * beta; a rear null needs psi = pi there) ---- */
+static double rear_over_front(const cxl_array_pair *p, double f)
+{
+    double fr, fi, rr, ri;
+    ck_assert_int_eq(cxl_array_field(p, f, 0.0, 0.0, &fr, &fi), CXL_OK);
+    ck_assert_int_eq(cxl_array_field(p, f, 180.0, 0.0, &rr, &ri), CXL_OK);
+    return hypot(rr, ri) / hypot(fr, fi);
+}
+
+START_TEST(test_feed_crossfire)
+{
+    /* crossfire: the rear element waits the stagger's free-space delay
+     * d / c and is inverted; psi at the rear = -kd + kd + pi = pi at every
+     * frequency, so the rear null is broadband */
+    const double c = 299792458.0, d = 20.0; /* exact: SI definition of the metre */
+    cxl_array_pair *p = NULL;
+    double delay, delay_front;
+    int flip, flip_front;
+    ck_assert_int_eq(cxl_array_pair_new(&p), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_set_geometry(p, 0.0, d), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_set_feed(p, CXL_FEED_CROSSFIRE, 0.0), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_feed(p, 1, &delay, &flip), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_feed(p, 0, &delay_front, &flip_front), CXL_OK);
+    ck_assert_double_eq_tol(delay, d / c, 1e-15 * d / c);
+    ck_assert_int_eq(flip, 1);
+    ck_assert_double_eq(delay_front, 0.0);
+    ck_assert_int_eq(flip_front, 0);
+    const double fs[] = { 1.83e6, 3.6e6, 7.05e6 };
+    for (int i = 0; i < 3; i++) ck_assert(rear_over_front(p, fs[i]) < 1e-9);
+    /* a negative stagger puts element 1 ahead: element 0 waits */
+    ck_assert_int_eq(cxl_array_pair_set_geometry(p, 0.0, -d), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_set_feed(p, CXL_FEED_CROSSFIRE, 0.0), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_feed(p, 0, &delay, &flip), CXL_OK);
+    ck_assert_double_eq_tol(delay, d / c, 1e-15 * d / c);
+    ck_assert_int_eq(flip, 1);
+    ck_assert(rear_over_front(p, 3.6e6) < 1e-9);
+    /* no stagger, no feed */
+    ck_assert_int_eq(cxl_array_pair_set_geometry(p, 10.0, 0.0), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_set_feed(p, CXL_FEED_CROSSFIRE, 0.0), CXL_EINVAL);
+    cxl_array_pair_free(p);
+}
+END_TEST
+
+START_TEST(test_feed_endfire)
+{
+    /* end-fire: the front element waits 180 deg - kd at the design
+     * frequency (here kd = 360 * 1.83e6 * 20 / c = 43.95 deg, so 136.05
+     * deg); the rear null holds at the design frequency only */
+    const double c = 299792458.0, d = 20.0, f = 1.83e6; /* c exact (SI) */
+    cxl_array_pair *p = NULL;
+    double delay, rear_delay;
+    int flip, rear_flip;
+    ck_assert_int_eq(cxl_array_pair_new(&p), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_set_geometry(p, 0.0, d), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_set_feed(p, CXL_FEED_ENDFIRE, f), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_feed(p, 0, &delay, &flip), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_feed(p, 1, &rear_delay, &rear_flip), CXL_OK);
+    double kd_deg = 360.0 * f * d / c;
+    ck_assert_double_eq_tol(delay * 360.0 * f, 180.0 - kd_deg, 1e-9);
+    ck_assert_int_eq(flip, 0);
+    ck_assert_double_eq(rear_delay, 0.0);
+    ck_assert_int_eq(rear_flip, 0);
+    ck_assert(rear_over_front(p, f) < 1e-9);
+    /* away from the design frequency the null fills in: at 1.5 f the rear
+     * phase is no longer pi; |AF| = 2 |cos(psi / 2)| (Balanis 3rd ed.,
+     * sec. 6.2) with psi the phase of A against B */
+    double f2 = 1.5 * f, kd2 = 2.0 * M_PI * f2 * d / c;
+    double beta = -2.0 * M_PI * f2 * delay; /* front element lags */
+    /* A, ahead, hears a front wave kd earlier and a rear one kd later */
+    double psi_front = kd2 + beta, psi_rear = -kd2 + beta;
+    double expect = fabs(cos(psi_rear / 2.0)) / fabs(cos(psi_front / 2.0));
+    ck_assert_double_eq_tol(rear_over_front(p, f2), expect, 1e-9);
+    ck_assert(expect > 0.05);
+    /* a stagger beyond half a wave wraps the delay into [0, 360) degrees */
+    ck_assert_int_eq(cxl_array_pair_set_geometry(p, 0.0, 100.0), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_set_feed(p, CXL_FEED_ENDFIRE, 7.05e6), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_feed(p, 0, &delay, &flip), CXL_OK);
+    double deg = delay * 360.0 * 7.05e6;
+    ck_assert(deg >= 0.0 && deg < 360.0);
+    ck_assert_double_eq_tol(fmod(deg + 360.0 * 7.05e6 * 100.0 / c, 360.0), 180.0, 1e-7);
+    ck_assert(rear_over_front(p, 7.05e6) < 1e-9);
+    /* an end-fire feed needs its frequency */
+    ck_assert_int_eq(cxl_array_pair_set_feed(p, CXL_FEED_ENDFIRE, 0.0), CXL_EINVAL);
+    cxl_array_pair_free(p);
+}
+END_TEST
+
+START_TEST(test_built_phase)
+{
+    /* B's line 1 ns longer than designed (beyond A's 1 ns): 360 f 1e-9
+     * deg; the fixed extra phase added; the sum wrapped to +-180
+     * (common practice, no source: phase = 360 f delay) */
+    const double design[2] = { 0.0, 60e-9 }, built[2] = { 1e-9, 62e-9 };
+    double ph;
+    ck_assert_int_eq(cxl_array_pair_built_phase(design, built, 1.83e6, 0.0, &ph), CXL_OK);
+    ck_assert_double_eq_tol(ph, 360.0 * 1.83e6 * 1e-9, 1e-12);
+    ck_assert_int_eq(cxl_array_pair_built_phase(design, built, 1.83e6, 5.0, &ph), CXL_OK);
+    ck_assert_double_eq_tol(ph, 360.0 * 1.83e6 * 1e-9 + 5.0, 1e-12);
+    /* 1 us at 0.5 MHz is 180 deg; with 10 more, -170 */
+    const double late[2] = { 0.0, 60e-9 + 1e-6 };
+    ck_assert_int_eq(cxl_array_pair_built_phase(design, late, 0.5e6, 10.0, &ph), CXL_OK);
+    ck_assert_double_eq_tol(ph, -170.0, 1e-9);
+}
+END_TEST
+
 int main(void)
 {
     gsl_set_error_handler(gsl_abort);
@@ -1017,6 +1124,9 @@ int main(void)
     TCase *tc = tcase_create("pattern");
     tcase_set_timeout(tc, 60);
     tcase_add_test(tc, test_broadside_half_wave);
+    tcase_add_test(tc, test_feed_crossfire);
+    tcase_add_test(tc, test_feed_endfire);
+    tcase_add_test(tc, test_built_phase);
     tcase_add_test(tc, test_broadside_three_quarter_wave);
     tcase_add_test(tc, test_endfire_quarter_wave);
     tcase_add_test(tc, test_crossfire_directivity);
