@@ -15,7 +15,7 @@ if [ "$(id -u)" -ne 0 ]; then SUDO="sudo"; fi
 # (gnumeric's ssconvert opens the CSV output).
 pkgs="build-essential autoconf automake libtool pkg-config libgsl-dev check"
 if [ "$what" = test ]; then
-    pkgs="$pkgs python3 python3-numpy python3-scipy python3-scikit-rf locales gnumeric"
+    pkgs="$pkgs python3 python3-numpy python3-scipy python3-scikit-rf locales gnumeric pmccabe"
 fi
 missing=""
 for p in $pkgs; do

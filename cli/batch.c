@@ -5,16 +5,18 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <unistd.h>
 #include "cli.h"
 
-enum { OPT_FORMAT = 1000, OPT_UNITS, OPT_INPUT, OPT_CABLES, OPT_CABLE_LOSS, OPT_HELP };
+enum { OPT_FORMAT = 1000, OPT_UNITS, OPT_INPUT, OPT_CABLES, OPT_CABLE_LOSS, OPT_QUIET, OPT_HELP };
 
-static const cli_optdef common_opts[] = {
+const cli_optdef cli_common_opts[] = {
     { "format", "text|csv|json", "output format (default text)", 0 },
     { "units", "metric|imperial", "bare lengths and text output (default metric)", 0 },
     { "input", "FILE|-", "run once per row of a CSV whose header names the options", 0 },
     { "cables", "FILE", "user cables (CSV, same columns as data/cables.csv)", 0 },
     { "cable-loss", "FILE", "user attenuation points (CSV, as data/cable_loss.csv)", 0 },
+    { "quiet", NULL, "no progress on a terminal during long runs", 0 },
     { "help", NULL, "show this help", 0 },
     { NULL, NULL, NULL, 0 }
 };
@@ -24,7 +26,7 @@ void cli_print_command_help(const cli_command *cmd, FILE *fp)
     fprintf(fp, "usage: coaxline %s %s\n%s\n\noptions:\n", cmd->name, cmd->synopsis,
             cmd->summary);
     for (int pass = 0; pass < 2; pass++) {
-        const cli_optdef *o = pass ? common_opts : cmd->opts;
+        const cli_optdef *o = pass ? cli_common_opts : cmd->opts;
         for (; o->name; o++) {
             if (pass && !cmd->batch && strcmp(o->name, "input") == 0) continue;
             char left[64];
@@ -329,7 +331,10 @@ static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
     static char cellbuf[CLI_MAX_OPTS][CELL_SIZE];
     args->row = row;
     size_t rows = 0;
+    cli_progress progress;
+    cli_progress_start(ctx, &progress, "rows");
     for (;;) {
+        cli_progress_step(ctx, &progress, rows);
         errno = 0;
         st = cxl_csv_reader_next(rd, &has_row);
         err = errno;
@@ -375,7 +380,7 @@ static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
         int named = !bad;
         for (int i = 0; cmd->opts[i].name && named; i++) {
             if (!writes_file(&cmd->opts[i]) || args->nval[i] == 0) continue;
-            const char *label = cli_get(args, "label", 0);
+            const char *label = cli_get_if(args, "label");
             if (expand_plot_name(patterns[i], ctx->line, label ? label : "", plot_names[i],
                                  sizeof plot_names[i]) != 0) {
                 code = cli_error(ctx, cmd->opts[i].name, "a shorter file name pattern",
@@ -393,6 +398,7 @@ static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
         if (bad) code = worse(code, CLI_EXIT_USAGE);
         else if (named) code = worse(code, cmd->run(ctx, args));
     }
+    cli_progress_end(ctx, &progress);
     if (rows == 0) {
         ctx->line = 0;
         ctx->input_name = NULL;
@@ -443,8 +449,8 @@ static int exact_option(const cli_command *cmd, const char *name, size_t len)
     for (int i = 0; cmd->opts[i].name; i++)
         if (strlen(cmd->opts[i].name) == len && memcmp(cmd->opts[i].name, name, len) == 0)
             return i;
-    for (int k = 0; common_opts[k].name; k++)
-        if (strlen(common_opts[k].name) == len && memcmp(common_opts[k].name, name, len) == 0)
+    for (int k = 0; cli_common_opts[k].name; k++)
+        if (strlen(cli_common_opts[k].name) == len && memcmp(cli_common_opts[k].name, name, len) == 0)
             return OPT_FORMAT + k;
     return -1;
 }
@@ -455,7 +461,7 @@ static int unknown_option(const cli_ctx *ctx, const char *arg, const char *name,
     const char *best = NULL;
     size_t best_d = (size_t)-1;
     for (int pass = 0; pass < 2; pass++)
-        for (const cli_optdef *o = pass ? common_opts : cmd->opts; o->name; o++) {
+        for (const cli_optdef *o = pass ? cli_common_opts : cmd->opts; o->name; o++) {
             if (pass && !cmd->batch && strcmp(o->name, "input") == 0) continue;
             size_t d = edit_distance(name, len, o->name);
             /* a typed beginning of a longer name is near it */
@@ -471,121 +477,172 @@ static int unknown_option(const cli_ctx *ctx, const char *arg, const char *name,
     return cli_error(ctx, NULL, expected, "unknown option '%s'", arg);
 }
 
+/* What the command line says besides the command's own options. */
+typedef struct cmdline {
+    const char *format, *units, *input;
+    int help, quiet;
+    int first_operand, n_operands;  /* argv index of the first bare word, how many */
+    unsigned common_seen;           /* a common option given twice is an error, as for others */
+} cmdline;
+
+/* Store one option's value: a common option into cl or ctx, the
+ * command's own into args.  Returns 0, or CLI_EXIT_USAGE after an error. */
+static int store_option(cli_ctx *ctx, cli_args *args, cmdline *cl, int c, const char *value)
+{
+    const cli_command *cmd = ctx->cmd;
+    if (c >= OPT_FORMAT && c < OPT_HELP) {
+        unsigned bit = 1u << (c - OPT_FORMAT);
+        if (cl->common_seen & bit)
+            return cli_error(ctx, cli_common_opts[c - OPT_FORMAT].name, "it once",
+                             "given more than once");
+        cl->common_seen |= bit;
+    }
+    if (c == OPT_FORMAT) cl->format = value;
+    else if (c == OPT_UNITS) cl->units = value;
+    else if (c == OPT_INPUT) cl->input = value;
+    else if (c == OPT_CABLES) ctx->cables_path = value;
+    else if (c == OPT_CABLE_LOSS) ctx->loss_path = value;
+    else if (c == OPT_QUIET) cl->quiet = 1;
+    else if (c == OPT_HELP) cl->help = 1;
+    else {
+        if (args->nval[c] > 0 && !cmd->opts[c].repeat)
+            return cli_error(ctx, cmd->opts[c].name, "it once", "given more than once");
+        if (args->nval[c] == CLI_MAX_REPEAT)
+            return cli_error(ctx, cmd->opts[c].name, "at most 32 values",
+                             "given too many times");
+        args->val[c][args->nval[c]++] = value;
+    }
+    return 0;
+}
+
+/* The option at argv[*argi - 1] (--NAME or --NAME=VALUE) and its value,
+ * the next word when it takes one. */
+static int read_option(cli_ctx *ctx, cli_args *args, cmdline *cl, int argc, char **argv,
+                       int *argi)
+{
+    const cli_command *cmd = ctx->cmd;
+    const char *arg = argv[*argi - 1], *name = arg + 2, *eq = strchr(name, '=');
+    size_t len = eq ? (size_t)(eq - name) : strlen(name);
+    int c = exact_option(cmd, name, len);
+    if (c < 0) return unknown_option(ctx, arg, name, len);
+    const cli_optdef *def = c >= OPT_FORMAT ? &cli_common_opts[c - OPT_FORMAT] : &cmd->opts[c];
+    const char *value = "1";
+    if (def->arg && eq) value = eq + 1;
+    else if (def->arg && *argi < argc) value = argv[(*argi)++];
+    else if (def->arg)
+        return cli_error(ctx, NULL, "a value after it, such as --vf 0.66",
+                         "option '%s' needs a value", arg);
+    else if (eq)
+        return cli_error(ctx, def->name, "the option alone, without =VALUE",
+                         "'%s' takes no value", arg);
+    return store_option(ctx, args, cl, c, value);
+}
+
+/* Our own scan rather than getopt_long, which takes any unambiguous
+ * beginning of a name ("--freq" for "--freq-step"): --NAME VALUE,
+ * --NAME=VALUE, --NAME for a flag, "--" ends the options.  A value is the
+ * next word whatever it looks like (--offset -3m).  Returns 0, or
+ * CLI_EXIT_USAGE after an error. */
+static int parse_argv(cli_ctx *ctx, cli_args *args, int argc, char **argv, cmdline *cl)
+{
+    int argi = 1;
+    while (argi < argc) {
+        const char *arg = argv[argi++];
+        if (strcmp(arg, "--") == 0) {
+            if (argi < argc && !cl->first_operand) cl->first_operand = argi;
+            cl->n_operands += argc - argi;
+            break;
+        }
+        if (strncmp(arg, "--", 2) == 0 && arg[2] != '\0') {
+            if (read_option(ctx, args, cl, argc, argv, &argi)) return CLI_EXIT_USAGE;
+            continue;
+        }
+        if (arg[0] == '-' && arg[1] != '\0')
+            return unknown_option(ctx, arg, arg + 1 + (arg[1] == '-'), strlen(arg + 1));
+        if (!cl->first_operand) cl->first_operand = argi - 1;
+        cl->n_operands++;
+    }
+    return 0;
+}
+
+/* One bare argument is the command's positional option (sweep FILE);
+ * any other bare word is an error. */
+static int take_operands(cli_ctx *ctx, cli_args *args, char **argv, cmdline *cl)
+{
+    const cli_command *cmd = ctx->cmd;
+    if (cl->first_operand && cmd->positional && cl->n_operands == 1) {
+        int k = 0;
+        while (cmd->opts[k].name && strcmp(cmd->opts[k].name, cmd->positional) != 0) k++;
+        if (cmd->opts[k].name && args->nval[k] == 0) {
+            args->val[k][args->nval[k]++] = argv[cl->first_operand];
+            cl->first_operand = 0;
+        }
+    }
+    if (cl->first_operand)
+        return cli_error(ctx, NULL, "options only, such as --offset 10m",
+                         "unexpected argument '%s'", argv[cl->first_operand]);
+    return 0;
+}
+
+/* --format and --units into ctx. */
+static int apply_common(cli_ctx *ctx, const cmdline *cl)
+{
+    if (cl->format) {
+        if (strcmp(cl->format, "text") == 0) ctx->format = CLI_TEXT;
+        else if (strcmp(cl->format, "csv") == 0) ctx->format = CLI_CSV;
+        else if (strcmp(cl->format, "json") == 0) ctx->format = CLI_JSON;
+        else return cli_error(ctx, "format", "text, csv or json", "unknown format '%s'", cl->format);
+    }
+    if (cl->units) {
+        if (strcmp(cl->units, "metric") == 0) ctx->units = CXL_UNITS_METRIC;
+        else if (strcmp(cl->units, "imperial") == 0) ctx->units = CXL_UNITS_IMPERIAL;
+        else return cli_error(ctx, "units", "metric or imperial", "unknown units '%s'", cl->units);
+    }
+    return 0;
+}
+
+/* --input: the command must take it, and each file an option writes
+ * must be one per row, or none: a fixed name would keep only the last. */
+static int check_input(cli_ctx *ctx, const cli_args *args, const char *input)
+{
+    const cli_command *cmd = ctx->cmd;
+    if (input && !cmd->batch)
+        return cli_error(ctx, "input", "the command without --input",
+                         "the %s command does not take a batch file", cmd->name);
+    for (int i = 0; input && cmd->opts[i].name; i++)
+        if (writes_file(&cmd->opts[i]) && args->nval[i] &&
+            !strstr(args->val[i][0], "{line}") && !strstr(args->val[i][0], "{label}"))
+            return cli_error(ctx, cmd->opts[i].name, "a name with {line} or {label}, such as "
+                                                     "'plots/{label}.svg'",
+                             "with --input every row writes its own file; '%s' names only one",
+                             args->val[i][0]);
+    return 0;
+}
+
 int cli_run_command(const cli_command *cmd, int argc, char **argv)
 {
     static cli_args args; /* large; one per process */
     memset(&args, 0, sizeof args);
     args.cmd = cmd;
     cli_ctx ctx = { .cmd = cmd, .format = CLI_TEXT, .units = CXL_UNITS_METRIC, .out = stdout };
-
-    const char *format = NULL, *units = NULL, *input = NULL;
-    int help = 0;
-    unsigned common_seen = 0; /* a common option given twice is an error, as for others */
-    /* Our own scan rather than getopt_long, which takes any unambiguous
-     * beginning of a name ("--freq" for "--freq-step"): --NAME VALUE,
-     * --NAME=VALUE, --NAME for a flag, "--" ends the options.  A value is
-     * the next word whatever it looks like (--offset -3m). */
-    int argi = 1, first_operand = 0, n_operands = 0;
-    while (argi < argc) {
-        const char *arg = argv[argi++];
-        if (strcmp(arg, "--") == 0) {
-            if (argi < argc && !first_operand) first_operand = argi;
-            n_operands += argc - argi;
-            break;
-        }
-        if (strncmp(arg, "--", 2) != 0 || arg[2] == '\0') {
-            if (arg[0] == '-' && arg[1] != '\0')
-                return unknown_option(&ctx, arg, arg + 1 + (arg[1] == '-'), strlen(arg + 1));
-            if (!first_operand) first_operand = argi - 1;
-            n_operands++;
-            continue;
-        }
-        const char *name = arg + 2, *eq = strchr(name, '=');
-        size_t len = eq ? (size_t)(eq - name) : strlen(name);
-        int c = exact_option(cmd, name, len);
-        if (c < 0)
-            return unknown_option(&ctx, arg, name, len);
-        const cli_optdef *def = c >= OPT_FORMAT ? &common_opts[c - OPT_FORMAT] : &cmd->opts[c];
-        const char *value = "1";
-        if (def->arg) {
-            if (eq) value = eq + 1;
-            else if (argi < argc) value = argv[argi++];
-            else
-                return cli_error(&ctx, NULL, "a value after it, such as --vf 0.66",
-                                 "option '%s' needs a value", arg);
-        } else if (eq) {
-            return cli_error(&ctx, def->name, "the option alone, without =VALUE",
-                             "'%s' takes no value", arg);
-        }
-        if (c >= OPT_FORMAT && c < OPT_HELP) {
-            unsigned bit = 1u << (c - OPT_FORMAT);
-            if (common_seen & bit)
-                return cli_error(&ctx, common_opts[c - OPT_FORMAT].name, "it once",
-                                 "given more than once");
-            common_seen |= bit;
-        }
-        if (c == OPT_FORMAT) format = value;
-        else if (c == OPT_UNITS) units = value;
-        else if (c == OPT_INPUT) input = value;
-        else if (c == OPT_CABLES) ctx.cables_path = value;
-        else if (c == OPT_CABLE_LOSS) ctx.loss_path = value;
-        else if (c == OPT_HELP) help = 1;
-        else {
-            if (args.nval[c] > 0 && !cmd->opts[c].repeat)
-                return cli_error(&ctx, cmd->opts[c].name, "it once",
-                                 "given more than once");
-            if (args.nval[c] == CLI_MAX_REPEAT)
-                return cli_error(&ctx, cmd->opts[c].name, "at most 32 values",
-                                 "given too many times");
-            args.val[c][args.nval[c]++] = value;
-        }
-    }
-    if (help) {
+    cmdline cl = { 0 };
+    if (parse_argv(&ctx, &args, argc, argv, &cl)) return CLI_EXIT_USAGE;
+    if (cl.help) {
         cli_print_command_help(cmd, stdout);
         return CLI_EXIT_OK; /* main checks that stdout was written */
     }
-    if (first_operand && cmd->positional && n_operands == 1) {
-        /* one bare argument is the command's positional option (sweep FILE) */
-        int k = 0;
-        while (cmd->opts[k].name && strcmp(cmd->opts[k].name, cmd->positional) != 0) k++;
-        if (cmd->opts[k].name && args.nval[k] == 0) {
-            args.val[k][args.nval[k]++] = argv[first_operand];
-            first_operand = 0;
-        }
-    }
-    if (first_operand)
-        return cli_error(&ctx, NULL, "options only, such as --offset 10m",
-                         "unexpected argument '%s'", argv[first_operand]);
-    if (format) {
-        if (strcmp(format, "text") == 0) ctx.format = CLI_TEXT;
-        else if (strcmp(format, "csv") == 0) ctx.format = CLI_CSV;
-        else if (strcmp(format, "json") == 0) ctx.format = CLI_JSON;
-        else return cli_error(&ctx, "format", "text, csv or json", "unknown format '%s'", format);
-    }
-    if (units) {
-        if (strcmp(units, "metric") == 0) ctx.units = CXL_UNITS_METRIC;
-        else if (strcmp(units, "imperial") == 0) ctx.units = CXL_UNITS_IMPERIAL;
-        else return cli_error(&ctx, "units", "metric or imperial", "unknown units '%s'", units);
-    }
+    if (take_operands(&ctx, &args, argv, &cl) || apply_common(&ctx, &cl))
+        return CLI_EXIT_USAGE;
     args.text_labels = ctx.format == CLI_TEXT;
-    if (input && !cmd->batch)
-        return cli_error(&ctx, "input", "the command without --input",
-                         "the %s command does not take a batch file", cmd->name);
-    /* one file per row, or none: a fixed name would keep only the last */
-    for (int i = 0; input && cmd->opts[i].name; i++)
-        if (writes_file(&cmd->opts[i]) && args.nval[i] &&
-            !strstr(args.val[i][0], "{line}") && !strstr(args.val[i][0], "{label}"))
-            return cli_error(&ctx, cmd->opts[i].name, "a name with {line} or {label}, such as "
-                                                      "'plots/{label}.svg'",
-                             "with --input every row writes its own file; '%s' names only one",
-                             args.val[i][0]);
+    ctx.progress = !cl.quiet && isatty(fileno(stderr));
+    if (check_input(&ctx, &args, cl.input)) return CLI_EXIT_USAGE;
 
     /* files named on the command line are read (and checked) even when no
      * row ends up needing the catalog */
     if ((ctx.cables_path || ctx.loss_path) && !cli_catalog(&ctx)) return CLI_EXIT_USAGE;
 
     if (cmd->begin) cmd->begin(&ctx);
-    int code = input ? run_batch(&ctx, &args, input) : cmd->run(&ctx, &args);
+    int code = cl.input ? run_batch(&ctx, &args, cl.input) : cmd->run(&ctx, &args);
     if (cmd->end) code = worse(code, cmd->end(&ctx));
     cli_table_close(&ctx);
     cxl_catalog_free(ctx.catalog);

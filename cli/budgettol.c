@@ -13,7 +13,8 @@ static int parse_goal_number(cli_ctx *ctx, const cli_args *a, cli_goal *g)
     const char *text = cli_get(a, g->option, 0);
     if (g->kind == CLI_GOAL_FB) {
         static const char expected[] = "a ratio in dB above 0, such as 20";
-        if (cli_number(ctx, g->option, text, 0.0, CXL_DB_LIMIT - 1.0, expected, &g->goal_db))
+        if (cli_number(ctx, g->option, text, 0.0, cli_bounds[CLI_BOUND_GOAL_DB].max, expected,
+                       &g->goal_db))
             return CLI_EXIT_USAGE;
         /* a goal of 0 dB or less asks for nothing: any pair meets it */
         if (!(g->goal_db > 0.0))
@@ -21,7 +22,8 @@ static int parse_goal_number(cli_ctx *ctx, const cli_args *a, cli_goal *g)
         return 0;
     }
     static const char expected[] = "a depth below 0 dB, such as -25";
-    if (cli_number(ctx, g->option, text, -(CXL_DB_LIMIT - 1.0), 0.0, expected, &g->goal_db))
+    if (cli_number(ctx, g->option, text, cli_bounds[CLI_BOUND_GOAL_DB].min, 0.0, expected,
+                   &g->goal_db))
         return CLI_EXIT_USAGE;
     if (!(g->goal_db < 0.0))
         return cli_error(ctx, g->option, expected, "'%s' must be below 0 dB", text);
@@ -33,7 +35,7 @@ int cli_goal_parse(cli_ctx *ctx, const cli_args *a, cli_goal *g)
     int n = 0;
     memset(g, 0, sizeof *g);
     for (int k = 0; k < 3; k++)
-        if (cli_count(a, goal_options[k])) {
+        if (cli_count_if(a, goal_options[k])) {
             n++;
             g->kind = (cli_goal_kind)k;
         }
@@ -44,7 +46,7 @@ int cli_goal_parse(cli_ctx *ctx, const cli_args *a, cli_goal *g)
                          n ? "give only one goal" : "a goal is needed");
     if (parse_goal_number(ctx, a, g)) return CLI_EXIT_USAGE;
     if (cli_count(a, "imbalance") &&
-        cli_number(ctx, "imbalance", cli_get(a, "imbalance", 0), -60.0, 60.0,
+        cli_bounded(ctx, "imbalance", cli_get(a, "imbalance", 0), CLI_BOUND_LEVEL_DB,
                    "dB by which B is weaker than A, such as 0.5", &g->imbalance_db))
         return CLI_EXIT_USAGE;
     /* the null and the ratio belong to a geometry: never assume one */

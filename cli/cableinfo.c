@@ -7,12 +7,7 @@
 
 const char *cli_clean(char *buf, size_t size, const char *text)
 {
-    size_t n = 0;
-    if (size == 0) return "";
-    for (; text && *text && n + 1 < size; text++)
-        buf[n++] = (unsigned char)*text < 0x20 || *text == 0x7f ? '?' : *text;
-    buf[n] = '\0';
-    return buf;
+    return cli_escape(buf, size, text);
 }
 
 const char *cli_fmt_range_mhz(char *buf, size_t size, double lo_hz, double hi_hz)

@@ -76,6 +76,7 @@ struct cli_ctx {
     cxl_catalog *catalog;    /* loaded on first use by cli_catalog() */
     int catalog_failed;
     cxl_bands *bands;        /* loaded on first use by cli_bands() */
+    int progress;            /* stderr is a terminal and no --quiet */
 };
 
 /* ---- errors: one line on stderr -------------------------------------- */
@@ -97,8 +98,38 @@ void cli_note(const cli_ctx *ctx, const char *fmt, ...)
 FILE *cli_open_read(const cli_ctx *ctx, const char *field, const char *path,
                     const char *expected, int optional);
 
+/* Progress of a long run on stderr (batch rows, Monte-Carlo trials):
+ * only when ctx->progress (stderr a terminal, no --quiet), only once the
+ * run has lasted a second (CLI_PROGRESS_DELAY_ENV), at most a few updates a second, one line
+ * rewritten in place and cleared at the end, so that nothing of it is
+ * left in the terminal or ever reaches a file or a pipe. */
+#define CLI_PROGRESS_DELAY_ENV "COAXLINE_PROGRESS_DELAY" /* seconds, default 1 */
+typedef struct cli_progress {
+    const char *unit;        /* "rows", "trials" */
+    double delay_s;          /* shown once the run has lasted this long */
+    double start_s, last_s;  /* monotonic clock */
+    int shown;
+} cli_progress;
+void cli_progress_start(const cli_ctx *ctx, cli_progress *p, const char *unit);
+/* done so far; cheap to call per row (looks at the clock every 256). */
+void cli_progress_step(const cli_ctx *ctx, cli_progress *p, size_t done);
+void cli_progress_end(const cli_ctx *ctx, cli_progress *p);
+
 /* ---- option values ---------------------------------------------------- */
 
+/* The look-ups below take only names the command's table declares (its
+ * own options and the shared groups it includes): any other name aborts
+ * with a message naming the command and the option, a mistake in the
+ * program that every test reaching it reports (tests/option_names.sh
+ * checks the literal names of cli/cmd_*.c without running them).  Shared
+ * helpers read an option some of their commands lack with cli_get_if(). */
+/* 1 when the command declares the option name. */
+int cli_declared(const cli_args *a, const char *name);
+/* The first value, count or flag of an option the command may not
+ * declare (NULL, 0, 0 when it does not). */
+const char *cli_get_if(const cli_args *a, const char *name);
+size_t cli_count_if(const cli_args *a, const char *name);
+int cli_flag_if(const cli_args *a, const char *name);
 /* Number of values of an option in this invocation (0 when absent). */
 size_t cli_count(const cli_args *a, const char *name);
 /* i-th value, or NULL. */
@@ -110,21 +141,49 @@ int cli_flag(const cli_args *a, const char *name);
 int cli_items(const cli_ctx *ctx, const cli_args *a, const char *name,
               char *buf, size_t bufsize, const char **items, size_t max);
 
-/* Bounds every value typed on the command line or in a batch cell must
- * keep, so that every number derived from it stays finite and printable
- * in text, CSV and as a tape reading (common practice, no source): no line,
- * stagger or run is longer than 10 000 km, no delay longer than 1 s, coax
- * is used from 1 Hz to 1 THz, and no transmission line is slower than a
- * thousandth of the speed of light. */
-#define CLI_MAX_LENGTH_M 1e7
-#define CLI_MAX_TIME_S 1.0
-#define CLI_MIN_FREQ_HZ 1.0
-#define CLI_MAX_FREQ_HZ 1e12
-#define CLI_MIN_VF 1e-3
+/* ---- bounds (bounds.c): the one table every command applies ------------ */
+
+/* Each quantity's bounds, in SI units (m, s, Hz, ohm, dB, deg, counts),
+ * printed into coaxline(1)'s LIMITS section (coaxline --generate limits);
+ * messages name them through min_text/max_text. */
+typedef enum {
+    CLI_BOUND_DISTANCE, CLI_BOUND_LINE, CLI_BOUND_TIME, CLI_BOUND_FREQ, CLI_BOUND_VF,
+    CLI_BOUND_DEGREES, CLI_BOUND_IMPEDANCE, CLI_BOUND_LINE_Z0, CLI_BOUND_ANALYZER_Z0,
+    CLI_BOUND_RATIO, CLI_BOUND_SWR, CLI_BOUND_LEVEL_DB, CLI_BOUND_GOAL_DB,
+    CLI_BOUND_PHASE_DEG, CLI_BOUND_ORDER, CLI_BOUND_ITEMS, CLI_BOUND_REPEAT,
+    CLI_BOUND_ELEMENTS, CLI_NBOUNDS
+} cli_bound_id;
+
+typedef struct cli_bound {
+    const char *quantity;  /* "line of cable" */
+    const char *applies;   /* what takes it, for the man page */
+    double min, max;       /* magnitude bounds (min 0: above zero or any) */
+    const char *min_text;  /* "1 mm", NULL when min is 0 */
+    const char *max_text;  /* "1000 km" */
+} cli_bound;
+
+extern const cli_bound cli_bounds[CLI_NBOUNDS];
+/* cli_number() with the bounds of row id. */
+int cli_bounded(const cli_ctx *ctx, const char *field, const char *text, cli_bound_id id,
+                const char *expected, double *value);
+/* "from 1 mm to 1000 km" or "up to 10000 km". */
+const char *cli_bound_range(char *buf, size_t size, cli_bound_id id);
+/* coaxline(1)'s LIMITS entries, text through put (troff escaping). */
+void cli_bounds_print_man(FILE *fp, void (*put)(FILE *, const char *));
+
+/* The rows most code reads, by name. */
+#define CLI_MAX_LENGTH_M (cli_bounds[CLI_BOUND_DISTANCE].max)
+#define CLI_MAX_TIME_S (cli_bounds[CLI_BOUND_TIME].max)
+#define CLI_MIN_FREQ_HZ (cli_bounds[CLI_BOUND_FREQ].min)
+#define CLI_MAX_FREQ_HZ (cli_bounds[CLI_BOUND_FREQ].max)
+#define CLI_MIN_VF (cli_bounds[CLI_BOUND_VF].min)
+#define CLI_LINE_MIN_M (cli_bounds[CLI_BOUND_LINE].min)
+#define CLI_LINE_MAX_M (cli_bounds[CLI_BOUND_LINE].max)
+#define CLI_LINE_MIN_VF CLI_MIN_VF
 
 /* Parsers that report a one-line error naming the field.  Each returns 0
- * on success, CLI_EXIT_USAGE after cli_error(); each applies the bounds
- * above. */
+ * on success, CLI_EXIT_USAGE after cli_error(); each applies its row of
+ * cli_bounds (cli_length: CLI_BOUND_DISTANCE). */
 enum { CLI_ANY = 0, CLI_POSITIVE = 1, CLI_NONNEG = 2 };
 int cli_length(const cli_ctx *ctx, const char *field, const char *text,
                int sign_rule, double *length_m);
@@ -224,11 +283,26 @@ const char *cli_fmt_length(const cli_ctx *ctx, char *buf, size_t size,
  * \r, \n, \t, \xHH, \u0085), so a label can neither colour the terminal
  * nor forge a line; CSV and JSON get it as it is (they quote and escape). */
 const char *cli_label(const cli_args *a);
+/* text into buf with control bytes, C1 controls and bytes that are not
+ * UTF-8 escaped as cli_label() shows them (\e, \r, \n, \t, \xHH,
+ * \u0085); cut short at a whole character when buf is full. */
+const char *cli_escape(char *buf, size_t size, const char *text);
 
 /* ---- driver ----------------------------------------------------------- */
 
 int cli_run_command(const cli_command *cmd, int argc, char **argv);
 void cli_print_command_help(const cli_command *cmd, FILE *fp);
+/* The options every command takes besides its own (batch.c). */
+extern const cli_optdef cli_common_opts[];
+
+/* ---- generated from the tables (tables.c) ------------------------------ */
+
+/* `coaxline --generate WHAT` (not in --help: a build and test tool):
+ * "limits" (coaxline(1)'s LIMITS entries, from cli_bounds), "options"
+ * (its OPTION INDEX, from each command's table) or "completion" (the bash
+ * completion script: commands, options, --band names, --cable names,
+ * files, choices).  Returns a CLI_EXIT_* code. */
+int cli_generate(const char *what, const cli_command *const *cmds, size_t ncmds, FILE *fp);
 
 extern const cli_command cli_cmd_cut;
 extern const cli_command cli_cmd_demo;
@@ -426,7 +500,7 @@ extern const cli_command cli_cmd_hybrid;
 
 extern const cli_command cli_cmd_cables;
 extern const cli_command cli_cmd_loss;
-/* Copy of text with control bytes shown as '?', for one-line text output. */
+/* Copy of text escaped as cli_escape() does, for one-line text output. */
 const char *cli_clean(char *buf, size_t size, const char *text);
 /* "1.000-100.000 MHz". */
 const char *cli_fmt_range_mhz(char *buf, size_t size, double lo_hz, double hi_hz);
@@ -474,14 +548,9 @@ extern const cli_command cli_cmd_pair;
 /* ---- phase and pair: input limits, a line into a load, error plots
  *      (linelimits.c, intoload.c, errplot.c) ---------------------------- */
 
-/* Limits that keep every number phase and pair print finite and readable
- * (the same as cut's, common practice, no source): a line from 1 mm to
- * 1000 km, frequencies as cli_freq() bounds them (up to 1 THz), a velocity
- * factor of at least 0.01 (slow-wave delay lines go down to a few
- * hundredths).  Each returns 0, or CLI_EXIT_USAGE after cli_error(). */
-#define CLI_LINE_MIN_M 1e-3
-#define CLI_LINE_MAX_M 1e6
-#define CLI_LINE_MIN_VF 0.01
+/* A line of cable (cli_bounds[CLI_BOUND_LINE]) and its velocity factor,
+ * for phase, pair and loss.  Each returns 0, or CLI_EXIT_USAGE after
+ * cli_error(). */
 int cli_line_length(const cli_ctx *ctx, const char *field, const char *text,
                     double *length_m);
 /* A length worked out from other values (e.g. --reference-deg). */

@@ -83,60 +83,36 @@ static void goal_text(cli_ctx *ctx, const cli_goal *g)
             s->wire ? "long-wire" : "isotropic");
 }
 
-static int budget_run(cli_ctx *ctx, const cli_args *a)
+static void budget_table(cli_ctx *ctx, const cli_args *a, const cli_goal *g,
+                         const cli_freq_point *pts, int n, const budget_point *res)
 {
-    cli_freq_point pts[3 * CLI_MAX_ITEMS + CLI_MAX_ITEMS];
-    budget_point res[sizeof pts / sizeof pts[0]];
-    cli_goal g;
-
-    if (cli_goal_parse(ctx, a, &g)) {
-        cli_goal_free(&g);
-        return CLI_EXIT_USAGE;
+    const char *label = cli_label(a);
+    const cli_pair_spec *spec = &g->spec;
+    int geo = g->kind != CLI_GOAL_INPHASE;
+    for (int i = 0; i < n; i++) {
+        const budget_point *r = &res[i];
+        int has_len = isfinite(r->len_m);
+        cli_cell cells[NCOLS] = {
+            CLI_TXT(label), CLI_TXT(pts[i].band), CLI_TXT(pts[i].edge),
+            CLI_NUM(r->freq_hz / 1e6), CLI_TXT(g->option), CLI_NUM(g->goal_db),
+            geo ? CLI_NUM(spec->elevation_deg) : CLI_NONE, CLI_NUM(g->imbalance_db),
+            CLI_NUM(r->error_free_db), r->reachable ? CLI_NUM(r->tol_deg) : CLI_NONE,
+            spec->has_vf ? CLI_NUM(spec->vf) : CLI_NONE,
+            has_len ? CLI_NUM(r->len_m) : CLI_NONE,
+            has_len ? CLI_NUM(r->len_m / 0.0254) : CLI_NONE,
+        };
+        cli_table_row(ctx, budget_cols, NCOLS, cells);
     }
-    int fb = g.kind == CLI_GOAL_FB, geo = g.kind != CLI_GOAL_INPHASE;
-    double goal_db = g.goal_db;
-    cli_pair_spec spec = g.spec;
-    spec.imbalance_db = g.imbalance_db;
-    int n = cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0], NULL);
-    int result = n < 0 ? CLI_EXIT_USAGE : budget_points(ctx, &g, pts, n, res);
-    if (result == CLI_EXIT_USAGE) {
-        cli_goal_free(&g);
-        return result;
-    }
+}
 
-    const char *label = cli_label(a), *goal = g.option;
-    if (ctx->format != CLI_TEXT) {
-        for (int i = 0; i < n; i++) {
-            const budget_point *r = &res[i];
-            int has_len = isfinite(r->len_m);
-            cli_cell cells[NCOLS] = {
-                CLI_TXT(label), CLI_TXT(pts[i].band), CLI_TXT(pts[i].edge),
-                CLI_NUM(r->freq_hz / 1e6), CLI_TXT(goal), CLI_NUM(goal_db),
-                geo ? CLI_NUM(spec.elevation_deg) : CLI_NONE, CLI_NUM(spec.imbalance_db),
-                CLI_NUM(r->error_free_db), r->reachable ? CLI_NUM(r->tol_deg) : CLI_NONE,
-                spec.has_vf ? CLI_NUM(spec.vf) : CLI_NONE,
-                has_len ? CLI_NUM(r->len_m) : CLI_NONE,
-                has_len ? CLI_NUM(r->len_m / 0.0254) : CLI_NONE,
-            };
-            cli_table_row(ctx, budget_cols, NCOLS, cells);
-        }
-        cli_goal_free(&g);
-        return result;
-    }
-
+static void budget_text_points(cli_ctx *ctx, const cli_goal *g, const cli_freq_point *pts,
+                               int n, const budget_point *res)
+{
     FILE *o = ctx->out;
     char b1[96], b2[96], b3[96];
-    if (ctx->rows_out++) putc('\n', o);
-    fprintf(o, "budget%s%s\n", label[0] ? ": " : "", label);
-    goal_text(ctx, &g);
-    fprintf(o, "  imbalance     %s dB\n", cli_fmt(b1, sizeof b1, spec.imbalance_db, 2));
-    if (spec.has_vf)
-        fprintf(o, "  feed-line VF  %s%s%s\n", cli_fmt(b1, sizeof b1, spec.vf, 4),
-                spec.cable[0] ? "  cable " : "", spec.cable);
-    else
-        fprintf(o, "  feed-line VF  not given: phase only (add --vf or --cable for lengths)\n");
     fprintf(o, "\n  %-6s %-7s %11s %15s %11s  %s\n", "band", "edge", "freq MHz",
-            fb ? "error-free F/B" : "error-free null", "phase deg", "length mismatch within");
+            g->kind == CLI_GOAL_FB ? "error-free F/B" : "error-free null", "phase deg",
+            "length mismatch within");
     for (int i = 0; i < n; i++) {
         const budget_point *r = &res[i];
         fprintf(o, "  %-6s %-7s %11s %12s dB ", pts[i].band, pts[i].edge,
@@ -148,11 +124,14 @@ static int budget_run(cli_ctx *ctx, const cli_args *a)
             fprintf(o, "%11s  %s\n", cli_fmt(b3, sizeof b3, r->tol_deg, 2),
                     isfinite(r->len_m) ? cli_fmt_length(ctx, b2, sizeof b2, r->len_m) : "-");
     }
-    if (result == CLI_EXIT_TOLERANCE && g.kind != CLI_GOAL_FB)
-        fprintf(o, "  (where out of reach the error-free pair's null is already shallower\n"
-                   "  than %s dB: the imbalance or the geometry fills it, whatever the lines)\n",
-                cli_fmt(b1, sizeof b1, goal_db, 2));
-    /* per band, the tightest of its points sets the limit */
+}
+
+/* Per band, the tightest of its points sets the limit. */
+static void budget_text_bands(cli_ctx *ctx, const cli_freq_point *pts, int n,
+                              const budget_point *res)
+{
+    FILE *o = ctx->out;
+    char b1[96], b2[96];
     int first = 1;
     for (int i = 0; i < n; i++) {
         if (!pts[i].band[0] || (i > 0 && strcmp(pts[i].band, pts[i - 1].band) == 0)) continue;
@@ -171,6 +150,48 @@ static int budget_run(cli_ctx *ctx, const cli_args *a)
             fprintf(o, "  %s whole band: phase error within %s deg%s%s\n", pts[i].band,
                     cli_fmt(b1, sizeof b1, tol, 2), isfinite(len) ? ", lines matched within " : "",
                     isfinite(len) ? cli_fmt_length(ctx, b2, sizeof b2, len) : "");
+    }
+}
+
+static void budget_text(cli_ctx *ctx, const cli_args *a, const cli_goal *g,
+                        const cli_freq_point *pts, int n, const budget_point *res, int result)
+{
+    FILE *o = ctx->out;
+    char b1[96];
+    const char *label = cli_label(a);
+    const cli_pair_spec *spec = &g->spec;
+    if (ctx->rows_out++) putc('\n', o);
+    fprintf(o, "budget%s%s\n", label[0] ? ": " : "", label);
+    goal_text(ctx, g);
+    fprintf(o, "  imbalance     %s dB\n", cli_fmt(b1, sizeof b1, g->imbalance_db, 2));
+    if (spec->has_vf)
+        fprintf(o, "  feed-line VF  %s%s%s\n", cli_fmt(b1, sizeof b1, spec->vf, 4),
+                spec->cable[0] ? "  cable " : "", spec->cable);
+    else
+        fprintf(o, "  feed-line VF  not given: phase only (add --vf or --cable for lengths)\n");
+    budget_text_points(ctx, g, pts, n, res);
+    if (result == CLI_EXIT_TOLERANCE && g->kind != CLI_GOAL_FB)
+        fprintf(o, "  (where out of reach the error-free pair's null is already shallower\n"
+                   "  than %s dB: the imbalance or the geometry fills it, whatever the lines)\n",
+                cli_fmt(b1, sizeof b1, g->goal_db, 2));
+    budget_text_bands(ctx, pts, n, res);
+}
+
+static int budget_run(cli_ctx *ctx, const cli_args *a)
+{
+    cli_freq_point pts[3 * CLI_MAX_ITEMS + CLI_MAX_ITEMS];
+    budget_point res[sizeof pts / sizeof pts[0]];
+    cli_goal g;
+
+    if (cli_goal_parse(ctx, a, &g)) {
+        cli_goal_free(&g);
+        return CLI_EXIT_USAGE;
+    }
+    int n = cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0], NULL);
+    int result = n < 0 ? CLI_EXIT_USAGE : budget_points(ctx, &g, pts, n, res);
+    if (result != CLI_EXIT_USAGE) {
+        if (ctx->format != CLI_TEXT) budget_table(ctx, a, &g, pts, n, res);
+        else budget_text(ctx, a, &g, pts, n, res, result);
     }
     cli_goal_free(&g);
     return result;

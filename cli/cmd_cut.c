@@ -26,14 +26,6 @@ static const cli_col cut_cols[] = {
 };
 #define NCOLS (sizeof cut_cols / sizeof cut_cols[0])
 
-/* Limits that keep every number of a cut meaningful and printable in text,
- * CSV and as a tape reading (common practice, no source): no piece of
- * feedline is shorter than a millimetre (the text shows millimetres) or
- * longer than 1000 km; frequencies keep cli_freq()'s bound of 1 THz. */
-#define CUT_MIN_M 1e-3
-#define CUT_MAX_M 1e6
-#define OFFSET_MAX_M 1e7
-
 static int cut_run(cli_ctx *ctx, const cli_args *a)
 {
     const char *kinds[] = { "offset", "delay", "degrees" };
@@ -73,8 +65,8 @@ static int cut_run(cli_ctx *ctx, const cli_args *a)
     } else if (given == 1) {
         if (cli_time(ctx, "delay", text, CLI_POSITIVE, &delay_s)) return CLI_EXIT_USAGE;
     } else {
-        if (cli_number(ctx, "degrees", text, 0.0, 1e6, "electrical degrees above 0, such as 90",
-                       &value))
+        if (cli_bounded(ctx, "degrees", text, CLI_BOUND_DEGREES,
+                        "electrical degrees above 0, such as 90", &value))
             return CLI_EXIT_USAGE;
         if (!(value > 0.0))
             return cli_error(ctx, "degrees", "electrical degrees above 0, such as 90",
@@ -94,19 +86,25 @@ static int cut_run(cli_ctx *ctx, const cli_args *a)
                          "the allowance alone already gives more than the wanted delay");
     /* the library's CXL_ERANGE here is an overflow, not the allowance */
     double cut_m = 0.0, qw_hz = 0.0, offset_m = delay_s * CXL_C_M_PER_S;
-    char len[48] = "";
-    /* name the bound the value misses: a failure of the library for a
-     * tiny delay (underflow) is a length under 1 mm, not over 1000 km */
-    if (!(offset_m <= OFFSET_MAX_M) || offset_m * vf > CUT_MAX_M)
-        snprintf(len, sizeof len, "over 1000 km");
+    /* the cut is a line of cable (cli_bounds[CLI_BOUND_LINE]); name the
+     * bound the value misses: a failure of the library for a tiny delay
+     * (underflow) is a length under the minimum, not over the maximum */
+    const cli_bound *line = &cli_bounds[CLI_BOUND_LINE];
+    char len[64] = "";
+    if (!(offset_m <= CLI_MAX_LENGTH_M) || offset_m * vf > line->max)
+        snprintf(len, sizeof len, "over %s", line->max_text);
     else if (cxl_line_cut_length(delay_s, vf, allowance_m, allowance_vf, &cut_m) != CXL_OK ||
-             !(cut_m >= CUT_MIN_M) || cxl_line_quarter_wave_freq(cut_m, vf, &qw_hz) != CXL_OK)
-        snprintf(len, sizeof len, "of %s m, under 1 mm", cli_fmt(b1, sizeof b1, cut_m, 6));
-    else if (cut_m > CUT_MAX_M)
-        snprintf(len, sizeof len, "over 1000 km");
-    if (len[0])
-        return cli_error(ctx, kinds[given], "a cut length from 1 mm to 1000 km",
-                         "'%s' gives a cut length %s", text, len);
+             !(cut_m >= line->min) || cxl_line_quarter_wave_freq(cut_m, vf, &qw_hz) != CXL_OK)
+        snprintf(len, sizeof len, "of %s m, under %s", cli_fmt(b1, sizeof b1, cut_m, 6),
+                 line->min_text);
+    else if (cut_m > line->max)
+        snprintf(len, sizeof len, "over %s", line->max_text);
+    if (len[0]) {
+        char range[96], expected[128];
+        snprintf(expected, sizeof expected, "a cut length %s",
+                 cli_bound_range(range, sizeof range, CLI_BOUND_LINE));
+        return cli_error(ctx, kinds[given], expected, "'%s' gives a cut length %s", text, len);
+    }
 
     const char *label = cli_label(a);
     if (ctx->format != CLI_TEXT) {

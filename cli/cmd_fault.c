@@ -84,7 +84,7 @@ static int fault_run(cli_ctx *ctx, const cli_args *a)
     const char *cable = "";
     if (cli_vf_or_cable(ctx, a, &vf, &cable)) return CLI_EXIT_USAGE;
     if (cli_count(a, "reference") &&
-        cli_number(ctx, "reference", cli_get(a, "reference", 0), 1e-3, 1e6,
+        cli_bounded(ctx, "reference", cli_get(a, "reference", 0), CLI_BOUND_IMPEDANCE,
                    "a reference impedance in ohm, such as 50", &ref))
         return CLI_EXIT_USAGE;
     cxl_fault_window window = CXL_FAULT_HANN;

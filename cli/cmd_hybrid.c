@@ -60,16 +60,16 @@ static int hybrid_run(cli_ctx *ctx, const cli_args *a)
     unsigned max_turns = 10, npairs = 5;
     if (!cli_count(a, "impedance"))
         return cli_error(ctx, "impedance", "--impedance 75", "the port impedance is needed");
-    if (cli_number(ctx, "impedance", cli_get(a, "impedance", 0), 1e-3, 1e6, z_expected, &z))
+    if (cli_bounded(ctx, "impedance", cli_get(a, "impedance", 0), CLI_BOUND_IMPEDANCE, z_expected, &z))
         return CLI_EXIT_USAGE;
     if (cli_count(a, "to") && cli_count(a, "ratio"))
         return cli_error(ctx, "ratio", "--ratio 2 or --to 75, not both", "both --ratio and --to are given");
     line_z = z;
     if (cli_count(a, "to") &&
-        cli_number(ctx, "to", cli_get(a, "to", 0), 1e-3, 1e6, z_expected, &line_z))
+        cli_bounded(ctx, "to", cli_get(a, "to", 0), CLI_BOUND_IMPEDANCE, z_expected, &line_z))
         return CLI_EXIT_USAGE;
     if (cli_count(a, "ratio") &&
-        cli_number(ctx, "ratio", cli_get(a, "ratio", 0), 1e-4, 1e4,
+        cli_bounded(ctx, "ratio", cli_get(a, "ratio", 0), CLI_BOUND_RATIO,
                    "an impedance ratio such as 2 (for Z/2 up to Z)", &ratio))
         return CLI_EXIT_USAGE;
     if (cli_count(a, "max-turns") &&
@@ -79,7 +79,7 @@ static int hybrid_run(cli_ctx *ctx, const cli_args *a)
         whole(ctx, "pairs", a, 1.0, MAX_PAIRS, "a whole number, 1 to 20", &npairs))
         return CLI_EXIT_USAGE;
     if (cli_count(a, "load-swr") &&
-        cli_number(ctx, "load-swr", cli_get(a, "load-swr", 0), 1.0, 1e6,
+        cli_bounded(ctx, "load-swr", cli_get(a, "load-swr", 0), CLI_BOUND_SWR,
                    "an SWR of 1 or more, such as 1.5", &load_swr))
         return CLI_EXIT_USAGE;
 

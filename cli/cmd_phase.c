@@ -60,7 +60,7 @@ static int reference_length(const cli_ctx *ctx, const cli_args *a, double vf,
         return cli_line_length(ctx, "reference", len, reference_m);
     }
     if (!d) return cli_error(ctx, "reference", expected, "the reference is needed");
-    if (cli_number(ctx, "reference-deg", d, 0.0, 1e9, "electrical degrees above 0, such as 90", deg))
+    if (cli_bounded(ctx, "reference-deg", d, CLI_BOUND_DEGREES, "electrical degrees above 0, such as 90", deg))
         return CLI_EXIT_USAGE;
     if (!(*deg > 0.0))
         return cli_error(ctx, "reference-deg", "electrical degrees above 0, such as 90",

@@ -154,7 +154,7 @@ static int sweep_run(cli_ctx *ctx, const cli_args *a)
         if (cli_vf(ctx, "vf-guess", cli_get(a, "vf-guess", 0), &vf_guess)) return CLI_EXIT_USAGE;
     }
     if (cli_count(a, "reference") &&
-        cli_number(ctx, "reference", cli_get(a, "reference", 0), 1e-3, 1e6,
+        cli_bounded(ctx, "reference", cli_get(a, "reference", 0), CLI_BOUND_IMPEDANCE,
                    "a reference impedance in ohm, such as 50", &ref))
         return CLI_EXIT_USAGE;
     unsigned mask;

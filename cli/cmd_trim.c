@@ -332,11 +332,11 @@ static int result_printable(cli_ctx *ctx, const cli_args *a, const cxl_trim_resu
     double cut, keep, res;
     char b1[48];
     cxl_trim_result_cut(r, &cut, &keep, &res, NULL);
-    if (!(keep >= 1e-3 && keep <= CLI_MAX_LENGTH_M && fabs(cut) <= CLI_MAX_LENGTH_M)) {
+    if (!(keep >= CLI_LINE_MIN_M && keep <= CLI_MAX_LENGTH_M && fabs(cut) <= CLI_MAX_LENGTH_M)) {
         const char *field = cli_count(a, "degrees") ? "degrees"
                           : cli_count(a, "delay") ? "delay" : "match-resonance";
         return cli_error(ctx, field, "a target that keeps from 1 mm to 10000 km of the piece",
-                         "the target keeps %s m", keep < 1e-3 ? "less than 0.001"
+                         "the target keeps %s m", keep < CLI_LINE_MIN_M ? "less than 0.001"
                          : cli_fmt(b1, sizeof b1, keep, 0));
     }
     int bad = !(res <= CLI_MAX_LENGTH_M);

@@ -8,6 +8,7 @@
 #include <string.h>
 #include <math.h>
 #include <sys/stat.h>
+#include <time.h>
 #include "cli.h"
 
 static void prefix(const cli_ctx *ctx, FILE *fp)
@@ -33,6 +34,7 @@ static void vreport(const cli_ctx *ctx, const char *tag, const char *field,
     char msg[512];
     vsnprintf(msg, sizeof msg, fmt, ap);
     fflush(ctx && ctx->out ? ctx->out : stdout);
+    if (ctx && ctx->progress) fputs("\r\033[K", stderr); /* over a progress line */
     prefix(ctx, stderr);
     if (tag) fputs(tag, stderr);
     if (field) fprintf(stderr, "%s: ", field);
@@ -91,6 +93,48 @@ FILE *cli_open_read(const cli_ctx *ctx, const char *field, const char *path,
     return fp;
 }
 
+/* ---- progress --------------------------------------------------------- */
+
+static double now_s(void)
+{
+    struct timespec ts;
+    clock_gettime(CLOCK_MONOTONIC, &ts);
+    return (double)ts.tv_sec + 1e-9 * (double)ts.tv_nsec;
+}
+
+void cli_progress_start(const cli_ctx *ctx, cli_progress *p, const char *unit)
+{
+    p->unit = unit;
+    p->shown = 0;
+    p->delay_s = 1.0;
+    const char *d = getenv(CLI_PROGRESS_DELAY_ENV);
+    double v;
+    if (d && cxl_units_parse_number(d, &v, NULL) == CXL_OK && v >= 0.0 && v <= 3600.0)
+        p->delay_s = v;
+    p->start_s = p->last_s = ctx->progress ? now_s() : 0.0;
+}
+
+void cli_progress_step(const cli_ctx *ctx, cli_progress *p, size_t done)
+{
+    if (!ctx->progress || done % 256 != 0) return;
+    double t = now_s();
+    if (t - p->start_s < p->delay_s || (p->shown && t - p->last_s < 0.25)) return;
+    fflush(ctx->out);
+    fprintf(stderr, "\rcoaxline: %s: %zu %s, %.0f s", ctx->cmd->name, done, p->unit,
+            t - p->start_s);
+    fflush(stderr);
+    p->last_s = t;
+    p->shown = 1;
+}
+
+void cli_progress_end(const cli_ctx *ctx, cli_progress *p)
+{
+    if (!ctx->progress || !p->shown) return;
+    fputs("\r\033[K", stderr); /* the line cleared: nothing left behind */
+    fflush(stderr);
+    p->shown = 0;
+}
+
 /* ---- option values ---------------------------------------------------- */
 
 static int opt_index(const cli_command *cmd, const char *name)
@@ -102,20 +146,54 @@ static int opt_index(const cli_command *cmd, const char *name)
     return -1;
 }
 
-size_t cli_count(const cli_args *a, const char *name)
+int cli_declared(const cli_args *a, const char *name)
+{
+    return opt_index(a->cmd, name) >= 0;
+}
+
+/* The index of a name the command declares.  Looking up one it does not
+ * declare is a mistake in the program (a misspelt name would otherwise
+ * read as "absent" for ever): say which and stop, so every test that
+ * reaches it fails. */
+static int declared_index(const cli_args *a, const char *name)
 {
     int i = opt_index(a->cmd, name);
-    if (i < 0) return 0;
+    if (i < 0) {
+        fflush(stdout);
+        fprintf(stderr, "coaxline: %s: internal error: option '%s' is looked up but not "
+                        "declared in the command's option table\n", a->cmd->name, name);
+        abort();
+    }
+    return i;
+}
+
+size_t cli_count(const cli_args *a, const char *name)
+{
+    int i = declared_index(a, name);
     if (a->row && a->row[i] && a->row[i][0] != '\0') return 1;
     return a->nval[i];
 }
 
 const char *cli_get(const cli_args *a, const char *name, size_t k)
 {
-    int i = opt_index(a->cmd, name);
-    if (i < 0) return NULL;
+    int i = declared_index(a, name);
     if (a->row && a->row[i] && a->row[i][0] != '\0') return k == 0 ? a->row[i] : NULL;
     return k < a->nval[i] ? a->val[i][k] : NULL;
+}
+
+const char *cli_get_if(const cli_args *a, const char *name)
+{
+    return cli_declared(a, name) ? cli_get(a, name, 0) : NULL;
+}
+
+size_t cli_count_if(const cli_args *a, const char *name)
+{
+    return cli_declared(a, name) ? cli_count(a, name) : 0;
+}
+
+int cli_flag_if(const cli_args *a, const char *name)
+{
+    return cli_declared(a, name) && cli_flag(a, name);
 }
 
 int cli_flag(const cli_args *a, const char *name)
@@ -216,25 +294,25 @@ static int check_sign(const cli_ctx *ctx, const char *field, const char *text,
     return 0;
 }
 
-/* What one kind of quantity needs for its messages and bounds. */
+/* What one kind of quantity needs for its messages; its bounds are its
+ * row of cli_bounds. */
 typedef struct quantity {
     const char *kind;            /* "length" */
     const char *expected;        /* example for a parse or sign error */
-    double min_abs, max_abs;     /* bounds on the magnitude (0: none below) */
-    const char *bound_expected;  /* example for a bound error */
-    const char *too_small, *too_big;
+    cli_bound_id bound;
+    const char *example;         /* ", such as 1.83MHz" after the range, or "" */
+    const char *below, *above;   /* "below", "longer than" before the bound */
 } quantity;
 
 static const quantity LENGTH = {
     "length", "a length such as 12.5m, 1250mm, 41ft 6in or 41' 6 3/8\"",
-    0.0, CLI_MAX_LENGTH_M, "a length up to 10000 km", NULL, "longer than 10000 km" };
+    CLI_BOUND_DISTANCE, "", "shorter than", "longer than" };
 static const quantity FREQUENCY = {
     "frequency", "a frequency such as 1.83MHz, 1830kHz or 1830000Hz",
-    CLI_MIN_FREQ_HZ, CLI_MAX_FREQ_HZ, "a frequency from 1 Hz to 1 THz, such as 1.83MHz",
-    "below 1 Hz", "above 1 THz" };
+    CLI_BOUND_FREQ, ", such as 1.83MHz", "below", "above" };
 static const quantity TIME = {
     "time", "a time such as 33.4ns or 0.0334us",
-    0.0, CLI_MAX_TIME_S, "a time up to 1 s, such as 33.4ns", NULL, "longer than 1 s" };
+    CLI_BOUND_TIME, ", such as 33.4ns", "shorter than", "longer than" };
 
 /* The steps every quantity shares: report a parse error, check the sign
  * and the bounds, store. */
@@ -244,10 +322,15 @@ static int finish_quantity(const cli_ctx *ctx, const char *field, const char *te
 {
     if (st != CXL_OK) return report_parse(ctx, field, text, st, pos, q->kind, q->expected);
     if (check_sign(ctx, field, text, v, sign_rule, q->expected)) return CLI_EXIT_USAGE;
-    if (fabs(v) > q->max_abs)
-        return cli_error(ctx, field, q->bound_expected, "'%s' is %s", text, q->too_big);
-    if (fabs(v) < q->min_abs)
-        return cli_error(ctx, field, q->bound_expected, "'%s' is %s", text, q->too_small);
+    const cli_bound *b = &cli_bounds[q->bound];
+    if (fabs(v) > b->max || fabs(v) < b->min) {
+        char range[96], expected[160];
+        snprintf(expected, sizeof expected, "a %s %s%s", q->kind,
+                 cli_bound_range(range, sizeof range, q->bound), q->example);
+        return cli_error(ctx, field, expected, "'%s' is %s %s", text,
+                         fabs(v) > b->max ? q->above : q->below,
+                         fabs(v) > b->max ? b->max_text : b->min_text);
+    }
     *out = v;
     return 0;
 }
@@ -297,7 +380,7 @@ int cli_number(const cli_ctx *ctx, const char *field, const char *text,
 
 int cli_vf(const cli_ctx *ctx, const char *field, const char *text, double *vf)
 {
-    static const char expected[] = "a velocity factor above 0 and at most 1, such as 0.66";
+    static const char expected[] = "a velocity factor from 0.01 to 1, such as 0.66";
     size_t pos = 0;
     double v;
     cxl_status st = cxl_units_parse_number(text, &v, &pos);
@@ -308,7 +391,8 @@ int cli_vf(const cli_ctx *ctx, const char *field, const char *text, double *vf)
     if (!(v > 0.0) || v > 1.0)
         return cli_error(ctx, field, expected, "%s is out of range", text);
     if (v < CLI_MIN_VF)
-        return cli_error(ctx, field, expected, "%s is below 0.001, slower than any line", text);
+        return cli_error(ctx, field, expected, "%s is below %s, slower than any line", text,
+                         cli_bounds[CLI_BOUND_VF].min_text);
     *vf = v;
     return 0;
 }
@@ -402,8 +486,9 @@ int cli_vf_or_cable(cli_ctx *ctx, const cli_args *a, double *vf, const char **ca
     if (cxl_catalog_value(cli_catalog(ctx), i, CXL_CABLE_VF, vf) != CXL_OK)
         return cli_error(ctx, "cable", "a cable with a vf value", "cable '%s' has no velocity factor", c);
     if (*vf < CLI_MIN_VF) /* a user file's row: the same floor as --vf */
-        return cli_error(ctx, "cable", "a cable with a velocity factor of 0.001 or more",
-                         "cable '%s' has a velocity factor below 0.001", c);
+        return cli_error(ctx, "cable", "a cable with a velocity factor of 0.01 or more",
+                         "cable '%s' has a velocity factor below %s", c,
+                         cli_bounds[CLI_BOUND_VF].min_text);
     if (cable_name) *cable_name = name;
     return 0;
 }
@@ -431,13 +516,11 @@ const char *cli_fmt_length(const cli_ctx *ctx, char *buf, size_t size,
     return buf;
 }
 
-/* Escaped copy of a label for a terminal (cli_label); a label is at most
- * a batch cell (64 KiB) or an argument, and each byte takes at most 6. */
-static const char *escape_label(const char *s)
+const char *cli_escape(char *buf, size_t size, const char *s)
 {
-    static char buf[6 * 65536 + 1];
     size_t n = 0;
-    while (*s && n + 7 < sizeof buf) {
+    if (size == 0) return "";
+    while (s && *s && n + 7 < size) {
         unsigned char c = (unsigned char)*s;
         size_t len = cli_utf8_len(s);
         if (c >= 0x20 && c != 0x7f && len == 1) {
@@ -447,13 +530,13 @@ static const char *escape_label(const char *s)
             n += len;
             s += len;
         } else if (len == 2) { /* C1 control, e.g. U+009B (CSI) */
-            n += (size_t)snprintf(buf + n, sizeof buf - n, "\\u%04x", (unsigned char)s[1]);
+            n += (size_t)snprintf(buf + n, size - n, "\\u%04x", (unsigned char)s[1]);
             s += 2;
         } else {
             const char *e = c == 0x1b ? "\\e" : c == '\r' ? "\\r" : c == '\n' ? "\\n"
                           : c == '\t' ? "\\t" : NULL;
-            if (e) n += (size_t)snprintf(buf + n, sizeof buf - n, "%s", e);
-            else n += (size_t)snprintf(buf + n, sizeof buf - n, "\\x%02x", c);
+            if (e) n += (size_t)snprintf(buf + n, size - n, "%s", e);
+            else n += (size_t)snprintf(buf + n, size - n, "\\x%02x", c);
             s++;
         }
     }
@@ -461,9 +544,17 @@ static const char *escape_label(const char *s)
     return buf;
 }
 
+/* Escaped copy of a label for a terminal (cli_label); a label is at most
+ * a batch cell (64 KiB) or an argument, and each byte takes at most 6. */
+static const char *escape_label(const char *s)
+{
+    static char buf[6 * 65536 + 1];
+    return cli_escape(buf, sizeof buf, s);
+}
+
 const char *cli_label(const cli_args *a)
 {
-    const char *l = cli_get(a, "label", 0);
+    const char *l = cli_get_if(a, "label");
     if (!l) return "";
     if (a->text_labels)
         for (const char *p = l; *p; p++) {

@@ -70,7 +70,7 @@ static int parse_load(const cli_ctx *ctx, const char *text, cli_load *load)
 
 static int parse_z0(const cli_ctx *ctx, const char *text, double *z0_ohm)
 {
-    return cli_number(ctx, "z0", text, 1.0, 1000.0, Z0_EXPECTED, z0_ohm);
+    return cli_bounded(ctx, "z0", text, CLI_BOUND_LINE_Z0, Z0_EXPECTED, z0_ohm);
 }
 
 /* A catalog cable: its physical model, or the lossless form at its z0. */

@@ -113,7 +113,7 @@ static int row(cli_ctx *rc, const cxl_csv_reader *rd, const int *map, size_t ind
     }
     if (cell(rd, map, COL_DEGREES)[0]) {
         double deg;
-        if (cli_number(rc, "degrees", cell(rd, map, COL_DEGREES), 0.0, 1e6,
+        if (cli_bounded(rc, "degrees", cell(rd, map, COL_DEGREES), CLI_BOUND_DEGREES,
                        "electrical degrees, 0 or more, such as 90", &deg))
             return CLI_EXIT_USAGE;
         if (!(design_hz > 0.0))
@@ -133,7 +133,7 @@ static int row(cli_ctx *rc, const cxl_csv_reader *rd, const int *map, size_t ind
     e->delay_s = delay;
     if (parse_yes_no(rc, "invert", cell(rd, map, COL_INVERT), &e->invert)) return CLI_EXIT_USAGE;
     if (cell(rd, map, COL_WEIGHT)[0] &&
-        cli_number(rc, "weight", cell(rd, map, COL_WEIGHT), -60.0, 60.0,
+        cli_bounded(rc, "weight", cell(rd, map, COL_WEIGHT), CLI_BOUND_LEVEL_DB,
                    "a relative amplitude in dB, -60 to 60, such as -3", &e->weight_db))
         return CLI_EXIT_USAGE;
     return 0;
@@ -317,13 +317,13 @@ int cli_layout_as_built(cli_ctx *ctx, const char *field, const char *path, cli_l
             }
         }
         if (cell(rd, map, AB_PHASE)[0] &&
-            cli_number(rc, "phase_error", cell(rd, map, AB_PHASE), -180.0, 180.0,
+            cli_bounded(rc, "phase_error", cell(rd, map, AB_PHASE), CLI_BOUND_PHASE_DEG,
                        "degrees the element lags by, -180 to 180", &e->phase_error_deg)) {
             code = CLI_EXIT_USAGE;
             break;
         }
         if (cell(rd, map, AB_IMBALANCE)[0] &&
-            cli_number(rc, "imbalance", cell(rd, map, AB_IMBALANCE), -60.0, 60.0,
+            cli_bounded(rc, "imbalance", cell(rd, map, AB_IMBALANCE), CLI_BOUND_LEVEL_DB,
                        "dB the element is weaker by, -60 to 60", &e->imbalance_db)) {
             code = CLI_EXIT_USAGE;
             break;

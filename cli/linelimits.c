@@ -1,20 +1,21 @@
-/* linelimits.c - bounds on what phase and pair accept, so that every number
- * they print (text, CSV, JSON, plot) is finite and readable: a phase error
- * of 360 f dL / (VF c) stays below about 1e14 degrees within them. */
+/* linelimits.c - a line of cable and its velocity factor as phase, pair
+ * and loss take them, by the rows CLI_BOUND_LINE and CLI_BOUND_VF of
+ * cli_bounds (bounds.c). */
 #include <config.h>
 #include <stdio.h>
 #include "cli.h"
 
-#define LENGTH_EXPECTED "a line length from 1 mm to 1000 km, such as 20.10m"
-
 int cli_line_length_check(const cli_ctx *ctx, const char *field, const char *text,
                           double length_m)
 {
-    if (length_m < CLI_LINE_MIN_M)
-        return cli_error(ctx, field, LENGTH_EXPECTED, "'%s' gives a line shorter than 1 mm", text);
-    if (!(length_m <= CLI_LINE_MAX_M))
-        return cli_error(ctx, field, LENGTH_EXPECTED, "'%s' gives a line longer than 1000 km", text);
-    return 0;
+    const cli_bound *b = &cli_bounds[CLI_BOUND_LINE];
+    if (length_m >= b->min && length_m <= b->max) return 0;
+    char range[96], expected[160];
+    snprintf(expected, sizeof expected, "a line length %s, such as 20.10m",
+             cli_bound_range(range, sizeof range, CLI_BOUND_LINE));
+    return cli_error(ctx, field, expected, "'%s' gives a line %s %s", text,
+                     length_m < b->min ? "shorter than" : "longer than",
+                     length_m < b->min ? b->min_text : b->max_text);
 }
 
 int cli_line_length(const cli_ctx *ctx, const char *field, const char *text,
@@ -44,8 +45,9 @@ int cli_line_vf_check(const cli_ctx *ctx, const cli_args *a, double vf)
 {
     char v[64];
     const char *text = cli_get(a, "vf", 0);
-    if (!(vf >= CLI_LINE_MIN_VF))
+    if (!(vf >= CLI_MIN_VF))
         return cli_error(ctx, "vf", "a velocity factor from 0.01 to 1, such as 0.66",
-                         "'%s' is below 0.01", text ? text : cli_fmt(v, sizeof v, vf, 6));
+                         "'%s' is below %s", text ? text : cli_fmt(v, sizeof v, vf, 6),
+                         cli_bounds[CLI_BOUND_VF].min_text);
     return 0;
 }

@@ -72,6 +72,8 @@ int main(int argc, char **argv)
         printf("coaxline %s (libcoaxline %s)\n", PACKAGE_VERSION, cxl_version());
         return finish(CLI_EXIT_OK);
     }
+    if (strcmp(argv[1], "--generate") == 0 && argc == 3) /* build and test tool */
+        return finish(cli_generate(argv[2], commands, NCOMMANDS, stdout));
     for (size_t i = 0; i < NCOMMANDS; i++)
         if (strcmp(argv[1], commands[i]->name) == 0)
             return finish(cli_run_command(commands[i], argc - 1, argv + 1));

@@ -230,7 +230,7 @@ static int pick_fit(cli_ctx *ctx, const cli_args *a, const vf_file *f, const cha
 {
     size_t fits = 0;
     const vf_row *only = NULL, *hit = NULL;
-    const char *label = cli_get(a, "label", 0); /* as typed, not as shown */
+    const char *label = cli_get_if(a, "label"); /* as typed, not as shown */
     if (!label) label = "";
     for (size_t i = 0; i < f->n; i++) {
         if (f->rows[i].at_hz != 0.0) continue;
@@ -296,6 +296,10 @@ int cli_vf_source_at(cli_ctx *ctx, const cli_args *a, double freq_hz, double *vf
             return cli_error(ctx, "vf-from", "one of --vf, --cable or --vf-from",
                              "--vf-from is given with --%s", cli_get(a, "vf", 0) ? "vf" : "cable");
         if (vf_from_file(ctx, a, path, freq_hz, vf, &at_hz)) return CLI_EXIT_USAGE;
+        if (*vf < CLI_MIN_VF) /* the same floor as --vf (cli_bounds) */
+            return cli_error(ctx, "vf-from", "a file whose VF is 0.01 or more",
+                             "'%s' gives a velocity factor below %s", path,
+                             cli_bounds[CLI_BOUND_VF].min_text);
         if (from)
             snprintf(from, from_size, "from %s%s%s%s", strcmp(path, "-") == 0 ? "standard input" : path,
                      at_hz > 0.0 ? ", the VF at " : "",
@@ -349,7 +353,7 @@ int cli_reading_kind(cli_ctx *ctx, const cli_args *a, int have_model, cxl_dip_ki
         if (*kind != CXL_DIP_MIN_SWR)
             return cli_error(ctx, "analyzer-z0", "--reading min-swr --analyzer-z0 50",
                              "given without --reading min-swr");
-        if (cli_number(ctx, "analyzer-z0", z, 1.0, 1e4, "an impedance in ohm such as 50 or 75",
+        if (cli_bounded(ctx, "analyzer-z0", z, CLI_BOUND_ANALYZER_Z0, "an impedance in ohm such as 50 or 75",
                        ref_ohm))
             return CLI_EXIT_USAGE;
     }

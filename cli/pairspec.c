@@ -18,12 +18,12 @@ static int parse_manual_delay(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s,
     snprintf(line_opt, sizeof line_opt, "line-%s", elem_name[k]);
     snprintf(delay_opt, sizeof delay_opt, "delay-%s", elem_name[k]);
     snprintf(deg_opt, sizeof deg_opt, "degrees-%s", elem_name[k]);
-    int n = (cli_count(a, line_opt) > 0) + (cli_count(a, delay_opt) > 0) +
+    int n = (cli_count_if(a, line_opt) > 0) + (cli_count(a, delay_opt) > 0) +
             (cli_count(a, deg_opt) > 0);
     if (n > 1)
         return cli_error(ctx, line_opt, "one of --line-a, --delay-a or --degrees-a per element",
                          "give the feed delay of element %c only once", k ? 'B' : 'A');
-    if (cli_count(a, line_opt)) {
+    if (cli_count_if(a, line_opt)) {
         if (!s->has_vf)
             return cli_error(ctx, "vf", "--vf 0.66 or --cable NAME with --line-a/--line-b",
                              "a line length needs the cable's velocity factor");
@@ -37,7 +37,7 @@ static int parse_manual_delay(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s,
             return CLI_EXIT_USAGE;
     } else if (cli_count(a, deg_opt)) {
         double deg;
-        if (cli_number(ctx, deg_opt, cli_get(a, deg_opt, 0), 0.0, 1e6,
+        if (cli_bounded(ctx, deg_opt, cli_get(a, deg_opt, 0), CLI_BOUND_DEGREES,
                        "electrical degrees, 0 or more, such as 90", &deg))
             return CLI_EXIT_USAGE;
         if (!(design_hz > 0.0))
@@ -56,7 +56,7 @@ static int parse_preset(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s, doubl
     static const char *const manual[] = { "line-a", "line-b", "delay-a", "delay-b",
                                           "degrees-a", "degrees-b", "invert" };
     for (size_t i = 0; i < sizeof manual / sizeof manual[0]; i++)
-        if (cli_count(a, manual[i]))
+        if (cli_count_if(a, manual[i]))
             return cli_error(ctx, "feed", "--feed alone, or the feed given element by element",
                              "--feed and --%s both describe the feed", manual[i]);
     if (s->stagger_m == 0.0)
@@ -127,7 +127,7 @@ int cli_wire_parse(cli_ctx *ctx, const cli_args *a, int wire, const char *kind,
 static int parse_as_built(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
 {
     s->actual_vf = s->vf;
-    if (cli_count(a, "actual-vf")) {
+    if (cli_count_if(a, "actual-vf")) {
         if (!s->has_vf)
             return cli_error(ctx, "actual-vf", "--actual-vf 0.81 with the design --vf or --cable",
                              "the spool's VF needs the VF the lines were cut for");
@@ -140,7 +140,7 @@ static int parse_as_built(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
         snprintf(opt, sizeof opt, "measured-%s", elem_name[k]);
         s->built_line_m[k] = s->line_m[k];
         s->built_delay_s[k] = s->delay_s[k];
-        if (cli_count(a, opt)) {
+        if (cli_count_if(a, opt)) {
             if (!s->has_vf)
                 return cli_error(ctx, "vf", "--vf 0.66 or --cable NAME with --measured-a/--measured-b",
                                  "a measured length needs the cable's velocity factor");
@@ -154,23 +154,23 @@ static int parse_as_built(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
                                        &s->built_delay_s[k]) != CXL_OK)
             return cli_error(ctx, opt, "a shorter line", "gives no delay");
     }
-    if (cli_count(a, "actual-vf") && !s->has_line[0] && !s->has_line[1] &&
-        !cli_count(a, "measured-a") && !cli_count(a, "measured-b"))
+    if (cli_count_if(a, "actual-vf") && !s->has_line[0] && !s->has_line[1] &&
+        !cli_count_if(a, "measured-a") && !cli_count_if(a, "measured-b"))
         return cli_error(ctx, "actual-vf", "--line-a/--line-b, --measured-a/-b or --feed with --vf",
                          "no line lengths for the spool's VF to act on");
-    if (cli_count(a, "phase-error")) {
-        if (cli_number(ctx, "phase-error", cli_get(a, "phase-error", 0), -180.0, 180.0,
+    if (cli_count_if(a, "phase-error")) {
+        if (cli_bounded(ctx, "phase-error", cli_get(a, "phase-error", 0), CLI_BOUND_PHASE_DEG,
                        "degrees B lags A beyond the design, such as 5 or -3", &s->phase_error_deg))
             return CLI_EXIT_USAGE;
         s->has_errors = 1;
     }
-    if (cli_count(a, "imbalance")) {
-        if (cli_number(ctx, "imbalance", cli_get(a, "imbalance", 0), -60.0, 60.0,
+    if (cli_count_if(a, "imbalance")) {
+        if (cli_bounded(ctx, "imbalance", cli_get(a, "imbalance", 0), CLI_BOUND_LEVEL_DB,
                        "dB by which B is weaker than A, such as 0.5", &s->imbalance_db))
             return CLI_EXIT_USAGE;
         s->has_errors = 1;
     }
-    if (cli_flag(a, "line-loss")) {
+    if (cli_flag_if(a, "line-loss")) {
         size_t idx;
         if (!s->cable[0])
             return cli_error(ctx, "line-loss", "--line-loss with --cable NAME (a catalog cable)",
@@ -181,8 +181,8 @@ static int parse_as_built(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
         if (cxl_loss_cable_new(cat, idx, &s->loss) != CXL_OK)
             return cli_error(ctx, "line-loss", "a cable with diameters or attenuation points",
                              "cable '%s' has no loss data", s->cable);
-        if (!s->has_line[0] && !s->has_line[1] && !cli_count(a, "measured-a") &&
-            !cli_count(a, "measured-b"))
+        if (!s->has_line[0] && !s->has_line[1] && !cli_count_if(a, "measured-a") &&
+            !cli_count_if(a, "measured-b"))
             return cli_error(ctx, "line-loss", "--line-a/--line-b, --measured-a/-b or --feed with --cable",
                              "no line lengths to take the loss of");
         s->line_loss = 1;
