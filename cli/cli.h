@@ -688,4 +688,43 @@ int cli_layout_as_built(cli_ctx *ctx, const char *field, const char *path, cli_l
 extern const cli_command cli_cmd_array;
 extern const cli_command cli_cmd_harness;
 
+/* ---- arrays from a layout (arrayspec.c): shared by array and yield ---- */
+
+/* The layout and its lines, as array and yield declare them. */
+#define CLI_LAYOUT_OPTDEFS \
+    { "layout", "FILE", "layout CSV: label,x,y,z,delay,line,degrees,invert,weight", 0 }, \
+    { "vf", "X", "velocity factor of the layout's line lengths", 0 }, \
+    { "cable", "NAME", "feed-line cable from the catalog (its VF; its loss with --line-loss)", 0 }, \
+    { "line-loss", NULL, "lines lose as the cable's model says (the loss sets each amplitude)", 0 }, \
+    { "design-freq", "F", "frequency at which the degrees column holds", 0 }
+/* --element isotropic|wire|vertical, --wire-length, --wire-vf and
+ * --elevation (default 0, 20 for wires) as array and yield declare them. */
+#define CLI_ARRAY_MODEL_OPTDEFS \
+    { "element", "isotropic|wire|vertical", "element pattern (default isotropic)", 0 }, \
+    { "wire-length", "LEN", "length of each traveling-wave wire", 0 }, \
+    { "wire-vf", "X", "velocity factor along the wire", 0 }, \
+    { "elevation", "DEG", "elevation of the azimuth cut (default 0, 20 for wires)", 0 }
+typedef struct cli_array_model {
+    int kind;                   /* a cxl_element_kind */
+    double wire_length_m, wire_vf;
+    double elevation_deg;       /* of the azimuth cut the results use */
+    const char *model_text;     /* one line for the output */
+} cli_array_model;
+/* Returns 0, or CLI_EXIT_USAGE after cli_error(). */
+int cli_array_model_parse(cli_ctx *ctx, const cli_args *a, cli_array_model *m);
+/* The array of a layout: lines of velocity factor vf (or, with model, the
+ * loss model's line of the same delay), as designed or (built) with the
+ * as-built lengths, actual_vf and per-element errors; element `reversed`
+ * (-1: none) has its polarity turned over. */
+cxl_status cli_layout_array(const cli_layout *lay, const cli_array_model *m, double vf,
+                            double actual_vf, const cxl_loss_model *model, int built,
+                            int reversed, cxl_array **out);
+/* --line-loss: the loss model of the --cable the lines are cut from
+ * (cable: its name, or NULL/"" for --vf, an error then); *model stays
+ * NULL without --line-loss.  Returns 0, or CLI_EXIT_USAGE after
+ * cli_error(). */
+int cli_line_loss_model(cli_ctx *ctx, const cli_args *a, const char *cable,
+                        cxl_loss_model **model);
+extern const cli_command cli_cmd_yield;
+
 #endif

@@ -16,15 +16,8 @@
 #define MAX_PLOT_CURVES 8
 
 static const cli_optdef array_opts[] = {
-    { "layout", "FILE", "layout CSV: label,x,y,z,delay,line,degrees,invert,weight", 0 },
-    { "vf", "X", "velocity factor of the layout's line lengths", 0 },
-    { "cable", "NAME", "feed-line cable from the catalog (its VF; its loss with --line-loss)", 0 },
-    { "line-loss", NULL, "lines lose as the cable's model says (the loss sets each amplitude)", 0 },
-    { "design-freq", "F", "frequency at which the degrees column holds", 0 },
-    { "element", "isotropic|wire|vertical", "element pattern (default isotropic)", 0 },
-    { "wire-length", "LEN", "length of each traveling-wave wire", 0 },
-    { "wire-vf", "X", "velocity factor along the wire", 0 },
-    { "elevation", "DEG", "elevation of the azimuth cut (default 0, 20 for wires)", 0 },
+    CLI_LAYOUT_OPTDEFS,
+    CLI_ARRAY_MODEL_OPTDEFS,
     { "reverse-each", NULL, "also evaluate with each element reversed in turn", 0 },
     { "as-built", "FILE", "per-element errors: label,line,phase_error,imbalance", 0 },
     { "actual-vf", "X", "as built: the spool's real VF (the lines were cut for --vf/--cable)", 0 },
@@ -78,37 +71,10 @@ static void case_name(const array_spec *s, int c, char *buf, size_t size)
 
 static cxl_status build(const array_spec *s, int c, cxl_array **out)
 {
-    cxl_array *a;
-    cxl_status st = cxl_array_new(&a);
-    if (st) return st;
-    int built = c == 1 && s->as_built;
-    int reversed = c > s->as_built ? c - 1 - s->as_built : -1;
-    st = cxl_array_set_element(a, (cxl_element_kind)s->kind, s->wire_length_m, s->wire_vf);
-    for (size_t i = 0; st == CXL_OK && i < s->lay.n; i++) {
-        const cli_layout_elem *e = &s->lay.el[i];
-        st = cxl_array_add(a, e->x_m, e->y_m, e->z_m, NULL);
-        if (st) break;
-        if (e->has_line) {
-            double len = built ? e->built_line_m : e->line_m;
-            double vf = built ? s->actual_vf : s->vf;
-            if (s->model)
-                st = cxl_array_set_line_model(a, i, len * s->vf / vf, s->model);
-            else
-                st = cxl_array_set_line(a, i, len, vf);
-        } else {
-            st = cxl_array_set_delay(a, i, e->delay_s);
-        }
-        if (!st) st = cxl_array_set_reversed(a, i, e->invert != ((int)i == reversed));
-        double w = e->weight_db - (built ? e->imbalance_db : 0.0);
-        if (!st) st = cxl_array_set_weight(a, i, w);
-        if (!st && built) st = cxl_array_set_phase_offset(a, i, -e->phase_error_deg);
-    }
-    if (st) {
-        cxl_array_free(a);
-        return st;
-    }
-    *out = a;
-    return CXL_OK;
+    const cli_array_model m = { s->kind, s->wire_length_m, s->wire_vf, s->elevation_deg,
+                                s->model_text };
+    return cli_layout_array(&s->lay, &m, s->vf, s->actual_vf, s->model, c == 1 && s->as_built,
+                            c > s->as_built ? c - 1 - s->as_built : -1, out);
 }
 
 /* The frequency bound of the geometry, as a one-line error above it. */
@@ -163,27 +129,13 @@ static int evaluate(cli_ctx *ctx, const array_spec *s, int c, double f, array_ro
 
 static int parse_element(cli_ctx *ctx, const cli_args *a, array_spec *s)
 {
-    const char *el = cli_get(a, "element", 0);
-    s->kind = CXL_ELEMENT_ISOTROPIC;
-    s->wire_vf = 1.0;
-    if (el && strcmp(el, "wire") == 0) s->kind = CXL_ELEMENT_WIRE;
-    else if (el && strcmp(el, "vertical") == 0) s->kind = CXL_ELEMENT_VERTICAL;
-    else if (el && strcmp(el, "isotropic") != 0)
-        return cli_error(ctx, "element", "isotropic, wire or vertical", "unknown element '%s'", el);
-    if (cli_wire_parse(ctx, a, s->kind == CXL_ELEMENT_WIRE, el ? el : "isotropic",
-                       &s->wire_length_m, &s->wire_vf))
-        return CLI_EXIT_USAGE;
-    s->elevation_deg = s->kind == CXL_ELEMENT_WIRE ? 20.0 : 0.0;
-    if (cli_count(a, "elevation") &&
-        cli_number(ctx, "elevation", cli_get(a, "elevation", 0), 0.0, 89.0,
-                   "degrees above the horizon, 0 to 89", &s->elevation_deg))
-        return CLI_EXIT_USAGE;
-    if (s->kind == CXL_ELEMENT_WIRE && s->elevation_deg == 0.0)
-        return cli_error(ctx, "elevation", "an elevation above 0 for wires, such as 20",
-                         "a long wire has no response along its own axis at elevation 0");
-    s->model_text = s->kind == CXL_ELEMENT_VERTICAL
-                        ? "short verticals over perfect ground, no mutual coupling"
-                        : "free space, no ground, no mutual coupling";
+    cli_array_model m;
+    if (cli_array_model_parse(ctx, a, &m)) return CLI_EXIT_USAGE;
+    s->kind = m.kind;
+    s->wire_length_m = m.wire_length_m;
+    s->wire_vf = m.wire_vf;
+    s->elevation_deg = m.elevation_deg;
+    s->model_text = m.model_text;
     return 0;
 }
 
@@ -209,16 +161,7 @@ static int parse_spec(cli_ctx *ctx, const cli_args *a, array_spec *s)
             return CLI_EXIT_USAGE;
         s->as_built = 1;
     }
-    if (cli_flag(a, "line-loss")) {
-        if (!cable || !cable[0])
-            return cli_error(ctx, "line-loss", "--cable NAME with --line-loss",
-                             "the lines' loss needs a catalog cable");
-        size_t idx;
-        if (cli_cable_index(ctx, cable, &idx)) return CLI_EXIT_USAGE;
-        if (cxl_loss_model_new_cable(cli_catalog(ctx), idx, &s->model) != CXL_OK)
-            return cli_error(ctx, "line-loss", "a cable with its geometry in the catalog",
-                             "cable '%s' has no geometry for a loss model", cable);
-    }
+    if (cli_line_loss_model(ctx, a, cable, &s->model)) return CLI_EXIT_USAGE;
     if (cli_layout_load(ctx, "layout", cli_get(a, "layout", 0), s->vf, design_hz, &s->lay))
         return CLI_EXIT_USAGE;
     if (cli_count(a, "as-built")) {

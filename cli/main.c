@@ -18,6 +18,7 @@ static const cli_command *const commands[] = {
     &cli_cmd_pattern,
     &cli_cmd_array,
     &cli_cmd_harness,
+    &cli_cmd_yield,
     &cli_cmd_budget,
     &cli_cmd_hybrid,
     &cli_cmd_sweep,

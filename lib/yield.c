@@ -26,8 +26,11 @@
 #define DEG (M_PI / 180.0)
 #define LN10_OVER_20 0.11512925464970228420   /* ln(10) / 20 */
 /* Histogram bins over [-CXL_DB_LIMIT, +CXL_DB_LIMIT], centres at
- * -CXL_DB_LIMIT + i CXL_YIELD_BIN_DB. */
-#define NBINS ((size_t)(2.0 * CXL_DB_LIMIT / CXL_YIELD_BIN_DB + 0.5) + 1)
+ * (i - HALF_BINS) / BINS_PER_DB dB: whole hundredths, so that a quantile
+ * is the nearest double to its printed value. */
+#define BINS_PER_DB ((long)(1.0 / CXL_YIELD_BIN_DB + 0.5))
+#define HALF_BINS ((long)(CXL_DB_LIMIT + 0.5) * BINS_PER_DB)
+#define NBINS ((size_t)(2 * HALF_BINS + 1))
 
 struct cxl_yield {
     double length_tol_m, vf_tol, imbalance_tol_db, phase_tol_deg;
@@ -140,7 +143,7 @@ static uint32_t mix_seed(unsigned long seed)
 
 static size_t bin_of(double db)
 {
-    double x = floor((db + CXL_DB_LIMIT) / CXL_YIELD_BIN_DB + 0.5);
+    double x = floor(db * (double)BINS_PER_DB + 0.5) + (double)HALF_BINS;
     if (!(x > 0.0))
         return 0;
     if (x >= (double)(NBINS - 1))
@@ -229,7 +232,7 @@ static double quantile(const uint64_t *hist, size_t k, int worst_low)
         size_t b = worst_low ? j : NBINS - 1 - j;
         seen += hist[b];
         if (seen >= k)
-            return -CXL_DB_LIMIT + (double)b * CXL_YIELD_BIN_DB;
+            return (double)((long)b - HALF_BINS) / (double)BINS_PER_DB;
     }
     return worst_low ? CXL_DB_LIMIT : -CXL_DB_LIMIT;
 }
