@@ -17,8 +17,6 @@
 #include <config.h>
 #include <math.h>
 #include <stdlib.h>
-#include <gsl/gsl_errno.h>
-#include <gsl/gsl_multifit.h>
 #include "coaxline.h"
 #include "internal.h"
 
@@ -56,30 +54,25 @@ cxl_status cxl_drift_new(const double *freq_hz, const double *vf,
      * columns 1 and x are not numerically the same */
     if (!(f_max > f_min * (1.0 + 1e-9))) return CXL_ERANGE;
     cxl_drift *d = calloc(1, sizeof *d);
-    double *buf = malloc((4 * n + 6) * sizeof *buf);
-    gsl_multifit_linear_workspace *work = gsl_multifit_linear_alloc(n, 2);
-    if (!d || !buf || !work) {
+    double *buf = malloc(4 * n * sizeof *buf);
+    if (!d || !buf) {
         free(d); free(buf);
-        if (work) gsl_multifit_linear_free(work);
         return CXL_ENOMEM;
     }
-    double *X = buf, *w = X + 2 * n, *y = w + n, *c = y + n, *cov = c + 2;
+    double *X = buf, *w = X + 2 * n, *y = w + n, c[2], cov[4];
     for (size_t i = 0; i < n; i++) {
         X[2 * i] = 1.0;
         X[2 * i + 1] = x_of(freq_hz[i]);
         y[i] = vf[i];
         w[i] = vf_err ? 1.0 / (vf_err[i] * vf_err[i]) : 1.0;
     }
-    gsl_matrix_view Xv = gsl_matrix_view_array(X, n, 2);
-    gsl_vector_view wv = gsl_vector_view_array(w, n), yv = gsl_vector_view_array(y, n);
-    gsl_vector_view cv = gsl_vector_view_array(c, 2);
-    gsl_matrix_view covv = gsl_matrix_view_array(cov, 2, 2);
     double chisq = 0.0;
-    int gst = gsl_multifit_wlinear(&Xv.matrix, &wv.vector, &yv.vector, &cv.vector,
-                                   &covv.matrix, &chisq, work);
-    gsl_multifit_linear_free(work);
-    cxl_status st = CXL_ENOCONV;
-    if (gst == GSL_SUCCESS && isfinite(c[0]) && isfinite(c[1])) {
+    cxl_status st = cxl__wfit2(X, w, y, n, c, cov, &chisq);
+    if (st == CXL_ENOMEM) {
+        free(d); free(buf);
+        return st;
+    }
+    if (st == CXL_OK) {
         /* without stated errors the scatter sets the scale (none with two
          * points: the line goes through both); with them, a scatter larger
          * than they explain scales them up (chi^2 per degree of freedom

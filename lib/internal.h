@@ -26,6 +26,13 @@ static inline cxl_status cxl__put_finite(double v, double *out)
  * lowest and highest point (cxl_loss_fit_usable_range). */
 #define CXL__LOSS_FIT_MARGIN 0.1
 
+/* loss.c: weighted least squares of y = c0 x[i][0] + c1 x[i][1] (x row-major,
+ * n rows of 2) with weights w (GSL's wlinear); cov 2x2 row-major and chisq
+ * may be NULL.  CXL_ENOMEM, CXL_ENOCONV (GSL failed or a coefficient is not
+ * finite) or CXL_OK.  The one such fit of the loss table and the VF drift. */
+cxl_status cxl__wfit2(const double *x, const double *w, const double *y, size_t n,
+                      double c[2], double cov[4], double *chisq);
+
 /* Case-insensitive ASCII comparison of n bytes, locale-free. */
 int cxl__ascii_ncaseeq(const char *a, const char *b, size_t n);
 

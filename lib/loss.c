@@ -108,15 +108,36 @@ static int pair_cmp(const void *x, const void *y)
     return (a->f > b->f) - (a->f < b->f);
 }
 
-/* Weighted least squares of y = a sqrt(f) + b f with weights 1/y^2.  The
- * matrices are views of our own arrays, so GSL allocates only its
- * workspace. */
+cxl_status cxl__wfit2(const double *x, const double *w, const double *y, size_t n,
+                      double c[2], double cov[4], double *chisq)
+{
+    double cbuf[2], covbuf[4], chi = 0.0;
+    /* the views are of the caller's arrays (GSL does not write x, w, y) */
+    gsl_matrix_const_view xv = gsl_matrix_const_view_array(x, n, 2);
+    gsl_vector_const_view wv = gsl_vector_const_view_array(w, n);
+    gsl_vector_const_view yv = gsl_vector_const_view_array(y, n);
+    gsl_vector_view cv = gsl_vector_view_array(cbuf, 2);
+    gsl_matrix_view covv = gsl_matrix_view_array(covbuf, 2, 2);
+    gsl_multifit_linear_workspace *work = gsl_multifit_linear_alloc(n, 2);
+    if (!work) return CXL_ENOMEM;
+    int gst = gsl_multifit_wlinear(&xv.matrix, &wv.vector, &yv.vector, &cv.vector,
+                                   &covv.matrix, &chi, work);
+    gsl_multifit_linear_free(work);
+    if (gst != GSL_SUCCESS || !isfinite(cbuf[0]) || !isfinite(cbuf[1])) return CXL_ENOCONV;
+    c[0] = cbuf[0];
+    c[1] = cbuf[1];
+    if (cov) for (int i = 0; i < 4; i++) cov[i] = covbuf[i];
+    if (chisq) *chisq = chi;
+    return CXL_OK;
+}
+
+/* Weighted least squares of y = a sqrt(f) + b f with weights 1/y^2. */
 static cxl_status fit_points(cxl_loss_fit *fit)
 {
     size_t n = fit->n;
-    double *buf = malloc((4 * n + 6) * sizeof *buf);
+    double *buf = malloc(4 * n * sizeof *buf);
     if (!buf) return CXL_ENOMEM;
-    double *x = buf, *w = x + 2 * n, *y = w + n, *c = y + n, *cov = c + 2;
+    double *x = buf, *w = x + 2 * n, *y = w + n, c[2];
     for (size_t i = 0; i < n; i++) {
         double f_mhz = fit->freq_hz[i] * 1e-6; /* MHz keeps the columns alike */
         x[2 * i] = sqrt(f_mhz);
@@ -124,22 +145,10 @@ static cxl_status fit_points(cxl_loss_fit *fit)
         y[i] = fit->loss[i];
         w[i] = 1.0 / (y[i] * y[i]);
     }
-    gsl_matrix_view xv = gsl_matrix_view_array(x, n, 2);
-    gsl_vector_view wv = gsl_vector_view_array(w, n);
-    gsl_vector_view yv = gsl_vector_view_array(y, n);
-    gsl_vector_view cv = gsl_vector_view_array(c, 2);
-    gsl_matrix_view covv = gsl_matrix_view_array(cov, 2, 2);
-    gsl_multifit_linear_workspace *work = gsl_multifit_linear_alloc(n, 2);
-    if (!work) { free(buf); return CXL_ENOMEM; }
-    double chisq;
-    int gst = gsl_multifit_wlinear(&xv.matrix, &wv.vector, &yv.vector, &cv.vector,
-                                   &covv.matrix, &chisq, work);
-    gsl_multifit_linear_free(work);
-    cxl_status st = CXL_ENOCONV;
-    if (gst == 0 && isfinite(c[0]) && isfinite(c[1])) {
+    cxl_status st = cxl__wfit2(x, w, y, n, c, NULL, NULL);
+    if (st == CXL_OK) {
         fit->a_hz = c[0] * 1e-3; /* sqrt(f_MHz) = sqrt(f_Hz) / 1e3 */
         fit->b_hz = c[1] * 1e-6;
-        st = CXL_OK;
         /* extreme points (frequencies or losses near the ends of the
          * double range) can give coefficients whose value or residual at
          * a table point overflows: no such fit leaves the library */
