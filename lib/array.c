@@ -1462,6 +1462,8 @@ cxl_status cxl__array_eval_rear_null(const cxl__array_eval *e, double el_rad,
 {
     double az;
     return rear_null(e, el_rad, &az, depth_db);
+}
+
 /* ---- design feed and as-built errors of the pair ----------------------
  *
  * Crossfire: a wave from the rear reaches the rear element first, by the
