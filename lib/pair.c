@@ -233,24 +233,13 @@ static cxl_status load_worst_spread(const cxl_pair_load *load, double lo_m, doub
     return CXL_OK;
 }
 
-cxl_status cxl_pair_load_check(const cxl_pair_load *load, const double *lengths_m,
-                               size_t count, double vf, double freq_hz,
-                               double tolerance_deg, double length_tol_m, double vf_tol,
-                               double *phase_error_deg, double *uncertainty_deg,
-                               double *electrical_error_deg, double *imbalance_db,
-                               cxl_verdict *verdict)
+/* Delays and gains of every line into the load: the spread of the delays
+ * (the error), of the gains, and the electrical length of the longest line
+ * minus the shortest's (lo_m, hi_m). */
+static cxl_status load_spreads(const cxl_pair_load *load, const double *lengths_m, size_t count,
+                               double vf, double freq_hz, double lo_m, double hi_m,
+                               double *err_deg, double *elec_deg, double *imbalance_db)
 {
-    if (!load || !lengths_m || count < 2 || !phase_error_deg || !uncertainty_deg ||
-        !electrical_error_deg || !imbalance_db || !verdict || !cxl__valid_vf(vf) ||
-        !cxl__finite_pos(freq_hz) || !cxl__finite_pos(tolerance_deg) ||
-        !valid_tolerances(length_tol_m, vf, vf_tol))
-        return CXL_EINVAL;
-    double lo = lengths_m[0], hi = lengths_m[0];
-    for (size_t i = 0; i < count; i++) {
-        if (!cxl__finite_pos(lengths_m[i])) return CXL_EINVAL;
-        lo = fmin(lo, lengths_m[i]);
-        hi = fmax(hi, lengths_m[i]);
-    }
     double dmin = INFINITY, dmax = -INFINITY, gmin = INFINITY, gmax = -INFINITY;
     double elo = 0.0, ehi = 0.0;
     for (size_t i = 0; i < count; i++) {
@@ -261,19 +250,52 @@ cxl_status cxl_pair_load_check(const cxl_pair_load *load, const double *lengths_
         dmax = fmax(dmax, d);
         gmin = fmin(gmin, g);
         gmax = fmax(gmax, g);
-        if (lengths_m[i] == lo) elo = e;
-        if (lengths_m[i] == hi) ehi = e;
+        if (lengths_m[i] == lo_m) elo = e;
+        if (lengths_m[i] == hi_m) ehi = e;
     }
-    double err = dmax - dmin, unc = 0.0;
-    if (length_tol_m > 0.0 || vf_tol > 0.0) {
-        double worst;
-        cxl_status st = load_worst_spread(load, lo, hi, vf, freq_hz, length_tol_m, vf_tol, &worst);
-        if (st != CXL_OK) return st;
+    *err_deg = dmax - dmin;
+    *elec_deg = ehi - elo;
+    *imbalance_db = gmax - gmin;
+    return CXL_OK;
+}
+
+/* The shortest and longest of count >= 2 finite positive lengths; 0 when
+ * one is not. */
+static int length_bounds(const double *lengths_m, size_t count, double *lo_m, double *hi_m)
+{
+    double lo = lengths_m[0], hi = lengths_m[0];
+    for (size_t i = 0; i < count; i++) {
+        if (!cxl__finite_pos(lengths_m[i])) return 0;
+        lo = fmin(lo, lengths_m[i]);
+        hi = fmax(hi, lengths_m[i]);
+    }
+    *lo_m = lo;
+    *hi_m = hi;
+    return 1;
+}
+
+cxl_status cxl_pair_load_check(const cxl_pair_load *load, const double *lengths_m,
+                               size_t count, double vf, double freq_hz,
+                               double tolerance_deg, double length_tol_m, double vf_tol,
+                               double *phase_error_deg, double *uncertainty_deg,
+                               double *electrical_error_deg, double *imbalance_db,
+                               cxl_verdict *verdict)
+{
+    double lo, hi, err, elec, imb, unc = 0.0;
+    if (!load || !lengths_m || count < 2 || !phase_error_deg || !uncertainty_deg ||
+        !electrical_error_deg || !imbalance_db || !verdict || !cxl__valid_vf(vf) ||
+        !cxl__finite_pos(freq_hz) || !cxl__finite_pos(tolerance_deg) ||
+        !valid_tolerances(length_tol_m, vf, vf_tol) || !length_bounds(lengths_m, count, &lo, &hi))
+        return CXL_EINVAL;
+    cxl_status st = load_spreads(load, lengths_m, count, vf, freq_hz, lo, hi, &err, &elec, &imb);
+    if (st == CXL_OK && (length_tol_m > 0.0 || vf_tol > 0.0)) {
+        double worst = 0.0;
+        st = load_worst_spread(load, lo, hi, vf, freq_hz, length_tol_m, vf_tol, &worst);
         unc = fmax(worst - err, 0.0);
     }
-    double elec = ehi - elo, imb = gmax - gmin;
+    if (st != CXL_OK) return st;
     if (!isfinite(err) || !isfinite(unc) || !isfinite(elec) || !isfinite(imb)) return CXL_ERANGE;
-    cxl_status st = cxl_pair_verdict(err, unc, tolerance_deg, verdict);
+    st = cxl_pair_verdict(err, unc, tolerance_deg, verdict);
     if (st != CXL_OK) return st;
     *phase_error_deg = err;
     *uncertainty_deg = unc;

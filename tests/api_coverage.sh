@@ -1,9 +1,10 @@
 #!/bin/sh
-# Every exported cxl_ function must be called in tests/check_api.c, the
-# walk of error paths, so a new API function without an error-path test
-# fails the build.
+# Every exported cxl_ function must be called in tests/check_api.c or the
+# adapters' files tests/check_api_*.c, the walk of error paths, so a new
+# API function without an error-path test fails the build.
 lib="${COAXLINE_BUILDDIR:-.}/lib/.libs/libcoaxline.so"
-src="${COAXLINE_SRCDIR:-.}/tests/check_api.c"
+srcdir="${COAXLINE_SRCDIR:-.}/tests"
+src="$srcdir/check_api.c"
 if [ ! -f "$lib" ]; then
     echo "SKIP: no shared library at $lib"
     exit 77
@@ -17,10 +18,11 @@ pass=0
 fail=0
 for sym in $(nm -D --defined-only "$lib" | awk '$2 == "T" && $3 ~ /^cxl_[a-z]/ {sub(/@.*/, "", $3); print $3}' | sort -u); do
     # a call: the name followed by an opening parenthesis
-    if grep -Eq "(^|[^A-Za-z0-9_])$sym[[:space:]]*\(" "$src"; then
+    if cat "$srcdir"/check_api.c "$srcdir"/check_api_*.c |
+        grep -Eq "(^|[^A-Za-z0-9_])$sym[[:space:]]*\("; then
         pass=$((pass + 1))
     else
-        echo "FAIL: $sym has no error-path test in tests/check_api.c"
+        echo "FAIL: $sym has no error-path test in tests/check_api*.c"
         fail=$((fail + 1))
     fi
 done
