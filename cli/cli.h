@@ -585,6 +585,9 @@ typedef struct cli_load {
  * CLI_EXIT_USAGE after cli_error(); free with cli_load_free() either way. */
 int cli_load_parse(cli_ctx *ctx, const cli_args *a, double vf, cli_load *load);
 void cli_load_free(cli_load *load);
+/* One load impedance R[+-jX] (field "load", the same rules as --load):
+ * 0, or CLI_EXIT_USAGE after cli_error(). */
+int cli_load_impedance(const cli_ctx *ctx, const char *text, double *re_ohm, double *im_ohm);
 /* length_m of the line into the load at freq_hz: transfer in dB, delay in
  * degrees (the phase lag of V_load behind V_in) and the electrical length
  * in degrees.  Returns 0, or CLI_EXIT_USAGE after cli_error(). */
@@ -642,6 +645,18 @@ int cli_fb_sweep_save(cli_ctx *ctx, const cli_args *a, const cli_freq_point *pts
  * ...)", N the line of the file. */
 int cli_sweep_load(const cli_ctx *ctx, const cli_args *a, cxl_sweep **sweep,
                    const char **path_out);
+/* The same for a sweep named in option field (path NULL: none given). */
+int cli_sweep_load_field(const cli_ctx *ctx, const char *field, const char *path,
+                         cxl_sweep **sweep, const char **path_out);
+/* --sweep FILE as readings for vf and trim: the series resonances of the
+ * file of the kind --reading names (zero-x: reactance zeros, min-z: |Z|
+ * minima, min-swr: SWR minima against ref_ohm), ascending, numbered for end
+ * from their spacing (0 with fewer than two); *step_hz the mean point
+ * spacing.  More than max is refused.  0, or CLI_EXIT_USAGE after
+ * cli_error() on field "sweep". */
+int cli_sweep_readings(const cli_ctx *ctx, const char *path, cxl_dip_kind kind, double ref_ohm,
+                       cxl_stub_end end, double *freq_hz, int *order, int max, int *n,
+                       double *step_hz);
 /* "reactance-zero", "impedance-min" or "swr-min". */
 const char *cli_sweep_kind_name(cxl_sweep_kind kind);
 

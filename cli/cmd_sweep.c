@@ -1,8 +1,9 @@
 /* cmd_sweep.c - coaxline sweep: what an analyzer's one-port sweep file
  * holds and the resonances in it (reactance zeros, |Z| and SWR minima),
  * numbered for an open or shorted far end; with --length, the VF each one
- * implies; --plot draws |Z| (or SWR) and the phase with the resonances
- * marked. */
+ * implies and the line fitted to the whole sweep (VF and loss at --at
+ * frequencies, Z0, how well it fits); --plot draws |Z| (or SWR) and the
+ * phase with the resonances marked. */
 #include <config.h>
 #include <complex.h>
 #include <math.h>
@@ -14,8 +15,11 @@
 static const cli_optdef sweep_opts[] = {
     { "file", "FILE", "one-port sweep: Touchstone (.s1p, .ts) or CSV (also the bare argument)", 0 },
     { "reference", "OHM", "reference impedance for Gamma and SWR (default: the file's)", 0 },
-    { "end", "open|short", "far end of the line, for the orders (default open)", 0 },
-    { "length", "LEN", "physical length of the line: the VF each resonance implies", 0 },
+    { "end", "open|short|load", "far end of the line (default open; load: --load R+jX)", 0 },
+    { "length", "LEN", "physical length of the line: the VF each resonance implies, and the fitted line", 0 },
+    { "load", "R[+-jX]", "with --end load: the far end's impedance in ohm, e.g. 12-j30", 0 },
+    { "at", "F", "with --length: the fitted VF and loss at this frequency (default mid-band)", 1 },
+    { "fixture-vf", "X", "with --length: fit a fixture of this VF between reference plane and line", 0 },
     { "vf-guess", "X", "with --length: number the resonances for this VF (default: from their spacing)", 0 },
     { "kind", "LIST", "reactance-zero, impedance-min, swr-min (default all)", 1 },
     { "plot", "FILE.svg", "draw |Z| (or SWR) and the phase against frequency", 0 },
@@ -28,7 +32,9 @@ static const cli_col sweep_cols[] = {
     { "label", -1 }, { "file", -1 }, { "points", 0 }, { "start_mhz", 6 }, { "stop_mhz", 6 },
     { "reference_ohm", 3 }, { "kind", -1 }, { "resonance", -1 }, { "order", 0 },
     { "freq_mhz", 6 }, { "uncertainty_khz", 3 }, { "r_ohm", 3 }, { "z_ohm", 3 }, { "swr", 3 },
-    { "vf", 5 },
+    { "vf", 5 }, { "vf_err", 7 }, { "loss_db_per_100m", 3 }, { "loss_err_db_per_100m", 5 },
+    { "z0_ohm", 3 }, { "z0_err_ohm", 5 }, { "fixture_m", 4 }, { "fixture_err_m", 6 },
+    { "rms_residual", 6 }, { "max_residual", 6 }, { "max_residual_mhz", 6 },
 };
 #define NCOLS (sizeof sweep_cols / sizeof sweep_cols[0])
 
@@ -134,15 +140,159 @@ static int plot(const cli_ctx *ctx, const cli_args *a, const cxl_sweep *s, doubl
     return rc;
 }
 
+/* ---- the line fitted to the whole sweep (--length) ---------------------- */
+
+typedef struct fit_opts {
+    double load_re, load_im, fixture_vf;
+    int fixture;
+    double at[CLI_MAX_ITEMS];
+    int nat;
+} fit_opts;
+
+static int parse_fit_opts(const cli_ctx *ctx, const cli_args *a, int on_load, fit_opts *fo)
+{
+    memset(fo, 0, sizeof *fo);
+    int has_length = cli_count(a, "length") > 0;
+    const char *load = cli_get(a, "load", 0);
+    if (on_load && !load)
+        return cli_error(ctx, "load", "--end load --load 12-j30", "--end load needs the load");
+    if (load && !on_load)
+        return cli_error(ctx, "load", "--end load --load 12-j30", "given without --end load");
+    if (load && cli_load_impedance(ctx, load, &fo->load_re, &fo->load_im)) return CLI_EXIT_USAGE;
+    if (on_load && !has_length)
+        return cli_error(ctx, "length", "--end load --load 12-j30 --length 9m",
+                         "--end load is for the fitted line, which needs the line's --length");
+    if (cli_count(a, "fixture-vf")) {
+        if (!has_length)
+            return cli_error(ctx, "fixture-vf", "--length 10m --fixture-vf 0.7",
+                             "a fixture is fitted with the line, which needs --length");
+        if (cli_vf(ctx, "fixture-vf", cli_get(a, "fixture-vf", 0), &fo->fixture_vf))
+            return CLI_EXIT_USAGE;
+        fo->fixture = 1;
+    }
+    char buf[512];
+    const char *items[CLI_MAX_ITEMS];
+    int n = cli_items(ctx, a, "at", buf, sizeof buf, items, CLI_MAX_ITEMS);
+    if (n < 0) return CLI_EXIT_USAGE;
+    if (n > 0 && !has_length)
+        return cli_error(ctx, "at", "--length 10m --at 7MHz",
+                         "the VF at a frequency comes from the fitted line, which needs --length");
+    for (int i = 0; i < n; i++)
+        if (cli_freq(ctx, "at", items[i], &fo->at[i])) return CLI_EXIT_USAGE;
+    fo->nat = n;
+    return 0;
+}
+
+/* An uncertainty with two significant digits, at least min_dec decimals. */
+static const char *fmt_err(char *buf, size_t size, double v, int min_dec)
+{
+    int dec = min_dec;
+    if (v > 0.0 && isfinite(v)) {
+        int need = 1 - (int)floor(log10(v));
+        if (need > dec) dec = need > 9 ? 9 : need;
+    }
+    return cli_fmt(buf, size, v, dec);
+}
+
+static const char *fit_failure(cxl_status st)
+{
+    switch (st) {
+    case CXL_EEXTRAPOLATE:
+        return "fewer than two series resonances of one kind in the sweep (nothing to start "
+               "the VF from; sweep wider)";
+    case CXL_ENOTFOUND: return "the file holds no phase (an swr column)";
+    case CXL_ENOCONV:
+        return "the fit did not settle on a line (not a uniform line of this length and end?)";
+    default: return cxl_strerror(st);
+    }
+}
+
+static int fitted_line(cli_ctx *ctx, const cxl_sweep *s, const char *path, const char *label,
+                       double length, cxl_stub_end end, int on_load, const fit_opts *fo,
+                       double start, double stop, double ref)
+{
+    cxl_sweepfit *fit = NULL;
+    unsigned flags = (on_load ? CXL_SWEEPFIT_LOAD : 0u) | (fo->fixture ? CXL_SWEEPFIT_FIXTURE : 0u);
+    cxl_status st = cxl_sweepfit_new(s, length, end, fo->load_re, fo->load_im, fo->fixture_vf,
+                                     flags, &fit);
+    FILE *o = ctx->out;
+    if (st != CXL_OK) {
+        if (ctx->format == CLI_TEXT)
+            fprintf(o, "\n  fitted line  none: %s\n", fit_failure(st));
+        else
+            cli_warn(ctx, "%s: no line fitted: %s", path, fit_failure(st));
+        return CLI_EXIT_OK;
+    }
+    double vh, vhe, drop, drope, z0, z0e, fl, fle, rms, mx, mxf;
+    cxl_sweepfit_line(fit, &vh, &vhe, &drop, &drope, &z0, &z0e);
+    cxl_sweepfit_fixture(fit, &fl, &fle);
+    cxl_sweepfit_quality(fit, &rms, &mx, &mxf, NULL, NULL);
+    double mid = 0.5 * (start + stop);
+    const double *at = fo->nat ? fo->at : &mid;
+    int nat = fo->nat ? fo->nat : 1;
+    char b1[64], b2[64], b3[64], b4[64], b5[64];
+    if (ctx->format == CLI_TEXT) {
+        fprintf(o, "\n  fitted line  every point, far end %s, against %s ohm (+/-: one standard "
+                   "deviation)\n", on_load ? "on the load" : end == CXL_STUB_OPEN ? "open" : "short",
+                cli_fmt(b1, sizeof b1, ref, 2));
+        fprintf(o, "    Z0          %s +/- %s ohm\n", cli_fmt(b1, sizeof b1, z0, 2),
+                fmt_err(b2, sizeof b2, z0e, 2));
+        fprintf(o, "    VF trend    %s +/- %s - (%s +/- %s) / sqrt(f in Hz)\n",
+                cli_fmt(b1, sizeof b1, vh, 5), fmt_err(b2, sizeof b2, vhe, 5),
+                cli_fmt(b3, sizeof b3, drop, 2), fmt_err(b4, sizeof b4, drope, 2));
+        if (fo->fixture)
+            fprintf(o, "    fixture     %s +/- %s m\n", cli_fmt(b1, sizeof b1, fl, 3),
+                    fmt_err(b2, sizeof b2, fle, 3));
+        fprintf(o, "    residual    rms %s, largest %s at %s MHz (|Gamma| units)\n",
+                cli_fmt(b1, sizeof b1, rms, 5), cli_fmt(b2, sizeof b2, mx, 5),
+                cli_fmt(b3, sizeof b3, mxf / 1e6, 6));
+        fprintf(o, "\n  %12s %9s %11s  %16s %9s\n", "at MHz", "VF", "+/-", "loss dB/100 m", "+/-");
+    }
+    for (int i = 0; i < nat; i++) {
+        double vf = NAN, vfe = NAN, loss = NAN, losse = NAN;
+        if (cxl_sweepfit_vf(fit, at[i], &vf, &vfe) != CXL_OK) vf = vfe = NAN;
+        if (cxl_sweepfit_loss(fit, at[i], &loss, &losse) != CXL_OK) loss = losse = NAN;
+        if (ctx->format == CLI_TEXT) {
+            fprintf(o, "  %12s %9s %11s  %16s %9s\n", cli_fmt(b1, sizeof b1, at[i] / 1e6, 6),
+                    isfinite(vf) ? cli_fmt(b2, sizeof b2, vf, 5) : "?",
+                    isfinite(vfe) ? fmt_err(b3, sizeof b3, vfe, 5) : "?",
+                    isfinite(loss) ? cli_fmt(b4, sizeof b4, loss * 100.0, 3) : "?",
+                    isfinite(losse) ? fmt_err(b5, sizeof b5, losse * 100.0, 3) : "?");
+            continue;
+        }
+        size_t n = cxl_sweep_count(s);
+        cli_cell cells[NCOLS] = {
+            CLI_TXT(label), CLI_TXT(path), CLI_NUM((double)n), CLI_NUM(start / 1e6),
+            CLI_NUM(stop / 1e6), CLI_NUM(ref), CLI_TXT("fitted-line"), CLI_NONE, CLI_NONE,
+            CLI_NUM(at[i] / 1e6), CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE,
+            isfinite(vf) ? CLI_NUM(vf) : CLI_NONE, isfinite(vfe) ? CLI_NUM(vfe) : CLI_NONE,
+            isfinite(loss) ? CLI_NUM(loss * 100.0) : CLI_NONE,
+            isfinite(losse) ? CLI_NUM(losse * 100.0) : CLI_NONE,
+            CLI_NUM(z0), CLI_NUM(z0e), fo->fixture ? CLI_NUM(fl) : CLI_NONE,
+            fo->fixture ? CLI_NUM(fle) : CLI_NONE, CLI_NUM(rms), CLI_NUM(mx), CLI_NUM(mxf / 1e6),
+        };
+        cli_table_row(ctx, sweep_cols, NCOLS, cells);
+    }
+    if (ctx->format == CLI_TEXT)
+        fprintf(o, "  (the model: a uniform line, VF falling as 1/sqrt(f), loss a sqrt(f) + b f; "
+                   "a residual\n   well above the analyzer's noise says the line is not that)\n");
+    cxl_sweepfit_free(fit);
+    return CLI_EXIT_OK;
+}
+
 static int sweep_run(cli_ctx *ctx, const cli_args *a)
 {
     cxl_stub_end end = CXL_STUB_OPEN;
+    int on_load = 0;
     const char *end_text = cli_get(a, "end", 0);
     if (end_text) {
         if (strcmp(end_text, "open") == 0) end = CXL_STUB_OPEN;
         else if (strcmp(end_text, "short") == 0) end = CXL_STUB_SHORT;
-        else return cli_error(ctx, "end", "open or short", "unknown end '%s'", end_text);
+        else if (strcmp(end_text, "load") == 0) on_load = 1;
+        else return cli_error(ctx, "end", "open, short or load", "unknown end '%s'", end_text);
     }
+    fit_opts fo;
+    if (parse_fit_opts(ctx, a, on_load, &fo)) return CLI_EXIT_USAGE;
     double length = 0.0, vf_guess = 0.0, ref = 0.0;
     if (cli_count(a, "length") &&
         cli_length(ctx, "length", cli_get(a, "length", 0), CLI_POSITIVE, &length))
@@ -175,6 +325,11 @@ static int sweep_run(cli_ctx *ctx, const cli_args *a)
         return cli_error(ctx, "reference", "no --reference for an swr column",
                          "an swr column cannot be moved to another reference");
     }
+    if (on_load && vf_guess > 0) {
+        cxl_sweep_free(s);
+        return cli_error(ctx, "vf-guess", "--end open or short with --vf-guess",
+                         "resonances of a loaded line are not numbered");
+    }
     cxl_sweep_res *r = NULL;
     cxl_status st = cxl_sweep_resonances(s, ref, end, vf_guess > 0 ? length : 0.0, vf_guess, &r);
     if (st != CXL_OK) {
@@ -202,9 +357,13 @@ static int sweep_run(cli_ctx *ctx, const cli_args *a)
         if (!has_phase)
             fprintf(o, "  note        an swr column gives the size of the mismatch only: no "
                        "reactance, no |Z|, no\n              sign, so only SWR minima are found\n");
-        fprintf(o, "  resonances  against %s ohm, far end %s, orders %s\n",
-                cli_fmt(b1, sizeof b1, ref, 2), end == CXL_STUB_OPEN ? "open" : "short",
-                vf_guess > 0 ? "for the VF guess" : "from the spacing of the series resonances");
+        if (on_load)
+            fprintf(o, "  resonances  against %s ohm, far end on a load: not numbered\n",
+                    cli_fmt(b1, sizeof b1, ref, 2));
+        else
+            fprintf(o, "  resonances  against %s ohm, far end %s, orders %s\n",
+                    cli_fmt(b1, sizeof b1, ref, 2), end == CXL_STUB_OPEN ? "open" : "short",
+                    vf_guess > 0 ? "for the VF guess" : "from the spacing of the series resonances");
         fprintf(o, "\n  %12s %11s  %-15s %-9s %5s  %-20s%s\n", "freq MHz", "+/- kHz", "kind",
                 "resonance", "order", "value", length > 0 ? "     VF" : "");
     }
@@ -215,6 +374,7 @@ static int sweep_run(cli_ctx *ctx, const cli_args *a)
         double f, err, value;
         cxl_sweep_res_get(r, i, &kind, &series, &order, &f, &err, &value);
         if (!((mask >> kind) & 1u)) continue;
+        if (on_load) order = 0;
         shown++;
         double vf = NAN;
         if (length > 0 && order > 0) {
@@ -234,12 +394,17 @@ static int sweep_run(cli_ctx *ctx, const cli_args *a)
                 kind == CXL_SWEEP_Z_MIN ? CLI_NUM(value) : CLI_NONE,
                 kind == CXL_SWEEP_SWR_MIN ? CLI_NUM(value) : CLI_NONE,
                 isfinite(vf) ? CLI_NUM(vf) : CLI_NONE,
+                CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE,
+                CLI_NONE, CLI_NONE,
             };
             cli_table_row(ctx, sweep_cols, NCOLS, cells);
             continue;
         }
         char val[40], ord[16];
         if (kind == CXL_SWEEP_X_ZERO) snprintf(val, sizeof val, "R %s ohm", cli_fmt(b1, sizeof b1, value, 2));
+        /* a lossless line's |Z| minimum is 0: "0.00" would read as a
+         * rounded number, so say what two decimals can show */
+        else if (kind == CXL_SWEEP_Z_MIN && value < 0.005) snprintf(val, sizeof val, "|Z| < 0.005 ohm");
         else if (kind == CXL_SWEEP_Z_MIN) snprintf(val, sizeof val, "|Z| %s ohm", cli_fmt(b1, sizeof b1, value, 2));
         else snprintf(val, sizeof val, "SWR %s", cli_fmt(b1, sizeof b1, value, 3));
         if (order > 0) snprintf(ord, sizeof ord, "%d", order);
@@ -254,6 +419,8 @@ static int sweep_run(cli_ctx *ctx, const cli_args *a)
         fprintf(o, "  (+/-: half the point spacing; an order of ? needs --length and --vf-guess, "
                    "or two series resonances)\n");
     }
+    if (length > 0)
+        code = fitted_line(ctx, s, path, label, length, end, on_load, &fo, start, stop, ref);
 done:
     cxl_sweep_res_free(r);
     cxl_sweep_free(s);
@@ -263,7 +430,8 @@ done:
 const cli_command cli_cmd_sweep = {
     .name = "sweep",
     .summary = "an analyzer's one-port sweep file: what it holds, its resonances",
-    .synopsis = "FILE [--end open|short] [--length L [--vf-guess X]] [--plot F.svg] [OPTIONS]",
+    .synopsis = "FILE [--end open|short|load [--load R+jX]] [--length L [--vf-guess X] [--at F]] "
+                "[--plot F.svg] [OPTIONS]",
     .opts = sweep_opts,
     .run = sweep_run,
     .batch = 1,

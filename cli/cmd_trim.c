@@ -12,6 +12,7 @@ static const cli_optdef trim_opts[] = {
     { "end", "open|short", "far end of the piece while reading (default open)", 0 },
     { "resonance", "F", "a low-impedance frequency read on the analyzer (e.g. 1.645MHz)", 1 },
     { "order", "N", "order of each --resonance, in the same order (default: inferred)", 1 },
+    { "sweep", "FILE", "readings from a one-port sweep file: its series resonances of the --reading kind", 0 },
     { "fixture", "LEN", "tee, adapters or jumper between analyzer and piece", 0 },
     { "fixture-vf", "X", "velocity factor of the fixture (default: the piece's cable)", 0 },
     { "fixture-tol", "LEN", "how well the fixture length is known (default 0)", 0 },
@@ -36,6 +37,7 @@ static const cli_col trim_cols[] = {
     { "freq_mhz", 6 }, { "vf", 5 }, { "target_freq_mhz", 6 }, { "target_vf", 5 },
     { "cut_off_m", 4 }, { "cut_off_ft", 4 }, { "cut_off_tape", -1 }, { "remaining_m", 4 },
     { "expected_mhz", 6 }, { "resolution_mm", 1 }, { "remaining_res_mm", 1 }, { "action", -1 },
+    { "reading", -1 },
 };
 #define NCOLS (sizeof trim_cols / sizeof trim_cols[0])
 
@@ -64,12 +66,40 @@ typedef struct trim_in {
     double length_m, fixture_m, fixture_vf, fixture_tol_m, res_hz;
     cxl_stub_end end;
     int n, orders_given;
+    const char *sweep;  /* readings from this sweep file, or NULL */
     double freq_hz[CLI_MAX_ITEMS];
     int order[CLI_MAX_ITEMS];
 } trim_in;
 
+/* --sweep FILE: the file's series resonances of the --reading kind,
+ * numbered from their spacing (two or more), the point spacing as the
+ * analyzer's step unless --resolution is given. */
+static int sweep_readings(cli_ctx *ctx, const cli_args *a, trim_in *in)
+{
+    if (cli_count(a, "resonance") || cli_count(a, "order"))
+        return cli_error(ctx, "sweep", "--sweep FILE or --resonance F [--order N], not both",
+                         "given with --%s", cli_count(a, "resonance") ? "resonance" : "order");
+    cxl_dip_kind kind;
+    double ref_ohm, step;
+    const char *kind_name;
+    if (cli_reading_kind(ctx, a, cli_count(a, "cable") > 0, &kind, &ref_ohm, &kind_name))
+        return CLI_EXIT_USAGE;
+    in->sweep = cli_get(a, "sweep", 0);
+    if (cli_sweep_readings(ctx, in->sweep, kind, ref_ohm, in->end, in->freq_hz, in->order,
+                           CLI_MAX_ITEMS, &in->n, &step))
+        return CLI_EXIT_USAGE;
+    int numbered = 1;
+    for (int i = 0; i < in->n; i++) numbered = numbered && in->order[i] > 0;
+    if (!numbered)
+        for (int i = 0; i < in->n; i++) in->order[i] = 0;
+    in->orders_given = numbered;
+    if (!cli_count(a, "resolution")) in->res_hz = step;
+    return 0;
+}
+
 static int read_readings(cli_ctx *ctx, const cli_args *a, trim_in *in)
 {
+    if (cli_count(a, "sweep")) return sweep_readings(ctx, a, in);
     char buf[2048], obuf[1024];
     const char *items[CLI_MAX_ITEMS], *oitems[CLI_MAX_ITEMS];
     int n = cli_items(ctx, a, "resonance", buf, sizeof buf, items, CLI_MAX_ITEMS);
@@ -232,9 +262,14 @@ static void print_text(cli_ctx *ctx, const cli_args *a, const trim_in *in,
                 cli_fmt(b1, sizeof b1, f / 1e6, 6), cli_fmt(b2, sizeof b2, v, 5),
                 in->res_hz > 0.0 ? with_unit(b3, sizeof b3, rm * 1e3, 1, "mm") : "-");
     }
-    if (cli_count(a, "reading"))
+    if (in->sweep)
+        fprintf(o, "                      from the sweep %s: its %s series resonances\n", in->sweep,
+                cli_count(a, "reading") ? cli_get(a, "reading", 0) : "zero-x");
+    else if (cli_count(a, "reading"))
         fprintf(o, "                      read as %s\n", cli_get(a, "reading", 0));
-    fprintf(o, "                      orders %s%s\n", in->orders_given ? "as given" : "inferred",
+    fprintf(o, "                      orders %s%s\n",
+            in->orders_given ? (in->sweep ? "from the spacing of the sweep's resonances" : "as given")
+                             : "inferred",
             flags & CXL_TRIM_FLAG_MODEL ? "; each reading corrected for the lossy-line offset" : "");
     if (flags & CXL_TRIM_FLAG_MODEL)
         fprintf(o, "                      (model of cable %s)\n", cable);
@@ -298,10 +333,12 @@ static void print_rows(cli_ctx *ctx, const cli_args *a, const trim_in *in,
         cli_cell cells[NCOLS] = {
             CLI_TXT(cli_label(a)), CLI_NUM(in->length_m),
             CLI_TXT(in->end == CXL_STUB_OPEN ? "open" : "short"), CLI_NUM(order),
-            CLI_TXT(in->orders_given ? "given" : "inferred"), CLI_NUM(f / 1e6), CLI_NUM(v),
+            CLI_TXT(in->orders_given ? (in->sweep ? "sweep" : "given") : "inferred"),
+            CLI_NUM(f / 1e6), CLI_NUM(v),
             ft > 0.0 ? CLI_NUM(ft / 1e6) : CLI_NONE, CLI_NUM(vf_t), CLI_NUM(cut),
             CLI_NUM(cut / 0.3048), CLI_TXT(tape), CLI_NUM(keep), CLI_NUM(e / 1e6),
             CLI_NUM(rm * 1e3), CLI_NUM(res * 1e3), CLI_TXT(action_word(act)),
+            CLI_TXT(cli_count(a, "reading") ? cli_get(a, "reading", 0) : "zero-x"),
         };
         cli_table_row(ctx, trim_cols, NCOLS, cells);
     }
@@ -452,7 +489,7 @@ done:
 const cli_command cli_cmd_trim = {
     .name = "trim",
     .summary = "how much to cut off a piece cut long, from its analyzer resonances",
-    .synopsis = "--length LEN --resonance F[,F...] (--degrees DEG --freq F | --delay TIME | "
+    .synopsis = "--length LEN (--resonance F[,F...] | --sweep FILE) (--degrees DEG --freq F | --delay TIME | "
                 "--match-resonance F) [OPTIONS]",
     .opts = trim_opts,
     .run = trim_run,

@@ -18,6 +18,7 @@ static const cli_optdef vf_opts[] = {
     { "end", "open|short", "far end of the cable: open or short (shorted)", 0 },
     { "resonance", "[N:]F[@LEN]",
       "a low-impedance dip: its frequency, optionally its order N and the length it was read on", 1 },
+    { "sweep", "FILE", "readings from a one-port sweep file: its series resonances of the --reading kind", 0 },
     { "fixture", "LEN", "known line between analyzer and cable (tee, adapters)", 0 },
     { "fixture-vf", "X", "velocity factor of that fixture", 0 },
     { "length-tol", "LEN", "how far each measured length may be off (default 5mm)", 0 },
@@ -35,7 +36,7 @@ static const cli_col vf_cols[] = {
     { "freq_mhz", 6 }, { "vf", 4 }, { "vf_err", 5 }, { "vf_err_fit", 5 },
     { "vf_err_length", 5 }, { "vf_err_freq", 5 }, { "residual_hz", 1 },
     { "residual_mm", 1 }, { "extra_fixture_m", 3 }, { "extra_fixture_err_m", 3 },
-    { "flags", -1 }, { "at_freq_mhz", 6 }, { "vf_at", 5 }, { "vf_at_err", 5 },
+    { "flags", -1 }, { "at_freq_mhz", 6 }, { "vf_at", 5 }, { "vf_at_err", 5 }, { "reading", -1 },
 };
 
 /* Defaults of the uncertainty budget when not given, so that no VF is
@@ -160,6 +161,7 @@ typedef struct summary {
     const char *kind_name;   /* the kind of reading */
     int corrected;           /* readings corrected with a line model */
     const char *cable;
+    const char *sweep;       /* the sweep file the readings came from, or NULL */
     const vf_at *at;
     int nat;
 } summary;
@@ -189,7 +191,7 @@ static void write_table(cli_ctx *ctx, const summary *sm, const cxl_stub_result *
             CLI_TXT(sm->label), CLI_NUM(len), CLI_TXT(sm->end_text), CLI_TXT(order_text),
             CLI_NUM(f / 1e6), CLI_NUM(vi), CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE,
             CLI_NUM(rhz), CLI_NUM(rm * 1e3), CLI_NONE, CLI_NONE, CLI_NONE,
-            CLI_NONE, CLI_NONE, CLI_NONE,
+            CLI_NONE, CLI_NONE, CLI_NONE, CLI_TXT(sm->kind_name),
         };
         cli_table_row(ctx, vf_cols, NCOLS, cells);
     }
@@ -199,7 +201,7 @@ static void write_table(cli_ctx *ctx, const summary *sm, const cxl_stub_result *
         CLI_NUM(sm->err_fit), CLI_NUM(sm->err_length), CLI_NUM(sm->err_freq), CLI_NONE, CLI_NONE,
         sm->fixture_fitted ? CLI_NUM(sm->extra_m) : CLI_NONE,
         sm->fixture_fitted ? CLI_NUM(sm->extra_err_m) : CLI_NONE, CLI_TXT(flag_text),
-        CLI_NONE, CLI_NONE, CLI_NONE,
+        CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE,
     };
     cli_table_row(ctx, vf_cols, NCOLS, fit);
     for (int i = 0; i < sm->nat; i++) {
@@ -211,7 +213,7 @@ static void write_table(cli_ctx *ctx, const summary *sm, const cxl_stub_result *
             CLI_TXT(sm->label), sm->one_length ? CLI_NUM(sm->length_m) : CLI_NONE,
             CLI_TXT(sm->end_text), CLI_TXT("at"), CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE,
             CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE, CLI_NONE, CLI_TXT(how),
-            CLI_NUM(t->freq_hz / 1e6), CLI_NUM(t->vf), CLI_NUM(t->err),
+            CLI_NUM(t->freq_hz / 1e6), CLI_NUM(t->vf), CLI_NUM(t->err), CLI_NONE,
         };
         cli_table_row(ctx, vf_cols, NCOLS, at);
     }
@@ -246,8 +248,13 @@ static void write_text(cli_ctx *ctx, const summary *sm, const cxl_stub_result *r
     }
     if (sm->flags & CXL_STUB_FLAG_ORDERS_ASSUMED)
         fprintf(o, "  orders            inferred: those that best fit one fundamental on each length\n");
+    else if (sm->sweep)
+        fprintf(o, "  orders            from the spacing of the sweep's resonances\n");
     else
         fprintf(o, "  orders            as given\n");
+    if (sm->sweep)
+        fprintf(o, "  sweep             %s: its series resonances of this kind are the readings\n",
+                sm->sweep);
     fprintf(o, "  reading           %s%s%s%s\n", sm->kind_name,
             sm->corrected ? ", each corrected for the lossy-line offset (model of cable " : "",
             sm->corrected ? sm->cable : "", sm->corrected ? ")" : "");
@@ -395,13 +402,41 @@ static int vf_run(cli_ctx *ctx, const cli_args *a)
     reading r[CLI_MAX_ITEMS];
     double shown[CLI_MAX_ITEMS], corr[CLI_MAX_ITEMS];
     int orders[CLI_MAX_ITEMS];
-    int n = cli_items(ctx, a, "resonance", buf, sizeof buf, items, CLI_MAX_ITEMS);
-    if (n < 0) return CLI_EXIT_USAGE;
-    if (n == 0)
-        return cli_error(ctx, "resonance", res_expected, "at least one reading is needed");
-    for (int i = 0; i < n; i++) {
-        if (parse_reading(ctx, (char *)items[i], length_m, &r[i])) return CLI_EXIT_USAGE;
-        shown[i] = r[i].freq_hz;
+    char sweep_text[CLI_MAX_ITEMS][48];
+    const char *sweep = cli_get(a, "sweep", 0);
+    int n;
+    if (sweep) {
+        /* the file's resonances, numbered from their spacing when it
+         * shows two or more (else by the fit, as typed readings) */
+        if (cli_count(a, "resonance"))
+            return cli_error(ctx, "sweep", "--sweep FILE or --resonance F, not both",
+                             "given with --resonance");
+        if (length_m <= 0.0)
+            return cli_error(ctx, "length", "--length 10m --sweep stub.s1p",
+                             "the length of the cable is needed");
+        double spacing;
+        if (cli_sweep_readings(ctx, sweep, kind, ref_ohm, end, shown, orders, CLI_MAX_ITEMS, &n,
+                               &spacing))
+            return CLI_EXIT_USAGE;
+        int numbered = 1;
+        for (int i = 0; i < n; i++) numbered = numbered && orders[i] > 0;
+        for (int i = 0; i < n; i++) {
+            char b1[40];
+            snprintf(sweep_text[i], sizeof sweep_text[i], "%sMHz",
+                     cli_fmt(b1, sizeof b1, shown[i] / 1e6, 6));
+            r[i] = (reading){ sweep_text[i], numbered ? orders[i] : 0, shown[i], length_m };
+        }
+        /* the file's point spacing is the analyzer's step */
+        if (!cli_count(a, "freq-step")) step_hz = spacing;
+    } else {
+        n = cli_items(ctx, a, "resonance", buf, sizeof buf, items, CLI_MAX_ITEMS);
+        if (n < 0) return CLI_EXIT_USAGE;
+        if (n == 0)
+            return cli_error(ctx, "resonance", res_expected, "at least one reading is needed");
+        for (int i = 0; i < n; i++) {
+            if (parse_reading(ctx, (char *)items[i], length_m, &r[i])) return CLI_EXIT_USAGE;
+            shown[i] = r[i].freq_hz;
+        }
     }
 
     cxl_loss_model *model = NULL;
@@ -435,7 +470,7 @@ static int vf_run(cli_ctx *ctx, const cli_args *a)
     summary sm = { .label = cli_label(a), .end_text = end_text, .end = end, .one_length = 1,
                    .length_m = r[0].length_m, .fixture_m = fixture_m, .fixture_vf = fixture_vf,
                    .shown_hz = shown, .kind_name = kind_name, .corrected = cable != NULL,
-                   .cable = cable ? cable : "", .at = at, .nat = nat };
+                   .cable = cable ? cable : "", .sweep = sweep, .at = at, .nat = nat };
     double x_free;
     cxl_stub_result_vf(res, &sm.vf, &sm.vf_err);
     cxl_stub_result_vf_budget(res, &sm.err_fit, &sm.err_length, &sm.err_freq);
@@ -483,7 +518,8 @@ static int vf_run(cli_ctx *ctx, const cli_args *a)
 const cli_command cli_cmd_vf = {
     .name = "vf",
     .summary = "velocity factor from stub resonances on a known length",
-    .synopsis = "--length LEN --end open|short --resonance [N:]F[@LEN] ... [OPTIONS]",
+    .synopsis = "--length LEN --end open|short (--resonance [N:]F[@LEN] ... | --sweep FILE) "
+                "[OPTIONS]",
     .opts = vf_opts,
     .run = vf_run,
     .batch = 1,

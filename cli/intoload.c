@@ -68,6 +68,15 @@ static int parse_load(const cli_ctx *ctx, const char *text, cli_load *load)
     return 0;
 }
 
+int cli_load_impedance(const cli_ctx *ctx, const char *text, double *re_ohm, double *im_ohm)
+{
+    cli_load l;
+    if (parse_load(ctx, text, &l)) return CLI_EXIT_USAGE;
+    *re_ohm = l.re_ohm;
+    *im_ohm = l.im_ohm;
+    return 0;
+}
+
 static int parse_z0(const cli_ctx *ctx, const char *text, double *z0_ohm)
 {
     return cli_bounded(ctx, "z0", text, CLI_BOUND_LINE_Z0, Z0_EXPECTED, z0_ohm);

@@ -808,7 +808,7 @@ static double prom_value(cxl_sweep_kind kind, double v)
 /* Prominent local minima of v[] (squared magnitudes): both sides must rise
  * by CXL_SWEEP_MIN_PROMINENCE^2 before a lower value. */
 static cxl_status minima(cxl_sweep_res *r, const double *f, const double *v,
-                         const double *noise, size_t n, cxl_sweep_kind kind)
+                         const double *noise, const double *res, size_t n, cxl_sweep_kind kind)
 {
     const double need = CXL_SWEEP_MIN_PROMINENCE * CXL_SWEEP_MIN_PROMINENCE;
     for (size_t i = 1; i + 1 < n; i++) {
@@ -836,6 +836,17 @@ static cxl_status minima(cxl_sweep_res *r, const double *f, const double *v,
         double y;
         double x = vertex(f[i - 1], v[i - 1], f[i], v[i], f[i + 1], v[i + 1], &y);
         double step = fmax(f[i] - f[i - 1], f[i + 1] - f[i]);
+        if (res) {
+            /* |Z| = sqrt(R^2 + X^2) is never below the resistance there:
+             * where the reactance is far from linear across the three
+             * points the parabola's vertex can undershoot it (down to 0
+             * on a lossy line), so the resistance interpolated at the
+             * vertex bounds it from below */
+            size_t k = x < f[i] ? i - 1 : i;
+            double t = (x - f[k]) / (f[k + 1] - f[k]);
+            double rx = res[k] + t * (res[k + 1] - res[k]);
+            if (isfinite(rx) && rx * rx > y) y = rx * rx;
+        }
         double value;
         if (kind == CXL_SWEEP_Z_MIN) value = sqrt(y);
         else {
@@ -933,17 +944,17 @@ cxl_status cxl_sweep_resonances(const cxl_sweep *sweep, double reference_ohm, cx
     if (!cxl__finite_nonneg(length_m) || !isfinite(vf_guess) || vf_guess < 0.0 || vf_guess > 1.0)
         return CXL_EINVAL;
     if ((length_m > 0.0) != (vf_guess > 0.0)) return CXL_EINVAL;
-    if (sweep->n > SIZE_MAX / (4 * sizeof(double))) return CXL_ENOMEM;
+    if (sweep->n > SIZE_MAX / (8 * sizeof(double)) - 1) return CXL_ENOMEM;
     size_t n = sweep->n;
     cxl_sweep_res *r = calloc(1, sizeof *r);
-    double *buf = calloc(7 * n + 1, sizeof *buf);
+    double *buf = calloc(8 * n + 1, sizeof *buf);
     if (!r || !buf) {
         free(r);
         free(buf);
         return CXL_ENOMEM;
     }
     double *zz = buf, *xx = buf + n, *gg = buf + 2 * n, *gr = buf + 3 * n, *gi = buf + 4 * n;
-    double *nz = buf + 5 * n, *ns = buf + 6 * n;
+    double *nz = buf + 5 * n, *ns = buf + 6 * n, *rr = buf + 7 * n;
     size_t *xi = malloc((n + 1) * sizeof *xi);  /* point before each crossing */
     if (!xi) {
         free(buf);
@@ -976,10 +987,11 @@ cxl_status cxl_sweep_resonances(const cxl_sweep *sweep, double reference_ohm, cx
         double complex z = reference_ohm * (1.0 + g) / d;
         if (cabs(d) == 0.0 || !isfinite(creal(z)) || !isfinite(cimag(z))) {
             zz[i] = INFINITY;
-            xx[i] = NAN;
+            xx[i] = rr[i] = NAN;
         } else {
             zz[i] = creal(z) * creal(z) + cimag(z) * cimag(z);
             xx[i] = cimag(z);
+            rr[i] = creal(z);
         }
     }
     if (sweep->has_phase) {
@@ -1010,9 +1022,9 @@ cxl_status cxl_sweep_resonances(const cxl_sweep *sweep, double reference_ohm, cx
             if (r->n > before) xi[r->n - 1] = i;
         }
         if (st == CXL_OK) drop_noise_pairs(r, xi);
-        if (st == CXL_OK) st = minima(r, f, zz, nz, n, CXL_SWEEP_Z_MIN);
+        if (st == CXL_OK) st = minima(r, f, zz, nz, rr, n, CXL_SWEEP_Z_MIN);
     }
-    if (st == CXL_OK) st = minima(r, f, gg, ns, n, CXL_SWEEP_SWR_MIN);
+    if (st == CXL_OK) st = minima(r, f, gg, ns, NULL, n, CXL_SWEEP_SWR_MIN);
     free(buf);
     free(xi);
     if (st != CXL_OK) {

@@ -52,6 +52,7 @@ struct cxl_sweepfit {
 
 typedef struct model {
     const double *f;
+    const double *sf;        /* sqrt(f), computed once */
     const double *gre, *gim; /* measured Gamma against ref */
     size_t n;
     double ref, length, fix_vf;
@@ -63,9 +64,10 @@ typedef struct model {
 
 /* Gamma of the model at f and, when d is not NULL, its derivatives with
  * respect to the np physical parameters. */
-static double complex model_gamma(const model *m, const double *p, double f, double complex *d)
+static double complex model_gamma(const model *m, const double *p, double f, double sf,
+                                  double complex *d)
 {
-    const double w = 2.0 * M_PI * f, sf = sqrt(f);
+    const double w = 2.0 * M_PI * f;
     double vf = p[P_VF] - p[P_DROP] / sf;
     int clamped = 0;
     if (!(vf > 1e-3)) {
@@ -75,8 +77,9 @@ static double complex model_gamma(const model *m, const double *p, double f, dou
     }
     double beta = w / (vf * CXL_C_M_PER_S);
     double alpha = (p[P_A] * sf + p[P_B] * f) / DB_PER_NP;
-    double complex gam = alpha + I * beta;
-    double complex e = cexp(-2.0 * gam * m->length);
+    /* exp(-2 gamma l) by parts (cheaper than cexp in the inner loop) */
+    double mag = exp(-2.0 * alpha * m->length), ph = -2.0 * beta * m->length;
+    double complex e = mag * cos(ph) + I * (mag * sin(ph));
     double z0 = p[P_Z0], R = m->ref;
     double complex gl, dgl = 0.0;
     if (m->end_kind == 0) gl = 1.0;
@@ -89,7 +92,10 @@ static double complex model_gamma(const model *m, const double *p, double f, dou
     double complex u = gl * e;
     double complex B = (z0 + R) + u * (z0 - R);
     double complex A = (z0 - R) + u * (z0 + R);
-    double complex g = A / B;
+    /* 1/B through its conjugate: plain arithmetic, no library division */
+    double bb = creal(B) * creal(B) + cimag(B) * cimag(B);
+    double complex inv_b = conj(B) / bb;
+    double complex g = A * inv_b;
     double complex fixture = 1.0, fix_beta = 0.0;
     double fl = m->np > P_FIX ? p[P_FIX] : 0.0;
     double fvf = m->fix_vf > 0.0 ? m->fix_vf : p[P_VF];
@@ -100,7 +106,8 @@ static double complex model_gamma(const model *m, const double *p, double f, dou
     }
     double complex gm = g * fixture;
     if (!d) return gm;
-    double complex dg_du = 4.0 * z0 * R / (B * B);
+    double complex inv_b2 = inv_b * inv_b;
+    double complex dg_du = 4.0 * z0 * R * inv_b2;
     double complex du_dgam = -2.0 * m->length * u;
     double complex dgam_dvf = clamped ? 0.0 : -I * w / (CXL_C_M_PER_S * vf * vf);
     double complex k = fixture * dg_du * du_dgam;
@@ -108,7 +115,7 @@ static double complex model_gamma(const model *m, const double *p, double f, dou
     d[P_DROP] = k * dgam_dvf * (-1.0 / sf);
     d[P_A] = k * sf / DB_PER_NP;
     d[P_B] = k * f / DB_PER_NP;
-    d[P_Z0] = fixture * (2.0 * R * (1.0 - u * u) / (B * B) + dg_du * dgl * e);
+    d[P_Z0] = fixture * (2.0 * R * (1.0 - u * u) * inv_b2 + dg_du * dgl * e);
     if (m->np > P_FIX) {
         d[P_FIX] = -2.0 * I * fix_beta * gm;
         if (m->fix_vf == 0.0 && p[P_VF] > 1e-3)
@@ -128,11 +135,11 @@ static int fit_f(const gsl_vector *x, void *data, gsl_vector *r)
     double p[NP_MAX];
     physical(m, x, p);
     for (size_t i = 0; i < m->n; i++) {
-        double complex g = model_gamma(m, p, m->f[i], NULL);
+        double complex g = model_gamma(m, p, m->f[i], m->sf[i], NULL);
         double re = creal(g) - m->gre[i], im = cimag(g) - m->gim[i];
         if (!isfinite(re) || !isfinite(im)) return GSL_EDOM;
-        gsl_vector_set(r, 2 * i, re);
-        gsl_vector_set(r, 2 * i + 1, im);
+        r->data[2 * i * r->stride] = re;
+        r->data[(2 * i + 1) * r->stride] = im;
     }
     return GSL_SUCCESS;
 }
@@ -144,12 +151,12 @@ static int fit_df(const gsl_vector *x, void *data, gsl_matrix *J)
     double complex d[NP_MAX];
     physical(m, x, p);
     for (size_t i = 0; i < m->n; i++) {
-        model_gamma(m, p, m->f[i], d);
+        model_gamma(m, p, m->f[i], m->sf[i], d);
         for (int j = 0; j < m->np; j++) {
             double complex dj = d[j] * m->scale[j];
             if (!isfinite(creal(dj)) || !isfinite(cimag(dj))) return GSL_EDOM;
-            gsl_matrix_set(J, 2 * i, (size_t)j, creal(dj));
-            gsl_matrix_set(J, 2 * i + 1, (size_t)j, cimag(dj));
+            J->data[2 * i * J->tda + (size_t)j] = creal(dj);
+            J->data[(2 * i + 1) * J->tda + (size_t)j] = cimag(dj);
         }
     }
     return GSL_SUCCESS;
@@ -268,7 +275,7 @@ static double cost(const model *m, const double *p)
 {
     double c = 0.0;
     for (size_t i = 0; i < m->n; i++) {
-        double complex g = model_gamma(m, p, m->f[i], NULL);
+        double complex g = model_gamma(m, p, m->f[i], m->sf[i], NULL);
         double re = creal(g) - m->gre[i], im = cimag(g) - m->gim[i];
         c += re * re + im * im;
     }
@@ -323,7 +330,7 @@ cxl_status cxl_sweepfit_new(const cxl_sweep *sweep, double length_m, cxl_stub_en
     int np = (flags & CXL_SWEEPFIT_FIXTURE) ? 6 : 5;
     if (n < (size_t)np + 2) return CXL_EEXTRAPOLATE;
     if (n > ((size_t)-1) / (8 * sizeof(double) * NP_MAX)) return CXL_ENOMEM;
-    double *g = malloc(2 * n * sizeof *g);
+    double *g = malloc(3 * n * sizeof *g);
     if (!g) return CXL_ENOMEM;
     for (size_t i = 0; i < n; i++) {
         if (cxl__sweep_gamma(sweep, first + i, ref, &g[i], &g[n + i]) != CXL_OK) {
@@ -331,8 +338,9 @@ cxl_status cxl_sweepfit_new(const cxl_sweep *sweep, double length_m, cxl_stub_en
             return CXL_ERANGE;
         }
     }
+    for (size_t i = 0; i < n; i++) g[2 * n + i] = sqrt(freq[first + i]);
     model m = {
-        .f = freq + first, .gre = g, .gim = g + n, .n = n, .ref = ref, .length = length_m,
+        .f = freq + first, .sf = g + 2 * n, .gre = g, .gim = g + n, .n = n, .ref = ref, .length = length_m,
         .fix_vf = fixture_vf, .zl = load_re_ohm + I * load_im_ohm,
         .end_kind = (flags & CXL_SWEEPFIT_LOAD) ? 2 : end == CXL_STUB_SHORT ? 1 : 0, .np = np,
     };
@@ -354,7 +362,7 @@ cxl_status cxl_sweepfit_new(const cxl_sweep *sweep, double length_m, cxl_stub_en
     }
     gsl_multifit_nlinear_parameters par = gsl_multifit_nlinear_default_parameters();
     par.trs = gsl_multifit_nlinear_trs_lm;
-    par.solver = gsl_multifit_nlinear_solver_qr;
+    par.solver = gsl_multifit_nlinear_solver_mcholesky;
     gsl_multifit_nlinear_workspace *w =
         gsl_multifit_nlinear_alloc(gsl_multifit_nlinear_trust, &par, 2 * n, (size_t)np);
     gsl_matrix *cov = gsl_matrix_alloc((size_t)np, (size_t)np);
@@ -376,7 +384,7 @@ cxl_status cxl_sweepfit_new(const cxl_sweep *sweep, double length_m, cxl_stub_en
     st = CXL_ENOCONV;
     int info = 0;
     if (gsl_multifit_nlinear_init(&xv.vector, &fdf, w) == GSL_SUCCESS) {
-        int gst = gsl_multifit_nlinear_driver(200, 1e-10, 1e-12, 0.0, NULL, NULL, &info, w);
+        int gst = gsl_multifit_nlinear_driver(200, 1e-8, 1e-12, 0.0, NULL, NULL, &info, w);
         /* no progress possible any more is a minimum too, to the
          * precision of the numbers */
         if (gst == GSL_SUCCESS || gst == GSL_ENOPROG) st = CXL_OK;

@@ -139,12 +139,12 @@ START_TEST(vf_single_reading)
     ck_assert_str_eq(r.err, "");
     has(r.out, "label,length_m,end,resonance,freq_mhz,vf,vf_err,vf_err_fit,vf_err_length,"
                "vf_err_freq,residual_hz,residual_mm,extra_fixture_m,extra_fixture_err_m,flags,"
-               "at_freq_mhz,vf_at,vf_at_err\n");
-    has(r.out, "\n,10.000,open,1,5.000000,0.6671,,,,,0.0,0.0,,,,,,\n");
+               "at_freq_mhz,vf_at,vf_at_err,reading\n");
+    has(r.out, "\n,10.000,open,1,5.000000,0.6671,,,,,0.0,0.0,,,,,,,zero-x\n");
     /* one reading never states +-0: the default 5 mm tape and 1 kHz step
      * give 0.667128 * 0.005 / 10 = 0.000334 and 0.667128 * 1e3 / 5e6 =
      * 0.000133, root sum of squares 0.000359 (hand worked, first order) */
-    has(r.out, "\n,10.000,open,fit,,0.6671,0.00036,0.00000,0.00033,0.00013,,,,,orders_numbered,,,\n");
+    has(r.out, "\n,10.000,open,fit,,0.6671,0.00036,0.00000,0.00033,0.00013,,,,,orders_numbered,,,,\n");
     cli_result_free(&r);
     /* [POZAR] shorted stub, first dip at a half wave: VF = 2 L f / c =
      * 2 * 10 * 10e6 / c = 0.667128 */
@@ -170,9 +170,9 @@ START_TEST(vf_harmonics_agree)
                                  "--resonance 25MHz --format csv", NULL);
     ck_assert_int_eq(r.rc, 0);
     ck_assert_str_eq(r.err, "");
-    has(r.out, "\n,10.000,open,1,5.000000,0.6671,,,,,0.0,0.0,,,,,,\n");
-    has(r.out, "\n,10.000,open,2,15.000000,0.6671,,,,,0.0,0.0,,,,,,\n");
-    has(r.out, "\n,10.000,open,3,25.000000,0.6671,,,,,0.0,0.0,,,,,,\n");
+    has(r.out, "\n,10.000,open,1,5.000000,0.6671,,,,,0.0,0.0,,,,,,,zero-x\n");
+    has(r.out, "\n,10.000,open,2,15.000000,0.6671,,,,,0.0,0.0,,,,,,,zero-x\n");
+    has(r.out, "\n,10.000,open,3,25.000000,0.6671,,,,,0.0,0.0,,,,,,,zero-x\n");
     /* the budget: the readings agree exactly, so no spread beyond them */
     has(r.out, "\n,10.000,open,fit,,0.6671,0.00033,0.00000,0.00033,"); /* 5 mm tape, as above */
     cli_result_free(&r);
@@ -181,7 +181,7 @@ START_TEST(vf_harmonics_agree)
     r = run_cli(NULL, "vf --length 10m --end open --resonance 1:5MHz,3:25MHz,5:45MHz --format csv", NULL);
     ck_assert_int_eq(r.rc, 0);
     ck_assert_str_eq(r.err, "");
-    has(r.out, "\n,10.000,open,5,45.000000,0.6671,,,,,0.0,0.0,,,,,,\n");
+    has(r.out, "\n,10.000,open,5,45.000000,0.6671,,,,,0.0,0.0,,,,,,,zero-x\n");
     has(r.out, "\n,10.000,open,fit,,0.6671,0.00033,0.00000,0.00033,"); /* the 5 mm tape */
     cli_result_free(&r);
 }
@@ -223,7 +223,7 @@ START_TEST(vf_two_lengths_fit_fixture)
     has(r.out, "\nB,18.000,open,2,9.948865,0.8000,");
     has(r.out, "\nB,,open,fit,,0.8000,");
     has(r.out, ",0.080,");
-    has(r.out, ",orders_numbered fixture_fitted,,,\n");
+    has(r.out, ",orders_numbered fixture_fitted,,,,\n");
     cli_result_free(&r);
     r = run_cli(NULL, args, NULL);
     ck_assert_int_eq(r.rc, 0);

@@ -22,7 +22,7 @@
 #define TARGET " --degrees 60 --freq 1.83MHz"
 #define HEADER "label,length_m,end,order,order_source,freq_mhz,vf,target_freq_mhz,target_vf," \
                "cut_off_m,cut_off_ft,cut_off_tape,remaining_m,expected_mhz,resolution_mm," \
-               "remaining_res_mm,action\n"
+               "remaining_res_mm,action,reading\n"
 
 START_TEST(csv_values)
 {
@@ -30,9 +30,9 @@ START_TEST(csv_values)
     ck_assert_int_eq(r.rc, 0);
     ck_assert_str_eq(r.out, HEADER
         "east,20.0000,open,1,inferred,2.473288,0.66000,1.830000,0.66000,1.9797,6.4950,"
-        "6 ft 5 15/16 in,18.0203,2.745000,8.1,10.1,cut\n"
+        "6 ft 5 15/16 in,18.0203,2.745000,8.1,10.1,cut,zero-x\n"
         "east,20.0000,open,2,inferred,7.419863,0.66000,1.830000,0.66000,1.9797,6.4950,"
-        "6 ft 5 15/16 in,18.0203,8.235000,2.7,10.1,cut\n");
+        "6 ft 5 15/16 in,18.0203,8.235000,2.7,10.1,cut,zero-x\n");
     ck_assert_str_eq(r.err, "");
     cli_result_free(&r);
     /* orders given, entered high first: same rows, "given" */
@@ -108,7 +108,7 @@ START_TEST(short_and_within)
     cli_result r = run_cli(NULL, PIECE " --degrees 90 --freq 1.83MHz --format csv", NULL);
     ck_assert_int_eq(r.rc, 1);
     has(r.out, ",-7.0305,");
-    has(r.out, ",short\n");
+    has(r.out, ",short,zero-x\n");
     cli_result_free(&r);
     r = run_cli(NULL, PIECE " --degrees 90 --freq 1.83MHz", NULL);
     ck_assert_int_eq(r.rc, 1);
@@ -120,14 +120,14 @@ START_TEST(short_and_within)
     r = run_cli(NULL, PIECE " --degrees 66.58153427656 --freq 1.83MHz --format csv", NULL);
     ck_assert_int_eq(r.rc, 0);
     has(r.out, ",0.0030,");
-    has(r.out, ",within\n");
+    has(r.out, ",within,zero-x\n");
     ck_assert_int_eq(count_lines(r.err), 1);
     has(r.err, "warning: the cut (3.0 mm) is below");
     cli_result_free(&r);
     /* the fixture's uncertainty widens it: 20 mm */
     r = run_cli(NULL, PIECE " --degrees 60 --freq 1.83MHz --fixture-tol 20mm --format csv", NULL);
     ck_assert_int_eq(r.rc, 0);
-    has(r.out, ",22.4,cut\n"); /* hypot(10.1, 20) */
+    has(r.out, ",22.4,cut,zero-x\n"); /* hypot(10.1, 20) */
     cli_result_free(&r);
 }
 END_TEST
@@ -224,7 +224,7 @@ START_TEST(batch)
     has(r.out, "\na,20.0000,open,2,inferred,");
     has(r.out, "\n\"c, rear\",20.0000,open,1,given,");
     has(r.out, "\nd,20.0000,");
-    has(r.out, ",short\n");
+    has(r.out, ",short,zero-x\n");
     ck_assert_int_eq(count_lines(r.err), 2);
     has(r.err, "line 3: order:");     /* b: orders fall */
     has(r.err, "line 6: length: 'twenty'");

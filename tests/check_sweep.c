@@ -489,6 +489,42 @@ START_TEST(swr_only_sweep_gives_swr_minima)
 }
 END_TEST
 
+/* |Z| = sqrt(R^2 + X^2) is never below the resistance (common practice,
+ * no source): at each |Z| minimum of the lossy random lines, the value is
+ * at least the R of the reactance zero of the same order, less 10 % for
+ * the change of R between the two frequencies, and not far above it. */
+START_TEST(impedance_minimum_not_below_resistance)
+{
+    for (int k = 0; k < NCASES; k++) {
+        char name[64];
+        snprintf(name, sizeof name, "r/case%d.s1p", k);
+        cxl_sweep *s = read_file(name);
+        cxl_sweep_res *r = NULL;
+        ck_assert_int_eq(cxl_sweep_resonances(s, 50.0, k % 2 ? CXL_STUB_SHORT : CXL_STUB_OPEN, 0,
+                                              0, &r), CXL_OK);
+        size_t n = cxl_sweep_res_count(r);
+        for (size_t i = 0; i < n; i++) {
+            cxl_sweep_kind kind;
+            int series, order;
+            double zmin;
+            cxl_sweep_res_get(r, i, &kind, &series, &order, NULL, NULL, &zmin);
+            if (kind != CXL_SWEEP_Z_MIN || order <= 0) continue;
+            for (size_t j = 0; j < n; j++) {
+                cxl_sweep_kind kj;
+                int sj, oj;
+                double rx;
+                cxl_sweep_res_get(r, j, &kj, &sj, &oj, NULL, NULL, &rx);
+                if (kj != CXL_SWEEP_X_ZERO || !sj || oj != order || rx < 0.05) continue;
+                ck_assert_msg(zmin >= 0.9 * rx && zmin <= 3.0 * rx + 0.5,
+                              "case %d order %d: |Z| min %.4g against R %.4g", k, order, zmin, rx);
+            }
+        }
+        cxl_sweep_res_free(r);
+        cxl_sweep_free(s);
+    }
+}
+END_TEST
+
 static Suite *suite(void)
 {
     Suite *s = suite_create("sweep");
@@ -509,6 +545,7 @@ static Suite *suite(void)
     tcase_add_test(tc, vf_within_a_tenth_of_a_percent);
     tcase_add_test(tc, orders_from_guess_and_spacing_agree);
     tcase_add_test(tc, swr_only_sweep_gives_swr_minima);
+    tcase_add_test(tc, impedance_minimum_not_below_resistance);
     suite_add_tcase(s, tc);
     return s;
 }

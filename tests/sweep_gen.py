@@ -12,7 +12,7 @@ Z0 (ZL + Z0 tanh(gamma l)) / (Z0 + ZL tanh(gamma l))
 resonance truths are found with scipy.optimize on that closed form, apart
 from scikit-rf.
 
-usage: sweep_gen.py formats DIR | resonances DIR SEED COUNT | fault DIR | fit DIR
+usage: sweep_gen.py formats DIR | resonances DIR SEED COUNT | fault DIR | fit DIR | demo DIR
 """
 import math
 import os
@@ -243,6 +243,21 @@ def fit(d):
                      % (end, length, vf_hf, drop, a, b, z0, lr, lx, fix, noise))
 
 
+def demo(d):
+    """The demo's phasing piece (an invented scenario): 12 m of line, far end
+    open, VF 0.66 - 25/sqrt(f), 1.2e-5 sqrt(f) + 2e-10 f dB/m, Z0 51 ohm,
+    swept 1 to 60 MHz in 237 points with noise 1e-3 (seed 41)."""
+    freq = skrf.Frequency(1, 60, 237, 'MHz')
+    m = media(freq, 0.66, 25.0, 1.2e-5, 2e-10)
+    n = m.line(12.0, 'm', z0=51.0, embed=True) ** m.open()
+    rng = np.random.default_rng(41)
+    n.s = n.s + 1e-3 * (rng.standard_normal(n.s.shape) + 1j * rng.standard_normal(n.s.shape))
+    with open(os.path.join(d, 'phasing-stub.s1p'), 'w') as fp:
+        fp.write('! phasing piece, 12 m cut long, far end open (demo)\n# MHz S RI R 50\n')
+        for fi, si in zip(n.f, n.s[:, 0, 0]):
+            fp.write('%.6f %.6f %.6f\n' % (fi / 1e6, si.real, si.imag))
+
+
 def main():
     cmd, d = sys.argv[1], sys.argv[2]
     os.makedirs(d, exist_ok=True)
@@ -252,6 +267,8 @@ def main():
         fault(d)
     elif cmd == 'fit':
         fit(d)
+    elif cmd == 'demo':
+        demo(d)
     elif cmd == 'resonances':
         resonances(d, int(sys.argv[3]), int(sys.argv[4]))
     else:

@@ -13,6 +13,8 @@
  *   bench_lib [--quick]     (--quick: shorter loops, fewer repeats)
  */
 #include <config.h>
+#include <complex.h>
+#include <time.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -253,6 +255,66 @@ static double sweep_fault(void *ctx, long n)
     return acc;
 }
 
+/* A 10,001-point sweep of a lossy open 30 m line for the whole-sweep fit:
+ * Z0 75 ohm against 50, VF 0.66 - 20/sqrt(f), 1e-5 sqrt(f) dB/m, 0.1 to
+ * 100 MHz (the lossy-line input impedance, Pozar 4th ed. eq. 2.44 with
+ * tanh).  Invented values for timing only. */
+static char *fit_text(size_t *size)
+{
+    size_t n = 10001, cap = n * 64 + 64, used = 0;
+    char *t = malloc(cap);
+    if (!t) exit(2);
+    used += (size_t)snprintf(t, cap, "# Hz S RI R 50\n");
+    for (size_t i = 0; i < n; i++) {
+        double f = 1e5 + 1e4 * (double)i * 9.99, vf = 0.66 - 20.0 / sqrt(f);
+        double complex gam = 1e-5 * sqrt(f) / 8.685889638065035 +
+                             I * 2.0 * M_PI * f / (vf * CXL_C_M_PER_S);
+        double complex z = 75.0 / ctanh(gam * 30.0), g = (z - 50.0) / (z + 50.0);
+        used += (size_t)snprintf(t + used, cap - used, "%.10g %.9f %.9f\n", f, creal(g), cimag(g));
+    }
+    *size = used;
+    return t;
+}
+
+static double sweep_fit(void *ctx, long n)
+{
+    (void)ctx;
+    size_t size;
+    char *text = fit_text(&size);
+    cxl_sweep *s;
+    check(cxl_sweep_read_buffer(text, size, &s, NULL, NULL, 0), "sweep read");
+    double acc = 0.0;
+    for (long i = 0; i < n; i++) {
+        cxl_sweepfit *f;
+        double vf;
+        check(cxl_sweepfit_new(s, 30.0, CXL_STUB_OPEN, 0, 0, 0, 0, &f), "sweep fit");
+        check(cxl_sweepfit_vf(f, 10e6, &vf, NULL), "fitted vf");
+        acc += vf;
+        cxl_sweepfit_free(f);
+    }
+    cxl_sweep_free(s);
+    free(text);
+    return acc;
+}
+
+/* Process CPU time per call over `calls` calls (user + system of every
+ * thread): on a machine shared with other work the wall-clock figures
+ * above grow, this one much less. */
+static void cpu_time(const char *name, bench_body fn, const fixture *fx, long calls)
+{
+    struct timespec a, b;
+    clock_gettime(CLOCK_PROCESS_CPUTIME_ID, &a);
+    volatile double sink = fn((void *)fx, calls);
+    (void)sink;
+    clock_gettime(CLOCK_PROCESS_CPUTIME_ID, &b);
+    double ns = ((double)(b.tv_sec - a.tv_sec) * 1e9 + (double)(b.tv_nsec - a.tv_nsec)) /
+                (double)calls;
+    char buf[32];
+    printf("  %-34s %11s  process CPU per call over %ld calls (set-up included)\n", name,
+           bench_fmt_ns(buf, sizeof buf, ns), calls);
+    fflush(stdout);
+}
+
 static void measure(const char *name, const char *note, bench_body fn, const fixture *fx)
 {
     char med[32], min[32];
@@ -396,9 +458,16 @@ int main(int argc, char **argv)
     measure("cxl_bands_new + free", "built-in band table", bands_new, &fx);
     measure("cxl_catalog_new + free", "built-in cable catalog", catalog_new, &fx);
     measure("cxl_loss_fit_new_cable + free", "RG-213 (GSL least squares)", fit_new, &fx);
-    printf("  -- analyzer sweeps (targets: read + resonances <= 5 ms, profile <= 10 ms) --\n");
+    printf("  -- analyzer sweeps (targets: read + resonances <= 5 ms, profile <= 10 ms, "
+           "fit <= 50 ms) --\n");
     measure("sweep read + resonances", "10,001 points, text in memory", sweep_read_res, &fx);
     measure("cxl_fault_new (profile, peaks)", "10,001 points, low-pass, Hann", sweep_fault, &fx);
+    measure("cxl_sweepfit_new (whole sweep)", "10,001 points, lossy open line, 5 parameters",
+            sweep_fit, &fx);
+    long cpu_calls = target_s < 0.01 ? 2 : 20;
+    cpu_time("  CPU: read + resonances", sweep_read_res, &fx, cpu_calls);
+    cpu_time("  CPU: fault profile", sweep_fault, &fx, cpu_calls);
+    cpu_time("  CPU: whole-sweep fit", sweep_fit, &fx, cpu_calls);
 
     cxl_array_pair_free(fx.pair);
     for (int a = 0; a < 4; a++) cxl_array_free(*arrs[a]);

@@ -3,9 +3,9 @@
  * each command that takes one.  The CLI's main() is compiled in as
  * coaxline_main (see Makefile.am).
  *
- * Columns that name files (plot and sweep-plot write one, vf-from, layout
- * and as-built read one) are defused before the run: a fuzzed row must not
- * write files anywhere or read a device that never ends. */
+ * Columns that name files (plot and sweep-plot write one, vf-from, sweep,
+ * layout and as-built read one) are defused before the run: a fuzzed row
+ * must not write files anywhere or read a device that never ends. */
 #include <config.h>
 #include <stdint.h>
 #include <stdio.h>
@@ -25,7 +25,7 @@ static const char *const commands[] = {
  * is changed into a column no command knows. */
 static void defuse(uint8_t *p, size_t n)
 {
-    static const char *const words[] = { "plot", "vf-from", "layout", "as-built" };
+    static const char *const words[] = { "plot", "vf-from", "sweep", "layout", "as-built" };
     for (size_t w = 0; w < sizeof words / sizeof words[0]; w++) {
         size_t len = strlen(words[w]);
         for (size_t i = 0; i + len <= n; i++)
