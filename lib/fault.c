@@ -18,6 +18,7 @@
 #include <string.h>
 #include <gsl/gsl_errno.h>
 #include <gsl/gsl_fft_complex.h>
+#include <gsl/gsl_fft_halfcomplex.h>
 #include <gsl/gsl_sf_bessel.h>
 #include "coaxline.h"
 #include "internal.h"
@@ -146,7 +147,10 @@ cxl_status cxl_fault_new(const cxl_sweep *sweep, double reference_ohm, double vf
     if (!isfinite(resolution) || !isfinite(range) || !(dd > 0.0)) return CXL_ERANGE;
 
     cxl_fault *r = calloc(1, sizeof *r);
-    double *z = calloc(2 * m, sizeof *z);
+    /* low-pass: the spectrum is Hermitian, so the response is real and
+     * half the work: GSL's half-complex layout (z[k] real part, z[m - k]
+     * imaginary part) transformed by the real inverse */
+    double *z = calloc(lowpass ? m : 2 * m, sizeof *z);
     double *h = malloc(3 * m * sizeof *h);
     if (!r || !z || !h) {
         free(r);
@@ -179,12 +183,8 @@ cxl_status cxl_fault_new(const cxl_sweep *sweep, double reference_ohm, double vf
                 gi = k == 0 ? 0.0 : amp * sin(ph);
             }
             double w = window_at(window, kaiser_beta, (double)k / (double)nk);
-            z[2 * k] = w * gr;
-            z[2 * k + 1] = w * gi;
-            if (k > 0) {
-                z[2 * (m - k)] = w * gr;
-                z[2 * (m - k) + 1] = -w * gi;
-            }
+            z[k] = w * gr;
+            if (k > 0) z[m - k] = w * gi;
             wsum += k ? 2.0 * w : w;
         }
     } else {
@@ -201,7 +201,9 @@ cxl_status cxl_fault_new(const cxl_sweep *sweep, double reference_ohm, double vf
         }
     }
     if (st == CXL_OK && !(wsum > 0.0)) st = CXL_ERANGE;
-    if (st == CXL_OK && gsl_fft_complex_radix2_backward(z, 1, m) != GSL_SUCCESS) st = CXL_ENOCONV;
+    if (st == CXL_OK && (lowpass ? gsl_fft_halfcomplex_radix2_backward(z, 1, m)
+                                 : gsl_fft_complex_radix2_backward(z, 1, m)) != GSL_SUCCESS)
+        st = CXL_ENOCONV;
     if (st != CXL_OK) {
         free(r);
         free(z);
@@ -214,9 +216,8 @@ cxl_status cxl_fault_new(const cxl_sweep *sweep, double reference_ohm, double vf
      * m g W(0) / wsum, W(0) = 1) */
     double run = 0.0, loss_np = loss_db_per_m * M_LN10 / 20.0, run_scale = wsum / (double)m;
     for (size_t i = 0; i < m; i++) {
-        double comp = exp(2.0 * loss_np * dd * (double)i);  /* round trip */
-        double v = lowpass ? z[2 * i] / wsum : hypot(z[2 * i], z[2 * i + 1]) / wsum;
-        v *= comp;
+        double v = lowpass ? z[i] / wsum : hypot(z[2 * i], z[2 * i + 1]) / wsum;
+        if (loss_np != 0.0) v *= exp(2.0 * loss_np * dd * (double)i);  /* round trip */
         if (!isfinite(v)) {
             st = CXL_ERANGE;
             break;
