@@ -51,6 +51,22 @@ static int add_row(vf_file *f, const char *label, double vf, double at_hz)
     return 0;
 }
 
+/* A number cell of the file; a ';' file (a decimal-comma spreadsheet's
+ * export) writes 0,66 and never a '.'. */
+static int number(const cxl_csv_reader *rd, const char *text, double *v)
+{
+    char buf[128];
+    if (cxl_csv_reader_separator(rd) == ';') {
+        size_t len = strlen(text);
+        if (strchr(text, '.') || len >= sizeof buf) return -1;
+        memcpy(buf, text, len + 1);
+        char *p = strchr(buf, ',');
+        if (p) *p = '.';
+        text = buf;
+    }
+    return cxl_units_parse_number(text, v, NULL) == CXL_OK ? 0 : -1;
+}
+
 static int column(const cxl_csv_reader *rd, const char *name)
 {
     for (size_t i = 0; i < cxl_csv_reader_nfields(rd); i++)
@@ -68,6 +84,7 @@ static int load(const cli_ctx *row_ctx, vf_file *f, FILE *fp)
     cxl_csv_reader *rd;
     if (cxl_csv_reader_new_stream(fp, &rd) != CXL_OK)
         return cli_error(ctx, "vf-from", NULL, "out of memory");
+    cxl_csv_reader_set_separator(rd, 0); /* ',' ';' or TAB, from the header */
     int has_row = 0, code = 0, readings = 0;
     int col_label = -1, col_res = -1, col_vf = -1, col_at = -1, col_vf_at = -1;
     char single_label[256] = "", name[300];
@@ -99,7 +116,7 @@ static int load(const cli_ctx *row_ctx, vf_file *f, FILE *fp)
         const char *label = col_label >= 0 && (size_t)col_label < nf
                                 ? cxl_csv_reader_field(rd, (size_t)col_label) : "";
         double vf;
-        int valid = cxl_units_parse_number(text, &vf, NULL) == CXL_OK && vf > 0.0 && vf <= 1.0;
+        int valid = number(rd, text, &vf) == 0 && vf > 0.0 && vf <= 1.0;
         if (strcmp(res, "at") == 0) {
             /* the VF at a frequency: both cells must hold numbers */
             double at_mhz = 0.0;
@@ -107,9 +124,9 @@ static int load(const cli_ctx *row_ctx, vf_file *f, FILE *fp)
                                  ? cxl_csv_reader_field(rd, (size_t)col_at) : "";
             const char *tv = col_vf_at >= 0 && (size_t)col_vf_at < nf
                                  ? cxl_csv_reader_field(rd, (size_t)col_vf_at) : "";
-            if (cxl_units_parse_number(tf, &at_mhz, NULL) != CXL_OK || !(at_mhz > 0.0) ||
+            if (number(rd, tf, &at_mhz) != 0 || !(at_mhz > 0.0) ||
                 !(at_mhz * 1e6 <= CLI_MAX_FREQ_HZ) ||
-                cxl_units_parse_number(tv, &vf, NULL) != CXL_OK || !(vf > 0.0 && vf <= 1.0)) {
+                number(rd, tv, &vf) != 0 || !(vf > 0.0 && vf <= 1.0)) {
                 code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED,
                                  "%s line %zu: an 'at' row needs at_freq_mhz and vf_at numbers",
                                  name, cxl_csv_reader_line(rd));

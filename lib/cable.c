@@ -97,6 +97,7 @@ struct load_ctx {
     size_t *error_line;
     char *error_text;
     size_t error_size;
+    const cxl_csv_reader *rd;  /* its separator tells how decimals are written */
 };
 
 static cxl_status report(const struct load_ctx *ctx, cxl_status st,
@@ -224,12 +225,31 @@ static cxl_status next_record(cxl_csv_reader *rd, size_t nfields, int *has_row,
     return CXL_OK;
 }
 
+/* Longest numeric cell read with a decimal comma (longer: not a number). */
+#define NUMBER_CELL_MAX 128
+
 /* Parse a numeric cell into SI units and check its range. */
 static cxl_status parse_cell(const char *text, const struct column *col,
                              size_t line, double *value,
                              const struct load_ctx *ctx)
 {
     double v;
+    char comma[NUMBER_CELL_MAX];
+    if (cxl_csv_reader_separator(ctx->rd) == ';' && text[0]) {
+        /* a ';' file is a spreadsheet's of a decimal-comma locale: 0,66 */
+        if (strchr(text, '.'))
+            return report(ctx, CXL_EPARSE, line,
+                          "column %s: '%.64s' has a '.', but this ';'-separated file "
+                          "writes decimals with a comma, such as 0,66",
+                          col->header, text);
+        size_t len = strlen(text);
+        if (len < sizeof comma) {
+            memcpy(comma, text, len + 1);
+            char *p = strchr(comma, ',');
+            if (p) *p = '.';
+            text = comma;
+        }
+    }
     cxl_status st = cxl_units_parse_number(text, &v, NULL);
     if (st != CXL_OK)
         return report(ctx, st == CXL_ERANGE ? CXL_ERANGE : CXL_EPARSE, line,
@@ -507,7 +527,7 @@ static cxl_status load_builtin(cxl_catalog *cat, const char *text, size_t size,
     cxl_csv_reader *rd;
     cxl_status st = cxl_csv_reader_new_buffer(text, size, &rd);
     if (st != CXL_OK) return st;
-    struct load_ctx ctx = {name, NULL, NULL, 0};
+    struct load_ctx ctx = {name, NULL, NULL, 0, rd};
     st = cables ? load_cables(cat, rd, 1, &ctx) : load_loss(cat, rd, 1, &ctx);
     cxl_csv_reader_free(rd);
     return st;
@@ -548,7 +568,10 @@ static cxl_status load_stream(cxl_catalog *cat, FILE *stream, const char *file_n
     cxl_csv_reader *rd;
     cxl_status st = cxl_csv_reader_new_stream(stream, &rd);
     if (st != CXL_OK) return st;
-    struct load_ctx ctx = {file_name, error_line, error_text, error_size};
+    /* a user's file may come from a spreadsheet: ',' ';' or TAB, from
+     * its header */
+    cxl_csv_reader_set_separator(rd, 0);
+    struct load_ctx ctx = {file_name, error_line, error_text, error_size, rd};
     st = cables ? load_cables(cat, rd, 0, &ctx) : load_loss(cat, rd, 0, &ctx);
     if (st == CXL_OK && ferror(stream))
         st = report(&ctx, CXL_EIO, cxl_csv_reader_line(rd), "read error");

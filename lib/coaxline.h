@@ -519,7 +519,11 @@ void cxl_catalog_free(cxl_catalog *catalog);
  * relative_permittivity, loss_tangent, conductivity_s_per_m,
  * conductor_loss_factor, clad_thickness_mm, core_conductivity_s_per_m,
  * core_relative_permeability, source.  A row with only name and vf (a
- * measured spool) is enough for cut lengths.
+ * measured spool) is enough for cut lengths.  Fields are separated by
+ * ',', ';' or TAB, whichever the header uses first (a spreadsheet's
+ * export); in a ';' file numbers are written with a decimal comma (0,66)
+ * and a '.' in a number is refused.  The same holds for
+ * cxl_catalog_load_loss.
  * Errors: CXL_EPARSE (unknown or repeated column, missing required column
  * or value, bad number, wrong field count, malformed CSV), CXL_ERANGE (a
  * number outside its valid range), CXL_EDUPLICATE (name already present),

@@ -300,6 +300,31 @@ START_TEST(test_read_errors)
 }
 END_TEST
 
+/* A spreadsheet's export: ';' with decimal commas, or TAB; a '.' in a ';'
+ * file is refused (it would be a thousands separator there). */
+START_TEST(test_spreadsheet_separators)
+{
+    size_t i;
+    double v;
+    ck_assert_int_eq(load("name;vf;z0_ohm\nsemi spool;0,81;75\n", 1, NULL, NULL, 0), CXL_OK);
+    ck_assert_int_eq(cxl_catalog_find(cat, "semi spool", &i), CXL_OK);
+    ck_assert_int_eq(cxl_catalog_value(cat, i, CXL_CABLE_VF, &v), CXL_OK);
+    ck_assert_double_eq(v, 0.81);   /* as written in the file */
+    ck_assert_int_eq(load("name\tvf\ntab spool\t0.79\n", 1, NULL, NULL, 0), CXL_OK);
+    ck_assert_int_eq(cxl_catalog_find(cat, "tab spool", &i), CXL_OK);
+    ck_assert_int_eq(cxl_catalog_value(cat, i, CXL_CABLE_VF, &v), CXL_OK);
+    ck_assert_double_eq(v, 0.79);   /* as written in the file */
+    ck_assert_int_eq(load("name;freq_mhz;loss_db_per_100m\nsemi spool;1,8;0,9\nsemi spool;30;4,25\n",
+                          0, NULL, NULL, 0), CXL_OK);
+    ck_assert_int_eq(cxl_catalog_find(cat, "semi spool", &i), CXL_OK);
+    double f, l;
+    ck_assert_int_eq(cxl_catalog_loss_point(cat, i, 0, &f, &l, NULL), CXL_OK);
+    ck_assert_double_eq_tol(f, 1.8e6, 1e-6);    /* 1,8 MHz in the file */
+    ck_assert_double_eq_tol(l, 0.009, 1e-15);   /* 0,9 dB/100 m in dB/m */
+    expect_error("name;vf\ndot spool;0.81\n", 1, CXL_EPARSE, 2, "decimals with a comma");
+}
+END_TEST
+
 START_TEST(test_comma_locale)
 {
     /* numbers are read without the C locale: under a comma-decimal locale
@@ -336,6 +361,7 @@ int main(void)
     tcase_add_test(tc, test_loss_file_errors);
     tcase_add_test(tc, test_error_text_truncated_and_optional);
     tcase_add_test(tc, test_comma_locale);
+    tcase_add_test(tc, test_spreadsheet_separators);
     tcase_add_test(tc, test_read_errors);
     suite_add_tcase(s, tc);
     SRunner *sr = srunner_create(s);

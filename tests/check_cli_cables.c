@@ -35,6 +35,20 @@ static double csv_cell(const char *csv, const char *prefix, int col)
 
 /* ---- cables ------------------------------------------------------------ */
 
+/* --cables from a decimal-comma spreadsheet: ';' and 0,80 (common
+ * practice, no source); 100 ns at VF 0.8 is 0.8 c 100 ns = 23.983 m
+ * [hand worked] */
+START_TEST(cables_spreadsheet_file)
+{
+    const char semi[] = "name;vf\nshed drum;0,80\n";
+    cli_result r = run_cli_with_file("cut --cables %s --cable 'shed drum' --delay 100ns --format csv",
+                                     semi, sizeof semi - 1);
+    ck_assert_int_eq(r.rc, 0);
+    has(r.out, ",0.8000,23.983,");
+    cli_result_free(&r);
+}
+END_TEST
+
 START_TEST(cables_list)
 {
     /* data/cables.csv has 12 rows (common practice, no source: the file) */
@@ -466,6 +480,7 @@ int main(void)
     TCase *tc = tcase_create("cables_loss");
     tcase_set_timeout(tc, 60);
     tcase_add_test(tc, cables_list);
+    tcase_add_test(tc, cables_spreadsheet_file);
     tcase_add_test(tc, cables_csv_and_json);
     tcase_add_test(tc, cables_detail);
     tcase_add_test(tc, loss_matches_table_interpolation);

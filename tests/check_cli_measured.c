@@ -496,6 +496,25 @@ START_TEST(phase_vf_from_pipe)
 }
 END_TEST
 
+/* A vf CSV re-saved by a spreadsheet: ';' with decimal commas, or TAB,
+ * gives the same VF as the comma file (common practice, no source). */
+START_TEST(phase_vf_from_spreadsheet)
+{
+    const char *files[] = { "label;resonance;vf\nx;fit;0,8\n", "label\tresonance\tvf\nx\tfit\t0.8\n" };
+    for (size_t i = 0; i < 2; i++) {
+        cli_result r = run_cli_with_file("phase --vf-from %s --length 20.10m --reference 20m "
+                                         "--freq 1.8MHz --format csv", files[i], strlen(files[i]));
+        ck_assert_int_eq(r.rc, 0);
+        /* 360 * 1.8e6 * 0.1 / (0.8 c) = 0.27019 [hand worked] */
+        has(r.out, ",0.270,0.8000,all,");
+        cli_result_free(&r);
+    }
+    const char dot_csv[] = "label;resonance;vf\nx;fit;0.8\n";
+    bad_with_file("phase --vf-from %s --length 20.1m --reference 20m --freq 1.8MHz", dot_csv,
+                  strlen(dot_csv), "vf-from", NULL);
+}
+END_TEST
+
 START_TEST(phase_vf_from_labels)
 {
     const char vf_csv[] =
@@ -804,6 +823,7 @@ int main(void)
     TCase *ta = tcase_create("all");
     tcase_set_timeout(ta, 60);
     tcase_add_test(ta, comma_locale_same_bytes);
+    tcase_add_test(ta, phase_vf_from_spreadsheet);
     tcase_add_test(ta, help_lists_commands);
     suite_add_tcase(s, ta);
     return run_suite(s);
