@@ -139,6 +139,19 @@ static int end_field(cxl_csv_reader *r)
 
 enum { FIELD_START, UNQUOTED, QUOTED, QUOTE_END };
 
+/* The parser state after byte c of a quoted cell, while skipping: a
+ * doubled quote stays inside, a lone one closes the cell. */
+static int skip_quoted_byte(cxl_csv_reader *r, int c)
+{
+    if (c == '"') {
+        if (peek_byte(r) != '"') return QUOTE_END;
+        get_byte(r);
+    } else if (c == '\n' || (c == '\r' && peek_byte(r) != '\n')) {
+        r->line++;
+    }
+    return QUOTED;
+}
+
 /* Discard the rest of a rejected record, from parser state `state` on:
  * quotes keep their meaning, so a line break inside a quoted cell does
  * not end the record and no line of the cell's text is taken for a row.
@@ -155,12 +168,7 @@ static void skip_record(cxl_csv_reader *r, int state)
             return;
         }
         if (state == QUOTED) {
-            if (c == '"') {
-                if (peek_byte(r) == '"') get_byte(r);
-                else state = QUOTE_END;
-            } else if (c == '\n' || (c == '\r' && peek_byte(r) != '\n')) {
-                r->line++;
-            }
+            state = skip_quoted_byte(r, c);
         } else if (c == '\n' || c == '\r') {
             if (c == '\r' && peek_byte(r) == '\n') get_byte(r);
             r->line++;
@@ -184,72 +192,121 @@ static cxl_status reject(cxl_csv_reader *r, int state, cxl_status st)
     return r->stopped != CXL_OK ? r->stopped : st;
 }
 
+/* Skips a byte-order mark at the very start; only a whole BOM is
+ * skipped, anything else is data. */
+static void skip_bom(cxl_csv_reader *r)
+{
+    r->at_start = 0;
+    if (peek_byte(r) == 0xEF && r->pos + 3 <= r->size &&
+        (unsigned char)r->data[r->pos + 1] == 0xBB &&
+        (unsigned char)r->data[r->pos + 2] == 0xBF) {
+        r->pos += 3;
+        r->bom = 1;
+    }
+}
+
+/* Empties the record buffer for a new record; 0 when out of memory. */
+static int begin_record(cxl_csv_reader *r)
+{
+    r->rec_len = 0;
+    r->nfields = 0;
+    if (!r->offs) {
+        r->offs = malloc(16 * sizeof *r->offs);
+        if (!r->offs) return 0;
+        r->offs_cap = 16;
+    }
+    r->offs[0] = 0;
+    r->row_line = r->line;
+    return 1;
+}
+
+/* Byte c of a quoted cell: a doubled quote is one quote, a lone one
+ * closes the cell.  Returns as push_char does. */
+static int quoted_byte(cxl_csv_reader *r, int c, int *state)
+{
+    if (c != '"') {
+        if (c == '\n' || (c == '\r' && peek_byte(r) != '\n')) r->line++;
+        return push_char(r, (char)c);
+    }
+    if (peek_byte(r) == '"') {
+        get_byte(r);
+        return push_char(r, '"');
+    }
+    *state = QUOTE_END;
+    return 1;
+}
+
+/* Whether c separates cells: the separator, or while detecting it (no
+ * separator yet) any of ',' ';' and TAB. */
+static int is_separator(const cxl_csv_reader *r, int c)
+{
+    return c == r->sep || (r->sep == 0 && (c == ',' || c == ';' || c == '\t'));
+}
+
+/* Byte c (not NUL, not the end) of a record in parser state *state.
+ * Returns 1 to read on, 0 at the record's line end, -1 with *st set when
+ * the record is rejected or memory runs out. */
+static int record_byte(cxl_csv_reader *r, int c, int *state, cxl_status *st)
+{
+    int ok = 1;
+    if (*state == QUOTED) {
+        ok = quoted_byte(r, c, state);
+    } else if (is_separator(r, c)) {
+        r->sep = c; /* the first record's first separator, when detecting */
+        ok = end_field(r);
+        *state = FIELD_START;
+    } else if (c == '\n' || c == '\r') {
+        if (c == '\r' && peek_byte(r) == '\n') get_byte(r);
+        r->line++;
+        return 0;
+    } else if (*state == QUOTE_END) {
+        *st = reject(r, UNQUOTED, CXL_EPARSE);
+        return -1;
+    } else if (c == '"' && *state == FIELD_START) {
+        *state = QUOTED;
+    } else {
+        *state = UNQUOTED;
+        ok = push_char(r, (char)c);
+    }
+    if (ok < 0) *st = CXL_ENOMEM;
+    else if (ok == 0) *st = reject(r, *state, CXL_ETOOLONG);
+    return ok > 0 ? 1 : -1;
+}
+
+/* Reads one record's bytes up to its line end or the end of input.
+ * *any says whether there was a byte at all; *state is the parser state
+ * at the end. */
+static cxl_status read_record(cxl_csv_reader *r, int *state, int *any)
+{
+    *state = FIELD_START;
+    *any = 0;
+    for (;;) {
+        int c = get_byte(r);
+        if (c == 0) return reject(r, *state, CXL_EPARSE);
+        if (c < 0) {
+            /* a read error: the record so far is not a row */
+            if (r->read_failed) return r->stopped = CXL_EIO;
+            return *state == QUOTED ? CXL_EPARSE : CXL_OK;
+        }
+        *any = 1;
+        cxl_status st = CXL_OK;
+        int go = record_byte(r, c, state, &st);
+        if (go <= 0) return st;
+    }
+}
+
 cxl_status cxl_csv_reader_next(cxl_csv_reader *r, int *has_row)
 {
     if (!r || !has_row) return CXL_EINVAL;
     if (r->stopped != CXL_OK) return r->stopped;
-    if (r->at_start) {
-        r->at_start = 0;
-        if (peek_byte(r) == 0xEF) {
-            /* only a whole BOM is skipped; anything else is data */
-            if (r->pos + 3 <= r->size && (unsigned char)r->data[r->pos + 1] == 0xBB &&
-                (unsigned char)r->data[r->pos + 2] == 0xBF) {
-                r->pos += 3;
-                r->bom = 1;
-            }
-        }
-    }
+    if (r->at_start) skip_bom(r);
     for (;;) {
-        r->rec_len = 0;
-        r->nfields = 0;
-        if (!r->offs) {
-            r->offs = malloc(16 * sizeof *r->offs);
-            if (!r->offs) return CXL_ENOMEM;
-            r->offs_cap = 16;
-        }
-        r->offs[0] = 0;
-        r->row_line = r->line;
-        int state = FIELD_START, c, any = 0, ok;
-        for (;;) {
-            c = get_byte(r);
-            if (c == 0) return reject(r, state, CXL_EPARSE);
-            if (c < 0) {
-                /* a read error: the record so far is not a row */
-                if (r->read_failed) return r->stopped = CXL_EIO;
-                if (state == QUOTED) return CXL_EPARSE;
-                if (!any) { *has_row = 0; return CXL_OK; } /* end of input */
-                break;
-            }
-            any = 1;
-            if (state == QUOTED) {
-                if (c == '"') {
-                    if (peek_byte(r) == '"') { get_byte(r); ok = push_char(r, '"'); }
-                    else { state = QUOTE_END; continue; }
-                } else {
-                    if (c == '\n' || (c == '\r' && peek_byte(r) != '\n')) r->line++;
-                    ok = push_char(r, (char)c);
-                }
-            } else if (c == r->sep || (r->sep == 0 && (c == ',' || c == ';' || c == '\t'))) {
-                r->sep = c; /* the first record's first separator, when detecting */
-                ok = end_field(r);
-                state = FIELD_START;
-            } else if (c == '\n' || c == '\r') {
-                if (c == '\r' && peek_byte(r) == '\n') get_byte(r);
-                r->line++;
-                break;
-            } else if (state == QUOTE_END) {
-                return reject(r, UNQUOTED, CXL_EPARSE);
-            } else if (c == '"' && state == FIELD_START) {
-                state = QUOTED;
-                continue;
-            } else {
-                state = UNQUOTED;
-                ok = push_char(r, (char)c);
-            }
-            if (ok < 0) return CXL_ENOMEM;
-            if (ok == 0) return reject(r, state, CXL_ETOOLONG);
-        }
-        ok = end_field(r);
+        int state, any;
+        if (!begin_record(r)) return CXL_ENOMEM;
+        cxl_status st = read_record(r, &state, &any);
+        if (st != CXL_OK) return st;
+        if (!any) { *has_row = 0; return CXL_OK; } /* end of input */
+        int ok = end_field(r);
         if (ok < 0) return CXL_ENOMEM;
         if (ok == 0) return CXL_ETOOLONG;
         if (r->nfields == 1 && r->rec_len == 1 && state == FIELD_START)
@@ -313,17 +370,22 @@ static int formula_like(const char *text)
     return 0;
 }
 
+/* Whether text needs a leading apostrophe so that no spreadsheet runs
+ * it as a formula. */
+static int needs_apostrophe(const char *text)
+{
+    if (text[0] == '\t' || text[0] == '\r') return 1;
+    if (!formula_like(text)) return 0;
+    double v;
+    /* a plain number such as -3.5 stays a number */
+    return !(cxl_units_parse_number(text, &v, NULL) == CXL_OK &&
+             text[strlen(text) - 1] != ' ');
+}
+
 cxl_status cxl_csv_write_field(FILE *stream, const char *text, int neutralise)
 {
     if (!stream || !text) return CXL_EINVAL;
-    int risky = 0;
-    if (neutralise && (text[0] == '\t' || text[0] == '\r')) {
-        risky = 1;
-    } else if (neutralise && formula_like(text)) {
-        double v;
-        risky = !(cxl_units_parse_number(text, &v, NULL) == CXL_OK &&
-                  text[strlen(text) - 1] != ' '); /* a plain number such as -3.5 stays a number */
-    }
+    int risky = neutralise && needs_apostrophe(text);
     /* ';' and TAB are quoted too, so no spreadsheet splits the cell */
     int quote = strpbrk(text, ",\"\r\n;\t") != NULL;
     if (quote && putc('"', stream) == EOF) return CXL_EIO;
