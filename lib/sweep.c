@@ -64,40 +64,54 @@ static int next_byte(reader *r)
 
 /* Next line into r->text without its end of line; 0 at end of input, 1 for
  * a line, or a negative status after fail_at. */
+/* A read error: the status and its message. */
+static int read_failed(reader *r, cxl_status *st)
+{
+    *st = CXL_EIO;
+    if (r->error_line) *r->error_line = r->line;
+    if (r->error_text && r->error_size) snprintf(r->error_text, r->error_size,
+                                                 "read error (expected a readable file)");
+    return -1;
+}
+
+/* After a CR: CR LF or a lone CR ends the line; the byte after a lone CR
+ * is put back for the next line. */
+static void end_at_cr(reader *r)
+{
+    int c = next_byte(r);
+    if (c != '\n' && c != EOF) {
+        if (r->fp) ungetc(c, r->fp);
+        else r->pos--;
+    }
+}
+
+/* Whether byte c may stand at offset len of a line; else 0 after fail_at. */
+static int line_byte_ok(reader *r, int c, size_t len, cxl_status *st)
+{
+    if ((c < 0x20 && c != '\t') || c == 0x7f) {
+        *st = fail_at(r, r->line, "binary data, byte 0x%02x (expected a text file)", c);
+        return 0;
+    }
+    if (len >= CXL_SWEEP_MAX_LINE) {
+        *st = fail_at(r, r->line, "line longer than %d bytes (expected a text sweep file)",
+                      CXL_SWEEP_MAX_LINE);
+        return 0;
+    }
+    return 1;
+}
+
 static int read_line(reader *r, cxl_status *st)
 {
     size_t len = 0;
     int c = next_byte(r);
-    if (c == EOF) {
-        if (r->fp && ferror(r->fp)) {
-            *st = CXL_EIO;
-            if (r->error_line) *r->error_line = r->line;
-            if (r->error_text && r->error_size) snprintf(r->error_text, r->error_size,
-                                                         "read error (expected a readable file)");
-            return -1;
-        }
-        return 0;
-    }
+    if (c == EOF) return r->fp && ferror(r->fp) ? read_failed(r, st) : 0;
     r->line++;
     while (c != EOF && c != '\n') {
         if (c == '\r') {
-            /* CR LF or a lone CR: the line ends */
-            c = next_byte(r);
-            if (c != '\n' && c != EOF) {
-                if (r->fp) ungetc(c, r->fp);
-                else r->pos--;
-            }
+            end_at_cr(r);
             break;
         }
-        if ((c < 0x20 && c != '\t') || c == 0x7f) {
-            *st = fail_at(r, r->line, "binary data, byte 0x%02x (expected a text file)", c);
-            return -1;
-        }
-        if (len >= CXL_SWEEP_MAX_LINE) {
-            *st = fail_at(r, r->line, "line longer than %d bytes (expected a text sweep file)",
-                          CXL_SWEEP_MAX_LINE);
-            return -1;
-        }
+        if (!line_byte_ok(r, c, len, st)) return -1;
         r->text[len++] = (char)c;
         c = next_byte(r);
     }
@@ -148,36 +162,47 @@ static int is_space(char c) { return c == ' ' || c == '\t'; }
 
 /* Split s in place on spaces/tabs (sep 0) or on commas; up to max tokens.
  * Returns the count (max + 1 when there are more). */
-static size_t split(char *s, char sep, char **tok, size_t max)
+/* split() on spaces and tabs. */
+static size_t split_blanks(char *s, char **tok, size_t max)
 {
     size_t n = 0;
-    if (!sep) {
-        char *p = s;
-        for (;;) {
-            while (is_space(*p)) p++;
-            if (!*p) break;
-            if (n == max) return max + 1;
-            tok[n++] = p;
-            while (*p && !is_space(*p)) p++;
-            if (*p) *p++ = '\0';
-        }
-        return n;
+    char *p = s;
+    for (;;) {
+        while (is_space(*p)) p++;
+        if (!*p) break;
+        if (n == max) return max + 1;
+        tok[n++] = p;
+        while (*p && !is_space(*p)) p++;
+        if (*p) *p++ = '\0';
     }
+    return n;
+}
+
+/* One cell from start to its end (a NUL written there): blanks around it
+ * and one pair of enclosing double quotes taken off. */
+static char *cell_text(char *start, char *end)
+{
+    *end = '\0';
+    while (is_space(*start)) start++;
+    while (end > start && is_space(end[-1])) *--end = '\0';
+    if (end - start >= 2 && *start == '"' && end[-1] == '"') {
+        end[-1] = '\0';
+        start++;
+    }
+    return start;
+}
+
+static size_t split(char *s, char sep, char **tok, size_t max)
+{
+    if (!sep) return split_blanks(s, tok, max);
+    size_t n = 0;
     char *p = s;
     for (;;) {
         if (n == max) return max + 1;
         char *start = p;
         while (*p && *p != sep) p++;
-        char *end = p;
         int last = *p == '\0';
-        *end = '\0';
-        while (is_space(*start)) start++;
-        while (end > start && is_space(end[-1])) *--end = '\0';
-        if (end - start >= 2 && *start == '"' && end[-1] == '"') {
-            end[-1] = '\0';
-            start++;
-        }
-        tok[n++] = start;
+        tok[n++] = cell_text(start, p);
         if (last) break;
         p++;
     }
@@ -246,6 +271,36 @@ typedef struct tsopt {
     double ref;
 } tsopt;
 
+/* A unit, parameter or format word of the option line into o; 0 when t
+ * is none of them. */
+static int option_word(const char *t, tsopt *o)
+{
+    if (caseeq(t, "hz")) o->mult = 1.0;
+    else if (caseeq(t, "khz")) o->mult = 1e3;
+    else if (caseeq(t, "mhz")) o->mult = 1e6;
+    else if (caseeq(t, "ghz")) o->mult = 1e9;
+    else if (caseeq(t, "s")) o->pk = P_S;
+    else if (caseeq(t, "z")) o->pk = P_Z;
+    else if (caseeq(t, "y")) o->pk = P_Y;
+    else if (caseeq(t, "ri")) o->fmt = F_RI;
+    else if (caseeq(t, "ma")) o->fmt = F_MA;
+    else if (caseeq(t, "db")) o->fmt = F_DB;
+    else return 0;
+    return 1;
+}
+
+/* The value after R on the option line (tok[*i] is the R). */
+static cxl_status option_ref(reader *r, char **tok, size_t n, size_t *i, tsopt *o)
+{
+    if (*i + 1 >= n) return fail_at(r, r->line, "R without a value (expected R 50)");
+    double v = 0.0;
+    cxl_status st = number(r, tok[++*i], "reference R", &v);
+    if (st != CXL_OK) return st;
+    if (!(v > 0.0)) return fail_at(r, r->line, "reference R must be above 0 (expected R 50)");
+    o->ref = v;
+    return CXL_OK;
+}
+
 static cxl_status option_line(reader *r, char *text, tsopt *o)
 {
     char *tok[16];
@@ -253,29 +308,15 @@ static cxl_status option_line(reader *r, char *text, tsopt *o)
     if (n > 15) return fail_at(r, r->line, "option line too long (expected # MHz S RI R 50)");
     for (size_t i = 0; i < n; i++) {
         const char *t = tok[i];
-        if (caseeq(t, "hz")) o->mult = 1.0;
-        else if (caseeq(t, "khz")) o->mult = 1e3;
-        else if (caseeq(t, "mhz")) o->mult = 1e6;
-        else if (caseeq(t, "ghz")) o->mult = 1e9;
-        else if (caseeq(t, "s")) o->pk = P_S;
-        else if (caseeq(t, "z")) o->pk = P_Z;
-        else if (caseeq(t, "y")) o->pk = P_Y;
-        else if (caseeq(t, "g") || caseeq(t, "h"))
+        if (option_word(t, o)) continue;
+        if (caseeq(t, "g") || caseeq(t, "h"))
             return fail_at(r, r->line, "%s parameters describe a two-port "
                                        "(expected a one-port file: S, Z or Y)", t);
-        else if (caseeq(t, "ri")) o->fmt = F_RI;
-        else if (caseeq(t, "ma")) o->fmt = F_MA;
-        else if (caseeq(t, "db")) o->fmt = F_DB;
-        else if (caseeq(t, "r")) {
-            if (i + 1 >= n) return fail_at(r, r->line, "R without a value (expected R 50)");
-            double v = 0.0;
-            cxl_status st = number(r, tok[++i], "reference R", &v);
-            if (st != CXL_OK) return st;
-            if (!(v > 0.0)) return fail_at(r, r->line, "reference R must be above 0 (expected R 50)");
-            o->ref = v;
-        } else
+        if (!caseeq(t, "r"))
             return fail_at(r, r->line, "unknown option '%.20s' (expected # Hz|kHz|MHz|GHz "
                                        "S|Z|Y RI|MA|DB R n)", t);
+        cxl_status st = option_ref(r, tok, n, &i, o);
+        if (st != CXL_OK) return st;
     }
     return CXL_OK;
 }
@@ -337,133 +378,193 @@ static char *trim_left(char *t)
     return t;
 }
 
+/* Where a Touchstone reading stands between lines. */
+typedef struct tsstate {
+    tsopt o;
+    int version2, have_option, in_data, in_info, ended, ports_seen, pending_ref;
+    long nfreq;
+    double ref_override;
+} tsstate;
+
+/* A [Reference] value: a number above 0. */
+static cxl_status reference_value(reader *r, const char *tok, double *ref)
+{
+    double v = 0.0;
+    cxl_status st = number(r, tok, "[Reference]", &v);
+    if (st != CXL_OK) return st;
+    if (!(v > 0.0)) return fail_at(r, r->line, "[Reference] must be above 0 (expected 50)");
+    *ref = v;
+    return CXL_OK;
+}
+
+/* The line after a bare [Reference]: its one value. */
+static cxl_status ts_pending_reference(reader *r, char *text, tsstate *ts)
+{
+    char *tok[3];
+    if (split(text, 0, tok, 2) != 1)
+        return fail_at(r, r->line, "[Reference] needs one value for a one-port "
+                                   "(expected e.g. 50)");
+    ts->pending_ref = 0;
+    return reference_value(r, tok[0], &ts->ref_override);
+}
+
+/* The first option line counts (before any data); later ones are ignored. */
+static cxl_status ts_option(reader *r, const cxl_sweep *s, char *text, tsstate *ts)
+{
+    if (ts->have_option) return CXL_OK;
+    if (s->n > 0)
+        return fail_at(r, r->line, "option line after data (expected it before the first "
+                                   "point)");
+    cxl_status st = option_line(r, text, &ts->o);
+    if (st == CXL_OK) ts->have_option = 1;
+    return st;
+}
+
+static cxl_status kw_version(reader *r, char *rest, const tsstate *ts)
+{
+    if (ts->ports_seen || ts->have_option || ts->in_data)
+        return fail_at(r, r->line, "[Version] twice or late (expected it first)");
+    double v = 0.0;
+    char *tok[3];
+    if (split(rest, 0, tok, 2) != 1 || number(r, tok[0], "[Version]", &v) != CXL_OK ||
+        !(v >= 2.0 && v < 3.0))
+        return fail_at(r, r->line, "unsupported version (expected [Version] 2.0)");
+    return CXL_OK;
+}
+
+static cxl_status kw_ports(reader *r, char *rest, tsstate *ts)
+{
+    double v = 0.0;
+    char *tok[3];
+    if (split(rest, 0, tok, 2) != 1 || number(r, tok[0], "[Number of Ports]", &v) != CXL_OK)
+        return fail_at(r, r->line, "bad port count (expected [Number of Ports] 1)");
+    if (v != 1.0)
+        return fail_at(r, r->line, "a %.0f-port file (expected [Number of Ports] 1: "
+                                   "a one-port sweep)", v);
+    ts->ports_seen = 1;
+    return CXL_OK;
+}
+
+static cxl_status kw_frequencies(reader *r, char *rest, tsstate *ts)
+{
+    double v = 0.0;
+    char *tok[3];
+    if (split(rest, 0, tok, 2) != 1 ||
+        number(r, tok[0], "[Number of Frequencies]", &v) != CXL_OK ||
+        !(v >= 1.0 && v <= 1e12) || v != floor(v))
+        return fail_at(r, r->line, "bad frequency count (expected e.g. "
+                                   "[Number of Frequencies] 201)");
+    ts->nfreq = (long)v;
+    return CXL_OK;
+}
+
+/* [Reference] with its value, or alone with the value on the next line. */
+static cxl_status kw_reference(reader *r, char *rest, tsstate *ts)
+{
+    char *tok[3];
+    size_t n = split(rest, 0, tok, 2);
+    if (n == 0) {
+        ts->pending_ref = 1;
+        return CXL_OK;
+    }
+    if (n != 1) return fail_at(r, r->line, "[Reference] needs one value for a "
+                                           "one-port (expected [Reference] 50)");
+    return reference_value(r, tok[0], &ts->ref_override);
+}
+
+static cxl_status kw_network_data(reader *r, tsstate *ts)
+{
+    if (!ts->ports_seen)
+        return fail_at(r, r->line, "[Network Data] before [Number of Ports] "
+                                   "(expected [Number of Ports] 1 first)");
+    if (ts->ref_override > 0.0) ts->o.ref = ts->ref_override;
+    ts->in_data = 1;
+    return CXL_OK;
+}
+
+/* Keywords that only files of more than one port have. */
+static int multiport_keyword(char *text)
+{
+    char *rest;
+    return keyword(text, "[two-port data order]", &rest) ||
+           keyword(text, "[number of noise frequencies]", &rest) ||
+           keyword(text, "[noise data]", &rest) || keyword(text, "[mixed-mode order]", &rest);
+}
+
+static cxl_status ts_keyword(reader *r, char *text, tsstate *ts)
+{
+    char *rest;
+    if (!ts->version2)
+        return fail_at(r, r->line, "keyword in a version 1.0 file (expected [Version] "
+                                   "2.0 as the first keyword)");
+    if (keyword(text, "[version]", &rest)) return kw_version(r, rest, ts);
+    if (keyword(text, "[number of ports]", &rest)) return kw_ports(r, rest, ts);
+    if (keyword(text, "[number of frequencies]", &rest)) return kw_frequencies(r, rest, ts);
+    if (keyword(text, "[reference]", &rest)) return kw_reference(r, rest, ts);
+    /* one value per point: any matrix format is the same */
+    if (keyword(text, "[matrix format]", &rest)) return CXL_OK;
+    if (keyword(text, "[begin information]", &rest)) {
+        ts->in_info = 1;
+        return CXL_OK;
+    }
+    if (keyword(text, "[network data]", &rest)) return kw_network_data(r, ts);
+    if (keyword(text, "[end]", &rest)) {
+        ts->ended = 1;
+        return CXL_OK;
+    }
+    if (multiport_keyword(text))
+        return fail_at(r, r->line, "a keyword of multi-port files (expected a one-port file)");
+    return fail_at(r, r->line, "unknown keyword '%.30s' (expected [Version], [Number "
+                               "of Ports], [Reference], [Network Data], [End])", text);
+}
+
+/* One line of a Touchstone file, blanks on the left taken off. */
+static cxl_status ts_line(reader *r, cxl_sweep *s, char *text, tsstate *ts)
+{
+    if (ts->in_info) {
+        char *rest;
+        if (keyword(text, "[end information]", &rest)) ts->in_info = 0;
+        return CXL_OK;
+    }
+    strip_comment(text);
+    if (blank(text)) return CXL_OK;
+    if (ts->ended) return fail_at(r, r->line, "text after [End] (expected nothing but comments)");
+    if (ts->pending_ref) return ts_pending_reference(r, text, ts);
+    if (text[0] == '#') return ts_option(r, s, text, ts);
+    if (text[0] == '[') return ts_keyword(r, text, ts);
+    if (!ts->in_data)
+        return fail_at(r, r->line, "data before [Network Data] (expected the keyword first)");
+    return data_line(r, s, text, &ts->o, ts->version2);
+}
+
+/* The checks at the end of the file, and the sweep's reference and source. */
+static cxl_status ts_finish(reader *r, cxl_sweep *s, const tsstate *ts)
+{
+    if (ts->in_info) return fail_at(r, r->line, "[Begin Information] without [End Information]");
+    if (s->n == 0) return fail_at(r, r->line, "no data points (expected frequency and value "
+                                              "pairs)");
+    if (ts->version2 && ts->nfreq >= 0 && (size_t)ts->nfreq != s->n)
+        return fail_at(r, r->line, "%zu points but [Number of Frequencies] says %ld", s->n,
+                       ts->nfreq);
+    s->ref = ts->o.ref;
+    s->source = ts->version2 ? CXL_SWEEP_TOUCHSTONE2 : CXL_SWEEP_TOUCHSTONE1;
+    return CXL_OK;
+}
+
 static cxl_status read_touchstone(reader *r, cxl_sweep *s, char *first, int version2)
 {
-    tsopt o = { 1e9, P_S, F_MA, 50.0 };
-    int have_option = 0, in_data = !version2, in_info = 0, ended = 0, ports_seen = 0;
-    long nfreq = -1;
-    int pending_ref = 0;
-    double ref_override = 0.0;
+    tsstate ts = { .o = { 1e9, P_S, F_MA, 50.0 }, .version2 = version2, .in_data = !version2,
+                   .nfreq = -1 };
     cxl_status st = CXL_OK;
     char *text = first;
     for (;;) {
-        text = trim_left(text);
-        if (in_info) {
-            char *rest;
-            if (keyword(text, "[end information]", &rest)) in_info = 0;
-            goto next;
-        }
-        strip_comment(text);
-        if (blank(text)) goto next;
-        if (ended)
-            return fail_at(r, r->line, "text after [End] (expected nothing but comments)");
-        if (pending_ref) {
-            double v = 0.0;
-            char *tok[3];
-            size_t n = split(text, 0, tok, 2);
-            if (n != 1) return fail_at(r, r->line, "[Reference] needs one value for a one-port "
-                                                   "(expected e.g. 50)");
-            if ((st = number(r, tok[0], "[Reference]", &v)) != CXL_OK) return st;
-            if (!(v > 0.0)) return fail_at(r, r->line, "[Reference] must be above 0 (expected 50)");
-            ref_override = v;
-            pending_ref = 0;
-            goto next;
-        }
-        if (text[0] == '#') {
-            if (!have_option) {
-                if (s->n > 0)
-                    return fail_at(r, r->line, "option line after data (expected it before "
-                                               "the first point)");
-                if ((st = option_line(r, text, &o)) != CXL_OK) return st;
-                have_option = 1;
-            }
-            goto next;
-        }
-        if (text[0] == '[') {
-            char *rest;
-            if (!version2)
-                return fail_at(r, r->line, "keyword in a version 1.0 file (expected [Version] "
-                                           "2.0 as the first keyword)");
-            if (keyword(text, "[version]", &rest)) {
-                if (ports_seen || have_option || in_data)
-                    return fail_at(r, r->line, "[Version] twice or late (expected it first)");
-                double v = 0.0;
-                char *tok[3];
-                if (split(rest, 0, tok, 2) != 1 || number(r, tok[0], "[Version]", &v) != CXL_OK ||
-                    !(v >= 2.0 && v < 3.0))
-                    return fail_at(r, r->line, "unsupported version (expected [Version] 2.0)");
-            } else if (keyword(text, "[number of ports]", &rest)) {
-                double v = 0.0;
-                char *tok[3];
-                if (split(rest, 0, tok, 2) != 1 || number(r, tok[0], "[Number of Ports]", &v) != CXL_OK)
-                    return fail_at(r, r->line, "bad port count (expected [Number of Ports] 1)");
-                if (v != 1.0)
-                    return fail_at(r, r->line, "a %.0f-port file (expected [Number of Ports] 1: "
-                                               "a one-port sweep)", v);
-                ports_seen = 1;
-            } else if (keyword(text, "[number of frequencies]", &rest)) {
-                double v = 0.0;
-                char *tok[3];
-                if (split(rest, 0, tok, 2) != 1 ||
-                    number(r, tok[0], "[Number of Frequencies]", &v) != CXL_OK ||
-                    !(v >= 1.0 && v <= 1e12) || v != floor(v))
-                    return fail_at(r, r->line, "bad frequency count (expected e.g. "
-                                               "[Number of Frequencies] 201)");
-                nfreq = (long)v;
-            } else if (keyword(text, "[reference]", &rest)) {
-                char *tok[3];
-                size_t n = split(rest, 0, tok, 2);
-                if (n == 0) pending_ref = 1;
-                else {
-                    double v = 0.0;
-                    if (n != 1) return fail_at(r, r->line, "[Reference] needs one value for a "
-                                                           "one-port (expected [Reference] 50)");
-                    if ((st = number(r, tok[0], "[Reference]", &v)) != CXL_OK) return st;
-                    if (!(v > 0.0)) return fail_at(r, r->line, "[Reference] must be above 0 "
-                                                               "(expected 50)");
-                    ref_override = v;
-                }
-            } else if (keyword(text, "[matrix format]", &rest)) {
-                /* one value per point: any matrix format is the same */
-            } else if (keyword(text, "[begin information]", &rest)) {
-                in_info = 1;
-            } else if (keyword(text, "[network data]", &rest)) {
-                if (!ports_seen)
-                    return fail_at(r, r->line, "[Network Data] before [Number of Ports] "
-                                               "(expected [Number of Ports] 1 first)");
-                if (ref_override > 0.0) o.ref = ref_override;
-                in_data = 1;
-            } else if (keyword(text, "[end]", &rest)) {
-                ended = 1;
-            } else if (keyword(text, "[two-port data order]", &rest) ||
-                       keyword(text, "[number of noise frequencies]", &rest) ||
-                       keyword(text, "[noise data]", &rest) ||
-                       keyword(text, "[mixed-mode order]", &rest)) {
-                return fail_at(r, r->line, "a keyword of multi-port files (expected a one-port "
-                                           "file)");
-            } else {
-                return fail_at(r, r->line, "unknown keyword '%.30s' (expected [Version], [Number "
-                                           "of Ports], [Reference], [Network Data], [End])", text);
-            }
-            goto next;
-        }
-        if (!in_data)
-            return fail_at(r, r->line, "data before [Network Data] (expected the keyword first)");
-        if ((st = data_line(r, s, text, &o, version2)) != CXL_OK) return st;
-    next:;
+        if ((st = ts_line(r, s, trim_left(text), &ts)) != CXL_OK) return st;
         int got = read_line(r, &st);
         if (got < 0) return st;
         if (got == 0) break;
         text = r->text;
     }
-    if (in_info) return fail_at(r, r->line, "[Begin Information] without [End Information]");
-    if (s->n == 0) return fail_at(r, r->line, "no data points (expected frequency and value "
-                                              "pairs)");
-    if (version2 && nfreq >= 0 && (size_t)nfreq != s->n)
-        return fail_at(r, r->line, "%zu points but [Number of Frequencies] says %ld", s->n, nfreq);
-    s->ref = o.ref;
-    s->source = version2 ? CXL_SWEEP_TOUCHSTONE2 : CXL_SWEEP_TOUCHSTONE1;
-    return CXL_OK;
+    return ts_finish(r, s, &ts);
 }
 
 /* ---- CSV -------------------------------------------------------------- */
@@ -477,84 +578,141 @@ static const char *const csv_names[C_N] = {
                      "s11_re,s11_im | s11_db,s11_deg | swr"
 #define CSV_MAXCOL 8
 
-static cxl_status read_csv(reader *r, cxl_sweep *s, char *header)
+/* A CSV sweep's impedances are in ohms, normalised to this. */
+#define CSV_REF_OHM 50.0
+#define HAS(k) ((seen >> (k)) & 1u)
+
+/* The column kind named name, or -1. */
+static int csv_column(const char *name)
+{
+    int k = -1;
+    for (int j = 0; j < C_N; j++)
+        if (caseeq(name, csv_names[j])) k = j;
+    return k;
+}
+
+/* The header's column kinds into col[]; *n their count, *seen a bit for
+ * each kind present. */
+static cxl_status csv_header(reader *r, char *header, int *col, size_t *n, unsigned *seen)
 {
     char *tok[CSV_MAXCOL + 1];
-    size_t n = split(header, ',', tok, CSV_MAXCOL);
-    if (n > CSV_MAXCOL)
+    *n = split(header, ',', tok, CSV_MAXCOL);
+    if (*n > CSV_MAXCOL)
         return fail_at(r, r->line, "too many columns in the header (expected %s)", CSV_EXPECTED);
-    int col[CSV_MAXCOL];
-    unsigned seen = 0;
-    for (size_t i = 0; i < n; i++) {
-        int k = -1;
-        for (int j = 0; j < C_N; j++)
-            if (caseeq(tok[i], csv_names[j])) k = j;
+    *seen = 0;
+    for (size_t i = 0; i < *n; i++) {
+        int k = csv_column(tok[i]);
         if (k < 0)
             return fail_at(r, r->line, "unknown column '%.30s' (expected %s)", tok[i], CSV_EXPECTED);
-        if (seen & (1u << k))
+        if (*seen & (1u << k))
             return fail_at(r, r->line, "column %s appears twice", csv_names[k]);
-        seen |= 1u << k;
+        *seen |= 1u << k;
         col[i] = k;
     }
-#define HAS(k) ((seen >> (k)) & 1u)
-    int nf = HAS(C_FHZ) + HAS(C_FMHZ);
-    int sets = (HAS(C_R) || HAS(C_X)) + (HAS(C_ZMAG) || HAS(C_ZDEG)) + (HAS(C_SRE) || HAS(C_SIM)) +
-               (HAS(C_SDB) || HAS(C_SDEG)) + HAS(C_SWR);
-    int complete = (HAS(C_R) && HAS(C_X)) || (HAS(C_ZMAG) && HAS(C_ZDEG)) ||
-                   (HAS(C_SRE) && HAS(C_SIM)) || (HAS(C_SDB) && HAS(C_SDEG)) || HAS(C_SWR);
-    if (nf != 1 || sets != 1 || !complete)
+    return CXL_OK;
+}
+
+/* How many value column sets the header touches. */
+static int csv_value_sets(unsigned seen)
+{
+    return (HAS(C_R) || HAS(C_X)) + (HAS(C_ZMAG) || HAS(C_ZDEG)) + (HAS(C_SRE) || HAS(C_SIM)) +
+           (HAS(C_SDB) || HAS(C_SDEG)) + HAS(C_SWR);
+}
+
+/* Whether some value column set is complete. */
+static int csv_set_complete(unsigned seen)
+{
+    return (HAS(C_R) && HAS(C_X)) || (HAS(C_ZMAG) && HAS(C_ZDEG)) ||
+           (HAS(C_SRE) && HAS(C_SIM)) || (HAS(C_SDB) && HAS(C_SDEG)) || HAS(C_SWR);
+}
+
+/* The point of one row at frequency f from its values v[] by column kind. */
+static cxl_status csv_store(reader *r, cxl_sweep *s, double f, const double *v, unsigned seen)
+{
+    if (HAS(C_SWR)) {
+        if (!(v[C_SWR] >= 1.0))
+            return fail_at(r, r->line, "swr %.6g is below 1 (expected 1 or more)", v[C_SWR]);
+        double mag = (v[C_SWR] - 1.0) / (v[C_SWR] + 1.0);
+        return store(r, s, f, P_S, mag);
+    }
+    if (HAS(C_SRE)) return store(r, s, f, P_S, v[C_SRE] + I * v[C_SIM]);
+    if (HAS(C_SDB)) return store(r, s, f, P_S, pair_value(F_DB, v[C_SDB], v[C_SDEG]));
+    double complex z;
+    if (HAS(C_R)) {
+        z = v[C_R] + I * v[C_X];
+    } else {
+        if (v[C_ZMAG] < 0.0) return fail_at(r, r->line, "z_ohm below 0 (expected a magnitude)");
+        z = pair_value(F_MA, v[C_ZMAG], v[C_ZDEG]);
+    }
+    return store(r, s, f, P_Z, z / CSV_REF_OHM);
+}
+
+/* One data row (in r->text) of n cells of the kinds col[]. */
+static cxl_status csv_row(reader *r, cxl_sweep *s, const int *col, size_t n, unsigned seen)
+{
+    char *cell[CSV_MAXCOL + 1];
+    size_t m = split(r->text, ',', cell, CSV_MAXCOL);
+    if (m != n)
+        return fail_at(r, r->line, "%s%zu fields but the header has %zu (expected one value "
+                                   "per column)", m > n ? "more than " : "",
+                       m > n ? n : m, n);
+    double v[C_N] = { 0 };
+    cxl_status st;
+    for (size_t i = 0; i < n; i++)
+        if ((st = number(r, cell[i], csv_names[col[i]], &v[col[i]])) != CXL_OK) return st;
+    double f = HAS(C_FHZ) ? v[C_FHZ] : v[C_FMHZ] * 1e6;
+    if (!(f >= 0.0) || !isfinite(f))
+        return fail_at(r, r->line, "frequency below 0 (expected 0 or more)");
+    return csv_store(r, s, f, v, seen);
+}
+
+static cxl_status read_csv(reader *r, cxl_sweep *s, char *header)
+{
+    int col[CSV_MAXCOL];
+    size_t n = 0;
+    unsigned seen = 0;
+    cxl_status st = csv_header(r, header, col, &n, &seen);
+    if (st != CXL_OK) return st;
+    if (HAS(C_FHZ) + HAS(C_FMHZ) != 1 || csv_value_sets(seen) != 1 || !csv_set_complete(seen))
         return fail_at(r, r->line, "the header needs one frequency column and one complete "
                                    "column set (expected %s)", CSV_EXPECTED);
-    double ref = 50.0;
-    cxl_status st = CXL_OK;
     for (;;) {
         int got = read_line(r, &st);
         if (got < 0) return st;
         if (got == 0) break;
         if (blank(r->text)) continue;
-        char *cell[CSV_MAXCOL + 1];
-        size_t m = split(r->text, ',', cell, CSV_MAXCOL);
-        if (m != n)
-            return fail_at(r, r->line, "%s%zu fields but the header has %zu (expected one value "
-                                       "per column)", m > n ? "more than " : "",
-                           m > n ? n : m, n);
-        double v[C_N] = { 0 };
-        for (size_t i = 0; i < n; i++)
-            if ((st = number(r, cell[i], csv_names[col[i]], &v[col[i]])) != CXL_OK) return st;
-        double f = HAS(C_FHZ) ? v[C_FHZ] : v[C_FMHZ] * 1e6;
-        if (!(f >= 0.0) || !isfinite(f))
-            return fail_at(r, r->line, "frequency below 0 (expected 0 or more)");
-        double complex z;
-        if (HAS(C_SWR)) {
-            if (!(v[C_SWR] >= 1.0))
-                return fail_at(r, r->line, "swr %.6g is below 1 (expected 1 or more)", v[C_SWR]);
-            double mag = (v[C_SWR] - 1.0) / (v[C_SWR] + 1.0);
-            if ((st = store(r, s, f, P_S, mag)) != CXL_OK) return st;
-            continue;
-        }
-        if (HAS(C_SRE)) st = store(r, s, f, P_S, v[C_SRE] + I * v[C_SIM]);
-        else if (HAS(C_SDB)) st = store(r, s, f, P_S, pair_value(F_DB, v[C_SDB], v[C_SDEG]));
-        else {
-            if (HAS(C_R)) z = v[C_R] + I * v[C_X];
-            else {
-                if (v[C_ZMAG] < 0.0)
-                    return fail_at(r, r->line, "z_ohm below 0 (expected a magnitude)");
-                z = pair_value(F_MA, v[C_ZMAG], v[C_ZDEG]);
-            }
-            st = store(r, s, f, P_Z, z / ref);
-        }
-        if (st != CXL_OK) return st;
+        if ((st = csv_row(r, s, col, n, seen)) != CXL_OK) return st;
     }
     if (s->n == 0) return fail_at(r, r->line, "a header but no data rows (expected %s values)",
                                   "one row per frequency");
-    s->ref = ref;
+    s->ref = CSV_REF_OHM;
     s->source = CXL_SWEEP_CSV;
     s->has_phase = !HAS(C_SWR);
-#undef HAS
     return CXL_OK;
 }
+#undef HAS
 
 /* ---- entry points ----------------------------------------------------- */
+
+/* The first line that is neither blank nor a comment: 1, 0 at the end of
+ * input, -1 on an error. */
+static int first_line(reader *r, cxl_status *st)
+{
+    for (;;) {
+        int got = read_line(r, st);
+        if (got <= 0) return got;
+        char *t = trim_left(r->text);
+        if (*t != '!' && *t != '\0') return 1;
+    }
+}
+
+/* Whether a first line opens a version 1.0 Touchstone file: an option
+ * line, a keyword or a number. */
+static int touchstone1_start(const char *t)
+{
+    return *t == '#' || *t == '[' || *t == '+' || *t == '-' || *t == '.' ||
+           (*t >= '0' && *t <= '9');
+}
 
 static cxl_status read_any(reader *r, cxl_sweep **out)
 {
@@ -564,31 +722,21 @@ static cxl_status read_any(reader *r, cxl_sweep **out)
     if (!s) return CXL_ENOMEM;
     s->has_phase = 1;
     cxl_status st = CXL_OK;
-    int got;
-    for (;;) {
-        got = read_line(r, &st);
-        if (got <= 0) break;
-        char *t = trim_left(r->text);
-        if (*t == '!' || *t == '\0') continue;
-        break;
-    }
-    if (got < 0) goto fail;
+    int got = first_line(r, &st);
     if (got == 0) {
         st = fail_at(r, 0, "empty file (expected a Touchstone or CSV sweep)");
-        goto fail;
+    } else if (got > 0) {
+        char *t = trim_left(r->text);
+        if (cxl__ascii_ncaseeq(t, "[version]", 9)) st = read_touchstone(r, s, t, 1);
+        else if (touchstone1_start(t)) st = read_touchstone(r, s, t, 0);
+        else st = read_csv(r, s, t);
     }
-    char *t = trim_left(r->text);
-    if (cxl__ascii_ncaseeq(t, "[version]", 9)) st = read_touchstone(r, s, t, 1);
-    else if (*t == '#' || *t == '[' || *t == '+' || *t == '-' || *t == '.' ||
-             (*t >= '0' && *t <= '9'))
-        st = read_touchstone(r, s, t, 0);
-    else st = read_csv(r, s, t);
-    if (st != CXL_OK) goto fail;
+    if (st != CXL_OK) {
+        cxl_sweep_free(s);
+        return st;
+    }
     *out = s;
     return CXL_OK;
-fail:
-    cxl_sweep_free(s);
-    return st;
 }
 
 /* Read from a stream or a buffer (exactly one of fp, text). */
@@ -659,6 +807,18 @@ const double *cxl__sweep_freqs(const cxl_sweep *s)
     return s->freq;
 }
 
+/* The impedance of reflection coefficient g against ref; 0 when none is
+ * finite. */
+static int impedance_of(double complex g, double ref, double *zr, double *zi)
+{
+    double complex d = 1.0 - g;
+    if (cabs(d) == 0.0) return 0;
+    double complex z = ref * (1.0 + g) / d;
+    *zr = creal(z);
+    *zi = cimag(z);
+    return isfinite(*zr) && isfinite(*zi);
+}
+
 cxl_status cxl_sweep_point(const cxl_sweep *sweep, size_t index, double reference_ohm,
                            double *freq_hz, double *gamma_re, double *gamma_im,
                            double *z_re_ohm, double *z_im_ohm)
@@ -669,14 +829,7 @@ cxl_status cxl_sweep_point(const cxl_sweep *sweep, size_t index, double referenc
     double complex g = gamma_at(sweep, index, reference_ohm);
     if (!isfinite(creal(g)) || !isfinite(cimag(g))) return CXL_ERANGE;
     double zr = 0.0, zi = 0.0;
-    if (z_re_ohm || z_im_ohm) {
-        double complex d = 1.0 - g;
-        if (cabs(d) == 0.0) return CXL_ERANGE;
-        double complex z = reference_ohm * (1.0 + g) / d;
-        zr = creal(z);
-        zi = cimag(z);
-        if (!isfinite(zr) || !isfinite(zi)) return CXL_ERANGE;
-    }
+    if ((z_re_ohm || z_im_ohm) && !impedance_of(g, reference_ohm, &zr, &zi)) return CXL_ERANGE;
     if (freq_hz) *freq_hz = sweep->freq[index];
     if (gamma_re) *gamma_re = creal(g);
     if (gamma_im) *gamma_im = cimag(g);
@@ -807,52 +960,79 @@ static double prom_value(cxl_sweep_kind kind, double v)
 
 /* Prominent local minima of v[] (squared magnitudes): both sides must rise
  * by CXL_SWEEP_MIN_PROMINENCE^2 before a lower value. */
+/* What a search for minima reads: squared magnitudes v[] at f[], their
+ * noise, and the resistance (|Z| minima) or NULL. */
+typedef struct min_in {
+    const double *f, *v, *noise, *res;
+    size_t n;
+    cxl_sweep_kind kind;
+} min_in;
+
+/* Whether v[i] rises on one side (0 below, 1 above), before a lower
+ * point, by the ratio need (squared, against here) and by a rise that
+ * stands out of the noise at both points. */
+static int rises_on_side(const min_in *m, size_t i, int side, double need, double here)
+{
+    const double *v = m->v;
+    double h = sqrt(here);
+    int ratio = 0, sig = 0;
+    for (size_t j = i;;) {
+        if (side == 0) { if (j == 0) break; j--; }
+        else { if (j + 1 >= m->n) break; j++; }
+        if (v[j] < v[i]) break;
+        double pj = prom_value(m->kind, v[j]);
+        if (pj >= need * here) ratio = 1;
+        if (sqrt(pj) - h >= CXL__NOISE_K * hypot(m->noise[j], m->noise[i])) sig = 1;
+        if (ratio && sig) break;
+    }
+    return ratio && sig;
+}
+
+static int prominent(const min_in *m, size_t i)
+{
+    const double need = CXL_SWEEP_MIN_PROMINENCE * CXL_SWEEP_MIN_PROMINENCE;
+    double here = prom_value(m->kind, m->v[i]);
+    if (!(here > 0.0)) here = DBL_MIN;
+    return rises_on_side(m, i, 0, need, here) && rises_on_side(m, i, 1, need, here);
+}
+
+/* The frequency of the minimum at point i (the parabola's vertex), and
+ * *value there: |Z| or the SWR. */
+static double minimum_at(const min_in *m, size_t i, double *value)
+{
+    const double *f = m->f, *v = m->v;
+    double y;
+    double x = vertex(f[i - 1], v[i - 1], f[i], v[i], f[i + 1], v[i + 1], &y);
+    if (m->res) {
+        /* |Z| = sqrt(R^2 + X^2) is never below the resistance there:
+         * where the reactance is far from linear across the three
+         * points the parabola's vertex can undershoot it (down to 0
+         * on a lossy line), so the resistance interpolated at the
+         * vertex bounds it from below */
+        size_t k = x < f[i] ? i - 1 : i;
+        double t = (x - f[k]) / (f[k + 1] - f[k]);
+        double rx = m->res[k] + t * (m->res[k + 1] - m->res[k]);
+        if (isfinite(rx) && rx * rx > y) y = rx * rx;
+    }
+    if (m->kind == CXL_SWEEP_Z_MIN) {
+        *value = sqrt(y);
+    } else {
+        double g = sqrt(y);
+        *value = g < 1.0 ? (1.0 + g) / (1.0 - g) : INFINITY;
+    }
+    return x;
+}
+
 static cxl_status minima(cxl_sweep_res *r, const double *f, const double *v,
                          const double *noise, const double *res, size_t n, cxl_sweep_kind kind)
 {
-    const double need = CXL_SWEEP_MIN_PROMINENCE * CXL_SWEEP_MIN_PROMINENCE;
+    const min_in m = { f, v, noise, res, n, kind };
     for (size_t i = 1; i + 1 < n; i++) {
         if (!(v[i] <= v[i - 1] && v[i] < v[i + 1])) continue;
-        double here = prom_value(kind, v[i]);
-        if (!(here > 0.0)) here = DBL_MIN;
-        double h = sqrt(here);
-        /* on each side, before a lower point: a rise by the ratio, and a
-         * rise that stands out of the noise at both points */
-        int ok = 1;
-        for (int side = 0; side < 2 && ok; side++) {
-            int ratio = 0, sig = 0;
-            for (size_t j = i;;) {
-                if (side == 0) { if (j == 0) break; j--; }
-                else { if (j + 1 >= n) break; j++; }
-                if (v[j] < v[i]) break;
-                double pj = prom_value(kind, v[j]);
-                if (pj >= need * here) ratio = 1;
-                if (sqrt(pj) - h >= CXL__NOISE_K * hypot(noise[j], noise[i])) sig = 1;
-                if (ratio && sig) break;
-            }
-            ok = ratio && sig;
-        }
-        if (!ok) continue;
-        double y;
-        double x = vertex(f[i - 1], v[i - 1], f[i], v[i], f[i + 1], v[i + 1], &y);
-        double step = fmax(f[i] - f[i - 1], f[i + 1] - f[i]);
-        if (res) {
-            /* |Z| = sqrt(R^2 + X^2) is never below the resistance there:
-             * where the reactance is far from linear across the three
-             * points the parabola's vertex can undershoot it (down to 0
-             * on a lossy line), so the resistance interpolated at the
-             * vertex bounds it from below */
-            size_t k = x < f[i] ? i - 1 : i;
-            double t = (x - f[k]) / (f[k + 1] - f[k]);
-            double rx = res[k] + t * (res[k + 1] - res[k]);
-            if (isfinite(rx) && rx * rx > y) y = rx * rx;
-        }
+        if (!prominent(&m, i)) continue;
         double value;
-        if (kind == CXL_SWEEP_Z_MIN) value = sqrt(y);
-        else {
-            double g = sqrt(y);
-            value = g < 1.0 ? (1.0 + g) / (1.0 - g) : INFINITY;
-        }
+        double x = minimum_at(&m, i, &value);
+        double step = fmax(f[i] - f[i - 1], f[i + 1] - f[i]);
         cxl_status st = res_add(r, (res_item){ kind, 1, 0, x, step / 2.0, value });
         if (st != CXL_OK) return st;
     }
@@ -936,103 +1116,133 @@ static double spacing(const cxl_sweep_res *r)
     return best;
 }
 
-cxl_status cxl_sweep_resonances(const cxl_sweep *sweep, double reference_ohm, cxl_stub_end end,
-                                double length_m, double vf_guess, cxl_sweep_res **res)
+/* Work arrays of a resonance search, n points each. */
+typedef struct res_work {
+    double *buf;
+    double *zz, *xx, *gg, *gr, *gi, *nz, *ns, *rr;
+    size_t *xi; /* point before each crossing */
+} res_work;
+
+static int work_alloc(res_work *w, size_t n)
 {
-    if (!sweep || !res || !cxl__finite_pos(reference_ohm)) return CXL_EINVAL;
-    if (end != CXL_STUB_OPEN && end != CXL_STUB_SHORT) return CXL_EINVAL;
-    if (!cxl__finite_nonneg(length_m) || !isfinite(vf_guess) || vf_guess < 0.0 || vf_guess > 1.0)
-        return CXL_EINVAL;
-    if ((length_m > 0.0) != (vf_guess > 0.0)) return CXL_EINVAL;
-    if (sweep->n > SIZE_MAX / (8 * sizeof(double)) - 1) return CXL_ENOMEM;
-    size_t n = sweep->n;
-    cxl_sweep_res *r = calloc(1, sizeof *r);
-    double *buf = calloc(8 * n + 1, sizeof *buf);
-    if (!r || !buf) {
-        free(r);
-        free(buf);
-        return CXL_ENOMEM;
+    w->buf = calloc(8 * n + 1, sizeof *w->buf);
+    w->xi = malloc((n + 1) * sizeof *w->xi);
+    if (!w->buf || !w->xi) {
+        free(w->buf);
+        free(w->xi);
+        return 0;
     }
-    double *zz = buf, *xx = buf + n, *gg = buf + 2 * n, *gr = buf + 3 * n, *gi = buf + 4 * n;
-    double *nz = buf + 5 * n, *ns = buf + 6 * n, *rr = buf + 7 * n;
-    size_t *xi = malloc((n + 1) * sizeof *xi);  /* point before each crossing */
-    if (!xi) {
-        free(buf);
-        free(r);
-        return CXL_ENOMEM;
+    double *b = w->buf;
+    w->zz = b, w->xx = b + n, w->gg = b + 2 * n, w->gr = b + 3 * n, w->gi = b + 4 * n;
+    w->nz = b + 5 * n, w->ns = b + 6 * n, w->rr = b + 7 * n;
+    return 1;
+}
+
+/* Gamma of each point against ref (a magnitude-only sweep: |Gamma|). */
+static void fill_gamma(const cxl_sweep *s, double ref, res_work *w)
+{
+    for (size_t i = 0; i < s->n; i++) {
+        double complex g = s->has_phase ? gamma_at(s, i, ref) : (double complex)s->gre[i];
+        w->gr[i] = creal(g);
+        w->gi[i] = cimag(g);
     }
-    const double *f = sweep->freq;
-    cxl_status st = CXL_OK;
+}
+
+/* Noise of Gamma per part (see gamma_noise). */
+static double sweep_noise(const cxl_sweep *s, res_work *w)
+{
+    double sg = gamma_noise(w->gr, w->gi, s->n, w->nz);
+    /* magnitudes only: the second difference of |G| (one part) */
+    return s->has_phase ? sg : sg * sqrt(2.0);
+}
+
+/* |Gamma|^2, |Z|^2, X and R of each point, and what the noise sg of Gamma
+ * makes of |Z| (and X) and of the SWR:
+ * d|Z| <= 2 Zref dG / |1 - G|^2, dSWR = 2 d|G| / (1 - |G|)^2 */
+static void fill_derived(size_t n, double ref, double sg, res_work *w)
+{
     for (size_t i = 0; i < n; i++) {
-        double complex g = sweep->has_phase ? gamma_at(sweep, i, reference_ohm)
-                                            : (double complex)sweep->gre[i];
-        gr[i] = creal(g);
-        gi[i] = cimag(g);
-    }
-    /* noise of Gamma, and what it makes of |Z| (and X) and of the SWR:
-     * d|Z| <= 2 Zref dG / |1 - G|^2, dSWR = 2 d|G| / (1 - |G|)^2 */
-    double sg = sweep->has_phase ? gamma_noise(gr, gi, n, nz) : 0.0;
-    if (!sweep->has_phase) {
-        /* magnitudes only: the second difference of |G| (one part) */
-        double tmp = gamma_noise(gr, gi, n, nz);
-        sg = tmp * sqrt(2.0);
-    }
-    for (size_t i = 0; i < n; i++) {
-        double complex g = gr[i] + I * gi[i];
+        double complex g = w->gr[i] + I * w->gi[i];
         double m1 = cabs(1.0 - g), mg = cabs(g);
-        nz[i] = 2.0 * reference_ohm * sg / (m1 * m1);
-        ns[i] = mg < 1.0 ? 2.0 * sg / ((1.0 - mg) * (1.0 - mg)) : INFINITY;
-        gg[i] = creal(g) * creal(g) + cimag(g) * cimag(g);
+        w->nz[i] = 2.0 * ref * sg / (m1 * m1);
+        w->ns[i] = mg < 1.0 ? 2.0 * sg / ((1.0 - mg) * (1.0 - mg)) : INFINITY;
+        w->gg[i] = creal(g) * creal(g) + cimag(g) * cimag(g);
         double complex d = 1.0 - g;
-        double complex z = reference_ohm * (1.0 + g) / d;
+        double complex z = ref * (1.0 + g) / d;
         if (cabs(d) == 0.0 || !isfinite(creal(z)) || !isfinite(cimag(z))) {
-            zz[i] = INFINITY;
-            xx[i] = rr[i] = NAN;
+            w->zz[i] = INFINITY;
+            w->xx[i] = w->rr[i] = NAN;
         } else {
-            zz[i] = creal(z) * creal(z) + cimag(z) * cimag(z);
-            xx[i] = cimag(z);
-            rr[i] = creal(z);
+            w->zz[i] = creal(z) * creal(z) + cimag(z) * cimag(z);
+            w->xx[i] = cimag(z);
+            w->rr[i] = creal(z);
         }
     }
-    if (sweep->has_phase) {
-        /* reactance zero crossings */
-        for (size_t i = 0; st == CXL_OK && i + 1 < n; i++) {
-            double x0 = xx[i], x1 = xx[i + 1];
-            if (isnan(x0) || isnan(x1)) continue;
-            int up = x0 < 0.0 && x1 >= 0.0, down = x0 > 0.0 && x1 <= 0.0;
-            if (!up && !down) continue;
-            double t, value;
-            if (up) {
-                t = x0 / (x0 - x1);
-            } else {
-                /* susceptance B = -X / |Z|^2 rises through zero */
-                double b0 = -x0 / zz[i], b1 = -x1 / zz[i + 1];
-                t = b0 / (b0 - b1);
-            }
-            if (!(t >= 0.0 && t <= 1.0)) t = 0.5;
-            double complex g0 = gamma_at(sweep, i, reference_ohm);
-            double complex g1 = gamma_at(sweep, i + 1, reference_ohm);
-            double complex z0 = reference_ohm * (1.0 + g0) / (1.0 - g0);
-            double complex z1 = reference_ohm * (1.0 + g1) / (1.0 - g1);
-            value = creal(z0) + t * (creal(z1) - creal(z0));
-            double fx = f[i] + t * (f[i + 1] - f[i]);
-            size_t before = r->n;
-            st = res_add(r, (res_item){ CXL_SWEEP_X_ZERO, up, 0, fx, (f[i + 1] - f[i]) / 2.0,
-                                        value });
-            if (r->n > before) xi[r->n - 1] = i;
-        }
-        if (st == CXL_OK) drop_noise_pairs(r, xi);
-        if (st == CXL_OK) st = minima(r, f, zz, nz, rr, n, CXL_SWEEP_Z_MIN);
+}
+
+/* Whether X crosses zero between points i and i + 1: *t the crossing's
+ * fraction of the step, *up whether X rises. */
+static int x_crossing(const res_work *w, size_t i, double *t, int *up)
+{
+    double x0 = w->xx[i], x1 = w->xx[i + 1];
+    if (isnan(x0) || isnan(x1)) return 0;
+    int rise = x0 < 0.0 && x1 >= 0.0, fall = x0 > 0.0 && x1 <= 0.0;
+    if (!rise && !fall) return 0;
+    if (rise) {
+        *t = x0 / (x0 - x1);
+    } else {
+        /* susceptance B = -X / |Z|^2 rises through zero */
+        double b0 = -x0 / w->zz[i], b1 = -x1 / w->zz[i + 1];
+        *t = b0 / (b0 - b1);
     }
-    if (st == CXL_OK) st = minima(r, f, gg, ns, NULL, n, CXL_SWEEP_SWR_MIN);
-    free(buf);
-    free(xi);
-    if (st != CXL_OK) {
-        cxl_sweep_res_free(r);
-        return st;
+    if (!(*t >= 0.0 && *t <= 1.0)) *t = 0.5;
+    *up = rise;
+    return 1;
+}
+
+/* The reactance zero crossings, with the resistance there. */
+static cxl_status x_zeros(cxl_sweep_res *r, const cxl_sweep *s, double ref, res_work *w)
+{
+    const double *f = s->freq;
+    cxl_status st = CXL_OK;
+    for (size_t i = 0; st == CXL_OK && i + 1 < s->n; i++) {
+        double t;
+        int up;
+        if (!x_crossing(w, i, &t, &up)) continue;
+        double complex g0 = gamma_at(s, i, ref);
+        double complex g1 = gamma_at(s, i + 1, ref);
+        double complex z0 = ref * (1.0 + g0) / (1.0 - g0);
+        double complex z1 = ref * (1.0 + g1) / (1.0 - g1);
+        double value = creal(z0) + t * (creal(z1) - creal(z0));
+        double fx = f[i] + t * (f[i + 1] - f[i]);
+        size_t before = r->n;
+        st = res_add(r, (res_item){ CXL_SWEEP_X_ZERO, up, 0, fx, (f[i + 1] - f[i]) / 2.0,
+                                    value });
+        if (r->n > before) w->xi[r->n - 1] = i;
     }
-    if (r->n) qsort(r->item, r->n, sizeof *r->item, cmp_item);
-    /* orders */
+    return st;
+}
+
+static cxl_status find_resonances(cxl_sweep_res *r, const cxl_sweep *s, double ref,
+                                  res_work *w)
+{
+    size_t n = s->n;
+    fill_gamma(s, ref, w);
+    fill_derived(n, ref, sweep_noise(s, w), w);
+    cxl_status st = CXL_OK;
+    if (s->has_phase) {
+        st = x_zeros(r, s, ref, w);
+        if (st == CXL_OK) drop_noise_pairs(r, w->xi);
+        if (st == CXL_OK) st = minima(r, s->freq, w->zz, w->nz, w->rr, n, CXL_SWEEP_Z_MIN);
+    }
+    if (st == CXL_OK) st = minima(r, s->freq, w->gg, w->ns, NULL, n, CXL_SWEEP_SWR_MIN);
+    return st;
+}
+
+/* Orders from the quarter-wave frequency: of the given length and VF,
+ * else from the spacing of the resonances found. */
+static void set_orders(cxl_sweep_res *r, cxl_stub_end end, double length_m, double vf_guess)
+{
     double quarter_hz = 0.0; /* frequency of one quarter wave */
     if (length_m > 0.0) {
         quarter_hz = vf_guess * CXL_C_M_PER_S / (4.0 * length_m);
@@ -1043,6 +1253,40 @@ cxl_status cxl_sweep_resonances(const cxl_sweep *sweep, double reference_ohm, cx
     if (isfinite(quarter_hz) && quarter_hz > 0.0)
         for (size_t i = 0; i < r->n; i++)
             r->item[i].order = order_at(r->item[i].f / quarter_hz, r->item[i].series, end);
+}
+
+static cxl_status resonance_args(const cxl_sweep *sweep, cxl_sweep_res **res, double ref,
+                                 cxl_stub_end end, double length_m, double vf_guess)
+{
+    if (!sweep || !res || !cxl__finite_pos(ref)) return CXL_EINVAL;
+    if (end != CXL_STUB_OPEN && end != CXL_STUB_SHORT) return CXL_EINVAL;
+    if (!cxl__finite_nonneg(length_m) || !isfinite(vf_guess) || vf_guess < 0.0 || vf_guess > 1.0)
+        return CXL_EINVAL;
+    if ((length_m > 0.0) != (vf_guess > 0.0)) return CXL_EINVAL;
+    if (sweep->n > SIZE_MAX / (8 * sizeof(double)) - 1) return CXL_ENOMEM;
+    return CXL_OK;
+}
+
+cxl_status cxl_sweep_resonances(const cxl_sweep *sweep, double reference_ohm, cxl_stub_end end,
+                                double length_m, double vf_guess, cxl_sweep_res **res)
+{
+    cxl_status st = resonance_args(sweep, res, reference_ohm, end, length_m, vf_guess);
+    if (st != CXL_OK) return st;
+    cxl_sweep_res *r = calloc(1, sizeof *r);
+    res_work w;
+    if (!r || !work_alloc(&w, sweep->n)) {
+        free(r);
+        return CXL_ENOMEM;
+    }
+    st = find_resonances(r, sweep, reference_ohm, &w);
+    free(w.buf);
+    free(w.xi);
+    if (st != CXL_OK) {
+        cxl_sweep_res_free(r);
+        return st;
+    }
+    if (r->n) qsort(r->item, r->n, sizeof *r->item, cmp_item);
+    set_orders(r, end, length_m, vf_guess);
     *res = r;
     return CXL_OK;
 }
