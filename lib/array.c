@@ -712,7 +712,7 @@ static cxl_status refine_peak(const array_eval *e, double lo, double hi,
             if (gsl_multimin_fminimizer_iterate(m) != GSL_SUCCESS)
                 break;
             if (gsl_multimin_test_size(gsl_multimin_fminimizer_size(m),
-                                       1e-9) == GSL_SUCCESS)
+                                       1e-6) == GSL_SUCCESS)
                 break;
         }
         double p = -gsl_multimin_fminimizer_minimum(m);
