@@ -39,6 +39,9 @@
 #define PEAK_CANDIDATES 6
 /* Local minima of the rear scan refined by Brent. */
 #define NULL_CANDIDATES 4
+/* Brent's stop on the rear null's azimuth (radians): one it can reach. */
+#define NULL_EPSABS 1e-9
+#define NULL_EPSREL 1e-7
 
 typedef struct {
     double x_m, y_m, z_m;
@@ -709,7 +712,7 @@ static cxl_status refine_peak(const array_eval *e, double lo, double hi,
             if (gsl_multimin_fminimizer_iterate(m) != GSL_SUCCESS)
                 break;
             if (gsl_multimin_test_size(gsl_multimin_fminimizer_size(m),
-                                       1e-9) == GSL_SUCCESS)
+                                       1e-6) == GSL_SUCCESS)
                 break;
         }
         double p = -gsl_multimin_fminimizer_minimum(m);
@@ -828,7 +831,11 @@ static double cut_power(double az, void *params)
     return power_at(cp->e, az, cp->el);
 }
 
-/* Brent minimisation of the cut inside (a, b) around x. */
+/* Brent minimisation of the cut inside (a, b) around x.  GSL's Brent does
+ * not shrink its interval below about sqrt(DBL_EPSILON) |x| (5e-8 rad near
+ * pi), so the stop asks for NULL_EPSABS + NULL_EPSREL |x|, which it
+ * reaches; the best point it evaluated, usually much nearer the null, is
+ * what counts. */
 static cxl_status refine_null(cut_params *cp, double x, double a, double b,
                               double *best, double *best_az)
 {
@@ -841,8 +848,8 @@ static cxl_status refine_null(cut_params *cp, double x, double a, double b,
             if (gsl_min_fminimizer_iterate(m) != GSL_SUCCESS)
                 break;
             if (gsl_min_test_interval(gsl_min_fminimizer_x_lower(m),
-                                      gsl_min_fminimizer_x_upper(m), 1e-13,
-                                      0.0) == GSL_SUCCESS)
+                                      gsl_min_fminimizer_x_upper(m),
+                                      NULL_EPSABS, NULL_EPSREL) == GSL_SUCCESS)
                 break;
         }
         double p = gsl_min_fminimizer_f_minimum(m);

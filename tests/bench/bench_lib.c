@@ -94,6 +94,25 @@ BENCH_BODY(array_rdf2, "rdf 2", rdf_n(fx->arr2, i, &out))
 BENCH_BODY(array_rdf8, "rdf 8", rdf_n(fx->arr8, i, &out))
 BENCH_BODY(array_rdf8v, "rdf 8 vertical", rdf_n(fx->arr8v, i, &out))
 BENCH_BODY(array_rdf64, "rdf 64", rdf_n(fx->arr64, i, &out))
+/* What `coaxline pattern` computes for one row of 3 band points (160 m's
+ * low edge, centre, high edge) of one pair: forward gain, front-to-back,
+ * rear null and RDF at each. */
+static cxl_status pattern_row(const cxl_array_pair *p, long i, double *out)
+{
+    static const double f_hz[3] = { 1.8e6, 1.9e6, 2.0e6 };
+    cxl_status st = CXL_OK;
+    *out = 0.0;
+    for (int k = 0; k < 3 && st == CXL_OK; k++) {
+        double f = f_hz[k] + WIGGLE(i) * 1e3, g, fb, az, nd, rdf;
+        st = cxl_array_forward_gain(p, f, 0.0, &g);
+        if (st == CXL_OK) st = cxl_array_front_to_back(p, f, 0.0, &fb);
+        if (st == CXL_OK) st = cxl_array_rear_null(p, f, 0.0, &az, &nd);
+        if (st == CXL_OK) st = cxl_array_rdf(p, f, &rdf);
+        *out += g + fb + nd + rdf;
+    }
+    return st;
+}
+BENCH_BODY(array_pattern_row, "pattern row", pattern_row(fx->pair, i, &out))
 BENCH_BODY(array_fb8, "f/b 8",
            cxl_array_eval_front_to_back(fx->arr8, 1.83e6 + WIGGLE(i) * 1e4, 0.0, &out))
 /* Monte-Carlo yield: one call runs yield_trials trials at one frequency. */
@@ -436,6 +455,8 @@ int main(int argc, char **argv)
     measure("cxl_loss_model_attenuation", "RG-213 geometry, 1.83 MHz", loss_model, &fx);
     measure("cxl_stub_fit (3 readings)", "new, 3 readings, fit, vf, free", stub_fit, &fx);
     measure("cxl_array_rdf", "end-fire cardioid pair, 1.83 MHz", array_rdf, &fx);
+    measure("pattern row (3 band points)", "gain, F/B, rear null, RDF of that pair (target 0.5 ms)",
+            array_pattern_row, &fx);
     measure("cxl_array_eval_rdf (2 elements)", "the same pair as a cxl_array (target 0.3 ms)",
             array_rdf2, &fx);
     measure("cxl_array_eval_rdf (8 elements)", "4 such pairs, lambda/2 apart (target 2 ms)",
