@@ -509,6 +509,17 @@ const char *cli_fmt_range_mhz(char *buf, size_t size, double lo_hz, double hi_hz
 cxl_loss_fit *cli_cable_fit(const cxl_catalog *cat, size_t index);
 /* One line describing a fit: points, table range, usable range, residual. */
 const char *cli_fmt_fit(char *buf, size_t size, const cxl_loss_fit *fit);
+/* A batch's cables: the fitted table and the physical model of each
+ * catalog cable, built on the first row that needs them and kept for the
+ * rows after (per ctx, so per thread; NULL is an empty cache).  _fit gives
+ * NULL as cli_cable_fit does; _model cxl_loss_model_new_cable's status.
+ * The cache owns what they return. */
+typedef struct cli_cable_cache cli_cable_cache;
+const cxl_loss_fit *cli_cable_cache_fit(cli_cable_cache **cache, const cxl_catalog *cat,
+                                        size_t index);
+cxl_status cli_cable_cache_model(cli_cable_cache **cache, const cxl_catalog *cat,
+                                 size_t index, const cxl_loss_model **model);
+void cli_cable_cache_free(cli_cable_cache *cache);
 
 /* ---- measured lines: bands, vf, phase, pair (measured.c) ------------- */
 

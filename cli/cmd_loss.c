@@ -42,14 +42,16 @@ typedef struct loss_setup {
     size_t npoints;         /* the cable's loss-table points */
     unsigned flags;         /* CXL_LOSS_* */
     int model_clad;         /* physical model with a copper-clad centre */
-    cxl_loss_fit *fit;
-    cxl_loss_model *model;
+    const cxl_loss_fit *fit;     /* both kept in the batch's cable cache */
+    const cxl_loss_model *model;
 } loss_setup;
 
-static void setup_free(loss_setup *s)
+/* The batch's cable cache (cli_cable_cache), in ctx->state. */
+static int loss_end(cli_ctx *ctx)
 {
-    cxl_loss_fit_free(s->fit);
-    cxl_loss_model_free(s->model);
+    cli_cable_cache_free(ctx->state);
+    ctx->state = NULL;
+    return CLI_EXIT_OK;
 }
 
 /* Choose and build the model for cable index i; 0 or CLI_EXIT_USAGE. */
@@ -81,7 +83,9 @@ static int setup_model(cli_ctx *ctx, const cli_args *a, const cxl_catalog *cat, 
         s->flags |= CXL_LOSS_EXTRAPOLATE;
     }
     if (!s->physical) {
-        s->fit = cli_cable_fit(cat, i);
+        cli_cable_cache *cache = ctx->state;
+        s->fit = cli_cable_cache_fit(&cache, cat, i);
+        ctx->state = cache;
         if (!s->fit)
             return cli_error(ctx, "model",
                              "--model physical, or two or more points in a --cable-loss file",
@@ -89,7 +93,9 @@ static int setup_model(cli_ctx *ctx, const cli_args *a, const cxl_catalog *cat, 
                              s->npoints, s->npoints == 1 ? "" : "s");
         return 0;
     }
-    cxl_status st = cxl_loss_model_new_cable(cat, i, &s->model);
+    cli_cable_cache *cache = ctx->state;
+    cxl_status st = cli_cable_cache_model(&cache, cat, i, &s->model);
+    ctx->state = cache;
     if (st == CXL_ENOTFOUND)
         return cli_error(ctx, "cable",
                          "loss points in a --cable-loss file, or inner_diameter_mm and "
@@ -271,10 +277,7 @@ static int loss_run(cli_ctx *ctx, const cli_args *a)
              !isfinite(ml[k]) || !isfinite(tl[k])))
             code = cli_error(ctx, "length", "a shorter run", "the loss of this run is too large to compute");
     }
-    if (code) {
-        setup_free(&s);
-        return code;
-    }
+    if (code) return code;
 
     if (ctx->format == CLI_TEXT) {
         text_output(ctx, a, name, idx, &s, length_m, swr, pts, n, per_m, ml, tl, extra);
@@ -290,7 +293,6 @@ static int loss_run(cli_ctx *ctx, const cli_args *a)
             cli_table_row(ctx, loss_cols, NCOLS, cells);
         }
     }
-    setup_free(&s);
     return CLI_EXIT_OK;
 }
 
@@ -300,5 +302,6 @@ const cli_command cli_cmd_loss = {
     .synopsis = "--cable NAME --length LEN (--band LIST | --freq F) [--swr X] [OPTIONS]",
     .opts = loss_opts,
     .run = loss_run,
+    .end = loss_end,
     .batch = 1,
 };

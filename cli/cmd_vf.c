@@ -283,50 +283,77 @@ static void write_text(cli_ctx *ctx, const summary *sm, const cxl_stub_result *r
                    "                    length, read again and give those readings as F@LEN\n");
 }
 
-/* Readings into a fresh stub and its fit.  freq_hz[i] replaces the
- * readings' frequencies, orders (may be NULL) their orders.  A refused
- * reading is reported by its index. */
+/* What the rows of a batch reuse (ctx->state): the stub and its result,
+ * refitted row after row, and the cables' line models. */
+typedef struct vf_state {
+    cxl_stub *stub;
+    cxl_stub_result *res;
+    cli_cable_cache *cables;
+} vf_state;
+
+static int vf_end(cli_ctx *ctx)
+{
+    vf_state *vs = ctx->state;
+    if (vs) {
+        cxl_stub_free(vs->stub);
+        cxl_stub_result_free(vs->res);
+        cli_cable_cache_free(vs->cables);
+        free(vs);
+    }
+    ctx->state = NULL;
+    return CLI_EXIT_OK;
+}
+
+/* The batch's state, made on the first row; NULL after an error line. */
+static vf_state *vf_state_of(cli_ctx *ctx)
+{
+    vf_state *vs = ctx->state;
+    if (vs) return vs;
+    vs = calloc(1, sizeof *vs);
+    if (!vs || cxl_stub_new(CXL_STUB_OPEN, &vs->stub) != CXL_OK ||
+        cxl_stub_result_new(&vs->res) != CXL_OK) {
+        if (vs) cxl_stub_free(vs->stub);
+        free(vs);
+        cli_error(ctx, "resonance", NULL, "%s", cxl_strerror(CXL_ENOMEM));
+        return NULL;
+    }
+    ctx->state = vs;
+    return vs;
+}
+
+/* Readings into the emptied stub and its fit into res.  freq_hz[i]
+ * replaces the readings' frequencies, orders (may be NULL) their orders.
+ * A refused reading is reported by its index. */
 static int fit_readings(const cli_ctx *ctx, cxl_stub_end end, const reading *r, int n,
                         const double *freq_hz, const int *orders, double fixture_m,
                         double fixture_vf, double length_tol_m, double step_hz,
-                        cxl_stub **stub_out, cxl_stub_result **res_out)
+                        cxl_stub *stub, cxl_stub_result *res)
 {
-    cxl_stub *stub = NULL;
-    cxl_stub_result *res = NULL;
-    cxl_status st = cxl_stub_new(end, &stub);
+    cxl_status st = cxl_stub_reset(stub, end);
     if (st == CXL_OK) st = cxl_stub_set_fixture(stub, fixture_m, fixture_vf);
     if (st == CXL_OK) st = cxl_stub_set_tolerances(stub, length_tol_m, step_hz);
     if (st == CXL_OK) st = cxl_stub_set_vf_range(stub, VF_MIN, VF_MAX);
     if (st == CXL_OK) st = cxl_stub_set_orders(stub, CXL_STUB_ORDERS_BEST_FIT);
-    if (st != CXL_OK) {
-        cxl_stub_free(stub);
-        return cli_error(ctx, "resonance", NULL, "%s", cxl_strerror(st));
-    }
+    if (st != CXL_OK) return cli_error(ctx, "resonance", NULL, "%s", cxl_strerror(st));
     for (int i = 0; i < n; i++) {
         st = cxl_stub_add_reading(stub, r[i].length_m, freq_hz[i], orders ? orders[i] : r[i].order);
         if (st != CXL_OK) {
-            cxl_stub_free(stub);
             return st == CXL_EINVAL ? sequence_error(ctx, &r[i])
                                     : cli_error(ctx, "resonance", res_expected, "'%s': %s",
                                                 r[i].text, cxl_strerror(st));
         }
     }
     size_t bad;
-    if (cxl_stub_implausible_reading(stub, &bad) == CXL_OK) {
-        cxl_stub_free(stub);
+    if (cxl_stub_implausible_reading(stub, &bad) == CXL_OK)
         return implausible_error(ctx, end, &r[bad]);
-    }
-    st = cxl_stub_fit(stub, &res);
+    st = cxl_stub_fit_into(stub, res);
     if (st != CXL_OK) {
-        cxl_stub_free(stub);
         if (st == CXL_EINCONSISTENT)
             return cli_error(ctx, "resonance", "readings where a longer cable resonates lower",
                              "the readings contradict each other: a longer length shows a shorter "
                              "electrical length, or the fitted fixture is longer than a reading");
         return cli_error(ctx, "resonance", res_expected, "%s", cxl_strerror(st));
     }
-    *stub_out = stub;
-    *res_out = res;
     return 0;
 }
 
@@ -439,32 +466,29 @@ static int vf_run(cli_ctx *ctx, const cli_args *a)
         }
     }
 
-    cxl_loss_model *model = NULL;
+    vf_state *vs = vf_state_of(ctx);
+    if (!vs) return CLI_EXIT_USAGE;
+    const cxl_loss_model *model = NULL;
     if (cable) {
         size_t idx;
         if (cli_cable_index(ctx, cable, &idx)) return CLI_EXIT_USAGE;
-        if (cxl_loss_model_new_cable(cli_catalog(ctx), idx, &model) != CXL_OK)
+        if (cli_cable_cache_model(&vs->cables, cli_catalog(ctx), idx, &model) != CXL_OK)
             return cli_error(ctx, "cable", "a cable with inner and dielectric diameters (coaxline cables)",
                              "cable '%s' has no geometry to model", cable);
     }
-    cxl_stub *stub = NULL;
-    cxl_stub_result *res = NULL;
+    cxl_stub *stub = vs->stub;
+    cxl_stub_result *res = vs->res;
     int rc = fit_readings(ctx, end, r, n, shown, NULL, fixture_m, fixture_vf, length_tol_m,
-                          step_hz, &stub, &res);
+                          step_hz, stub, res);
     unsigned first_flags = 0;
     if (!rc && model) {
         /* orders from the readings as read; then fit the corrected ones */
         cxl_stub_result_flags(res, &first_flags);
         rc = correct(ctx, model, end, r, n, res, kind, ref_ohm, kind_name, corr, orders);
-        cxl_stub_result_free(res);
-        cxl_stub_free(stub);
-        res = NULL;
-        stub = NULL;
         if (!rc)
             rc = fit_readings(ctx, end, r, n, corr, orders, fixture_m, fixture_vf, length_tol_m,
-                              step_hz, &stub, &res);
+                              step_hz, stub, res);
     }
-    cxl_loss_model_free(model);
     if (rc) return CLI_EXIT_USAGE;
 
     summary sm = { .label = cli_label(a), .end_text = end_text, .end = end, .one_length = 1,
@@ -510,8 +534,6 @@ static int vf_run(cli_ctx *ctx, const cli_args *a)
         if (ctx->format == CLI_TEXT) write_text(ctx, &sm, res);
         else write_table(ctx, &sm, res);
     }
-    cxl_stub_result_free(res);
-    cxl_stub_free(stub);
     return rc ? CLI_EXIT_USAGE : CLI_EXIT_OK;
 }
 
@@ -522,5 +544,6 @@ const cli_command cli_cmd_vf = {
                 "[OPTIONS]",
     .opts = vf_opts,
     .run = vf_run,
+    .end = vf_end,
     .batch = 1,
 };

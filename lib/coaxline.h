@@ -287,6 +287,10 @@ typedef enum cxl_stub_orders {
 
 cxl_status cxl_stub_new(cxl_stub_end end, cxl_stub **stub);
 void cxl_stub_free(cxl_stub *stub);
+/* Empty the stub for a new set of readings on end, as cxl_stub_new
+ * leaves it (defaults restored), keeping its memory: a program fitting
+ * one set per row allocates nothing once the largest set was seen. */
+cxl_status cxl_stub_reset(cxl_stub *stub, cxl_stub_end end);
 /* Known fixture between analyzer and cable (default none). */
 cxl_status cxl_stub_set_fixture(cxl_stub *stub, double fixture_m,
                                 double fixture_vf);
@@ -340,6 +344,12 @@ cxl_status cxl_stub_implausible_reading(const cxl_stub *stub, size_t *index);
  * shorter electrical length, or a fitted fixture longer than a reading. */
 cxl_status cxl_stub_fit(const cxl_stub *stub, cxl_stub_result **result);
 void cxl_stub_result_free(cxl_stub_result *result);
+/* A result to refit with cxl_stub_fit_into, empty until then.  Refitted
+ * row after row, it allocates only for more readings than before; on
+ * failure it is left empty (its functions return CXL_EINVAL) and the
+ * status is cxl_stub_fit's. */
+cxl_status cxl_stub_result_new(cxl_stub_result **result);
+cxl_status cxl_stub_fit_into(const cxl_stub *stub, cxl_stub_result *result);
 /* Fitted VF and its total uncertainty (root sum of squares of the budget). */
 cxl_status cxl_stub_result_vf(const cxl_stub_result *result, double *vf,
                               double *vf_err);

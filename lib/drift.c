@@ -24,42 +24,40 @@
  * when it is carried beyond the readings (see cxl_drift_vf). */
 #define LAW_SLACK 0.25
 
-struct cxl_drift {
-    double v_hf, d;          /* VF = v_hf - d / sqrt(f) */
-    double cov[2][2];        /* covariance of (v_hf, -d) */
-    double f_min, f_max;
-    size_t n;
-};
-
 /* x = 1/sqrt(f) in 1/sqrt(MHz), which keeps the columns of similar size. */
 static double x_of(double freq_hz)
 {
     return 1.0 / sqrt(freq_hz * 1e-6);
 }
 
-cxl_status cxl_drift_new(const double *freq_hz, const double *vf,
-                         const double *vf_err, size_t n, cxl_drift **drift)
+/* Arguments of cxl_drift_new; CXL_OK, CXL_EINVAL or CXL_ERANGE, with the
+ * frequency range in *f_min, *f_max. */
+static cxl_status check_points(const double *freq_hz, const double *vf, const double *vf_err,
+                               size_t n, double *f_min, double *f_max)
 {
-    if (!freq_hz || !vf || !drift || n == 0) return CXL_EINVAL;
     for (size_t i = 0; i < n; i++)
         if (!cxl__finite_pos(freq_hz[i]) || !cxl__valid_vf(vf[i]) ||
             (vf_err && !cxl__finite_pos(vf_err[i])))
             return CXL_EINVAL;
-    double f_min = freq_hz[0], f_max = freq_hz[0];
+    *f_min = *f_max = freq_hz[0];
     for (size_t i = 1; i < n; i++) {
-        if (freq_hz[i] < f_min) f_min = freq_hz[i];
-        if (freq_hz[i] > f_max) f_max = freq_hz[i];
+        if (freq_hz[i] < *f_min) *f_min = freq_hz[i];
+        if (freq_hz[i] > *f_max) *f_max = freq_hz[i];
     }
     /* two distinct frequencies at least, and far enough apart that the
      * columns 1 and x are not numerically the same */
-    if (!(f_max > f_min * (1.0 + 1e-9))) return CXL_ERANGE;
-    cxl_drift *d = calloc(1, sizeof *d);
-    double *buf = malloc(4 * n * sizeof *buf);
-    if (!d || !buf) {
-        free(d); free(buf);
-        return CXL_ENOMEM;
-    }
-    double *X = buf, *w = X + 2 * n, *y = w + n, c[2], cov[4];
+    return *f_max > *f_min * (1.0 + 1e-9) ? CXL_OK : CXL_ERANGE;
+}
+
+/* The fit of cxl_drift_new into *d, its arrays in ws (reserved by the
+ * caller for n rows and 4 n doubles); *d untouched on failure. */
+static cxl_status fill(const double *freq_hz, const double *vf, const double *vf_err,
+                       size_t n, cxl__fitws *ws, struct cxl_drift *d)
+{
+    double f_min, f_max;
+    cxl_status st = check_points(freq_hz, vf, vf_err, n, &f_min, &f_max);
+    if (st != CXL_OK) return st;
+    double *X = ws->buf, *w = X + 2 * n, *y = w + n, c[2], cov[4];
     for (size_t i = 0; i < n; i++) {
         X[2 * i] = 1.0;
         X[2 * i + 1] = x_of(freq_hz[i]);
@@ -67,29 +65,37 @@ cxl_status cxl_drift_new(const double *freq_hz, const double *vf,
         w[i] = vf_err ? 1.0 / (vf_err[i] * vf_err[i]) : 1.0;
     }
     double chisq = 0.0;
-    cxl_status st = cxl__wfit2(X, w, y, n, c, cov, &chisq);
-    if (st == CXL_ENOMEM) {
-        free(d); free(buf);
-        return st;
-    }
-    if (st == CXL_OK) {
-        /* without stated errors the scatter sets the scale (none with two
-         * points: the line goes through both); with them, a scatter larger
-         * than they explain scales them up (chi^2 per degree of freedom
-         * above 1: the law misses some of the readings' spread) */
-        double scale = 1.0, per_dof = n > 2 ? chisq / (double)(n - 2) : 0.0;
-        if (!vf_err) scale = per_dof;
-        else if (per_dof > 1.0) scale = per_dof;
-        d->v_hf = c[0];
-        d->d = -c[1] * 1e3; /* per 1/sqrt(MHz) -> per 1/sqrt(Hz) */
-        for (int r = 0; r < 2; r++)
-            for (int k = 0; k < 2; k++) d->cov[r][k] = cov[2 * r + k] * scale;
-        d->f_min = f_min;
-        d->f_max = f_max;
-        d->n = n;
-        st = CXL_OK;
-    }
-    free(buf);
+    st = cxl__wfit2_ws(ws, X, w, y, n, c, cov, &chisq);
+    if (st != CXL_OK) return st;
+    /* without stated errors the scatter sets the scale (none with two
+     * points: the line goes through both); with them, a scatter larger
+     * than they explain scales them up (chi^2 per degree of freedom
+     * above 1: the law misses some of the readings' spread) */
+    double scale = 1.0, per_dof = n > 2 ? chisq / (double)(n - 2) : 0.0;
+    if (!vf_err) scale = per_dof;
+    else if (per_dof > 1.0) scale = per_dof;
+    d->v_hf = c[0];
+    d->d = -c[1] * 1e3; /* per 1/sqrt(MHz) -> per 1/sqrt(Hz) */
+    for (int r = 0; r < 2; r++)
+        for (int k = 0; k < 2; k++) d->cov[r][k] = cov[2 * r + k] * scale;
+    d->f_min = f_min;
+    d->f_max = f_max;
+    d->n = n;
+    return CXL_OK;
+}
+
+cxl_status cxl_drift_new(const double *freq_hz, const double *vf,
+                         const double *vf_err, size_t n, cxl_drift **drift)
+{
+    if (!freq_hz || !vf || !drift || n == 0) return CXL_EINVAL;
+    double f_min, f_max;
+    cxl_status st = check_points(freq_hz, vf, vf_err, n, &f_min, &f_max);
+    if (st != CXL_OK) return st;
+    cxl__fitws ws = { 0 };
+    cxl_drift *d = calloc(1, sizeof *d);
+    st = d ? cxl__fitws_reserve(&ws, n, 2, 4 * n) : CXL_ENOMEM;
+    if (st == CXL_OK) st = fill(freq_hz, vf, vf_err, n, &ws, d);
+    cxl__fitws_free(&ws);
     if (st != CXL_OK) {
         free(d);
         return st;
@@ -98,15 +104,15 @@ cxl_status cxl_drift_new(const double *freq_hz, const double *vf,
     return CXL_OK;
 }
 
-cxl_status cxl_drift_new_stub(const cxl_stub_result *result, double freq_res_hz,
-                              cxl_drift **drift)
+cxl_status cxl__drift_fill_stub(const cxl_stub_result *result, double freq_res_hz,
+                                cxl__fitws *ws, struct cxl_drift *drift)
 {
     size_t n = cxl_stub_result_count(result);
-    if (!result || !drift || n == 0 || !cxl__finite_nonneg(freq_res_hz)) return CXL_EINVAL;
-    double *buf = malloc(3 * n * sizeof *buf);
-    if (!buf) return CXL_ENOMEM;
-    double *f = buf, *v = f + n, *e = v + n;
-    cxl_status st = CXL_OK;
+    if (!result || n == 0 || !cxl__finite_nonneg(freq_res_hz)) return CXL_EINVAL;
+    /* the fit's 4 n doubles, then the readings' 3 n */
+    cxl_status st = cxl__fitws_reserve(ws, n, 2, 7 * n);
+    if (st != CXL_OK) return st;
+    double *f = ws->buf + 4 * n, *v = f + n, *e = v + n;
     for (size_t i = 0; i < n && st == CXL_OK; i++) {
         st = cxl_stub_result_reading(result, i, NULL, &f[i], NULL, &v[i], NULL, NULL);
         /* a frequency step df moves a reading's VF by VF df / f */
@@ -115,9 +121,24 @@ cxl_status cxl_drift_new_stub(const cxl_stub_result *result, double freq_res_hz,
          * overflows is out of range, not an invalid argument */
         if (st == CXL_OK && freq_res_hz > 0.0 && !cxl__finite_pos(e[i])) st = CXL_ERANGE;
     }
-    if (st == CXL_OK) st = cxl_drift_new(f, v, freq_res_hz > 0.0 ? e : NULL, n, drift);
-    free(buf);
+    if (st == CXL_OK) st = fill(f, v, freq_res_hz > 0.0 ? e : NULL, n, ws, drift);
     return st;
+}
+
+cxl_status cxl_drift_new_stub(const cxl_stub_result *result, double freq_res_hz,
+                              cxl_drift **drift)
+{
+    if (!result || !drift) return CXL_EINVAL;
+    cxl__fitws ws = { 0 };
+    cxl_drift *d = calloc(1, sizeof *d);
+    cxl_status st = d ? cxl__drift_fill_stub(result, freq_res_hz, &ws, d) : CXL_ENOMEM;
+    cxl__fitws_free(&ws);
+    if (st != CXL_OK) {
+        free(d);
+        return st;
+    }
+    *drift = d;
+    return CXL_OK;
 }
 
 void cxl_drift_free(cxl_drift *drift)

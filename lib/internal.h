@@ -33,6 +33,41 @@ static inline cxl_status cxl__put_finite(double v, double *out)
 cxl_status cxl__wfit2(const double *x, const double *w, const double *y, size_t n,
                       double c[2], double cov[4], double *chisq);
 
+/* loss.c: a least-squares workspace kept across fits, so that a handle
+ * refitted row after row allocates only when it needs more room than
+ * before.  Zero-initialise; cxl__fitws_free releases it.  work is GSL's
+ * gsl_multifit_linear_workspace for up to nmax rows of pmax columns (GSL
+ * solves any n <= nmax, p <= pmax in it); buf holds cap doubles for the
+ * caller's own arrays. */
+typedef struct cxl__fitws {
+    void *work;
+    size_t nmax, pmax;
+    double *buf;
+    size_t cap;
+} cxl__fitws;
+cxl_status cxl__fitws_reserve(cxl__fitws *ws, size_t n, size_t p, size_t doubles);
+void cxl__fitws_free(cxl__fitws *ws);
+/* cxl__wfit2 in a workspace reserved for n rows of 2 columns. */
+cxl_status cxl__wfit2_ws(cxl__fitws *ws, const double *x, const double *w, const double *y,
+                         size_t n, double c[2], double cov[4], double *chisq);
+
+/* drift.c: the trend VF = v_hf - d / sqrt(f), opaque to callers of the
+ * API, here so that the library's own row paths can hold one in place. */
+struct cxl_drift {
+    double v_hf, d;          /* VF = v_hf - d / sqrt(f) */
+    double cov[2][2];        /* covariance of (v_hf, -d) */
+    double f_min, f_max;
+    size_t n;
+};
+/* cxl_drift_new_stub into *drift, with the fit in ws (no allocation once
+ * ws holds room for the result's readings). */
+cxl_status cxl__drift_fill_stub(const cxl_stub_result *result, double freq_res_hz,
+                                cxl__fitws *ws, struct cxl_drift *drift);
+/* stub.c: cxl_stub_result_vf_at with its trend fitted in ws. */
+cxl_status cxl__stub_result_vf_at_ws(const cxl_stub_result *result, double freq_hz,
+                                     double *vf, double *vf_err, unsigned *how,
+                                     cxl__fitws *ws);
+
 /* Case-insensitive ASCII comparison of n bytes, locale-free. */
 int cxl__ascii_ncaseeq(const char *a, const char *b, size_t n);
 

@@ -108,8 +108,35 @@ static int pair_cmp(const void *x, const void *y)
     return (a->f > b->f) - (a->f < b->f);
 }
 
-cxl_status cxl__wfit2(const double *x, const double *w, const double *y, size_t n,
-                      double c[2], double cov[4], double *chisq)
+cxl_status cxl__fitws_reserve(cxl__fitws *ws, size_t n, size_t p, size_t doubles)
+{
+    if (n > ws->nmax || p > ws->pmax) {
+        size_t nmax = n > ws->nmax ? n : ws->nmax, pmax = p > ws->pmax ? p : ws->pmax;
+        gsl_multifit_linear_workspace *w = gsl_multifit_linear_alloc(nmax, pmax);
+        if (!w) return CXL_ENOMEM;
+        if (ws->work) gsl_multifit_linear_free(ws->work);
+        ws->work = w;
+        ws->nmax = nmax;
+        ws->pmax = pmax;
+    }
+    if (doubles > ws->cap) {
+        double *b = realloc(ws->buf, doubles * sizeof *b);
+        if (!b) return CXL_ENOMEM;
+        ws->buf = b;
+        ws->cap = doubles;
+    }
+    return CXL_OK;
+}
+
+void cxl__fitws_free(cxl__fitws *ws)
+{
+    if (ws->work) gsl_multifit_linear_free(ws->work);
+    free(ws->buf);
+    memset(ws, 0, sizeof *ws);
+}
+
+cxl_status cxl__wfit2_ws(cxl__fitws *ws, const double *x, const double *w, const double *y,
+                         size_t n, double c[2], double cov[4], double *chisq)
 {
     double cbuf[2], covbuf[4], chi = 0.0;
     /* the views are of the caller's arrays (GSL does not write x, w, y) */
@@ -118,17 +145,24 @@ cxl_status cxl__wfit2(const double *x, const double *w, const double *y, size_t 
     gsl_vector_const_view yv = gsl_vector_const_view_array(y, n);
     gsl_vector_view cv = gsl_vector_view_array(cbuf, 2);
     gsl_matrix_view covv = gsl_matrix_view_array(covbuf, 2, 2);
-    gsl_multifit_linear_workspace *work = gsl_multifit_linear_alloc(n, 2);
-    if (!work) return CXL_ENOMEM;
     int gst = gsl_multifit_wlinear(&xv.matrix, &wv.vector, &yv.vector, &cv.vector,
-                                   &covv.matrix, &chi, work);
-    gsl_multifit_linear_free(work);
+                                   &covv.matrix, &chi, ws->work);
     if (gst != GSL_SUCCESS || !isfinite(cbuf[0]) || !isfinite(cbuf[1])) return CXL_ENOCONV;
     c[0] = cbuf[0];
     c[1] = cbuf[1];
     if (cov) for (int i = 0; i < 4; i++) cov[i] = covbuf[i];
     if (chisq) *chisq = chi;
     return CXL_OK;
+}
+
+cxl_status cxl__wfit2(const double *x, const double *w, const double *y, size_t n,
+                      double c[2], double cov[4], double *chisq)
+{
+    cxl__fitws ws = { 0 };
+    cxl_status st = cxl__fitws_reserve(&ws, n, 2, 0);
+    if (st == CXL_OK) st = cxl__wfit2_ws(&ws, x, w, y, n, c, cov, chisq);
+    cxl__fitws_free(&ws);
+    return st;
 }
 
 /* Weighted least squares of y = a sqrt(f) + b f with weights 1/y^2. */

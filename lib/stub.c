@@ -57,6 +57,13 @@ struct cxl_stub_result {
     double x_m, x_err_m;
     double freq_res_hz, length_tol_m; /* for cxl_stub_result_vf_at */
     unsigned flags;
+    /* kept across cxl_stub_fit_into calls: room for cap readings in the
+     * arrays above, the fit's workspace and its integer scratch (4 cap:
+     * orders, a group's orders, a trial, done marks) and index scratch */
+    size_t cap;
+    cxl__fitws ws;
+    int *iscratch;
+    size_t *zscratch;
 };
 
 /* Wavelengths of line at the order-th series resonance. */
@@ -147,6 +154,22 @@ cxl_status cxl_stub_new(cxl_stub_end end, cxl_stub **stub)
     s->consistency = DEFAULT_CONSISTENCY;
     s->rule = CXL_STUB_ORDERS_CONSECUTIVE;
     *stub = s;
+    return CXL_OK;
+}
+
+cxl_status cxl_stub_reset(cxl_stub *stub, cxl_stub_end end)
+{
+    if (!stub || !valid_end(end)) return CXL_EINVAL;
+    reading *r = stub->r;
+    size_t cap = stub->cap;
+    memset(stub, 0, sizeof *stub);
+    stub->r = r;
+    stub->cap = cap;
+    stub->end = end;
+    stub->vf_min = DEFAULT_VF_MIN;
+    stub->vf_max = DEFAULT_VF_MAX;
+    stub->consistency = DEFAULT_CONSISTENCY;
+    stub->rule = CXL_STUB_ORDERS_CONSECUTIVE;
     return CXL_OK;
 }
 
@@ -260,14 +283,12 @@ static int reading_plausible(const cxl_stub *s, size_t i, int use_given)
  * worst relative departure from its mean length is smallest wins (the
  * lowest orders on a tie). */
 static cxl_status best_fit_group(const cxl_stub *s, const size_t *idx, size_t m,
-                                 int *orders)
+                                 int *orders, int *trial)
 {
     double best_score = INFINITY;
     const reading *first = &s->r[idx[0]];
     double k_min = first->freq_hz * (first->length_m / s->vf_max + s->fixture_free_m) /
                    CXL_C_M_PER_S;
-    int *trial = malloc(m * sizeof *trial);
-    if (!trial) return CXL_ENOMEM;
     for (long n1 = first_order_at_least(s->end, k_min); n1 <= CXL_STUB_MAX_ORDER; n1++) {
         double e1 = cable_free_m(s, idx[0], n1);
         if (!(e1 > 0.0) || first->length_m / e1 < s->vf_min) break;
@@ -294,15 +315,14 @@ static cxl_status best_fit_group(const cxl_stub *s, const size_t *idx, size_t m,
             memcpy(orders, trial, m * sizeof *orders);
         }
     }
-    free(trial);
     return isfinite(best_score) ? CXL_OK : CXL_ERANGE;
 }
 
 /* Orders for every reading under a rule, after checking that each reading
  * is plausible for some allowed order.  *assumed is set when the orders
  * were not given. */
-static cxl_status assign_orders(const cxl_stub *s, cxl_stub_orders rule,
-                                int use_given, int *orders, int *assumed)
+static cxl_status assign_orders(const cxl_stub *s, cxl_stub_orders rule, int use_given,
+                                int *orders, int *assumed, int *iscratch, size_t *idx)
 {
     if (s->n == 0) return CXL_EINVAL;
     for (size_t i = 0; i < s->n; i++)
@@ -312,25 +332,21 @@ static cxl_status assign_orders(const cxl_stub *s, cxl_stub_orders rule,
         for (size_t i = 0; i < s->n; i++) orders[i] = s->r[i].order;
         return CXL_OK;
     }
-    size_t *idx = malloc(s->n * sizeof *idx);
-    int *grp = malloc(s->n * sizeof *grp);
-    char *done = calloc(s->n, 1);
-    cxl_status st = (idx && grp && done) ? CXL_OK : CXL_ENOMEM;
+    int *grp = iscratch, *trial = grp + s->n, *done = trial + s->n;
+    memset(done, 0, s->n * sizeof *done);
+    cxl_status st = CXL_OK;
     for (size_t i = 0; i < s->n && st == CXL_OK; i++) {
         if (done[i]) continue;
         size_t m = 0; /* readings on this length, already ascending */
         for (size_t j = i; j < s->n; j++)
             if (s->r[j].length_m == s->r[i].length_m) { idx[m++] = j; done[j] = 1; }
         if (rule == CXL_STUB_ORDERS_BEST_FIT) {
-            st = best_fit_group(s, idx, m, grp);
+            st = best_fit_group(s, idx, m, grp, trial);
         } else {
             for (size_t j = 0; j < m; j++) grp[j] = (int)(j + 1);
         }
         for (size_t j = 0; j < m && st == CXL_OK; j++) orders[idx[j]] = grp[j];
     }
-    free(idx);
-    free(grp);
-    free(done);
     return st;
 }
 
@@ -348,46 +364,52 @@ cxl_status cxl_stub_implausible_reading(const cxl_stub *stub, size_t *index)
 cxl_status cxl_stub_infer_orders(const cxl_stub *stub, int *orders, size_t count)
 {
     if (!stub || !orders || count != stub->n || count == 0) return CXL_EINVAL;
-    int *tmp = malloc(count * sizeof *tmp), assumed;
-    if (!tmp) return CXL_ENOMEM;
-    cxl_status st = assign_orders(stub, CXL_STUB_ORDERS_BEST_FIT, 0, tmp, &assumed);
-    if (st == CXL_OK) memcpy(orders, tmp, count * sizeof *orders);
+    int *tmp = malloc(4 * count * sizeof *tmp), assumed;
+    size_t *idx = malloc(count * sizeof *idx);
+    cxl_status st = tmp && idx ? CXL_OK : CXL_ENOMEM;
+    if (st == CXL_OK)
+        st = assign_orders(stub, CXL_STUB_ORDERS_BEST_FIT, 0, tmp + 3 * count, &assumed, tmp, idx);
+    if (st == CXL_OK) memcpy(orders, tmp + 3 * count, count * sizeof *orders);
     free(tmp);
+    free(idx);
     return st;
 }
 
 /* ---- the fit ------------------------------------------------------- */
 
+/* The fit's GSL objects: views of the result's workspace buffer. */
 typedef struct fit_ws {
     size_t n, p;
+    gsl_matrix_view Xv, covv;
+    gsl_vector_view yv, wv, cv;
     gsl_matrix *X, *cov;
     gsl_vector *y, *w, *c;
     gsl_multifit_linear_workspace *work;
 } fit_ws;
 
-static void ws_free(fit_ws *f)
-{
-    if (f->work) gsl_multifit_linear_free(f->work);
-    if (f->X) gsl_matrix_free(f->X);
-    if (f->cov) gsl_matrix_free(f->cov);
-    if (f->y) gsl_vector_free(f->y);
-    if (f->w) gsl_vector_free(f->w);
-    if (f->c) gsl_vector_free(f->c);
-}
+/* Doubles of a fit of n readings in cxl__fitws.buf: lengths, electrical
+ * lengths, their shifted copies (fit_budget), X (up to 2 columns), y, w,
+ * the covariance and the coefficients. */
+#define FIT_DOUBLES(n) (8 * (n) + 6)
 
-/* n >= p >= 1 is checked by the caller, so GSL never sees a bad size. */
-static int ws_alloc(fit_ws *f, size_t n, size_t p)
+/* Views of n rows and p columns at buf + 4 n (the first 4 n doubles are
+ * fit_data's); n >= p >= 1 is checked by the caller. */
+static void ws_bind(fit_ws *f, cxl__fitws *ws, size_t n, size_t p)
 {
-    memset(f, 0, sizeof *f);
+    double *b = ws->buf + 4 * n;
     f->n = n;
     f->p = p;
-    f->X = gsl_matrix_alloc(n, p);
-    f->cov = gsl_matrix_alloc(p, p);
-    f->y = gsl_vector_alloc(n);
-    f->w = gsl_vector_alloc(n);
-    f->c = gsl_vector_alloc(p);
-    f->work = gsl_multifit_linear_alloc(n, p);
-    return f->X && f->cov && f->y && f->w && f->c && f->work;
+    f->Xv = gsl_matrix_view_array(b, n, p);
+    f->yv = gsl_vector_view_array(b + 2 * n, n);
+    f->wv = gsl_vector_view_array(b + 3 * n, n);
+    f->covv = gsl_matrix_view_array(b + 4 * n, p, p);
+    f->cv = gsl_vector_view_array(b + 4 * n + 4, p);
+    f->X = &f->Xv.matrix;
+    f->y = &f->yv.vector;
+    f->w = &f->wv.vector;
+    f->cov = &f->covv.matrix;
+    f->c = &f->cv.vector;
+    f->work = ws->work;
 }
 
 /* Solve y = a L (+ x) for lengths len[] and electrical lengths y[]
@@ -409,29 +431,45 @@ static int solve(fit_ws *f, const double *len, const double *y,
     return isfinite(*a) && isfinite(*x);
 }
 
-static cxl_stub_result *result_alloc(size_t n)
+/* Room for n readings in r (arrays, workspace, scratch); grows only. */
+static cxl_status result_reserve(cxl_stub_result *r, size_t n)
 {
+    cxl_status st = cxl__fitws_reserve(&r->ws, n, 2, FIT_DOUBLES(n));
+    if (st != CXL_OK || n <= r->cap) return st;
+    double *d = realloc(r->length_m, 5 * n * sizeof *d);
+    if (d) r->length_m = d;
+    int *o = realloc(r->order, n * sizeof *o);
+    if (o) r->order = o;
+    int *is = realloc(r->iscratch, 4 * n * sizeof *is);
+    if (is) r->iscratch = is;
+    size_t *zs = realloc(r->zscratch, n * sizeof *zs);
+    if (zs) r->zscratch = zs;
+    if (!d || !o || !is || !zs) return CXL_ENOMEM;
+    r->cap = n;
+    r->freq_hz = d + n;
+    r->vf = d + 2 * n;
+    r->res_hz = d + 3 * n;
+    r->res_m = d + 4 * n;
+    return CXL_OK;
+}
+
+cxl_status cxl_stub_result_new(cxl_stub_result **result)
+{
+    if (!result) return CXL_EINVAL;
     cxl_stub_result *r = calloc(1, sizeof *r);
-    if (!r) return NULL;
-    r->n = n;
-    r->length_m = malloc(5 * n * sizeof(double));
-    r->order = malloc(n * sizeof(int));
-    if (!r->length_m || !r->order) {
-        cxl_stub_result_free(r);
-        return NULL;
-    }
-    r->freq_hz = r->length_m + n;
-    r->vf = r->length_m + 2 * n;
-    r->res_hz = r->length_m + 3 * n;
-    r->res_m = r->length_m + 4 * n;
-    return r;
+    if (!r) return CXL_ENOMEM;
+    *result = r;
+    return CXL_OK;
 }
 
 void cxl_stub_result_free(cxl_stub_result *result)
 {
     if (!result) return;
+    cxl__fitws_free(&result->ws);
     free(result->length_m);
     free(result->order);
+    free(result->iscratch);
+    free(result->zscratch);
     free(result);
 }
 
@@ -450,6 +488,7 @@ static int accumulate_shift(fit_ws *f, const double *len, const double *y,
 /* Everything a fit works on: orders, lengths, electrical lengths. */
 typedef struct fit_data {
     const cxl_stub *s;
+    cxl_stub_result *r; /* its workspace and scratch */
     int *orders;
     double *len, *y; /* y: cable's free-space length, fixture removed */
     int assumed;
@@ -466,7 +505,8 @@ static double cable_y(const fit_data *d, size_t i, double freq_hz)
 static cxl_status fit_prepare(fit_data *d, fit_ws *f)
 {
     const cxl_stub *s = d->s;
-    cxl_status st = assign_orders(s, s->rule, 1, d->orders, &d->assumed);
+    cxl_status st = assign_orders(s, s->rule, 1, d->orders, &d->assumed,
+                                  d->r->iscratch + s->n, d->r->zscratch);
     if (st != CXL_OK) return st;
     size_t groups = 0;
     for (size_t i = 0; i < s->n; i++) {
@@ -474,7 +514,7 @@ static cxl_status fit_prepare(fit_data *d, fit_ws *f)
         while (j < i && s->r[j].length_m != s->r[i].length_m) j++;
         if (j == i) groups++;
     }
-    if (!ws_alloc(f, s->n, groups >= 2 ? 2 : 1)) return CXL_ENOMEM;
+    ws_bind(f, &d->r->ws, s->n, groups >= 2 ? 2 : 1);
     const double df = s->freq_res_hz;
     for (size_t i = 0; i < s->n; i++) {
         double total = k_of(s->end, d->orders[i]) * CXL_C_M_PER_S / s->r[i].freq_hz;
@@ -497,9 +537,7 @@ static cxl_status fit_budget(const fit_data *d, fit_ws *f, cxl_stub_result *r)
     const cxl_stub *s = d->s;
     const size_t n = s->n;
     double lvf2 = 0.0, lx2 = 0.0, fvf2 = 0.0, fx2 = 0.0;
-    double *len2 = malloc(2 * n * sizeof *len2);
-    if (!len2) return CXL_ENOMEM;
-    double *y2 = len2 + n;
+    double *len2 = d->y + n, *y2 = len2 + n;
     cxl_status st = CXL_OK;
     if (s->length_tol_m > 0.0) {
         for (size_t i = 0; i < n && st == CXL_OK; i++) {
@@ -520,7 +558,6 @@ static cxl_status fit_budget(const fit_data *d, fit_ws *f, cxl_stub_result *r)
                 st = CXL_ENOCONV;
         }
     }
-    free(len2);
     r->err_length = sqrt(lvf2);
     r->err_freq = sqrt(fvf2);
     r->x_err_m = sqrt(r->x_err_m * r->x_err_m + lx2 + fx2);
@@ -582,50 +619,64 @@ static int trend_significant(const cxl_stub_result *r)
     return isfinite(q) && isfinite(var) && q * q > 9.0 * var;
 }
 
-cxl_status cxl_stub_fit(const cxl_stub *stub, cxl_stub_result **result)
+/* The fit's scalars from the solution a (= 1/VF), x and chisq. */
+static void fit_scalars(const cxl_stub *stub, const fit_data *d, const fit_ws *f,
+                        double a, double x, double chisq, cxl_stub_result *r)
+{
+    const size_t dof = stub->n - f->p;
+    r->vf_fit = 1.0 / a;
+    r->x_m = x;
+    if (dof > 0) {
+        /* Without a frequency step the scatter alone sets the error
+         * (covariance times chisq / dof).  With one, the readings' own
+         * errors are in err_freq, and err_fit holds only the spread beyond
+         * them: the Birge ratio B^2 = chisq / dof above 1 scales the total
+         * to B times the own error, so err_fit is sqrt(B^2 - 1) of it (0
+         * for readings as consistent as their step). */
+        double s2 = chisq / (double)dof;
+        if (stub->freq_res_hz > 0.0) s2 = s2 > 1.0 ? s2 - 1.0 : 0.0;
+        r->err_fit = sqrt(gsl_matrix_get(f->cov, 0, 0) * s2) / (a * a);
+        if (f->p == 2) r->x_err_m = sqrt(gsl_matrix_get(f->cov, 1, 1) * s2);
+    }
+    r->freq_res_hz = stub->freq_res_hz;
+    r->length_tol_m = stub->length_tol_m;
+    if (d->assumed) r->flags |= CXL_STUB_FLAG_ORDERS_ASSUMED;
+    if (f->p == 2) r->flags |= CXL_STUB_FLAG_FIXTURE_FITTED;
+}
+
+cxl_status cxl_stub_fit_into(const cxl_stub *stub, cxl_stub_result *result)
 {
     if (!stub || !result || stub->n == 0) return CXL_EINVAL;
     const size_t n = stub->n;
-    fit_data d = { stub, malloc(n * sizeof(int)), malloc(2 * n * sizeof(double)), NULL, 0 };
-    cxl_stub_result *r = result_alloc(n);
+    cxl_stub_result *r = result;
+    cxl_status st = result_reserve(r, n);
+    r->n = 0; /* empty until the fit succeeds */
+    if (st != CXL_OK) return st;
+    r->vf_fit = r->err_fit = r->err_length = r->err_freq = r->x_m = r->x_err_m = 0.0;
+    r->flags = 0;
+    fit_data d = { stub, r, r->iscratch, r->ws.buf, r->ws.buf + n, 0 };
     fit_ws f;
-    memset(&f, 0, sizeof f);
-    cxl_status st = (d.orders && d.len && r) ? CXL_OK : CXL_ENOMEM;
-    if (st == CXL_OK) {
-        d.y = d.len + n;
-        st = fit_prepare(&d, &f);
-    }
+    st = fit_prepare(&d, &f);
     double a = 0.0, x = 0.0, chisq = 0.0;
     if (st == CXL_OK && !solve(&f, d.len, d.y, &a, &x, &chisq)) st = CXL_ENOCONV;
     if (st == CXL_OK && !(a > 0.0)) st = CXL_EINCONSISTENT; /* longer line, shorter wave */
     if (st == CXL_OK) {
-        const size_t dof = n - f.p;
-        r->vf_fit = 1.0 / a;
-        r->x_m = x;
-        if (dof > 0) {
-            /* Without a frequency step the scatter alone sets the error
-             * (covariance times chisq / dof).  With one, the readings'
-             * own errors are in err_freq, and err_fit holds only the
-             * spread beyond them: the Birge ratio B^2 = chisq / dof above
-             * 1 scales the total to B times the own error, so err_fit is
-             * sqrt(B^2 - 1) of it (0 for readings as consistent as their
-             * step). */
-            double s2 = chisq / (double)dof;
-            if (stub->freq_res_hz > 0.0) s2 = s2 > 1.0 ? s2 - 1.0 : 0.0;
-            r->err_fit = sqrt(gsl_matrix_get(f.cov, 0, 0) * s2) / (a * a);
-            if (f.p == 2) r->x_err_m = sqrt(gsl_matrix_get(f.cov, 1, 1) * s2);
-        }
-        r->freq_res_hz = stub->freq_res_hz;
-        r->length_tol_m = stub->length_tol_m;
-        if (d.assumed) r->flags |= CXL_STUB_FLAG_ORDERS_ASSUMED;
-        if (f.p == 2) r->flags |= CXL_STUB_FLAG_FIXTURE_FITTED;
+        fit_scalars(stub, &d, &f, a, x, chisq, r);
         st = fit_budget(&d, &f, r);
     }
+    r->n = n; /* the per-reading arrays as fit_readings fills them */
     if (st == CXL_OK) st = fit_readings(&d, a, r);
     if (st == CXL_OK && trend_significant(r)) r->flags |= CXL_STUB_FLAG_TREND;
-    ws_free(&f);
-    free(d.orders);
-    free(d.len);
+    if (st != CXL_OK) r->n = 0;
+    return st;
+}
+
+cxl_status cxl_stub_fit(const cxl_stub *stub, cxl_stub_result **result)
+{
+    if (!stub || !result || stub->n == 0) return CXL_EINVAL;
+    cxl_stub_result *r = NULL;
+    cxl_status st = cxl_stub_result_new(&r);
+    if (st == CXL_OK) st = cxl_stub_fit_into(stub, r);
     if (st != CXL_OK) {
         cxl_stub_result_free(r);
         return st;
@@ -639,7 +690,7 @@ cxl_status cxl_stub_fit(const cxl_stub *stub, cxl_stub_result **result)
 cxl_status cxl_stub_result_vf(const cxl_stub_result *result, double *vf,
                               double *vf_err)
 {
-    if (!result || !vf) return CXL_EINVAL;
+    if (!result || !vf || result->n == 0) return CXL_EINVAL;
     *vf = result->vf_fit;
     if (vf_err)
         *vf_err = sqrt(result->err_fit * result->err_fit +
@@ -652,7 +703,7 @@ cxl_status cxl_stub_result_vf_budget(const cxl_stub_result *result,
                                      double *err_fit, double *err_length,
                                      double *err_freq)
 {
-    if (!result) return CXL_EINVAL;
+    if (!result || result->n == 0) return CXL_EINVAL;
     if (err_fit) *err_fit = result->err_fit;
     if (err_length) *err_length = result->err_length;
     if (err_freq) *err_freq = result->err_freq;
@@ -663,7 +714,7 @@ cxl_status cxl_stub_result_fixture(const cxl_stub_result *result,
                                    double *extra_free_m, double *extra_err_m,
                                    double *extra_cable_m)
 {
-    if (!result || !extra_free_m) return CXL_EINVAL;
+    if (!result || !extra_free_m || result->n == 0) return CXL_EINVAL;
     if (!(result->flags & CXL_STUB_FLAG_FIXTURE_FITTED)) return CXL_ENOTFOUND;
     *extra_free_m = result->x_m;
     if (extra_err_m) *extra_err_m = result->x_err_m;
@@ -673,13 +724,14 @@ cxl_status cxl_stub_result_fixture(const cxl_stub_result *result,
 
 cxl_status cxl_stub_result_flags(const cxl_stub_result *result, unsigned *flags)
 {
-    if (!result || !flags) return CXL_EINVAL;
+    if (!result || !flags || result->n == 0) return CXL_EINVAL;
     *flags = result->flags;
     return CXL_OK;
 }
 
-cxl_status cxl_stub_result_vf_at(const cxl_stub_result *result, double freq_hz,
-                                 double *vf, double *vf_err, unsigned *how)
+cxl_status cxl__stub_result_vf_at_ws(const cxl_stub_result *result, double freq_hz,
+                                     double *vf, double *vf_err, unsigned *how,
+                                     cxl__fitws *ws)
 {
     if (!result || !vf || !vf_err || !cxl__finite_pos(freq_hz) || result->n == 0)
         return CXL_EINVAL;
@@ -709,16 +761,15 @@ cxl_status cxl_stub_result_vf_at(const cxl_stub_result *result, double freq_hz,
     double v_t = 0.0, e_t = INFINITY;
     unsigned t_how = 0;
     if (result->n >= 2) {
-        cxl_drift *d = NULL;
+        struct cxl_drift drift, *d = &drift;
         double lo, hi, v, e;
-        if (cxl_drift_new_stub(result, df, &d) == CXL_OK &&
+        if (cxl__drift_fill_stub(result, df, ws, d) == CXL_OK &&
             cxl_drift_vf(d, freq_hz, &v, &e) == CXL_OK &&
             cxl_drift_range(d, &lo, &hi) == CXL_OK) {
             v_t = v;
             e_t = hypot(e, v * rel_len);
             t_how = CXL_STUB_AT_TREND | (freq_hz < lo || freq_hz > hi ? CXL_STUB_AT_EXTRAPOLATED : 0u);
         }
-        cxl_drift_free(d);
     }
     double v, e;
     unsigned h;
@@ -730,6 +781,15 @@ cxl_status cxl_stub_result_vf_at(const cxl_stub_result *result, double freq_hz,
     *vf_err = e;
     if (how) *how = h;
     return CXL_OK;
+}
+
+cxl_status cxl_stub_result_vf_at(const cxl_stub_result *result, double freq_hz,
+                                 double *vf, double *vf_err, unsigned *how)
+{
+    cxl__fitws ws = { 0 };
+    cxl_status st = cxl__stub_result_vf_at_ws(result, freq_hz, vf, vf_err, how, &ws);
+    cxl__fitws_free(&ws);
+    return st;
 }
 
 size_t cxl_stub_result_count(const cxl_stub_result *result)
