@@ -61,6 +61,17 @@ struct cli_args {
     int text_labels;         /* text output: cli_label() shows control bytes escaped */
 };
 
+/* Band edges already looked up, by the item as typed (bandsel.c): a batch
+ * names a handful of bands over and over.  Held by value in cli_ctx, so a
+ * copy of a ctx (one per thread) has its own. */
+#define CLI_BAND_MEMO 64
+typedef struct cli_band_memo {
+    char item[16];          /* as typed, "" for a free slot */
+    char name[16];          /* the table's own name, as cli_freq_point keeps it */
+    int region, footnotes;
+    double low_hz, high_hz;
+} cli_band_memo;
+
 struct cli_ctx {
     const cli_command *cmd;
     cli_format format;
@@ -76,6 +87,8 @@ struct cli_ctx {
     cxl_catalog *catalog;    /* loaded on first use by cli_catalog() */
     int catalog_failed;
     cxl_bands *bands;        /* loaded on first use by cli_bands() */
+    cli_band_memo band_memo[CLI_BAND_MEMO]; /* cli_freq_points(): edges by band item */
+    int band_memo_n;
     int progress;            /* stderr is a terminal and no --quiet */
 };
 
