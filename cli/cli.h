@@ -51,6 +51,16 @@ typedef struct cli_command {
     const char *positional;
 } cli_command;
 
+/* Option indices already looked up (common.c), by the address of the
+ * option table's own name string; written by the look-ups although they
+ * take a const cli_args, so a cli_args is never defined const.  Zeroed
+ * with the cli_args; each copy (one per thread) has its own. */
+#define CLI_OPTCACHE 64
+typedef struct cli_optcache {
+    const cli_command *cmd;  /* the command the entries belong to */
+    struct { const char *name; int index; } slot[CLI_OPTCACHE];
+} cli_optcache;
+
 /* One invocation's option values: a batch row's cells first, then the
  * values from the command line. */
 struct cli_args {
@@ -59,6 +69,7 @@ struct cli_args {
     size_t nval[CLI_MAX_OPTS];
     const char *const *row;  /* per option: a batch cell, or NULL */
     int text_labels;         /* text output: cli_label() shows control bytes escaped */
+    cli_optcache optcache;   /* look-ups by name resolved once (common.c) */
 };
 
 /* Band edges already looked up, by the item as typed (bandsel.c): a batch

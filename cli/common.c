@@ -3,6 +3,7 @@
 #include <config.h>
 #include <errno.h>
 #include <stdarg.h>
+#include <stdint.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -153,9 +154,30 @@ static int opt_index(const cli_command *cmd, const char *name)
     return -1;
 }
 
+/* opt_index through the args' cache.  Only a name that is the table's
+ * own string (found by pointer) is kept: its bytes never change, where a
+ * name built in a buffer could name another option at the same address
+ * later.  A miss is not kept either. */
+static int cached_index(const cli_args *a, const char *name)
+{
+    cli_optcache *c = (cli_optcache *)&a->optcache; /* see cli.h */
+    size_t h = (((uintptr_t)name >> 3) ^ ((uintptr_t)name >> 9)) % CLI_OPTCACHE;
+    if (c->cmd == a->cmd && c->slot[h].name == name) return c->slot[h].index;
+    int i = opt_index(a->cmd, name);
+    if (i >= 0 && a->cmd->opts[i].name == name) {
+        if (c->cmd != a->cmd) {
+            memset(c, 0, sizeof *c);
+            c->cmd = a->cmd;
+        }
+        c->slot[h].name = name;
+        c->slot[h].index = i;
+    }
+    return i;
+}
+
 int cli_declared(const cli_args *a, const char *name)
 {
-    return opt_index(a->cmd, name) >= 0;
+    return cached_index(a, name) >= 0;
 }
 
 /* The index of a name the command declares.  Looking up one it does not
@@ -164,7 +186,7 @@ int cli_declared(const cli_args *a, const char *name)
  * reaches it fails. */
 static int declared_index(const cli_args *a, const char *name)
 {
-    int i = opt_index(a->cmd, name);
+    int i = cached_index(a, name);
     if (i < 0) {
         fflush(stdout);
         fprintf(stderr, "coaxline: %s: internal error: option '%s' is looked up but not "
@@ -200,13 +222,13 @@ const char *cli_get(const cli_args *a, const char *name, size_t k)
 
 const char *cli_get_if(const cli_args *a, const char *name)
 {
-    int i = opt_index(a->cmd, name);
+    int i = cached_index(a, name);
     return i >= 0 ? value_at(a, i, 0) : NULL;
 }
 
 size_t cli_count_if(const cli_args *a, const char *name)
 {
-    int i = opt_index(a->cmd, name);
+    int i = cached_index(a, name);
     return i >= 0 ? count_at(a, i) : 0;
 }
 
