@@ -44,32 +44,81 @@ int cli_band_lookup(cli_ctx *ctx, const char *item, int region, int footnotes,
     return 0;
 }
 
+/* name into a cli_freq_point's band, cut short as it always was. */
+static void copy_band(char dst[16], const char *name)
+{
+    size_t len = strnlen(name, 15);
+    memcpy(dst, name, len);
+    dst[len] = '\0';
+}
+
+/* Edges and table name of one --band item, from ctx's memo when the same
+ * item was looked up for the same Region and footnote rule before. */
+static int band_edges(cli_ctx *ctx, const char *item, int region, int footnotes,
+                      double *lo, double *hi, char name[16])
+{
+    size_t len = strlen(item);
+    for (int i = 0; i < ctx->band_memo_n; i++) {
+        const cli_band_memo *m = &ctx->band_memo[i];
+        if (m->item[0] == item[0] && m->region == region && m->footnotes == footnotes &&
+            strcmp(m->item, item) == 0) {
+            *lo = m->low_hz;
+            *hi = m->high_hz;
+            memcpy(name, m->name, sizeof m->name);
+            return 0;
+        }
+    }
+    const char *canon;
+    if (cli_band_lookup(ctx, item, region, footnotes, lo, hi, &canon)) return CLI_EXIT_USAGE;
+    copy_band(name, canon);
+    if (len < sizeof ctx->band_memo[0].item && ctx->band_memo_n < CLI_BAND_MEMO) {
+        cli_band_memo *m = &ctx->band_memo[ctx->band_memo_n++];
+        memcpy(m->item, item, len + 1);
+        memcpy(m->name, name, sizeof m->name);
+        m->region = region;
+        m->footnotes = footnotes;
+        m->low_hz = *lo;
+        m->high_hz = *hi;
+    }
+    return 0;
+}
+
+/* Low edge, centre and high edge of each --band after n points. */
+static int band_points(cli_ctx *ctx, const cli_args *a, int region, cli_freq_point *pts,
+                       size_t max, size_t *n)
+{
+    static const char *const edges[3] = { "low", "centre", "high" };
+    int footnotes = !cli_flag(a, "exclude-footnotes");
+    char buf[1024];
+    const char *items[CLI_MAX_ITEMS];
+    int nb = cli_items(ctx, a, "band", buf, sizeof buf, items, CLI_MAX_ITEMS);
+    if (nb < 0) return -1;
+    for (int i = 0; i < nb; i++) {
+        double lo, hi;
+        char name[16];
+        if (band_edges(ctx, items[i], region, footnotes, &lo, &hi, name)) return -1;
+        if (*n + 3 > max)
+            return cli_error(ctx, "band", "fewer bands", "too many bands"), -1;
+        double f[3] = { lo, 0.5 * (lo + hi), hi };
+        for (int k = 0; k < 3; k++, (*n)++) {
+            memcpy(pts[*n].band, name, sizeof name);
+            pts[*n].edge = edges[k];
+            pts[*n].freq_hz = f[k];
+        }
+    }
+    return 0;
+}
+
 int cli_freq_points(cli_ctx *ctx, const cli_args *a, cli_freq_point *pts, size_t max,
                     int *region_out)
 {
     int region;
     if (cli_region(ctx, a, &region)) return -1;
     if (region_out) *region_out = region;
-    int footnotes = !cli_flag(a, "exclude-footnotes");
+    size_t n = 0;
+    if (band_points(ctx, a, region, pts, max, &n)) return -1;
     char buf[1024];
     const char *items[CLI_MAX_ITEMS];
-    size_t n = 0;
-    int nb = cli_items(ctx, a, "band", buf, sizeof buf, items, CLI_MAX_ITEMS);
-    if (nb < 0) return -1;
-    for (int i = 0; i < nb; i++) {
-        double lo, hi;
-        const char *canon;
-        if (cli_band_lookup(ctx, items[i], region, footnotes, &lo, &hi, &canon)) return -1;
-        if (n + 3 > max)
-            return cli_error(ctx, "band", "fewer bands", "too many bands"), -1;
-        const char *edges[3] = { "low", "centre", "high" };
-        double f[3] = { lo, 0.5 * (lo + hi), hi };
-        for (int k = 0; k < 3; k++, n++) {
-            snprintf(pts[n].band, sizeof pts[n].band, "%s", canon);
-            pts[n].edge = edges[k];
-            pts[n].freq_hz = f[k];
-        }
-    }
     int nf = cli_items(ctx, a, "freq", buf, sizeof buf, items, CLI_MAX_ITEMS);
     if (nf < 0) return -1;
     for (int i = 0; i < nf; i++) {

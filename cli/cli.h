@@ -51,6 +51,16 @@ typedef struct cli_command {
     const char *positional;
 } cli_command;
 
+/* Option indices already looked up (common.c), by the address of the
+ * option table's own name string; written by the look-ups although they
+ * take a const cli_args, so a cli_args is never defined const.  Zeroed
+ * with the cli_args; each copy (one per thread) has its own. */
+#define CLI_OPTCACHE 64
+typedef struct cli_optcache {
+    const cli_command *cmd;  /* the command the entries belong to */
+    struct { const char *name; int index; } slot[CLI_OPTCACHE];
+} cli_optcache;
+
 /* One invocation's option values: a batch row's cells first, then the
  * values from the command line. */
 struct cli_args {
@@ -59,7 +69,19 @@ struct cli_args {
     size_t nval[CLI_MAX_OPTS];
     const char *const *row;  /* per option: a batch cell, or NULL */
     int text_labels;         /* text output: cli_label() shows control bytes escaped */
+    cli_optcache optcache;   /* look-ups by name resolved once (common.c) */
 };
+
+/* Band edges already looked up, by the item as typed (bandsel.c): a batch
+ * names a handful of bands over and over.  Held by value in cli_ctx, so a
+ * copy of a ctx (one per thread) has its own. */
+#define CLI_BAND_MEMO 64
+typedef struct cli_band_memo {
+    char item[16];          /* as typed, "" for a free slot */
+    char name[16];          /* the table's own name, as cli_freq_point keeps it */
+    int region, footnotes;
+    double low_hz, high_hz;
+} cli_band_memo;
 
 struct cli_ctx {
     const cli_command *cmd;
@@ -76,6 +98,8 @@ struct cli_ctx {
     cxl_catalog *catalog;    /* loaded on first use by cli_catalog() */
     int catalog_failed;
     cxl_bands *bands;        /* loaded on first use by cli_bands() */
+    cli_band_memo band_memo[CLI_BAND_MEMO]; /* cli_freq_points(): edges by band item */
+    int band_memo_n;
     int progress;            /* stderr is a terminal and no --quiet */
 };
 

@@ -3,6 +3,7 @@
 #include <config.h>
 #include <errno.h>
 #include <stdarg.h>
+#include <stdint.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -139,16 +140,44 @@ void cli_progress_end(const cli_ctx *ctx, cli_progress *p)
 
 static int opt_index(const cli_command *cmd, const char *name)
 {
-    /* first byte before strcmp: a batch row makes a dozen look-ups, and
-     * strcmp calls were 15 % of a cut batch (tests/bench) */
-    for (int i = 0; cmd->opts[i].name; i++)
-        if (cmd->opts[i].name[0] == name[0] && strcmp(cmd->opts[i].name, name) == 0) return i;
+    /* A batch row makes two dozen look-ups.  Names are string literals
+     * both here and at the call sites, and the linker merges equal
+     * literals, so one pass comparing pointers finds almost every one; the
+     * pass by content (first byte before strcmp) is the fallback for a
+     * name built at run time.  strcmp calls were 8 % of a phase batch
+     * (tests/bench, callgrind). */
+    const cli_optdef *o = cmd->opts;
+    for (int i = 0; o[i].name; i++)
+        if (o[i].name == name) return i;
+    for (int i = 0; o[i].name; i++)
+        if (o[i].name[0] == name[0] && strcmp(o[i].name, name) == 0) return i;
     return -1;
+}
+
+/* opt_index through the args' cache.  Only a name that is the table's
+ * own string (found by pointer) is kept: its bytes never change, where a
+ * name built in a buffer could name another option at the same address
+ * later.  A miss is not kept either. */
+static int cached_index(const cli_args *a, const char *name)
+{
+    cli_optcache *c = (cli_optcache *)&a->optcache; /* see cli.h */
+    size_t h = (((uintptr_t)name >> 3) ^ ((uintptr_t)name >> 9)) % CLI_OPTCACHE;
+    if (c->cmd == a->cmd && c->slot[h].name == name) return c->slot[h].index;
+    int i = opt_index(a->cmd, name);
+    if (i >= 0 && a->cmd->opts[i].name == name) {
+        if (c->cmd != a->cmd) {
+            memset(c, 0, sizeof *c);
+            c->cmd = a->cmd;
+        }
+        c->slot[h].name = name;
+        c->slot[h].index = i;
+    }
+    return i;
 }
 
 int cli_declared(const cli_args *a, const char *name)
 {
-    return opt_index(a->cmd, name) >= 0;
+    return cached_index(a, name) >= 0;
 }
 
 /* The index of a name the command declares.  Looking up one it does not
@@ -157,7 +186,7 @@ int cli_declared(const cli_args *a, const char *name)
  * reaches it fails. */
 static int declared_index(const cli_args *a, const char *name)
 {
-    int i = opt_index(a->cmd, name);
+    int i = cached_index(a, name);
     if (i < 0) {
         fflush(stdout);
         fprintf(stderr, "coaxline: %s: internal error: option '%s' is looked up but not "
@@ -167,28 +196,40 @@ static int declared_index(const cli_args *a, const char *name)
     return i;
 }
 
-size_t cli_count(const cli_args *a, const char *name)
+/* Option i's count and k-th value: a batch cell first, then the command
+ * line's values. */
+static size_t count_at(const cli_args *a, int i)
 {
-    int i = declared_index(a, name);
     if (a->row && a->row[i] && a->row[i][0] != '\0') return 1;
     return a->nval[i];
 }
 
-const char *cli_get(const cli_args *a, const char *name, size_t k)
+static const char *value_at(const cli_args *a, int i, size_t k)
 {
-    int i = declared_index(a, name);
     if (a->row && a->row[i] && a->row[i][0] != '\0') return k == 0 ? a->row[i] : NULL;
     return k < a->nval[i] ? a->val[i][k] : NULL;
 }
 
+size_t cli_count(const cli_args *a, const char *name)
+{
+    return count_at(a, declared_index(a, name));
+}
+
+const char *cli_get(const cli_args *a, const char *name, size_t k)
+{
+    return value_at(a, declared_index(a, name), k);
+}
+
 const char *cli_get_if(const cli_args *a, const char *name)
 {
-    return cli_declared(a, name) ? cli_get(a, name, 0) : NULL;
+    int i = cached_index(a, name);
+    return i >= 0 ? value_at(a, i, 0) : NULL;
 }
 
 size_t cli_count_if(const cli_args *a, const char *name)
 {
-    return cli_declared(a, name) ? cli_count(a, name) : 0;
+    int i = cached_index(a, name);
+    return i >= 0 ? count_at(a, i) : 0;
 }
 
 int cli_flag_if(const cli_args *a, const char *name)
@@ -206,9 +247,10 @@ int cli_flag(const cli_args *a, const char *name)
 int cli_items(const cli_ctx *ctx, const cli_args *a, const char *name,
               char *buf, size_t bufsize, const char **items, size_t max)
 {
-    size_t n = 0, used = 0, nv = cli_count(a, name);
+    int oi = declared_index(a, name);
+    size_t n = 0, used = 0, nv = count_at(a, oi);
     for (size_t k = 0; k < nv; k++) {
-        const char *v = cli_get(a, name, k);
+        const char *v = value_at(a, oi, k);
         size_t len = strlen(v);
         if (used + len + 1 > bufsize) {
             cli_error(ctx, name, "a shorter list", "list is too long");
@@ -614,56 +656,92 @@ void cli_table_header(cli_ctx *ctx, const cli_col *cols, size_t ncols)
     }
 }
 
+/* Bytes a CSV text cell cannot carry as they are (cxl_csv_write_field
+ * quotes them); first bytes it neutralises; both as lib/csv.c has them. */
+static int csv_special(unsigned char c)
+{
+    return c == ',' || c == '"' || c == '\r' || c == '\n' || c == ';' || c == '\t';
+}
+
+enum { CSV_PLAIN_MAX = 64 }; /* longer text goes through cxl_csv_write_field */
+
+/* Copies text s to dst (room for CSV_PLAIN_MAX bytes) when it needs
+ * neither quotes nor neutralising, in one pass with its length; returns
+ * the length, or -1 when cxl_csv_write_field must write it. */
+static int csv_plain(char *dst, const char *s)
+{
+    unsigned char c = (unsigned char)s[0];
+    if (c == '=' || c == '+' || c == '-' || c == '@' || c == ' ' || c == '\t' || c == '\r')
+        return -1;
+    int n = 0;
+    for (; (c = (unsigned char)s[n]) != '\0'; n++) {
+        if (n == CSV_PLAIN_MAX || csv_special(c)) return -1;
+        dst[n] = (char)c;
+    }
+    return n;
+}
+
+/* The row is assembled in one buffer and written with one fwrite: a putc
+ * or fputs per cell was a fifth of a batch's time (tests/bench).  Numbers
+ * are formatted straight into it; text that needs neither quotes nor
+ * neutralising is copied as it is, which is what cxl_csv_write_field
+ * would write; other text goes through it after the buffer is flushed.
+ * If the writer's rules change (lib/csv.c), change csv_plain with them. */
+static void csv_row(cli_ctx *ctx, const cli_col *cols, size_t ncols, const cli_cell *cells)
+{
+    char line[1024];
+    size_t used = 0;
+    for (size_t i = 0; i < ncols; i++) {
+        if (used + CSV_PLAIN_MAX + 2 > sizeof line) {
+            fwrite(line, 1, used, ctx->out);
+            used = 0;
+        }
+        if (i) line[used++] = ',';
+        if (!cells[i].present) continue;
+        char *dst = line + used;
+        if (cols[i].decimals >= 0) {
+            if (cxl_units_format_fixed(cells[i].value, cols[i].decimals, dst, CSV_PLAIN_MAX) != CXL_OK)
+                memcpy(dst, "?", 2);
+            used += strlen(dst);
+            continue;
+        }
+        int len = csv_plain(dst, cells[i].text);
+        if (len >= 0) {
+            used += (size_t)len;
+            continue;
+        }
+        fwrite(line, 1, used, ctx->out);
+        used = 0;
+        cxl_csv_write_field(ctx->out, cells[i].text, 1);
+    }
+    line[used++] = '\n';
+    fwrite(line, 1, used, ctx->out);
+}
+
+static void json_row(cli_ctx *ctx, const cli_col *cols, size_t ncols, const cli_cell *cells)
+{
+    char num[64];
+    fputs(ctx->rows_out ? ",\n  {" : "  {", ctx->out);
+    for (size_t i = 0; i < ncols; i++) {
+        if (i) fputs(", ", ctx->out);
+        json_string(ctx->out, cols[i].name);
+        putc(':', ctx->out);
+        if (!cells[i].present) fputs("null", ctx->out);
+        else if (cols[i].decimals < 0) json_string(ctx->out, cells[i].text);
+        else if (cxl_units_format_roundtrip(cells[i].value == 0.0 ? 0.0 : cells[i].value,
+                                            num, sizeof num) == CXL_OK)
+            fputs(num, ctx->out); /* -0.0 prints as 0: no "-0" in JSON */
+        else fputs("null", ctx->out);
+    }
+    putc('}', ctx->out);
+}
+
 void cli_table_row(cli_ctx *ctx, const cli_col *cols, size_t ncols,
                    const cli_cell *cells)
 {
-    char num[64];
     cli_table_header(ctx, cols, ncols);
-    if (ctx->format == CLI_CSV) {
-        /* The row is assembled in one buffer and written with one fwrite:
-         * a putc or fputs per cell was a fifth of a batch's time
-         * (tests/bench).  Text that needs neither quotes nor neutralising
-         * is copied as it is, which is what cxl_csv_write_field would
-         * write; other text goes through it after the buffer is flushed. */
-        char line[1024];
-        size_t used = 0;
-        for (size_t i = 0; i < ncols; i++) {
-            if (used + sizeof num + 1 > sizeof line) {
-                fwrite(line, 1, used, ctx->out);
-                used = 0;
-            }
-            if (i) line[used++] = ',';
-            if (!cells[i].present) continue;
-            const char *s = cols[i].decimals < 0 ? cells[i].text
-                          : cli_fmt(num, sizeof num, cells[i].value, cols[i].decimals);
-            size_t len = strlen(s);
-            if (cols[i].decimals < 0 && (len > sizeof num || strchr("=+-@ \t\r", s[0]) ||
-                                         strpbrk(s, ",\"\r\n;\t"))) {
-                fwrite(line, 1, used, ctx->out);
-                used = 0;
-                cxl_csv_write_field(ctx->out, s, 1);
-                continue;
-            }
-            memcpy(line + used, s, len);
-            used += len;
-        }
-        line[used++] = '\n';
-        fwrite(line, 1, used, ctx->out);
-    } else if (ctx->format == CLI_JSON) {
-        fputs(ctx->rows_out ? ",\n  {" : "  {", ctx->out);
-        for (size_t i = 0; i < ncols; i++) {
-            if (i) fputs(", ", ctx->out);
-            json_string(ctx->out, cols[i].name);
-            putc(':', ctx->out);
-            if (!cells[i].present) fputs("null", ctx->out);
-            else if (cols[i].decimals < 0) json_string(ctx->out, cells[i].text);
-            else if (cxl_units_format_roundtrip(cells[i].value == 0.0 ? 0.0 : cells[i].value,
-                                                num, sizeof num) == CXL_OK)
-                fputs(num, ctx->out); /* -0.0 prints as 0: no "-0" in JSON */
-            else fputs("null", ctx->out);
-        }
-        putc('}', ctx->out);
-    }
+    if (ctx->format == CLI_CSV) csv_row(ctx, cols, ncols, cells);
+    else if (ctx->format == CLI_JSON) json_row(ctx, cols, ncols, cells);
     ctx->rows_out++;
 }
 

@@ -6,7 +6,7 @@
  *               [--reference-fraction F] [--repeat N] [--startup-runs N]
  *               [--commands LIST] [--startup-binary PATH] [--keep]
  *
- * For each batch command (phase, pair, cut) it generates a CSV of N rows
+ * For each batch command (phase, pair, cut, budget, hybrid) it generates a CSV of N rows
  * (1,000,000 by default), then
  *   - checks, on the first 2,000 rows, that coaxline, the floor and the
  *     printf floor (tests/bench/floor.c) and the numpy reference
@@ -267,6 +267,31 @@ static void generate(const char *cmd, long rows, const char *p)
             }
             fprintf(fp, ",%s,5,%s\n", bench_vf[pick(NV)], bench_bands[pick(NB)]);
         }
+    } else if (strcmp(cmd, "budget") == 0) {
+        /* the closed-form goal: -15 to -30 dB with at most 0.3 dB of
+         * imbalance (its own null floor is below -35 dB), so every point
+         * is within reach; an empty imbalance cell is 0 dB */
+        fputs("label,null-vs-inphase,imbalance,vf,band\n", fp);
+        for (long i = 0; i < rows; i++) {
+            int goal = 15 + pick(16), imb = pick(31);
+            char ib[16] = "";
+            if (imb) snprintf(ib, sizeof ib, "0.%02d", imb);
+            fprintf(fp, "n%ld,-%d,%s,%s,%s\n", i + 1, goal, ib, bench_vf[pick(NV)],
+                    bench_bands[pick(NB)]);
+        }
+    } else if (strcmp(cmd, "hybrid") == 0) {
+        /* port and line impedances of common practice, 3 to 5 pairs out of
+         * up to 16 turns; empty cells take the defaults */
+        static const char *const zs[] = { "50", "75", "100", "25", "37.5" };
+        static const char *const tos[] = { "", "50", "75", "", "100" };
+        fputs("label,impedance,to,max-turns,pairs\n", fp);
+        for (long i = 0; i < rows; i++) {
+            int mt = pick(10), np = pick(4);
+            char mts[16] = "", nps[16] = "";
+            if (mt) snprintf(mts, sizeof mts, "%d", 6 + mt);
+            if (np) snprintf(nps, sizeof nps, "%d", 2 + np);
+            fprintf(fp, "h%ld,%s,%s,%s,%s\n", i + 1, zs[pick(5)], tos[pick(5)], mts, nps);
+        }
     } else {
         fputs("label,offset,vf\n", fp);
         for (long i = 0; i < rows; i++) {
@@ -375,6 +400,8 @@ static void bench_command(const char *cmd)
     char printf_mode[32];
     snprintf(printf_mode, sizeof printf_mode, "printf-%s", cmd);
     const char *kind[5] = { "", "-sample", "-part", "-empty", "-tenth" };
+    /* hybrid's turns search has no numpy form worth writing: no reference */
+    const char *python = strcmp(cmd, "hybrid") == 0 ? NULL : cfg.python;
     char *files[5] = { full, sample, part, empty, tenth };
     for (int k = 0; k < 5; k++) {
         snprintf(name, sizeof name, "%s%s.csv", cmd, kind[k]);
@@ -412,11 +439,11 @@ static void bench_command(const char *cmd)
         check_failed = 1;
     }
     free(errtext);
-    char *ref_sample[] = { (char *)cfg.python, cfg.reference, (char *)cmd, cfg.bands, sample, NULL };
+    char *ref_sample[] = { (char *)python, cfg.reference, (char *)cmd, cfg.bands, sample, NULL };
     char *floor_sample[] = { cfg.floor_bin, (char *)cmd, cfg.bands, sample, NULL };
     char *printf_sample[] = { cfg.floor_bin, printf_mode, cfg.bands, sample, NULL };
     run_result rr = { expect, 0.0, 0.0, 0 };
-    if (cfg.python) rr = run(ref_sample, out_ref, err);
+    if (python) rr = run(ref_sample, out_ref, err);
     run_result rf = run(floor_sample, out_floor, NULL), rp = run(printf_sample, out_printf, NULL);
     if (rr.status != expect || rf.status != expect || rp.status != expect) {
         printf("    reference exit %d, floor exit %d, printf floor exit %d on the sample "
@@ -424,6 +451,7 @@ static void bench_command(const char *cmd)
         check_failed = 1;
     }
     printf("  check on the first %ld rows, byte for byte:\n", sample_rows);
+    if (!python && cfg.python) printf("    numpy reference: none for %s\n", cmd);
     const char *base = available ? out_cx : out_floor;
     if (!available)
         printf("    coaxline %s: skipped: command not available\n", cmd);
@@ -431,7 +459,7 @@ static void bench_command(const char *cmd)
         check_failed |= same_bytes("coaxline vs floor:", out_cx, out_floor);
     check_failed |= same_bytes(available ? "coaxline vs printf floor:" : "floor vs printf floor:",
                                base, out_printf);
-    if (cfg.python)
+    if (python)
         check_failed |= same_bytes(available ? "coaxline vs numpy reference:"
                                              : "floor vs numpy reference:", base, out_ref);
     long sb = file_size(base), out_bytes_per_row = sb > 0 ? (sb + sample_rows / 2) / sample_rows : 1;
@@ -456,15 +484,15 @@ static void bench_command(const char *cmd)
     io = nt++;
     t[io] = (timed){ .label = "I/O only (read rows, write bytes)",
                      .argv = { cfg.floor_bin, "io", nbytes, full } };
-    if (cfg.python) {
+    if (python) {
         py = nt++;
         t[py] = (timed){ .label = part_rows < cfg.rows ? "numpy reference, extrapolated*"
                                                        : "numpy reference (same bytes)",
-                         .argv = { (char *)cfg.python, cfg.reference, (char *)cmd, cfg.bands, part } };
+                         .argv = { (char *)python, cfg.reference, (char *)cmd, cfg.bands, part } };
         if (part_rows < cfg.rows) {
             pye = nt++;
             t[pye] = (timed){ .label = "numpy reference start-up (header only)",
-                              .argv = { (char *)cfg.python, cfg.reference, (char *)cmd, cfg.bands,
+                              .argv = { (char *)python, cfg.reference, (char *)cmd, cfg.bands,
                                         empty } };
         }
     }
@@ -595,7 +623,7 @@ static void usage(void)
 {
     fprintf(stderr, "usage: bench_batch --builddir DIR --srcdir DIR --python PY [--quick] [--rows N]\n"
                     "       [--reference-fraction F] [--repeat N] [--startup-runs N]\n"
-                    "       [--commands phase,pair,cut] [--startup-binary PATH] [--keep]\n");
+                    "       [--commands phase,pair,cut,budget,hybrid] [--startup-binary PATH] [--keep]\n");
     exit(2);
 }
 
@@ -606,7 +634,7 @@ int main(int argc, char **argv)
     cfg.ref_fraction = 0.25;
     cfg.repeat = 3;
     cfg.startup_runs = 200;
-    snprintf(cfg.commands, sizeof cfg.commands, "phase,pair,cut");
+    snprintf(cfg.commands, sizeof cfg.commands, "phase,pair,cut,budget,hybrid");
     for (int i = 1; i < argc; i++) {
         const char *o = argv[i], *v = i + 1 < argc ? argv[i + 1] : NULL;
         if (strcmp(o, "--keep") == 0) { cfg.keep = 1; continue; }
@@ -680,7 +708,9 @@ int main(int argc, char **argv)
     char list[64];
     snprintf(list, sizeof list, "%s", cfg.commands);
     for (char *save = NULL, *c = strtok_r(list, ",", &save); c; c = strtok_r(NULL, ",", &save)) {
-        if (strcmp(c, "phase") && strcmp(c, "pair") && strcmp(c, "cut")) die("unknown command %s", c);
+        if (strcmp(c, "phase") && strcmp(c, "pair") && strcmp(c, "cut") && strcmp(c, "budget") &&
+            strcmp(c, "hybrid"))
+            die("unknown command %s", c);
         bench_command(c);
     }
     bench_startup();

@@ -1,8 +1,8 @@
 /* floor.c - the least a program can do for a batch: the floors that
  * `make bench` times coaxline's batch path against.
  *
- *   floor phase|pair|cut BANDS_CSV INPUT_CSV          the same-bytes floor
- *   floor printf-phase|printf-pair|printf-cut BANDS_CSV INPUT_CSV
+ *   floor phase|pair|cut|budget|hybrid BANDS_CSV INPUT_CSV   the same-bytes floor
+ *   floor printf-phase|...|printf-hybrid BANDS_CSV INPUT_CSV
  *   floor io BYTES_PER_ROW INPUT_CSV
  *
  * All read the generated benchmark files (tests/bench/bench_batch.c) line
@@ -15,7 +15,13 @@
  * whatever coaxline spends above this is the price of checking and
  * parsing real input.
  *
- * - "phase", "pair", "cut": the floor.  Numbers are formatted by
+ * - "budget" (the closed-form --null-vs-inphase goal) and "hybrid": the
+ *   arithmetic is the library's own calls (cxl_array_null_depth,
+ *   cxl_budget_phase_for_null, cxl_budget_length_for_phase; the cxl_hybrid_
+ *   functions), made in the same order as coaxline makes them, so the
+ *   floor's time holds exactly the same numerics and the difference is the
+ *   command-line path: options, checks, band selection, output.
+ * - "phase", "pair", "cut", "budget", "hybrid": the floor.  Numbers are formatted by
  *   put_fixed() below (an integer conversion, printf only where a value
  *   lies within 1e-6 of a rounding tie) into one output buffer written
  *   with fwrite; the band edges of each band name and Region are looked
@@ -34,6 +40,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include "coaxline.h"
 
 #define C_M_PER_S 299792458.0
 #define MAX_BANDS 128
@@ -284,6 +291,120 @@ static void cut_row(char **f, int use_printf)
     olen += (size_t)(p - s);
 }
 
+static const char budget_header[] =
+    "label,band,edge,freq_mhz,goal,goal_db,elevation_deg,imbalance_db,error_free_db,"
+    "phase_tolerance_deg,vf,length_tolerance_m,length_tolerance_in\n";
+static const char hybrid_header[] =
+    "label,port_ohm,isolation_resistor_ohm,common_port_ohm,line_ohm,turns_ratio,rank,"
+    "common_turns,line_turns,presented_ohm,swr,return_loss_db,single_input_loss_db,"
+    "isolation_db\n";
+
+/* One budget point's figures, the library's calls in coaxline's order;
+ * *len_m NAN when the goal is out of reach.  Returns 1 then. */
+static int budget_point(double goal, double imb, double vf, double f, double *free_db,
+                        double *tol, double *len_m)
+{
+    *len_m = NAN;
+    if (cxl_array_null_depth(0.0, imb, free_db) != CXL_OK) exit(2);
+    if (cxl_budget_phase_for_null(goal, imb, tol) != CXL_OK) return 1;
+    if (cxl_budget_length_for_phase(*tol, f, vf, len_m) != CXL_OK) *len_m = NAN;
+    return 0;
+}
+
+/* label,null-vs-inphase,imbalance,vf,band (widest edges).  Returns 1 when
+ * a point misses the goal. */
+static int budget_row(char **f, int use_printf)
+{
+    double goal = strtod(f[1], NULL), imb = strtod(f[2], NULL), vf = strtod(f[3], NULL);
+    double fr_buf[3];
+    const double *fr = fr_buf;
+    int missed = 0;
+    if (use_printf) edges(f[4], 0, fr_buf);
+    else fr = edges_cached(f[4], 0);
+    for (int k = 0; k < 3; k++) {
+        double free_db, tol = 0.0, len;
+        int out = budget_point(goal, imb, vf, fr[k], &free_db, &tol, &len);
+        missed |= out;
+        if (use_printf) {
+            printf("%s,%s,%s,%.6f,null-vs-inphase,%.2f,,%.2f,%.2f,", f[0], f[4], edge_names[k],
+                   fr[k] / 1e6, goal, imb, free_db);
+            if (!out) printf("%.3f", tol);
+            printf(",%.4f,", vf);
+            if (isfinite(len)) printf("%.4f,%.3f\n", len, len / 0.0254);
+            else printf(",\n");
+            continue;
+        }
+        char *p = out_line(), *s = p;
+        p = put_str(p, f[0]); *p++ = ',';
+        p = put_str(p, f[4]); *p++ = ',';
+        p = put_str(p, edge_names[k]); *p++ = ',';
+        p = put_fixed(p, fr[k] / 1e6, 6);
+        p = put_str(p, ",null-vs-inphase,");
+        p = put_fixed(p, goal, 2);
+        p = put_str(p, ",,");
+        p = put_fixed(p, imb, 2); *p++ = ',';
+        p = put_fixed(p, free_db, 2); *p++ = ',';
+        if (!out) p = put_fixed(p, tol, 3);
+        *p++ = ',';
+        p = put_fixed(p, vf, 4); *p++ = ',';
+        if (isfinite(len)) {
+            p = put_fixed(p, len, 4); *p++ = ',';
+            p = put_fixed(p, len / 0.0254, 3);
+        } else {
+            *p++ = ',';
+        }
+        *p++ = '\n';
+        olen += (size_t)(p - s);
+    }
+    return missed;
+}
+
+#define HYBRID_MAX_PAIRS 20
+
+/* label,impedance,to,max-turns,pairs (empty: --impedance, 10, 5) */
+static void hybrid_row(char **f, int use_printf)
+{
+    double z = strtod(f[1], NULL), line_z = f[2][0] ? strtod(f[2], NULL) : z;
+    unsigned max_turns = f[3][0] ? (unsigned)atoi(f[3]) : 10, np = f[4][0] ? (unsigned)atoi(f[4]) : 5;
+    double iso_r, common_z, turns;
+    unsigned p_t[HYBRID_MAX_PAIRS], q_t[HYBRID_MAX_PAIRS];
+    size_t count = 0;
+    if (cxl_hybrid_inphase(z, &iso_r, &common_z) != CXL_OK ||
+        cxl_hybrid_turns_ratio(common_z, line_z, &turns) != CXL_OK ||
+        cxl_hybrid_turns_search(common_z, line_z, max_turns, np, p_t, q_t, &count) != CXL_OK)
+        exit(2);
+    for (size_t i = 0; i < count; i++) {
+        double zx, swr, rl, common_db, iso;
+        if (cxl_hybrid_match(common_z, line_z, p_t[i], q_t[i], &zx, &swr, &rl) != CXL_OK ||
+            cxl_hybrid_response(-(zx - line_z) / (zx + line_z), 0.0, 0.0, 0.0, &common_db,
+                                &iso) != CXL_OK)
+            exit(2);
+        double loss = -common_db;
+        if (use_printf) {
+            printf("%s,%.2f,%.2f,%.2f,%.2f,%.4f,%zu,%u,%u,%.2f,%.3f,%.2f,%.3f,%.2f\n", f[0], z,
+                   iso_r, common_z, line_z, turns, i + 1, p_t[i], q_t[i], zx, swr, rl, loss, iso);
+            continue;
+        }
+        char *p = out_line(), *s = p;
+        p = put_str(p, f[0]); *p++ = ',';
+        p = put_fixed(p, z, 2); *p++ = ',';
+        p = put_fixed(p, iso_r, 2); *p++ = ',';
+        p = put_fixed(p, common_z, 2); *p++ = ',';
+        p = put_fixed(p, line_z, 2); *p++ = ',';
+        p = put_fixed(p, turns, 4); *p++ = ',';
+        p = put_fixed(p, (double)(i + 1), 0); *p++ = ',';
+        p = put_fixed(p, p_t[i], 0); *p++ = ',';
+        p = put_fixed(p, q_t[i], 0); *p++ = ',';
+        p = put_fixed(p, zx, 2); *p++ = ',';
+        p = put_fixed(p, swr, 3); *p++ = ',';
+        p = put_fixed(p, rl, 2); *p++ = ',';
+        p = put_fixed(p, loss, 3); *p++ = ',';
+        p = put_fixed(p, iso, 2);
+        *p++ = '\n';
+        olen += (size_t)(p - s);
+    }
+}
+
 static int io_only(const char *bytes, const char *input)
 {
     static char out[4096];
@@ -302,7 +423,7 @@ static int io_only(const char *bytes, const char *input)
 int main(int argc, char **argv)
 {
     if (argc != 4) {
-        fprintf(stderr, "usage: floor [printf-]phase|[printf-]pair|[printf-]cut BANDS_CSV INPUT_CSV\n"
+        fprintf(stderr, "usage: floor [printf-]phase|pair|cut|budget|hybrid BANDS_CSV INPUT_CSV\n"
                         "       floor io BYTES_PER_ROW INPUT_CSV\n");
         return 2;
     }
@@ -311,7 +432,8 @@ int main(int argc, char **argv)
     int use_printf = strncmp(mode, "printf-", 7) == 0;
     if (use_printf) mode += 7;
     int cmd = strcmp(mode, "phase") == 0 ? 0 : strcmp(mode, "pair") == 0 ? 1
-            : strcmp(mode, "cut") == 0 ? 2 : -1;
+            : strcmp(mode, "cut") == 0 ? 2 : strcmp(mode, "budget") == 0 ? 3
+            : strcmp(mode, "hybrid") == 0 ? 4 : -1;
     if (cmd < 0) {
         fprintf(stderr, "floor: unknown mode '%s'\n", argv[1]);
         return 2;
@@ -322,12 +444,16 @@ int main(int argc, char **argv)
     char line[4096], *f[MAX_FIELDS];
     int code = 0;
     if (!fgets(line, sizeof line, in)) return 2; /* header: columns in the generator's order */
-    fputs(cmd == 0 ? phase_header : cmd == 1 ? pair_header : cut_header, stdout);
+    static const char *const headers[5] = { phase_header, pair_header, cut_header,
+                                            budget_header, hybrid_header };
+    fputs(headers[cmd], stdout);
     while (fgets(line, sizeof line, in)) {
         split(line, f);
         if (cmd == 0) phase_row(f, use_printf);
         else if (cmd == 1) code |= pair_row(f, use_printf);
-        else cut_row(f, use_printf);
+        else if (cmd == 2) cut_row(f, use_printf);
+        else if (cmd == 3) code |= budget_row(f, use_printf);
+        else hybrid_row(f, use_printf);
     }
     flush_out();
     fclose(in);

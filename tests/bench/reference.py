@@ -9,8 +9,14 @@ computes in the same order, so on the generated files its output is the
 same bytes (tests/bench/bench_batch.c compares them).  Nothing here is
 tuned; it is the yardstick that `make bench` times coaxline against.
 
-Usage: reference.py phase|pair|cut BANDS_CSV INPUT_CSV   (output on stdout)
-Exit status: 0, or 1 when a pair row fails its tolerance (as coaxline).
+Usage: reference.py phase|pair|cut|budget BANDS_CSV INPUT_CSV   (output on stdout)
+Exit status: 0, or 1 when a pair row fails its tolerance or a budget point
+misses its goal (as coaxline).
+
+budget takes the closed-form goal (--null-vs-inphase): with a = 10^(-imb/20)
+and r = 10^(goal/20), the null of two signals d degrees apart is
+(1 - a)^2 + 4 a sin^2(d/2) = r^2 (1 + a)^2 (law of cosines on the two
+phasors), solved for d; the length is d/360 VF c / f.
 
 Formulas (DESIGN.md, "Physics the library must do for real"):
 electrical length 360 f L / (VF c); a stagger offset is a free-space
@@ -18,6 +24,7 @@ distance, delay = offset / c, so the cut length is VF c delay; an open
 line is a quarter wave at VF c / (4 L).  c = 299 792 458 m/s (SI).
 """
 import csv
+import math
 import re
 import sys
 
@@ -145,13 +152,48 @@ def cut(edges, rows, out):
     return 0
 
 
+def power_db(ratio):
+    """10 log10 of a power ratio, held within +-300 dB as the library does."""
+    floor = 10.0 ** (-300.0 / 10.0)
+    if not ratio > floor:
+        return -300.0
+    return 300.0 if ratio > 1.0 / floor else 10.0 * math.log10(ratio)
+
+
+def budget(edges, rows, out):
+    bands = [band_name(r["band"]) for r in rows]
+    f = band_freqs(edges, bands, [0] * len(rows))
+    table, missed = [], 0
+    for i, r in enumerate(rows):
+        goal = float(r["null-vs-inphase"])
+        imb = float(r["imbalance"]) if r["imbalance"].strip() else 0.0
+        vf = float(r["vf"])
+        a = math.pow(10.0, -imb / 20.0)
+        free_db = power_db((1.0 - a) * (1.0 - a) / ((1.0 + a) * (1.0 + a)))
+        g = math.pow(10.0, goal / 20.0)
+        s2 = (g * g * (1.0 + a) * (1.0 + a) - (1.0 - a) * (1.0 - a)) / (4.0 * a)
+        tol = 2.0 * math.asin(min(math.sqrt(s2), 1.0)) / (math.pi / 180.0) if s2 >= 0 else None
+        missed |= tol is None
+        for k in range(3):
+            length = tol / 360.0 * vf * C / f[i, k] if tol is not None else None
+            table.append([r["label"], bands[i], EDGES[k], "%.6f" % (f[i, k] / 1e6),
+                          "null-vs-inphase", "%.2f" % goal, "", "%.2f" % imb, "%.2f" % free_db,
+                          "%.3f" % tol if tol is not None else "", "%.4f" % vf,
+                          "%.4f" % length if length is not None else "",
+                          "%.3f" % (length / 0.0254) if length is not None else ""])
+    write_csv(out, ["label", "band", "edge", "freq_mhz", "goal", "goal_db", "elevation_deg",
+                    "imbalance_db", "error_free_db", "phase_tolerance_deg", "vf",
+                    "length_tolerance_m", "length_tolerance_in"], table)
+    return 1 if missed else 0
+
+
 def main():
-    if len(sys.argv) != 4 or sys.argv[1] not in ("phase", "pair", "cut"):
-        sys.stderr.write("usage: reference.py phase|pair|cut BANDS_CSV INPUT_CSV\n")
+    if len(sys.argv) != 4 or sys.argv[1] not in ("phase", "pair", "cut", "budget"):
+        sys.stderr.write("usage: reference.py phase|pair|cut|budget BANDS_CSV INPUT_CSV\n")
         return 2
     edges = load_bands(sys.argv[2])
     rows = read_rows(sys.argv[3])
-    run = {"phase": phase, "pair": pair, "cut": cut}[sys.argv[1]]
+    run = {"phase": phase, "pair": pair, "cut": cut, "budget": budget}[sys.argv[1]]
     return run(edges, rows, sys.stdout)
 
 
