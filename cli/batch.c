@@ -8,18 +8,26 @@
 #include <unistd.h>
 #include "cli.h"
 
-enum { OPT_FORMAT = 1000, OPT_UNITS, OPT_INPUT, OPT_CABLES, OPT_CABLE_LOSS, OPT_QUIET, OPT_HELP };
+enum { OPT_FORMAT = 1000, OPT_UNITS, OPT_INPUT, OPT_JOBS, OPT_CABLES, OPT_CABLE_LOSS, OPT_QUIET,
+       OPT_HELP };
 
 const cli_optdef cli_common_opts[] = {
     { "format", "text|csv|json", "output format (default text)", 0 },
     { "units", "metric|imperial", "bare lengths and text output (default metric)", 0 },
     { "input", "FILE|-", "run once per row of a CSV whose header names the options", 0 },
+    { "jobs", "N", "run --input rows on N threads, output in input order (default 1)", 0 },
     { "cables", "FILE", "user cables (CSV, same columns as data/cables.csv)", 0 },
     { "cable-loss", "FILE", "user attenuation points (CSV, as data/cable_loss.csv)", 0 },
     { "quiet", NULL, "no progress on a terminal during long runs", 0 },
     { "help", NULL, "show this help", 0 },
     { NULL, NULL, NULL, 0 }
 };
+
+/* Common options only a command that takes --input shows. */
+static int batch_only(const char *name)
+{
+    return strcmp(name, "input") == 0 || strcmp(name, "jobs") == 0;
+}
 
 void cli_print_command_help(const cli_command *cmd, FILE *fp)
 {
@@ -28,7 +36,7 @@ void cli_print_command_help(const cli_command *cmd, FILE *fp)
     for (int pass = 0; pass < 2; pass++) {
         const cli_optdef *o = pass ? cli_common_opts : cmd->opts;
         for (; o->name; o++) {
-            if (pass && !cmd->batch && strcmp(o->name, "input") == 0) continue;
+            if (pass && !cmd->batch && batch_only(o->name)) continue;
             char left[64];
             snprintf(left, sizeof left, "--%s%s%s", o->name, o->arg ? " " : "",
                      o->arg ? o->arg : "");
@@ -242,6 +250,212 @@ static void list_columns(const cli_command *cmd, char *buf, size_t size)
     }
 }
 
+/* An open --input batch: its reader, the header's columns, the files
+ * written so far, the row buffers of the row being read. */
+struct cli_batch {
+    const cli_command *cmd;
+    const cli_args *args;        /* the command line's values */
+    const char *pattern[CLI_MAX_OPTS]; /* --plot patterns as given */
+    const char *path;
+    FILE *fp;
+    cxl_csv_reader *rd;
+    int ncols, comma_decimals;
+    int col_opt[CLI_MAX_OPTS];
+    const char *col_unit[CLI_MAX_OPTS];
+    name_list written;
+    size_t rows;                 /* data rows met so far */
+    int stopped;                 /* the reader stopped: no row after */
+    cli_progress progress;
+    const char *row[CLI_MAX_OPTS];
+    const char *plot[CLI_MAX_OPTS];
+    char cellbuf[CLI_MAX_OPTS][CELL_SIZE];
+    char plot_names[CLI_MAX_OPTS][4096];
+};
+
+/* The header row: each column an option (col_opt), its unit ending;
+ * 0, or CLI_EXIT_USAGE after cli_error(). */
+static int read_columns(cli_ctx *ctx, cli_batch *b, const char *expected_header)
+{
+    const cli_command *cmd = b->cmd;
+    size_t nf = cxl_csv_reader_nfields(b->rd);
+    while (nf > 0 && cxl_csv_reader_field(b->rd, nf - 1)[0] == '\0')
+        nf--; /* empty columns a spreadsheet leaves at the end */
+    if (nf == 0) return cli_error(ctx, "input", expected_header, "the header row names no columns");
+    if (nf > CLI_MAX_OPTS)
+        return cli_error(ctx, "input", expected_header, "the header has %zu columns", nf);
+    for (size_t i = 0; i < nf; i++) {
+        const char *name = cxl_csv_reader_field(b->rd, i);
+        int k = header_index(cmd, name, &b->col_unit[i]);
+        if (k < 0) return cli_error(ctx, "input", expected_header, "unknown column '%s'", name);
+        if (writes_file(&cmd->opts[k]))
+            /* a file's cells must not choose where the tool writes */
+            return cli_error(ctx, "input", "--" "plot 'plots/{label}.svg' on the command line",
+                             "column '%s' would let the batch file name the files written; "
+                             "give --%s with {line} or {label} on the command line",
+                             name, cmd->opts[k].name);
+        for (size_t j = 0; j < i; j++)
+            if (b->col_opt[j] == k)
+                return cli_error(ctx, "input", expected_header, "column '%s' appears twice", name);
+        b->col_opt[i] = k;
+    }
+    b->ncols = (int)nf;
+    return 0;
+}
+
+/* Reads the header of b (opened on path): 0, or CLI_EXIT_USAGE after
+ * cli_error(). */
+static int read_header(cli_ctx *ctx, cli_batch *b)
+{
+    char columns[512];
+    list_columns(b->cmd, columns, sizeof columns);
+    char expected_header[600];
+    snprintf(expected_header, sizeof expected_header, "a header row naming options, from: %s",
+             columns);
+    int has_row = 0;
+    errno = 0;
+    cxl_status st = cxl_csv_reader_next(b->rd, &has_row);
+    int err = errno;
+    ctx->input_name = strcmp(b->path, "-") == 0 ? "stdin" : b->path;
+    ctx->line = cxl_csv_reader_line(b->rd);
+    if (cxl_csv_reader_stopped(b->rd) != CXL_OK)
+        return reader_stopped(ctx, b->path, cxl_csv_reader_stopped(b->rd), err);
+    if (st != CXL_OK || !has_row)
+        return cli_error(ctx, "input", expected_header,
+                         st != CXL_OK ? "the header row is malformed" : "the file is empty");
+    if (read_columns(ctx, b, expected_header)) return CLI_EXIT_USAGE;
+    int sep = cxl_csv_reader_separator(b->rd);
+    b->comma_decimals = sep == ';';
+    if (sep != ',')
+        cli_note(ctx, "'%s' is %s; reading it so", b->path,
+                 b->comma_decimals ? "';'-separated with decimal commas (a spreadsheet's CSV "
+                                     "under a comma-decimal locale)"
+                                   : "tab-separated");
+    if (cxl_csv_reader_bom(b->rd) && ctx->format == CLI_CSV)
+        fputs("\xEF\xBB\xBF", ctx->out); /* keep the byte-order mark for the spreadsheet */
+    return 0;
+}
+
+/* The next record: 1 when there is one (has_row), 0 at the end, -1 after
+ * a one-line error for a refused record (*code updated). */
+static int next_record(cli_ctx *ctx, cli_batch *b, int *code)
+{
+    int has_row = 0;
+    errno = 0;
+    cxl_status st = cxl_csv_reader_next(b->rd, &has_row);
+    int err = errno;
+    ctx->line = cxl_csv_reader_line(b->rd);
+    if (cxl_csv_reader_stopped(b->rd) != CXL_OK) {
+        *code = reader_stopped(ctx, b->path, cxl_csv_reader_stopped(b->rd), err);
+        b->stopped = 1;
+        b->rows++;
+        return -1;
+    }
+    if (st == CXL_ETOOLONG || st != CXL_OK) {
+        *code = st == CXL_ETOOLONG
+            ? cli_error(ctx, "row", "rows shorter than 65536 bytes", "the row is too long")
+            : cli_error(ctx, "row", "RFC 4180 CSV: quotes closed before the next comma, no NUL bytes",
+                        "malformed CSV (unbalanced quote, text after a closing quote or a NUL byte)");
+        b->rows++;
+        return -1;
+    }
+    return has_row;
+}
+
+/* The cells of the record read into b->row: 0, or CLI_EXIT_USAGE after
+ * cli_error(). */
+static int convert_cells(cli_ctx *ctx, cli_batch *b)
+{
+    const cli_command *cmd = b->cmd;
+    for (int i = 0; i < CLI_MAX_OPTS; i++) b->row[i] = NULL;
+    for (int i = 0; i < b->ncols; i++) {
+        int k = b->col_opt[i];
+        const char *cell = cxl_csv_reader_field(b->rd, (size_t)i);
+        b->row[k] = convert_cell(ctx, cmd->opts[k].name, cell,
+                                 b->comma_decimals && numeric_option(&cmd->opts[k]),
+                                 b->col_unit[i], b->cellbuf[i]);
+        if (!b->row[k]) return CLI_EXIT_USAGE;
+    }
+    return 0;
+}
+
+/* This row's own file for each --plot pattern (b->plot): 0, or
+ * CLI_EXIT_USAGE after cli_error() (too long, or written before). */
+static int name_plots(cli_ctx *ctx, cli_batch *b, cli_args *args)
+{
+    const cli_command *cmd = b->cmd;
+    for (int i = 0; cmd->opts[i].name; i++) {
+        b->plot[i] = NULL;
+        if (!writes_file(&cmd->opts[i]) || b->args->nval[i] == 0) continue;
+        args->row = b->row;
+        const char *label = cli_get_if(args, "label");
+        size_t dup_line = ctx->line;
+        if (expand_plot_name(b->pattern[i], ctx->line, label ? label : "",
+                             b->plot_names[i], sizeof b->plot_names[i]) != 0)
+            return cli_error(ctx, cmd->opts[i].name, "a shorter file name pattern",
+                             "the file name for this row is too long");
+        if (seen_name(&b->written, b->plot_names[i], &dup_line))
+            return cli_error(ctx, cmd->opts[i].name, "{line} in the name, or a label per row",
+                             "'%s' was written for line %zu already", b->plot_names[i],
+                             dup_line);
+        b->plot[i] = b->plot_names[i];
+    }
+    return 0;
+}
+
+int cli_batch_next(cli_batch *b, cli_ctx *ctx, cli_args *args, int *code)
+{
+    for (;;) {
+        cli_progress_step(ctx, &b->progress, b->rows);
+        if (b->stopped) return CLI_ROW_END;
+        int r = next_record(ctx, b, code);
+        if (r < 0) return CLI_ROW_SKIP;
+        if (r == 0) return CLI_ROW_END;
+        size_t nf = cxl_csv_reader_nfields(b->rd), used = nf;
+        while (used > 0 && cxl_csv_reader_field(b->rd, used - 1)[0] == '\0') used--;
+        if (used == 0) continue; /* a row of separators only */
+        b->rows++;
+        if (used > (size_t)b->ncols || nf < (size_t)b->ncols) {
+            *code = cli_error(ctx, "row", "one cell per header column; leave a cell empty to use the default",
+                              "has %zu fields but the header has %d", nf, b->ncols);
+            return CLI_ROW_SKIP;
+        }
+        if (convert_cells(ctx, b) || name_plots(ctx, b, args)) {
+            *code = CLI_EXIT_USAGE;
+            return CLI_ROW_SKIP;
+        }
+        return CLI_ROW_RUN;
+    }
+}
+
+const char *const *cli_batch_row(const cli_batch *b) { return b->row; }
+const char *const *cli_batch_plots(const cli_batch *b) { return b->plot; }
+
+void cli_batch_apply(const cli_command *cmd, cli_args *args, const char *const *row,
+                     const char *const *plot)
+{
+    args->row = row;
+    for (int i = 0; cmd->opts[i].name; i++)
+        if (plot[i]) args->val[i][0] = plot[i];
+}
+
+int cli_batch_worse(int a, int b) { return worse(a, b); }
+
+/* The rows in turn on this thread. */
+int cli_batch_run_rows(cli_batch *b, cli_ctx *ctx, cli_args *args)
+{
+    int code = CLI_EXIT_OK;
+    for (;;) {
+        int rc = CLI_EXIT_OK, kind = cli_batch_next(b, ctx, args, &rc);
+        if (kind == CLI_ROW_END) break;
+        if (kind == CLI_ROW_RUN) {
+            cli_batch_apply(b->cmd, args, b->row, b->plot);
+            rc = b->cmd->run(ctx, args);
+        }
+        code = worse(code, rc);
+    }
+    return code;
+}
+
 static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
 {
     const cli_command *cmd = ctx->cmd;
@@ -250,169 +464,40 @@ static int run_batch(cli_ctx *ctx, cli_args *args, const char *path)
                    : cli_open_read(ctx, "input", path,
                                    "a readable CSV file, or - for standard input", 0);
     if (!fp) return CLI_EXIT_USAGE;
-    cxl_csv_reader *rd = NULL;
-    if (cxl_csv_reader_new_stream(fp, &rd) != CXL_OK) {
+    cli_batch *b = calloc(1, sizeof *b);
+    if (!b || cxl_csv_reader_new_stream(fp, &b->rd) != CXL_OK) {
+        free(b);
         if (fp != stdin) fclose(fp);
         return cli_error(ctx, "input", NULL, "out of memory");
     }
-    cxl_csv_reader_set_separator(rd, 0); /* ',' ';' or TAB, from the header */
-    int code = CLI_EXIT_OK, has_row = 0, ncols = 0;
-    int col_opt[CLI_MAX_OPTS];
-    const char *col_unit[CLI_MAX_OPTS];
-    const char *patterns[CLI_MAX_OPTS] = { NULL };
-    name_list written = { NULL, NULL, 0, 0 };
-    size_t dup_line = 0;
-    static char plot_names[CLI_MAX_OPTS][4096];
-    char columns[512];
-    list_columns(cmd, columns, sizeof columns);
-    char expected_header[600];
-    snprintf(expected_header, sizeof expected_header, "a header row naming options, from: %s",
-             columns);
-    errno = 0;
-    cxl_status st = cxl_csv_reader_next(rd, &has_row);
-    int err = errno;
-    ctx->input_name = strcmp(path, "-") == 0 ? "stdin" : path;
-    ctx->line = cxl_csv_reader_line(rd);
-    if (cxl_csv_reader_stopped(rd) != CXL_OK) {
-        code = reader_stopped(ctx, path, cxl_csv_reader_stopped(rd), err);
-        goto done;
-    }
-    if (st != CXL_OK || !has_row) {
-        code = cli_error(ctx, "input", expected_header,
-                         st != CXL_OK ? "the header row is malformed" : "the file is empty");
-        goto done;
-    }
-    size_t nf = cxl_csv_reader_nfields(rd);
-    while (nf > 0 && cxl_csv_reader_field(rd, nf - 1)[0] == '\0')
-        nf--; /* empty columns a spreadsheet leaves at the end */
-    if (nf == 0) {
-        code = cli_error(ctx, "input", expected_header, "the header row names no columns");
-        goto done;
-    }
-    if (nf > CLI_MAX_OPTS) {
-        code = cli_error(ctx, "input", expected_header, "the header has %zu columns", nf);
-        goto done;
-    }
-    for (size_t i = 0; i < nf; i++) {
-        const char *name = cxl_csv_reader_field(rd, i);
-        int k = header_index(cmd, name, &col_unit[i]);
-        if (k < 0) {
-            code = cli_error(ctx, "input", expected_header, "unknown column '%s'", name);
-            goto done;
-        }
-        if (writes_file(&cmd->opts[k])) {
-            /* a file's cells must not choose where the tool writes */
-            code = cli_error(ctx, "input", "--" "plot 'plots/{label}.svg' on the command line",
-                             "column '%s' would let the batch file name the files written; "
-                             "give --%s with {line} or {label} on the command line",
-                             name, cmd->opts[k].name);
-            goto done;
-        }
-        for (size_t j = 0; j < i; j++)
-            if (col_opt[j] == k) {
-                code = cli_error(ctx, "input", expected_header,
-                                 "column '%s' appears twice", name);
-                goto done;
-            }
-        col_opt[i] = k;
-    }
-    ncols = (int)nf;
-    int sep = cxl_csv_reader_separator(rd), comma_decimals = sep == ';';
-    if (sep != ',')
-        cli_note(ctx, "'%s' is %s; reading it so", path,
-                 comma_decimals ? "';'-separated with decimal commas (a spreadsheet's CSV "
-                                  "under a comma-decimal locale)"
-                                : "tab-separated");
-    if (cxl_csv_reader_bom(rd) && ctx->format == CLI_CSV)
-        fputs("\xEF\xBB\xBF", ctx->out); /* keep the byte-order mark for the spreadsheet */
+    b->cmd = cmd;
+    b->args = args;
+    b->path = path;
+    b->fp = fp;
+    cxl_csv_reader_set_separator(b->rd, 0); /* ',' ';' or TAB, from the header */
+    const char **patterns = b->pattern;
     for (int i = 0; cmd->opts[i].name; i++)
         patterns[i] = args->nval[i] ? args->val[i][0] : NULL;
-    const char *row[CLI_MAX_OPTS];
-    static char cellbuf[CLI_MAX_OPTS][CELL_SIZE];
-    args->row = row;
-    size_t rows = 0;
-    cli_progress progress;
-    cli_progress_start(ctx, &progress, "rows");
-    for (;;) {
-        cli_progress_step(ctx, &progress, rows);
-        errno = 0;
-        st = cxl_csv_reader_next(rd, &has_row);
-        err = errno;
-        ctx->line = cxl_csv_reader_line(rd);
-        if (cxl_csv_reader_stopped(rd) != CXL_OK) {
-            code = reader_stopped(ctx, path, cxl_csv_reader_stopped(rd), err);
-            rows++;
-            break;
+    int code = read_header(ctx, b);
+    if (code == CLI_EXIT_OK) {
+        cli_progress_start(ctx, &b->progress, "rows");
+        code = ctx->jobs > 1 ? cli_jobs_run(b, ctx, args) : cli_batch_run_rows(b, ctx, args);
+        cli_progress_end(ctx, &b->progress);
+        if (b->rows == 0) {
+            ctx->line = 0;
+            ctx->input_name = NULL;
+            code = cli_error(ctx, "input", "one data row per piece under the header",
+                             "'%s' has a header but no data rows", path);
         }
-        if (st == CXL_ETOOLONG) {
-            code = cli_error(ctx, "row", "rows shorter than 65536 bytes",
-                             "the row is too long");
-            rows++;
-            continue;
-        }
-        if (st != CXL_OK) {
-            code = cli_error(ctx, "row", "RFC 4180 CSV: quotes closed before the next comma, no NUL bytes",
-                             "malformed CSV (unbalanced quote, text after a closing quote or a NUL byte)");
-            rows++;
-            continue;
-        }
-        if (!has_row) break;
-        nf = cxl_csv_reader_nfields(rd);
-        size_t used = nf;
-        while (used > 0 && cxl_csv_reader_field(rd, used - 1)[0] == '\0') used--;
-        if (used == 0) continue; /* a row of separators only */
-        rows++;
-        if (used > (size_t)ncols || nf < (size_t)ncols) {
-            code = cli_error(ctx, "row", "one cell per header column; leave a cell empty to use the default",
-                             "has %zu fields but the header has %d", nf, ncols);
-            continue;
-        }
-        for (int i = 0; i < CLI_MAX_OPTS; i++) row[i] = NULL;
-        int bad = 0;
-        for (int i = 0; i < ncols && !bad; i++) {
-            const char *cell = cxl_csv_reader_field(rd, (size_t)i);
-            row[col_opt[i]] = convert_cell(ctx, cmd->opts[col_opt[i]].name, cell,
-                                           comma_decimals && numeric_option(&cmd->opts[col_opt[i]]),
-                                           col_unit[i], cellbuf[i]);
-            bad = row[col_opt[i]] == NULL;
-        }
-        /* --plot patterns: this row's own file */
-        int named = !bad;
-        for (int i = 0; cmd->opts[i].name && named; i++) {
-            if (!writes_file(&cmd->opts[i]) || args->nval[i] == 0) continue;
-            const char *label = cli_get_if(args, "label");
-            if (expand_plot_name(patterns[i], ctx->line, label ? label : "", plot_names[i],
-                                 sizeof plot_names[i]) != 0) {
-                code = cli_error(ctx, cmd->opts[i].name, "a shorter file name pattern",
-                                 "the file name for this row is too long");
-                named = 0;
-            } else if ((dup_line = ctx->line, seen_name(&written, plot_names[i], &dup_line))) {
-                code = cli_error(ctx, cmd->opts[i].name, "{line} in the name, or a label per row",
-                                 "'%s' was written for line %zu already", plot_names[i],
-                                 dup_line);
-                named = 0;
-            } else {
-                args->val[i][0] = plot_names[i];
-            }
-        }
-        if (bad) code = worse(code, CLI_EXIT_USAGE);
-        else if (named) code = worse(code, cmd->run(ctx, args));
     }
-    cli_progress_end(ctx, &progress);
-    if (rows == 0) {
-        ctx->line = 0;
-        ctx->input_name = NULL;
-        code = cli_error(ctx, "input", "one data row per piece under the header",
-                         "'%s' has a header but no data rows", path);
-    }
-done:
-    for (size_t i = 0; i < written.n; i++) free(written.name[i]);
-    free(written.name);
-    free(written.line);
+    for (size_t i = 0; i < b->written.n; i++) free(b->written.name[i]);
+    free(b->written.name);
+    free(b->written.line);
     for (int i = 0; cmd->opts[i].name; i++)
         if (patterns[i]) args->val[i][0] = patterns[i];
     args->row = NULL;
-    cxl_csv_reader_free(rd);
+    cxl_csv_reader_free(b->rd);
+    free(b);
     if (fp != stdin) fclose(fp);
     ctx->input_name = NULL;
     return code;
@@ -462,7 +547,7 @@ static int unknown_option(const cli_ctx *ctx, const char *arg, const char *name,
     size_t best_d = (size_t)-1;
     for (int pass = 0; pass < 2; pass++)
         for (const cli_optdef *o = pass ? cli_common_opts : cmd->opts; o->name; o++) {
-            if (pass && !cmd->batch && strcmp(o->name, "input") == 0) continue;
+            if (pass && !cmd->batch && batch_only(o->name)) continue;
             size_t d = edit_distance(name, len, o->name);
             /* a typed beginning of a longer name is near it */
             if (len > 0 && strncmp(o->name, name, len) == 0 && d > 1) d = 1;
@@ -479,7 +564,7 @@ static int unknown_option(const cli_ctx *ctx, const char *arg, const char *name,
 
 /* What the command line says besides the command's own options. */
 typedef struct cmdline {
-    const char *format, *units, *input;
+    const char *format, *units, *input, *jobs;
     int help, quiet;
     int first_operand, n_operands;  /* argv index of the first bare word, how many */
     unsigned common_seen;           /* a common option given twice is an error, as for others */
@@ -500,6 +585,7 @@ static int store_option(cli_ctx *ctx, cli_args *args, cmdline *cl, int c, const 
     if (c == OPT_FORMAT) cl->format = value;
     else if (c == OPT_UNITS) cl->units = value;
     else if (c == OPT_INPUT) cl->input = value;
+    else if (c == OPT_JOBS) cl->jobs = value;
     else if (c == OPT_CABLES) ctx->cables_path = value;
     else if (c == OPT_CABLE_LOSS) ctx->loss_path = value;
     else if (c == OPT_QUIET) cl->quiet = 1;
@@ -593,6 +679,16 @@ static int apply_common(cli_ctx *ctx, const cmdline *cl)
         else if (strcmp(cl->format, "json") == 0) ctx->format = CLI_JSON;
         else return cli_error(ctx, "format", "text, csv or json", "unknown format '%s'", cl->format);
     }
+    if (cl->jobs) {
+        double n;
+        if (cli_bounded(ctx, "jobs", cl->jobs, CLI_BOUND_JOBS, "a whole number of threads, such as 2",
+                        &n))
+            return CLI_EXIT_USAGE;
+        if (n != (double)(int)n)
+            return cli_error(ctx, "jobs", "a whole number of threads, such as 2",
+                             "'%s' is not a whole number", cl->jobs);
+        ctx->jobs = (int)n;
+    }
     if (cl->units) {
         if (strcmp(cl->units, "metric") == 0) ctx->units = CXL_UNITS_METRIC;
         else if (strcmp(cl->units, "imperial") == 0) ctx->units = CXL_UNITS_IMPERIAL;
@@ -609,6 +705,9 @@ static int check_input(cli_ctx *ctx, const cli_args *args, const char *input)
     if (input && !cmd->batch)
         return cli_error(ctx, "input", "the command without --input",
                          "the %s command does not take a batch file", cmd->name);
+    if (ctx->jobs > 1 && !cmd->batch)
+        return cli_error(ctx, "jobs", "the command without --jobs",
+                         "the %s command runs no batch to share out", cmd->name);
     for (int i = 0; input && cmd->opts[i].name; i++)
         if (writes_file(&cmd->opts[i]) && args->nval[i] &&
             !strstr(args->val[i][0], "{line}") && !strstr(args->val[i][0], "{label}"))
@@ -624,7 +723,8 @@ int cli_run_command(const cli_command *cmd, int argc, char **argv)
     static cli_args args; /* large; one per process */
     memset(&args, 0, sizeof args);
     args.cmd = cmd;
-    cli_ctx ctx = { .cmd = cmd, .format = CLI_TEXT, .units = CXL_UNITS_METRIC, .out = stdout };
+    cli_ctx ctx = { .cmd = cmd, .format = CLI_TEXT, .units = CXL_UNITS_METRIC, .out = stdout,
+                    .jobs = 1 };
     cmdline cl = { 0 };
     if (parse_argv(&ctx, &args, argc, argv, &cl)) return CLI_EXIT_USAGE;
     if (cl.help) {

@@ -44,6 +44,7 @@ const cli_bound cli_bounds[CLI_NBOUNDS] = {
                            "1", "32" },
     [CLI_BOUND_ELEMENTS] = { "array elements", "rows of a layout file", 1.0, CXL_ARRAY_MAX_ELEMENTS,
                              "1", "256" },
+    [CLI_BOUND_JOBS] = { "threads", "--jobs", 1.0, CLI_MAX_JOBS, "1", "64" },
 };
 
 int cli_bounded(const cli_ctx *ctx, const char *field, const char *text, cli_bound_id id,

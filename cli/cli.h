@@ -16,6 +16,7 @@
 #define CLI_MAX_OPTS 40     /* options per command, common ones included */
 #define CLI_MAX_REPEAT 32   /* values of one repeatable option */
 #define CLI_MAX_ITEMS 64    /* items of a comma list after splitting */
+#define CLI_MAX_JOBS 64     /* --jobs: threads running batch rows */
 
 /* Exit codes (coaxline(1), EXIT STATUS). */
 enum { CLI_EXIT_OK = 0, CLI_EXIT_TOLERANCE = 1, CLI_EXIT_USAGE = 2 };
@@ -101,6 +102,8 @@ struct cli_ctx {
     cli_band_memo band_memo[CLI_BAND_MEMO]; /* cli_freq_points(): edges by band item */
     int band_memo_n;
     int progress;            /* stderr is a terminal and no --quiet */
+    int jobs;                /* --jobs: threads running batch rows (1: rows in turn) */
+    struct cli_capture *capture; /* a --jobs worker's row output in memory, or NULL */
 };
 
 /* ---- errors: one line on stderr -------------------------------------- */
@@ -116,6 +119,10 @@ void cli_warn(const cli_ctx *ctx, const char *fmt, ...)
 /* A note about the whole run (no batch line): "coaxline: CMD: note: ...". */
 void cli_note(const cli_ctx *ctx, const char *fmt, ...)
     __attribute__((format(printf, 2, 3)));
+/* Where a one-line message goes: stderr (stdout flushed first, so the
+ * two streams stay in order), or, for a --jobs worker's row, its memory
+ * capture, replayed in input order (jobs.c). */
+FILE *cli_report_stream(const cli_ctx *ctx);
 /* Open a file an option names for reading.  NULL after a
  * one-line error naming field (cannot open, a directory), or without one
  * when optional and the file does not exist. */
@@ -175,7 +182,7 @@ typedef enum {
     CLI_BOUND_DEGREES, CLI_BOUND_IMPEDANCE, CLI_BOUND_LINE_Z0, CLI_BOUND_ANALYZER_Z0,
     CLI_BOUND_RATIO, CLI_BOUND_SWR, CLI_BOUND_LEVEL_DB, CLI_BOUND_GOAL_DB,
     CLI_BOUND_PHASE_DEG, CLI_BOUND_ORDER, CLI_BOUND_ITEMS, CLI_BOUND_REPEAT,
-    CLI_BOUND_ELEMENTS, CLI_NBOUNDS
+    CLI_BOUND_ELEMENTS, CLI_BOUND_JOBS, CLI_NBOUNDS
 } cli_bound_id;
 
 typedef struct cli_bound {
@@ -315,6 +322,30 @@ const char *cli_escape(char *buf, size_t size, const char *text);
 /* ---- driver ----------------------------------------------------------- */
 
 int cli_run_command(const cli_command *cmd, int argc, char **argv);
+
+/* ---- --input batches, in turn or on --jobs threads (batch.c, jobs.c) -- */
+
+/* An open batch past its header row (batch.c). */
+typedef struct cli_batch cli_batch;
+enum { CLI_ROW_END, CLI_ROW_SKIP, CLI_ROW_RUN };
+/* The next data row, read on the calling thread in input order: its line
+ * in ctx->line; CLI_ROW_RUN with its cells and its plot names (the
+ * duplicate-name check done) until the next call; CLI_ROW_SKIP after a
+ * one-line error through ctx (*code set); CLI_ROW_END.  Shows progress. */
+int cli_batch_next(cli_batch *b, cli_ctx *ctx, cli_args *args, int *code);
+/* Per option: the row's cell or NULL, its plot file name or NULL. */
+const char *const *cli_batch_row(const cli_batch *b);
+const char *const *cli_batch_plots(const cli_batch *b);
+/* args as the row sees them: its cells, its plot names for the patterns. */
+void cli_batch_apply(const cli_command *cmd, cli_args *args, const char *const *row,
+                     const char *const *plot);
+/* The exit status of two results together (usage errors first). */
+int cli_batch_worse(int a, int b);
+/* Every row in turn on this thread; the exit status. */
+int cli_batch_run_rows(cli_batch *b, cli_ctx *ctx, cli_args *args);
+/* The rows on ctx->jobs threads, stdout and stderr written in input order
+ * as cli_batch_run_rows() writes them (jobs.c); the exit status. */
+int cli_jobs_run(cli_batch *b, cli_ctx *ctx, cli_args *args);
 void cli_print_command_help(const cli_command *cmd, FILE *fp);
 /* The options every command takes besides its own (batch.c). */
 extern const cli_optdef cli_common_opts[];

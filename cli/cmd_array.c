@@ -191,7 +191,7 @@ static int plot(cli_ctx *ctx, const cli_args *a, const array_spec *s, const doub
         cli_number(ctx, "plot-range", cli_get(a, "plot-range", 0), 10.0, 200.0,
                    "10 to 200 dB, such as 40", &range_db))
         return CLI_EXIT_USAGE;
-    static double az[PLOT_POINTS], gain[MAX_PLOT_CURVES][PLOT_POINTS];
+    static _Thread_local double az[PLOT_POINTS], gain[MAX_PLOT_CURVES][PLOT_POINTS];
     char names[MAX_PLOT_CURVES][96], title[200], b1[32], b2[32];
     cli_svg_curve curves[MAX_PLOT_CURVES];
     size_t nc = 0;
@@ -282,7 +282,7 @@ static int plot_freqs(cli_ctx *ctx, const cli_args *a, const cli_freq_point *pts
 {
     int nf = 0;
     if (cli_count(a, "plot-freq")) {
-        static char buf[4096];
+        static _Thread_local char buf[4096];
         const char *items[CLI_MAX_ITEMS];
         int ni = cli_items(ctx, a, "plot-freq", buf, sizeof buf, items, CLI_MAX_ITEMS);
         if (ni < 0) return -1;
@@ -346,7 +346,7 @@ static void describe(cli_ctx *ctx, const array_spec *s, const char *label)
 
 static int array_run(cli_ctx *ctx, const cli_args *a)
 {
-    static cli_freq_point pts[4 * CLI_MAX_ITEMS];
+    static _Thread_local cli_freq_point pts[4 * CLI_MAX_ITEMS];
     array_spec s;
     if (parse_spec(ctx, a, &s)) {
         free_spec(&s);

@@ -98,7 +98,7 @@ static int plot(cli_ctx *ctx, const cli_args *a, const cli_pair_spec *s, double 
         cli_number(ctx, "plot-range", cli_get(a, "plot-range", 0), 10.0, 200.0,
                    "10 to 200 dB, such as 40", &range_db))
         return CLI_EXIT_USAGE;
-    static double az[PLOT_POINTS], gain[2][PLOT_POINTS];
+    static _Thread_local double az[PLOT_POINTS], gain[2][PLOT_POINTS];
     char names[2][96], title[200], b1[32], b2[32], b3[32];
     cli_svg_curve curves[2];
     int ncases = s->has_errors ? 2 : 1;
@@ -223,8 +223,8 @@ static void describe(cli_ctx *ctx, const cli_pair_spec *s, const char *label)
 
 static int pattern_run(cli_ctx *ctx, const cli_args *a)
 {
-    static cli_freq_point pts[4 * CLI_MAX_ITEMS];
-    static pattern_row rows[4 * CLI_MAX_ITEMS][2];
+    static _Thread_local cli_freq_point pts[4 * CLI_MAX_ITEMS];
+    static _Thread_local pattern_row rows[4 * CLI_MAX_ITEMS][2];
     cli_pair_spec s;
     double plot_hz = 0.0;
     if (cli_pair_spec_parse(ctx, a, &s)) return CLI_EXIT_USAGE;

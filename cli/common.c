@@ -34,18 +34,17 @@ static void vreport(const cli_ctx *ctx, const char *tag, const char *field,
 {
     char msg[512];
     vsnprintf(msg, sizeof msg, fmt, ap);
-    fflush(ctx && ctx->out ? ctx->out : stdout);
-    if (ctx && ctx->progress) fputs("\r\033[K", stderr); /* over a progress line */
-    prefix(ctx, stderr);
-    if (tag) fputs(tag, stderr);
-    if (field) fprintf(stderr, "%s: ", field);
-    put_clean(stderr, msg);
+    FILE *fp = cli_report_stream(ctx);
+    prefix(ctx, fp);
+    if (tag) fputs(tag, fp);
+    if (field) fprintf(fp, "%s: ", field);
+    put_clean(fp, msg);
     if (expected) {
-        fputs(" (expected ", stderr);
-        put_clean(stderr, expected);
-        putc(')', stderr);
+        fputs(" (expected ", fp);
+        put_clean(fp, expected);
+        putc(')', fp);
     }
-    putc('\n', stderr);
+    putc('\n', fp);
 }
 
 int cli_error(const cli_ctx *ctx, const char *field, const char *expected,
@@ -590,7 +589,7 @@ const char *cli_escape(char *buf, size_t size, const char *s)
  * a batch cell (64 KiB) or an argument, and each byte takes at most 6. */
 static const char *escape_label(const char *s)
 {
-    static char buf[6 * 65536 + 1];
+    static _Thread_local char buf[6 * 65536 + 1]; /* one per --jobs thread */
     return cli_escape(buf, sizeof buf, s);
 }
 

@@ -83,8 +83,8 @@ int cli_errplot_save(cli_ctx *ctx, const char *field, const char *path,
 int cli_fb_sweep_save(cli_ctx *ctx, const cli_args *a, const cli_freq_point *pts, int n,
                       const cli_fb_sweep *plot, cli_fb_fn fn, void *user)
 {
-    static double mhz[CLI_MAX_ITEMS * (CLI_FB_SWEEP_POINTS + 1)];
-    static double fb[2][CLI_MAX_ITEMS * (CLI_FB_SWEEP_POINTS + 1)];
+    static _Thread_local double mhz[CLI_MAX_ITEMS * (CLI_FB_SWEEP_POINTS + 1)];
+    static _Thread_local double fb[2][CLI_MAX_ITEMS * (CLI_FB_SWEEP_POINTS + 1)];
     cli_svg_span spans[CLI_MAX_ITEMS];
     size_t m = 0, nspans = 0;
     char title[200], b1[32];
