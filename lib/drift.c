@@ -37,14 +37,39 @@ static double x_of(double freq_hz)
     return 1.0 / sqrt(freq_hz * 1e-6);
 }
 
+/* Every reading finite, in range, and with a positive error when given. */
+static int readings_ok(const double *freq_hz, const double *vf, const double *vf_err, size_t n)
+{
+    for (size_t i = 0; i < n; i++)
+        if (!cxl__finite_pos(freq_hz[i]) || !cxl__valid_vf(vf[i]) ||
+            (vf_err && !cxl__finite_pos(vf_err[i])))
+            return 0;
+    return 1;
+}
+
+/* The fitted line c, its covariance and chi^2 into d. */
+static void store_fit(cxl_drift *d, const double *c, const double *cov, double chisq, size_t n,
+                      int have_err)
+{
+    /* without stated errors the scatter sets the scale (none with two
+     * points: the line goes through both); with them, a scatter larger
+     * than they explain scales them up (chi^2 per degree of freedom
+     * above 1: the law misses some of the readings' spread) */
+    double scale = 1.0, per_dof = n > 2 ? chisq / (double)(n - 2) : 0.0;
+    if (!have_err) scale = per_dof;
+    else if (per_dof > 1.0) scale = per_dof;
+    d->v_hf = c[0];
+    d->d = -c[1] * 1e3; /* per 1/sqrt(MHz) -> per 1/sqrt(Hz) */
+    for (int r = 0; r < 2; r++)
+        for (int k = 0; k < 2; k++) d->cov[r][k] = cov[2 * r + k] * scale;
+    d->n = n;
+}
+
 cxl_status cxl_drift_new(const double *freq_hz, const double *vf,
                          const double *vf_err, size_t n, cxl_drift **drift)
 {
     if (!freq_hz || !vf || !drift || n == 0) return CXL_EINVAL;
-    for (size_t i = 0; i < n; i++)
-        if (!cxl__finite_pos(freq_hz[i]) || !cxl__valid_vf(vf[i]) ||
-            (vf_err && !cxl__finite_pos(vf_err[i])))
-            return CXL_EINVAL;
+    if (!readings_ok(freq_hz, vf, vf_err, n)) return CXL_EINVAL;
     double f_min = freq_hz[0], f_max = freq_hz[0];
     for (size_t i = 1; i < n; i++) {
         if (freq_hz[i] < f_min) f_min = freq_hz[i];
@@ -54,7 +79,7 @@ cxl_status cxl_drift_new(const double *freq_hz, const double *vf,
      * columns 1 and x are not numerically the same */
     if (!(f_max > f_min * (1.0 + 1e-9))) return CXL_ERANGE;
     cxl_drift *d = calloc(1, sizeof *d);
-    double *buf = malloc(4 * n * sizeof *buf);
+    double *buf = calloc(4 * n, sizeof *buf); /* calloc: also checks 4 n for overflow */
     if (!d || !buf) {
         free(d); free(buf);
         return CXL_ENOMEM;
@@ -68,32 +93,14 @@ cxl_status cxl_drift_new(const double *freq_hz, const double *vf,
     }
     double chisq = 0.0;
     cxl_status st = cxl__wfit2(X, w, y, n, c, cov, &chisq);
-    if (st == CXL_ENOMEM) {
-        free(d); free(buf);
-        return st;
-    }
-    if (st == CXL_OK) {
-        /* without stated errors the scatter sets the scale (none with two
-         * points: the line goes through both); with them, a scatter larger
-         * than they explain scales them up (chi^2 per degree of freedom
-         * above 1: the law misses some of the readings' spread) */
-        double scale = 1.0, per_dof = n > 2 ? chisq / (double)(n - 2) : 0.0;
-        if (!vf_err) scale = per_dof;
-        else if (per_dof > 1.0) scale = per_dof;
-        d->v_hf = c[0];
-        d->d = -c[1] * 1e3; /* per 1/sqrt(MHz) -> per 1/sqrt(Hz) */
-        for (int r = 0; r < 2; r++)
-            for (int k = 0; k < 2; k++) d->cov[r][k] = cov[2 * r + k] * scale;
-        d->f_min = f_min;
-        d->f_max = f_max;
-        d->n = n;
-        st = CXL_OK;
-    }
     free(buf);
     if (st != CXL_OK) {
         free(d);
         return st;
     }
+    store_fit(d, c, cov, chisq, n, vf_err != NULL);
+    d->f_min = f_min;
+    d->f_max = f_max;
     *drift = d;
     return CXL_OK;
 }
