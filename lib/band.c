@@ -43,28 +43,36 @@ static int is_space(char c) { return c == ' ' || c == '\t'; }
 /* Canonical band name: ASCII lower case, surrounding blanks dropped, and a
  * bare wavelength gets its unit ("160", "160 M" -> "160m").  Returns 0 when
  * the name is empty or too long. */
+/* A bare wavelength of n bytes ("160", "160 M") as "160m" into out; 0
+ * when in is not one (or too long: *bad set). */
+static int wavelength_name(const char *in, size_t n, char out[NAME_MAX_CHARS + 1], int *bad)
+{
+    size_t digits = 0;
+    while (digits < n && in[digits] >= '0' && in[digits] <= '9') digits++;
+    if (digits == 0) return 0;
+    size_t i = digits;
+    while (i < n && is_space(in[i])) i++;
+    int unit_only = (i == n) || (i + 1 == n && (in[i] == 'm' || in[i] == 'M'));
+    if (!unit_only) return 0;
+    if (digits + 1 > NAME_MAX_CHARS) {
+        *bad = 1;
+        return 0;
+    }
+    memcpy(out, in, digits);
+    out[digits] = 'm';
+    out[digits + 1] = '\0';
+    return 1;
+}
+
 static int canonical_name(const char *in, char out[NAME_MAX_CHARS + 1])
 {
     while (is_space(*in)) in++;
     size_t n = strlen(in);
     while (n > 0 && is_space(in[n - 1])) n--;
-    size_t digits = 0;
-    while (digits < n && in[digits] >= '0' && in[digits] <= '9') digits++;
-    size_t k = 0;
-    if (digits > 0) {
-        size_t i = digits;
-        while (i < n && is_space(in[i])) i++;
-        int unit_only = (i == n) || (i + 1 == n && (in[i] == 'm' || in[i] == 'M'));
-        if (unit_only) {
-            if (digits + 1 > NAME_MAX_CHARS) return 0;
-            memcpy(out, in, digits);
-            out[digits] = 'm';
-            out[digits + 1] = '\0';
-            return 1;
-        }
-    }
-    if (n == 0 || n > NAME_MAX_CHARS) return 0;
-    for (k = 0; k < n; k++) {
+    int bad = 0;
+    if (wavelength_name(in, n, out, &bad)) return 1;
+    if (bad || n == 0 || n > NAME_MAX_CHARS) return 0;
+    for (size_t k = 0; k < n; k++) {
         char c = in[k];
         out[k] = (c >= 'A' && c <= 'Z') ? (char)(c - 'A' + 'a') : c;
     }
@@ -250,6 +258,17 @@ cxl_status cxl_bands_name(const cxl_bands *bands, const char *band,
     return CXL_ENOTFOUND;
 }
 
+/* Whether a row is of band want (canonical), of the region (0: any) and,
+ * unless footnotes count, without a footnote. */
+static int row_counts(const band_row *row, const char *want, int region, int include_footnotes)
+{
+    /* first byte before strcmp: this runs once per band in every row of a
+     * per-band batch (tests/bench) */
+    if (row->name[0] != want[0] || strcmp(row->name, want) != 0) return 0;
+    if (region != 0 && row->region != region) return 0;
+    return include_footnotes || row->footnote[0] == '\0';
+}
+
 cxl_status cxl_bands_edges(const cxl_bands *bands, const char *band,
                            int region, int include_footnotes,
                            double *low_hz, double *high_hz)
@@ -262,11 +281,7 @@ cxl_status cxl_bands_edges(const cxl_bands *bands, const char *band,
     int found = 0;
     for (size_t i = 0; i < bands->count; i++) {
         const band_row *row = &bands->rows[i];
-        /* first byte before strcmp: this runs once per band in every row
-         * of a per-band batch (tests/bench) */
-        if (row->name[0] != want[0] || strcmp(row->name, want) != 0) continue;
-        if (region != 0 && row->region != region) continue;
-        if (!include_footnotes && row->footnote[0] != '\0') continue;
+        if (!row_counts(row, want, region, include_footnotes)) continue;
         if (!found || row->low_hz < lo) lo = row->low_hz;
         if (!found || row->high_hz > hi) hi = row->high_hz;
         found = 1;

@@ -195,40 +195,45 @@ static size_t pack(const cxl_harness *h, const size_t *order, int best, size_t *
     return unplaced;
 }
 
-cxl_status cxl_harness_plan(cxl_harness *harness)
+/* One piece of length total less the allowance, for element i. */
+static cxl_status cut_piece(const cxl_harness *h, size_t i, int delay, double total,
+                            harness_piece *pc)
 {
-    if (!harness || harness->n == 0)
-        return CXL_EINVAL;
-    cxl_harness *h = harness;
+    double cut = total - h->allowance_m;
+    /* a piece shorter than 1 mm cannot be cut: the allowance (or the tiny
+     * delay) and the piece cannot both hold */
+    if (!(cut >= CXL_HARNESS_MIN_PIECE_M))
+        return CXL_EINCONSISTENT;
+    double f;
+    cxl_status st = cxl_line_quarter_wave_freq(cut, h->vf, &f);
+    if (st)
+        return st == CXL_ERANGE ? CXL_EINCONSISTENT : st;
+    *pc = (harness_piece){ i, delay ? CXL_PIECE_DELAY : CXL_PIECE_FEED, cut, f, SIZE_MAX };
+    return CXL_OK;
+}
+
+/* Each element's feed run of feed_m and its delay piece (when it has a
+ * delay) into pc[]; *np their count. */
+static cxl_status cut_pieces(const cxl_harness *h, double feed_m, harness_piece *pc, size_t *np)
+{
     double vc = h->vf * CXL_C_M_PER_S;
-    /* the longest run needed sets every feed run */
-    double reach = 0.0;
-    for (size_t i = 0; i < h->n; i++)
-        reach = fmax(reach, hypot(h->el[i].x_m - h->comb_x_m, h->el[i].y_m - h->comb_y_m));
-    double feed_m = reach + h->slack_m;
-    harness_piece pc[2 * CXL_HARNESS_MAX_ELEMENTS];
-    size_t np = 0;
+    *np = 0;
     for (size_t i = 0; i < h->n; i++) {
-        double total[2] = { feed_m, h->el[i].delay_s * vc };
-        for (int k = 0; k < 2; k++) {
-            if (k == 1 && h->el[i].delay_s == 0.0) continue;
-            double cut = total[k] - h->allowance_m;
-            /* a piece shorter than 1 mm cannot be cut: the allowance (or
-             * the tiny delay) and the piece cannot both hold */
-            if (!(cut >= CXL_HARNESS_MIN_PIECE_M))
-                return CXL_EINCONSISTENT;
-            double f;
-            cxl_status st = cxl_line_quarter_wave_freq(cut, h->vf, &f);
-            if (st)
-                return st == CXL_ERANGE ? CXL_EINCONSISTENT : st;
-            pc[np++] = (harness_piece){ i, k ? CXL_PIECE_DELAY : CXL_PIECE_FEED, cut, f,
-                                        SIZE_MAX };
-        }
+        cxl_status st = cut_piece(h, i, 0, feed_m, &pc[*np]);
+        if (st != CXL_OK) return st;
+        ++*np;
+        if (h->el[i].delay_s == 0.0) continue;
+        if ((st = cut_piece(h, i, 1, h->el[i].delay_s * vc, &pc[*np])) != CXL_OK) return st;
+        ++*np;
     }
-    memcpy(h->piece, pc, np * sizeof pc[0]);
-    h->npieces = np;
-    h->feed_m = feed_m;
-    h->feed_delay_s = feed_m / vc;
+    return CXL_OK;
+}
+
+/* Packs the pieces on the drums by first and best fit and keeps the
+ * better; CXL_ERANGE when a piece finds no drum. */
+static cxl_status pack_drums(cxl_harness *h)
+{
+    size_t np = h->npieces;
     size_t order[2 * CXL_HARNESS_MAX_ELEMENTS] = { 0 }, ffd[2 * CXL_HARNESS_MAX_ELEMENTS],
         bfd[2 * CXL_HARNESS_MAX_ELEMENTS];
     double used_f[CXL_HARNESS_MAX_DRUMS], used_b[CXL_HARNESS_MAX_DRUMS];
@@ -242,6 +247,28 @@ cxl_status cxl_harness_plan(cxl_harness *harness)
     h->planned = 1;
     /* no drums given: a cut list without packing */
     return (take_best ? ub : uf) && h->ndrums ? CXL_ERANGE : CXL_OK;
+}
+
+cxl_status cxl_harness_plan(cxl_harness *harness)
+{
+    if (!harness || harness->n == 0)
+        return CXL_EINVAL;
+    cxl_harness *h = harness;
+    double vc = h->vf * CXL_C_M_PER_S;
+    /* the longest run needed sets every feed run */
+    double reach = 0.0;
+    for (size_t i = 0; i < h->n; i++)
+        reach = fmax(reach, hypot(h->el[i].x_m - h->comb_x_m, h->el[i].y_m - h->comb_y_m));
+    double feed_m = reach + h->slack_m;
+    harness_piece pc[2 * CXL_HARNESS_MAX_ELEMENTS];
+    size_t np = 0;
+    cxl_status st = cut_pieces(h, feed_m, pc, &np);
+    if (st != CXL_OK) return st;
+    memcpy(h->piece, pc, np * sizeof pc[0]);
+    h->npieces = np;
+    h->feed_m = feed_m;
+    h->feed_delay_s = feed_m / vc;
+    return pack_drums(h);
 }
 
 size_t cxl_harness_piece_count(const cxl_harness *harness)

@@ -89,6 +89,38 @@ static int ranks_before(double g, unsigned p, unsigned q, double g_other,
     return p < po;
 }
 
+/* The best pairs found so far, sorted, in the caller's arrays. */
+typedef struct turns_list {
+    double z_common, z_line;
+    unsigned *p, *q;
+    size_t n, capacity;
+} turns_list;
+
+/* Places the pair p:q (reflection g) in the sorted list, keeping at most
+ * its capacity. */
+static void turns_insert(turns_list *t, unsigned p, unsigned q, double g)
+{
+    size_t pos = t->n;
+    while (pos > 0) {
+        unsigned po = t->p[pos - 1], qo = t->q[pos - 1];
+        double go = reflection(presented(t->z_common, po, qo), t->z_line);
+        if (!ranks_before(g, p, q, go, po, qo))
+            break;
+        pos--;
+    }
+    if (pos >= t->capacity)
+        return;
+    size_t last = t->n < t->capacity ? t->n : t->capacity - 1;
+    for (size_t i = last; i > pos; i--) {
+        t->p[i] = t->p[i - 1];
+        t->q[i] = t->q[i - 1];
+    }
+    t->p[pos] = p;
+    t->q[pos] = q;
+    if (t->n < t->capacity)
+        t->n++;
+}
+
 cxl_status cxl_hybrid_turns_search(double z_common_ohm, double z_line_ohm,
                                    unsigned max_turns, size_t capacity,
                                    unsigned *p_turns, unsigned *q_turns,
@@ -101,37 +133,17 @@ cxl_status cxl_hybrid_turns_search(double z_common_ohm, double z_line_ohm,
     if (max_turns > 256)
         return CXL_ERANGE;
     /* Keep the best `capacity` pairs sorted in the caller's arrays. */
-    size_t n = 0;
+    turns_list t = { z_common_ohm, z_line_ohm, p_turns, q_turns, 0, capacity };
     for (unsigned p = 1; p <= max_turns; p++) {
         for (unsigned q = 1; q <= max_turns; q++) {
             if (gcd(p, q) != 1)
                 continue;   /* same ratio as a pair with fewer turns */
             double g = reflection(presented(z_common_ohm, p, q), z_line_ohm);
-            if (!isfinite(g))
-                continue;
-            size_t pos = n;
-            while (pos > 0) {
-                unsigned po = p_turns[pos - 1], qo = q_turns[pos - 1];
-                double go =
-                    reflection(presented(z_common_ohm, po, qo), z_line_ohm);
-                if (!ranks_before(g, p, q, go, po, qo))
-                    break;
-                pos--;
-            }
-            if (pos >= capacity)
-                continue;
-            size_t last = n < capacity ? n : capacity - 1;
-            for (size_t i = last; i > pos; i--) {
-                p_turns[i] = p_turns[i - 1];
-                q_turns[i] = q_turns[i - 1];
-            }
-            p_turns[pos] = p;
-            q_turns[pos] = q;
-            if (n < capacity)
-                n++;
+            if (isfinite(g))
+                turns_insert(&t, p, q, g);
         }
     }
-    *count = n;
+    *count = t.n;
     return CXL_OK;
 }
 

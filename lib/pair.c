@@ -104,22 +104,41 @@ cxl_status cxl_pair_verdict(double phase_error_deg, double uncertainty_deg,
     return CXL_OK;
 }
 
+/* The shortest and longest of count >= 2 finite positive lengths; 0 when
+ * one is not. */
+static int length_bounds(const double *lengths_m, size_t count, double *lo_m, double *hi_m)
+{
+    double lo = lengths_m[0], hi = lengths_m[0];
+    for (size_t i = 0; i < count; i++) {
+        if (!cxl__finite_pos(lengths_m[i])) return 0;
+        lo = fmin(lo, lengths_m[i]);
+        hi = fmax(hi, lengths_m[i]);
+    }
+    *lo_m = lo;
+    *hi_m = hi;
+    return 1;
+}
+
+/* A line's VF, a frequency, a tolerance and the tolerances of length and
+ * VF that a check of lines can use. */
+static int valid_check(double vf, double freq_hz, double tolerance_deg, double length_tol_m,
+                       double vf_tol)
+{
+    return cxl__valid_vf(vf) && cxl__finite_pos(freq_hz) && cxl__finite_pos(tolerance_deg) &&
+           valid_tolerances(length_tol_m, vf, vf_tol);
+}
+
 cxl_status cxl_pair_check(const double *lengths_m, size_t count, double vf,
                           double freq_hz, double tolerance_deg,
                           double length_tol_m, double vf_tol,
                           double *delta_m, double *phase_error_deg,
                           double *uncertainty_deg, cxl_verdict *verdict)
 {
+    double lo, hi;
     if (!lengths_m || count < 2 || !delta_m || !phase_error_deg || !uncertainty_deg ||
-        !verdict || !cxl__valid_vf(vf) || !cxl__finite_pos(freq_hz) ||
-        !cxl__finite_pos(tolerance_deg) || !valid_tolerances(length_tol_m, vf, vf_tol))
+        !verdict || !valid_check(vf, freq_hz, tolerance_deg, length_tol_m, vf_tol) ||
+        !length_bounds(lengths_m, count, &lo, &hi))
         return CXL_EINVAL;
-    double lo = lengths_m[0], hi = lengths_m[0];
-    for (size_t i = 0; i < count; i++) {
-        if (!cxl__finite_pos(lengths_m[i])) return CXL_EINVAL;
-        if (lengths_m[i] < lo) lo = lengths_m[i];
-        if (lengths_m[i] > hi) hi = lengths_m[i];
-    }
     /* the worst pair is the longest against the shortest */
     double delta = hi - lo;
     double err = phase_deg(delta, vf, freq_hz);
@@ -259,19 +278,22 @@ static cxl_status load_spreads(const cxl_pair_load *load, const double *lengths_
     return CXL_OK;
 }
 
-/* The shortest and longest of count >= 2 finite positive lengths; 0 when
- * one is not. */
-static int length_bounds(const double *lengths_m, size_t count, double *lo_m, double *hi_m)
+static int all_finite4(double a, double b, double c, double d)
 {
-    double lo = lengths_m[0], hi = lengths_m[0];
-    for (size_t i = 0; i < count; i++) {
-        if (!cxl__finite_pos(lengths_m[i])) return 0;
-        lo = fmin(lo, lengths_m[i]);
-        hi = fmax(hi, lengths_m[i]);
-    }
-    *lo_m = lo;
-    *hi_m = hi;
-    return 1;
+    return isfinite(a) && isfinite(b) && isfinite(c) && isfinite(d);
+}
+
+/* The uncertainty of the error err: the worst spread over the corners of
+ * the tolerances less err (0 without tolerances). */
+static cxl_status load_uncertainty(const cxl_pair_load *load, double lo, double hi, double vf,
+                                   double freq_hz, double length_tol_m, double vf_tol,
+                                   double err, double *unc)
+{
+    if (!(length_tol_m > 0.0 || vf_tol > 0.0)) return CXL_OK;
+    double worst = 0.0;
+    cxl_status st = load_worst_spread(load, lo, hi, vf, freq_hz, length_tol_m, vf_tol, &worst);
+    *unc = fmax(worst - err, 0.0);
+    return st;
 }
 
 cxl_status cxl_pair_load_check(const cxl_pair_load *load, const double *lengths_m,
@@ -282,19 +304,18 @@ cxl_status cxl_pair_load_check(const cxl_pair_load *load, const double *lengths_
                                cxl_verdict *verdict)
 {
     double lo, hi, err, elec, imb, unc = 0.0;
-    if (!load || !lengths_m || count < 2 || !phase_error_deg || !uncertainty_deg ||
-        !electrical_error_deg || !imbalance_db || !verdict || !cxl__valid_vf(vf) ||
-        !cxl__finite_pos(freq_hz) || !cxl__finite_pos(tolerance_deg) ||
-        !valid_tolerances(length_tol_m, vf, vf_tol) || !length_bounds(lengths_m, count, &lo, &hi))
+    /* every result is wanted: the verdict means little without them */
+    if (!phase_error_deg || !uncertainty_deg || !electrical_error_deg || !imbalance_db)
+        return CXL_EINVAL;
+    if (!load || !lengths_m || count < 2 || !verdict ||
+        !valid_check(vf, freq_hz, tolerance_deg, length_tol_m, vf_tol) ||
+        !length_bounds(lengths_m, count, &lo, &hi))
         return CXL_EINVAL;
     cxl_status st = load_spreads(load, lengths_m, count, vf, freq_hz, lo, hi, &err, &elec, &imb);
-    if (st == CXL_OK && (length_tol_m > 0.0 || vf_tol > 0.0)) {
-        double worst = 0.0;
-        st = load_worst_spread(load, lo, hi, vf, freq_hz, length_tol_m, vf_tol, &worst);
-        unc = fmax(worst - err, 0.0);
-    }
+    if (st == CXL_OK)
+        st = load_uncertainty(load, lo, hi, vf, freq_hz, length_tol_m, vf_tol, err, &unc);
     if (st != CXL_OK) return st;
-    if (!isfinite(err) || !isfinite(unc) || !isfinite(elec) || !isfinite(imb)) return CXL_ERANGE;
+    if (!all_finite4(err, unc, elec, imb)) return CXL_ERANGE;
     st = cxl_pair_verdict(err, unc, tolerance_deg, verdict);
     if (st != CXL_OK) return st;
     *phase_error_deg = err;

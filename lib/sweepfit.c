@@ -170,6 +170,102 @@ static int cmp_double(const void *a, const void *b)
 
 /* Start values from the resonances and |Z|.  CXL_EEXTRAPOLATE when the
  * sweep shows fewer than two series resonances of one kind. */
+/* The series resonances of the kind preferred (two at least when there
+ * are) into fr[] and their orders ord[]; returns how many. */
+static size_t series_readings(const cxl_sweep_res *res, const model *m, double *fr, int *ord,
+                              size_t nr)
+{
+    /* a fixture matched to R leaves |Gamma| as it is: with one, the SWR
+     * minima keep the piece's own spacing */
+    static const cxl_sweep_kind pref[3] = { CXL_SWEEP_Z_MIN, CXL_SWEEP_X_ZERO, CXL_SWEEP_SWR_MIN };
+    static const cxl_sweep_kind pref_fix[3] = { CXL_SWEEP_SWR_MIN, CXL_SWEEP_Z_MIN,
+                                                CXL_SWEEP_X_ZERO };
+    size_t k = 0;
+    for (int i = 0; i < 3 && k < 2; i++)
+        cxl_sweep_res_readings(res, (m->np > P_FIX ? pref_fix : pref)[i], fr, ord, nr, &k);
+    return k;
+}
+
+/* The resistance and frequency at the first series reactance zero (NAN
+ * when there is none). */
+static void first_series_zero(const cxl_sweep_res *res, size_t nr, double *r_first,
+                              double *f_first)
+{
+    *r_first = *f_first = NAN;
+    for (size_t i = 0; i < nr; i++) {
+        cxl_sweep_kind kind;
+        int series;
+        double f, v;
+        cxl_sweep_res_get(res, i, &kind, &series, NULL, &f, NULL, &v);
+        if (kind == CXL_SWEEP_X_ZERO && series) {
+            *r_first = v;
+            *f_first = f;
+            return;
+        }
+    }
+}
+
+/* The median gap between the k (two or more) frequencies fr[]. */
+static double median_gap(const double *fr, size_t k, double *gap)
+{
+    for (size_t i = 0; i + 1 < k; i++) gap[i] = fr[i + 1] - fr[i];
+    qsort(gap, k - 1, sizeof *gap, cmp_double);
+    return (k - 1) % 2 ? gap[(k - 1) / 2] : 0.5 * (gap[(k - 1) / 2 - 1] + gap[(k - 1) / 2]);
+}
+
+/* Each numbered resonance's VF, and their trend (drift.c) into *v0 and
+ * *d0 when it stays a line's.  fr[] is reordered in place. */
+static void vf_trend(const model *m, cxl_stub_end end, double *fr, double *vf, const int *ord,
+                     size_t k, double *v0, double *d0)
+{
+    size_t q = 0;
+    for (size_t i = 0; i < k; i++)
+        if (ord[i] > 0 &&
+            cxl_stub_vf_from_resonance(end, ord[i], m->length, fr[i], 0.0, 0.0, &vf[q]) ==
+                CXL_OK) fr[q++] = fr[i];
+    cxl_drift *dr = NULL;
+    if (q < 2 || cxl_drift_new(fr, vf, NULL, q, &dr) != CXL_OK) return;
+    double vh, dd;
+    cxl_drift_coefficients(dr, &vh, &dd);
+    /* a trend of two noisy readings can be wild: keep it only when it
+     * stays a line's */
+    if (cxl__valid_vf(vh) && dd >= 0.0 && dd / sqrt(m->f[0]) < 0.2 * vh) {
+        *v0 = vh;
+        *d0 = dd;
+    }
+    cxl_drift_free(dr);
+}
+
+/* Z0: geometric mean of |Z| (R when there is none). */
+static double z0_start(const model *m)
+{
+    double sum = 0.0;
+    size_t used = 0;
+    for (size_t i = 0; i < m->n; i++) {
+        double complex g = m->gre[i] + I * m->gim[i];
+        double complex z = m->ref * (1.0 + g) / (1.0 - g);
+        double a = cabs(z);
+        if (isfinite(a) && a > 0.0) {
+            sum += log(a);
+            used++;
+        }
+    }
+    double z0 = used ? exp(sum / (double)used) : m->ref;
+    return cxl__finite_pos(z0) ? z0 : m->ref;
+}
+
+/* loss: R = Z0 alpha l at the first series resonance of a lossy open or
+ * shorted line */
+static double loss_start(const model *m, double r_first, double f_first, double z0)
+{
+    double a0 = 0.0;
+    if (m->end_kind != 2 && isfinite(r_first) && r_first > 0.0 && f_first > 0.0)
+        a0 = r_first / (z0 * m->length) * DB_PER_NP / sqrt(f_first);
+    return isfinite(a0) && a0 >= 0.0 ? a0 : 0.0;
+}
+
+/* Start values from the resonances and |Z|.  CXL_EEXTRAPOLATE when the
+ * sweep shows fewer than two series resonances of one kind. */
 static cxl_status start_values(const cxl_sweep *sweep, const model *m, cxl_stub_end end,
                                double *p)
 {
@@ -186,84 +282,24 @@ static cxl_status start_values(const cxl_sweep *sweep, const model *m, cxl_stub_
         return CXL_ENOMEM;
     }
     double *fr = buf, *vf = buf + nr, *gap = buf + 2 * nr;
-    size_t k = 0;
-    /* a fixture matched to R leaves |Gamma| as it is: with one, the SWR
-     * minima keep the piece's own spacing */
-    static const cxl_sweep_kind pref[3] = { CXL_SWEEP_Z_MIN, CXL_SWEEP_X_ZERO, CXL_SWEEP_SWR_MIN };
-    static const cxl_sweep_kind pref_fix[3] = { CXL_SWEEP_SWR_MIN, CXL_SWEEP_Z_MIN,
-                                                CXL_SWEEP_X_ZERO };
-    for (int i = 0; i < 3 && k < 2; i++)
-        cxl_sweep_res_readings(res, (m->np > P_FIX ? pref_fix : pref)[i], fr, ord, nr, &k);
-    /* the resistance at the first series reactance zero */
-    double r_first = NAN, f_first = NAN;
-    for (size_t i = 0; i < nr; i++) {
-        cxl_sweep_kind kind;
-        int series;
-        double f, v;
-        cxl_sweep_res_get(res, i, &kind, &series, NULL, &f, NULL, &v);
-        if (kind == CXL_SWEEP_X_ZERO && series) {
-            r_first = v;
-            f_first = f;
-            break;
-        }
-    }
+    size_t k = series_readings(res, m, fr, ord, nr);
+    double r_first, f_first;
+    first_series_zero(res, nr, &r_first, &f_first);
     cxl_sweep_res_free(res);
-    if (k < 2) {
-        free(buf);
-        free(ord);
-        return CXL_EEXTRAPOLATE;
-    }
-    for (size_t i = 0; i + 1 < k; i++) gap[i] = fr[i + 1] - fr[i];
-    qsort(gap, k - 1, sizeof *gap, cmp_double);
-    double half = (k - 1) % 2 ? gap[(k - 1) / 2] : 0.5 * (gap[(k - 1) / 2 - 1] + gap[(k - 1) / 2]);
-    /* consecutive series resonances are half a wavelength apart */
-    double v0 = 2.0 * m->length * half / CXL_C_M_PER_S, d0 = 0.0;
-    if (m->end_kind != 2 && m->np <= P_FIX) {
-        /* each numbered resonance's VF, and their trend (drift.c) */
-        size_t q = 0;
-        for (size_t i = 0; i < k; i++)
-            if (ord[i] > 0 &&
-                cxl_stub_vf_from_resonance(end, ord[i], m->length, fr[i], 0.0, 0.0, &vf[q]) ==
-                    CXL_OK) fr[q++] = fr[i];
-        cxl_drift *dr = NULL;
-        if (q >= 2 && cxl_drift_new(fr, vf, NULL, q, &dr) == CXL_OK) {
-            double vh, dd;
-            cxl_drift_coefficients(dr, &vh, &dd);
-            /* a trend of two noisy readings can be wild: keep it only
-             * when it stays a line's */
-            if (cxl__valid_vf(vh) && dd >= 0.0 && dd / sqrt(m->f[0]) < 0.2 * vh) {
-                v0 = vh;
-                d0 = dd;
-            }
-            cxl_drift_free(dr);
-        }
+    double v0 = 0.0, d0 = 0.0;
+    if (k >= 2) {
+        /* consecutive series resonances are half a wavelength apart */
+        v0 = 2.0 * m->length * median_gap(fr, k, gap) / CXL_C_M_PER_S;
+        if (m->end_kind != 2 && m->np <= P_FIX) vf_trend(m, end, fr, vf, ord, k, &v0, &d0);
     }
     free(buf);
     free(ord);
+    if (k < 2) return CXL_EEXTRAPOLATE;
     if (!cxl__valid_vf(v0)) v0 = 0.66;
-    /* Z0: geometric mean of |Z| */
-    double sum = 0.0;
-    size_t used = 0;
-    for (size_t i = 0; i < m->n; i++) {
-        double complex g = m->gre[i] + I * m->gim[i];
-        double complex z = m->ref * (1.0 + g) / (1.0 - g);
-        double a = cabs(z);
-        if (isfinite(a) && a > 0.0) {
-            sum += log(a);
-            used++;
-        }
-    }
-    double z0 = used ? exp(sum / (double)used) : m->ref;
-    if (!cxl__finite_pos(z0)) z0 = m->ref;
-    /* loss: R = Z0 alpha l at the first series resonance of a lossy
-     * open or shorted line */
-    double a0 = 0.0;
-    if (m->end_kind != 2 && isfinite(r_first) && r_first > 0.0 && f_first > 0.0)
-        a0 = r_first / (z0 * m->length) * DB_PER_NP / sqrt(f_first);
-    if (!isfinite(a0) || a0 < 0.0) a0 = 0.0;
+    double z0 = z0_start(m);
     p[P_VF] = v0;
     p[P_DROP] = d0;
-    p[P_A] = a0;
+    p[P_A] = loss_start(m, r_first, f_first, z0);
     p[P_B] = 0.0;
     p[P_Z0] = z0;
     if (m->np > P_FIX) p[P_FIX] = 0.0;
@@ -304,20 +340,30 @@ static void fixture_scan(const model *m, double *p)
     p[P_FIX] = best_l;
 }
 
-cxl_status cxl_sweepfit_new(const cxl_sweep *sweep, double length_m, cxl_stub_end end,
-                            double load_re_ohm, double load_im_ohm, double fixture_vf,
-                            unsigned flags, cxl_sweepfit **fit)
+/* A load: finite, R not below 0, and given only with its flag. */
+static int load_ok(double re, double im, unsigned flags)
+{
+    if (!isfinite(re) || !isfinite(im) || re < 0.0) return 0;
+    return (re == 0.0 && im == 0.0) || (flags & CXL_SWEEPFIT_LOAD);
+}
+
+static cxl_status fit_args(const cxl_sweep *sweep, cxl_sweepfit **fit, double length_m,
+                           cxl_stub_end end, double fixture_vf, unsigned flags)
 {
     if (!sweep || !fit || !cxl__finite_pos(length_m)) return CXL_EINVAL;
     if (flags & ~(CXL_SWEEPFIT_LOAD | CXL_SWEEPFIT_FIXTURE)) return CXL_EINVAL;
     if (end != CXL_STUB_OPEN && end != CXL_STUB_SHORT) return CXL_EINVAL;
-    if (!isfinite(load_re_ohm) || !isfinite(load_im_ohm) || load_re_ohm < 0.0) return CXL_EINVAL;
     if (!isfinite(fixture_vf) || fixture_vf < 0.0 || fixture_vf > 1.0) return CXL_EINVAL;
     /* a fixture VF without a fixture, or a load without the flag: a
      * mistake, not something to ignore */
     if (fixture_vf > 0.0 && !(flags & CXL_SWEEPFIT_FIXTURE)) return CXL_EINVAL;
-    if ((load_re_ohm != 0.0 || load_im_ohm != 0.0) && !(flags & CXL_SWEEPFIT_LOAD))
-        return CXL_EINVAL;
+    return CXL_OK;
+}
+
+/* The sweep's points above DC into m, their Gamma and sqrt(f) in *g (one
+ * array the caller frees). */
+static cxl_status load_points(const cxl_sweep *sweep, model *m, double **g)
+{
     double ref;
     int has_phase;
     cxl_sweep_info(sweep, NULL, NULL, &ref, NULL, &has_phase);
@@ -327,107 +373,155 @@ cxl_status cxl_sweepfit_new(const cxl_sweep *sweep, double length_m, cxl_stub_en
     size_t first = 0;
     while (first < n_all && !(freq[first] > 0.0)) first++; /* no DC point */
     size_t n = n_all - first;
-    int np = (flags & CXL_SWEEPFIT_FIXTURE) ? 6 : 5;
-    if (n < (size_t)np + 2) return CXL_EEXTRAPOLATE;
+    if (n < (size_t)m->np + 2) return CXL_EEXTRAPOLATE;
     if (n > ((size_t)-1) / (8 * sizeof(double) * NP_MAX)) return CXL_ENOMEM;
-    double *g = malloc(3 * n * sizeof *g);
-    if (!g) return CXL_ENOMEM;
+    double *a = malloc(3 * n * sizeof *a);
+    if (!a) return CXL_ENOMEM;
     for (size_t i = 0; i < n; i++) {
-        if (cxl__sweep_gamma(sweep, first + i, ref, &g[i], &g[n + i]) != CXL_OK) {
-            free(g);
+        if (cxl__sweep_gamma(sweep, first + i, ref, &a[i], &a[n + i]) != CXL_OK) {
+            free(a);
             return CXL_ERANGE;
         }
     }
-    for (size_t i = 0; i < n; i++) g[2 * n + i] = sqrt(freq[first + i]);
-    model m = {
-        .f = freq + first, .sf = g + 2 * n, .gre = g, .gim = g + n, .n = n, .ref = ref, .length = length_m,
-        .fix_vf = fixture_vf, .zl = load_re_ohm + I * load_im_ohm,
-        .end_kind = (flags & CXL_SWEEPFIT_LOAD) ? 2 : end == CXL_STUB_SHORT ? 1 : 0, .np = np,
+    for (size_t i = 0; i < n; i++) a[2 * n + i] = sqrt(freq[first + i]);
+    m->f = freq + first, m->sf = a + 2 * n, m->gre = a, m->gim = a + n, m->n = n, m->ref = ref;
+    *g = a;
+    return CXL_OK;
+}
+
+/* internal parameters of order one: the drop and the loss terms as
+ * their size at the band's centre, Z0 in units of R, the fixture in
+ * units of the piece */
+static void set_scales(model *m)
+{
+    double fc = sqrt(m->f[0] * m->f[m->n - 1]);
+    m->scale[P_VF] = 1.0;
+    m->scale[P_DROP] = sqrt(fc);
+    m->scale[P_A] = 1.0 / sqrt(fc);
+    m->scale[P_B] = 1.0 / fc;
+    m->scale[P_Z0] = m->ref;
+    m->scale[P_FIX] = m->length;
+}
+
+/* The least squares from p0 in workspace w; CXL_OK at a minimum. */
+static cxl_status solve(model *m, const double *p0, gsl_multifit_nlinear_workspace *w)
+{
+    size_t np = (size_t)m->np;
+    double x0[NP_MAX];
+    for (size_t j = 0; j < np; j++) x0[j] = p0[j] / m->scale[j];
+    gsl_vector_view xv = gsl_vector_view_array(x0, np);
+    gsl_multifit_nlinear_fdf fdf = {
+        .f = fit_f, .df = fit_df, .fvv = NULL, .n = 2 * m->n, .p = np, .params = m,
     };
-    /* internal parameters of order one: the drop and the loss terms as
-     * their size at the band's centre, Z0 in units of R, the fixture in
-     * units of the piece */
-    double fc = sqrt(m.f[0] * m.f[n - 1]);
-    m.scale[P_VF] = 1.0;
-    m.scale[P_DROP] = sqrt(fc);
-    m.scale[P_A] = 1.0 / sqrt(fc);
-    m.scale[P_B] = 1.0 / fc;
-    m.scale[P_Z0] = ref;
-    m.scale[P_FIX] = length_m;
-    double p0[NP_MAX];
-    cxl_status st = start_values(sweep, &m, end, p0);
-    if (st != CXL_OK) {
-        free(g);
-        return st;
+    int info = 0;
+    if (gsl_multifit_nlinear_init(&xv.vector, &fdf, w) != GSL_SUCCESS) return CXL_ENOCONV;
+    int gst = gsl_multifit_nlinear_driver(200, 1e-8, 1e-12, 0.0, NULL, NULL, &info, w);
+    /* no progress possible any more is a minimum too, to the precision
+     * of the numbers */
+    return gst == GSL_SUCCESS || gst == GSL_ENOPROG ? CXL_OK : CXL_ENOCONV;
+}
+
+/* The sum of squared residuals r, and the largest with its frequency. */
+static double residuals(const model *m, const gsl_vector *r, double *worst, double *worst_f)
+{
+    double chisq = 0.0;
+    *worst = -1.0;
+    *worst_f = 0.0;
+    for (size_t i = 0; i < m->n; i++) {
+        double a = hypot(gsl_vector_get(r, 2 * i), gsl_vector_get(r, 2 * i + 1));
+        chisq += a * a;
+        if (a > *worst) {
+            *worst = a;
+            *worst_f = m->f[i];
+        }
     }
+    return chisq;
+}
+
+/* The covariance in physical units, scaled by chi^2 per degree of freedom s2. */
+static cxl_status covariance(const model *m, const gsl_matrix *cov, double s2, cxl_sweepfit *out)
+{
+    for (int i = 0; i < m->np; i++)
+        for (int j = 0; j < m->np; j++) {
+            double c = gsl_matrix_get(cov, (size_t)i, (size_t)j) * s2 * m->scale[i] *
+                       m->scale[j];
+            if (!isfinite(c)) return CXL_ENOCONV;
+            out->cov[i][j] = c;
+        }
+    return CXL_OK;
+}
+
+/* The solved fit in workspace w into out, cov its work matrix. */
+static cxl_status fit_results(const model *m, gsl_multifit_nlinear_workspace *w, gsl_matrix *cov,
+                              cxl_sweepfit *out)
+{
+    size_t n = m->n;
+    cxl_status st = CXL_OK;
+    if (gsl_multifit_nlinear_covar(gsl_multifit_nlinear_jac(w), 0.0, cov) != GSL_SUCCESS)
+        st = CXL_ENOCONV;
+    double worst, worst_f;
+    double chisq = residuals(m, gsl_multifit_nlinear_residual(w), &worst, &worst_f);
+    double s2 = chisq / (double)(2 * n - (size_t)m->np);
+    physical(m, gsl_multifit_nlinear_position(w), out->p);
+    if (st == CXL_OK) st = covariance(m, cov, s2, out);
+    for (int j = 0; j < m->np; j++)
+        if (!isfinite(out->p[j])) st = CXL_ENOCONV;
+    /* a fit that ends outside any line did not find this one */
+    if (!cxl__valid_vf(out->p[P_VF]) || !cxl__finite_pos(out->p[P_Z0])) st = CXL_ENOCONV;
+    out->np = m->np;
+    out->rms = sqrt(chisq / (double)n);
+    out->max_res = worst;
+    out->max_res_hz = worst_f;
+    out->f_min = m->f[0];
+    out->f_max = m->f[n - 1];
+    out->points = n;
+    out->iterations = gsl_multifit_nlinear_niter(w);
+    return st;
+}
+
+/* Allocates the solver of m's size and runs it from p0 into out. */
+static cxl_status fit_model(model *m, double *p0, cxl_sweepfit *out)
+{
+    size_t np = (size_t)m->np;
     gsl_multifit_nlinear_parameters par = gsl_multifit_nlinear_default_parameters();
     par.trs = gsl_multifit_nlinear_trs_lm;
     par.solver = gsl_multifit_nlinear_solver_mcholesky;
     gsl_multifit_nlinear_workspace *w =
-        gsl_multifit_nlinear_alloc(gsl_multifit_nlinear_trust, &par, 2 * n, (size_t)np);
-    gsl_matrix *cov = gsl_matrix_alloc((size_t)np, (size_t)np);
-    cxl_sweepfit *out = calloc(1, sizeof *out);
-    if (!w || !cov || !out) {
-        if (w) gsl_multifit_nlinear_free(w);
-        if (cov) gsl_matrix_free(cov);
-        free(out);
-        free(g);
-        return CXL_ENOMEM;
+        gsl_multifit_nlinear_alloc(gsl_multifit_nlinear_trust, &par, 2 * m->n, np);
+    gsl_matrix *cov = gsl_matrix_alloc(np, np);
+    cxl_status st = CXL_ENOMEM;
+    if (w && cov) {
+        if (m->np > P_FIX) fixture_scan(m, p0);
+        st = solve(m, p0, w);
+        if (st == CXL_OK) st = fit_results(m, w, cov, out);
     }
-    if (np > P_FIX) fixture_scan(&m, p0);
-    double x0[NP_MAX];
-    for (int j = 0; j < np; j++) x0[j] = p0[j] / m.scale[j];
-    gsl_vector_view xv = gsl_vector_view_array(x0, (size_t)np);
-    gsl_multifit_nlinear_fdf fdf = {
-        .f = fit_f, .df = fit_df, .fvv = NULL, .n = 2 * n, .p = (size_t)np, .params = &m,
+    if (w) gsl_multifit_nlinear_free(w);
+    if (cov) gsl_matrix_free(cov);
+    return st;
+}
+
+cxl_status cxl_sweepfit_new(const cxl_sweep *sweep, double length_m, cxl_stub_end end,
+                            double load_re_ohm, double load_im_ohm, double fixture_vf,
+                            unsigned flags, cxl_sweepfit **fit)
+{
+    cxl_status st = fit_args(sweep, fit, length_m, end, fixture_vf, flags);
+    if (st != CXL_OK) return st;
+    if (!load_ok(load_re_ohm, load_im_ohm, flags)) return CXL_EINVAL;
+    model m = {
+        .length = length_m, .fix_vf = fixture_vf, .zl = load_re_ohm + I * load_im_ohm,
+        .end_kind = (flags & CXL_SWEEPFIT_LOAD) ? 2 : end == CXL_STUB_SHORT ? 1 : 0,
+        .np = (flags & CXL_SWEEPFIT_FIXTURE) ? 6 : 5,
     };
-    st = CXL_ENOCONV;
-    int info = 0;
-    if (gsl_multifit_nlinear_init(&xv.vector, &fdf, w) == GSL_SUCCESS) {
-        int gst = gsl_multifit_nlinear_driver(200, 1e-8, 1e-12, 0.0, NULL, NULL, &info, w);
-        /* no progress possible any more is a minimum too, to the
-         * precision of the numbers */
-        if (gst == GSL_SUCCESS || gst == GSL_ENOPROG) st = CXL_OK;
-    }
+    double *g = NULL;
+    if ((st = load_points(sweep, &m, &g)) != CXL_OK) return st;
+    set_scales(&m);
+    double p0[NP_MAX];
+    cxl_sweepfit *out = NULL;
+    st = start_values(sweep, &m, end, p0);
     if (st == CXL_OK) {
-        gsl_matrix *J = gsl_multifit_nlinear_jac(w);
-        gsl_vector *r = gsl_multifit_nlinear_residual(w);
-        gsl_vector *x = gsl_multifit_nlinear_position(w);
-        if (gsl_multifit_nlinear_covar(J, 0.0, cov) != GSL_SUCCESS) st = CXL_ENOCONV;
-        double chisq = 0.0, worst = -1.0, worst_f = 0.0;
-        for (size_t i = 0; i < n; i++) {
-            double a = hypot(gsl_vector_get(r, 2 * i), gsl_vector_get(r, 2 * i + 1));
-            chisq += a * a;
-            if (a > worst) {
-                worst = a;
-                worst_f = m.f[i];
-            }
-        }
-        double dof = (double)(2 * n - (size_t)np);
-        double s2 = chisq / dof;
-        physical(&m, x, out->p);
-        for (int i = 0; i < np && st == CXL_OK; i++)
-            for (int j = 0; j < np; j++) {
-                double c = gsl_matrix_get(cov, (size_t)i, (size_t)j) * s2 * m.scale[i] *
-                           m.scale[j];
-                if (!isfinite(c)) st = CXL_ENOCONV;
-                out->cov[i][j] = c;
-            }
-        for (int j = 0; j < np; j++)
-            if (!isfinite(out->p[j])) st = CXL_ENOCONV;
-        /* a fit that ends outside any line did not find this one */
-        if (!cxl__valid_vf(out->p[P_VF]) || !cxl__finite_pos(out->p[P_Z0])) st = CXL_ENOCONV;
-        out->np = np;
-        out->rms = sqrt(chisq / (double)n);
-        out->max_res = worst;
-        out->max_res_hz = worst_f;
-        out->f_min = m.f[0];
-        out->f_max = m.f[n - 1];
-        out->points = n;
-        out->iterations = gsl_multifit_nlinear_niter(w);
+        out = calloc(1, sizeof *out);
+        st = out ? fit_model(&m, p0, out) : CXL_ENOMEM;
     }
-    gsl_multifit_nlinear_free(w);
-    gsl_matrix_free(cov);
     free(g);
     if (st != CXL_OK) {
         free(out);

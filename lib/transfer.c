@@ -268,23 +268,21 @@ static double stub_dip_value(double f, void *p)
 
 /* Minimum of fn in [lo, hi] around guess (fn(guess) below both ends) by
  * Brent's method. */
-static cxl_status brent_min(gsl_function *fn, stub_eval *e, double guess, double lo,
-                            double hi, double *at)
+/* When fn(guess) is not below both ends: the lowest of a few interior
+ * samples into *guess and *fg (the dip sits off the reactance zero). */
+static void lowest_sample(gsl_function *fn, double lo, double hi, double *guess, double *fg)
 {
-    double fg = GSL_FN_EVAL(fn, guess), fl = GSL_FN_EVAL(fn, lo), fh = GSL_FN_EVAL(fn, hi);
-    if (e->st != CXL_OK) return e->st;
-    if (!isfinite(fg) || !isfinite(fl) || !isfinite(fh)) return CXL_ENOCONV;
-    if (!(fg < fl && fg < fh)) {
-        /* the dip sits off the reactance zero: start from the lowest of
-         * a few interior samples */
-        double best = fg;
-        for (int i = 1; i < 32; i++) {
-            double x = lo + (hi - lo) * i / 32.0, v = GSL_FN_EVAL(fn, x);
-            if (isfinite(v) && v < best) { best = v; guess = x; fg = v; }
-        }
-        if (e->st != CXL_OK) return e->st;
-        if (!(fg < fl && fg < fh)) return CXL_ENOCONV; /* no interior minimum */
+    double best = *fg;
+    for (int i = 1; i < 32; i++) {
+        double x = lo + (hi - lo) * i / 32.0, v = GSL_FN_EVAL(fn, x);
+        if (isfinite(v) && v < best) { best = v; *guess = x; *fg = v; }
     }
+}
+
+/* Brent's iterations from a bracket of values; CXL_OK with *at. */
+static cxl_status brent_iterate(gsl_function *fn, double guess, double fg, double lo,
+                                double fl, double hi, double fh, double *at)
+{
     gsl_min_fminimizer *m = gsl_min_fminimizer_alloc(gsl_min_fminimizer_brent);
     if (!m) return CXL_ENOMEM;
     cxl_status st = CXL_ENOCONV;
@@ -301,6 +299,21 @@ static cxl_status brent_min(gsl_function *fn, stub_eval *e, double guess, double
         }
     }
     gsl_min_fminimizer_free(m);
+    return st;
+}
+
+static cxl_status brent_min(gsl_function *fn, stub_eval *e, double guess, double lo,
+                            double hi, double *at)
+{
+    double fg = GSL_FN_EVAL(fn, guess), fl = GSL_FN_EVAL(fn, lo), fh = GSL_FN_EVAL(fn, hi);
+    if (e->st != CXL_OK) return e->st;
+    if (!isfinite(fg) || !isfinite(fl) || !isfinite(fh)) return CXL_ENOCONV;
+    if (!(fg < fl && fg < fh)) {
+        lowest_sample(fn, lo, hi, &guess, &fg);
+        if (e->st != CXL_OK) return e->st;
+        if (!(fg < fl && fg < fh)) return CXL_ENOCONV; /* no interior minimum */
+    }
+    cxl_status st = brent_iterate(fn, guess, fg, lo, fl, hi, fh, at);
     if (st == CXL_OK && e->st != CXL_OK) st = e->st;
     return st;
 }
