@@ -1,8 +1,11 @@
 /* arrayspec.c - what array and yield share about an array described by a
  * layout file: the element pattern options (--element, --wire-length,
  * --wire-vf, --elevation) and the cxl_array built from a layout, as
- * designed or as built, with one element reversed in turn. */
+ * designed or as built, with one element reversed in turn; and the note
+ * that array, yield and pattern print under a text table holding a ratio
+ * at the model's limit. */
 #include <config.h>
+#include <math.h>
 #include <string.h>
 #include "cli.h"
 
@@ -79,5 +82,23 @@ int cli_line_loss_model(cli_ctx *ctx, const cli_args *a, const char *cable, cxl_
     if (cxl_loss_model_new_cable(cli_catalog(ctx), idx, model) != CXL_OK)
         return cli_error(ctx, "line-loss", "a cable with its geometry in the catalog",
                          "cable '%s' has no geometry for a loss model", cable);
+    return 0;
+}
+
+int cli_at_db_limit(double db)
+{
+    return fabs(db) >= CXL_DB_LIMIT;
+}
+
+void cli_db_limit_note(cli_ctx *ctx, int at_limit)
+{
+    if (at_limit) fprintf(ctx->out, "  (300 dB is the model's limit: a perfect null)\n");
+}
+
+int cli_plot_options_check(cli_ctx *ctx, const cli_args *a)
+{
+    if ((cli_count(a, "plot-freq") || cli_count(a, "plot-range")) && !cli_count(a, "plot"))
+        return cli_error(ctx, cli_count(a, "plot-freq") ? "plot-freq" : "plot-range",
+                         "--plot FILE.svg with it", "it only applies to --plot");
     return 0;
 }

@@ -806,6 +806,13 @@ cxl_status cli_layout_array(const cli_layout *lay, const cli_array_model *m, dou
  * cli_error(). */
 int cli_line_loss_model(cli_ctx *ctx, const cli_args *a, const char *cable,
                         cxl_loss_model **model);
+/* A ratio at the model's limit (|db| >= CXL_DB_LIMIT), and the note array,
+ * yield and pattern print under a text table that holds one. */
+int cli_at_db_limit(double db);
+void cli_db_limit_note(cli_ctx *ctx, int at_limit);
+/* --plot-freq and --plot-range need --plot (array, pattern): 0, or
+ * CLI_EXIT_USAGE after cli_error(). */
+int cli_plot_options_check(cli_ctx *ctx, const cli_args *a);
 extern const cli_command cli_cmd_yield;
 
 #endif

@@ -139,6 +139,35 @@ static int parse_element(cli_ctx *ctx, const cli_args *a, array_spec *s)
     return 0;
 }
 
+/* --actual-vf: the spool's VF, which needs the design VF. */
+static int parse_actual_vf(cli_ctx *ctx, const cli_args *a, array_spec *s)
+{
+    s->actual_vf = s->vf;
+    if (!cli_count(a, "actual-vf")) return 0;
+    if (!(s->vf > 0.0))
+        return cli_error(ctx, "actual-vf", "--actual-vf 0.81 with the design --vf or --cable",
+                         "the spool's VF needs the VF the lines were cut for");
+    if (cli_vf(ctx, "actual-vf", cli_get(a, "actual-vf", 0), &s->actual_vf))
+        return CLI_EXIT_USAGE;
+    s->as_built = 1;
+    return 0;
+}
+
+/* The layout file, and the lines as built (--as-built, or as designed). */
+static int parse_layout(cli_ctx *ctx, const cli_args *a, array_spec *s, double design_hz)
+{
+    if (cli_layout_load(ctx, "layout", cli_get(a, "layout", 0), s->vf, design_hz, &s->lay))
+        return CLI_EXIT_USAGE;
+    if (cli_count(a, "as-built")) {
+        if (cli_layout_as_built(ctx, "as-built", cli_get(a, "as-built", 0), &s->lay))
+            return CLI_EXIT_USAGE;
+        s->as_built = 1;
+    } else {
+        for (size_t i = 0; i < s->lay.n; i++) s->lay.el[i].built_line_m = s->lay.el[i].line_m;
+    }
+    return 0;
+}
+
 static int parse_spec(cli_ctx *ctx, const cli_args *a, array_spec *s)
 {
     memset(s, 0, sizeof *s);
@@ -152,25 +181,9 @@ static int parse_spec(cli_ctx *ctx, const cli_args *a, array_spec *s)
     if (cli_count(a, "design-freq") &&
         cli_freq(ctx, "design-freq", cli_get(a, "design-freq", 0), &design_hz))
         return CLI_EXIT_USAGE;
-    s->actual_vf = s->vf;
-    if (cli_count(a, "actual-vf")) {
-        if (!(s->vf > 0.0))
-            return cli_error(ctx, "actual-vf", "--actual-vf 0.81 with the design --vf or --cable",
-                             "the spool's VF needs the VF the lines were cut for");
-        if (cli_vf(ctx, "actual-vf", cli_get(a, "actual-vf", 0), &s->actual_vf))
-            return CLI_EXIT_USAGE;
-        s->as_built = 1;
-    }
+    if (parse_actual_vf(ctx, a, s)) return CLI_EXIT_USAGE;
     if (cli_line_loss_model(ctx, a, cable, &s->model)) return CLI_EXIT_USAGE;
-    if (cli_layout_load(ctx, "layout", cli_get(a, "layout", 0), s->vf, design_hz, &s->lay))
-        return CLI_EXIT_USAGE;
-    if (cli_count(a, "as-built")) {
-        if (cli_layout_as_built(ctx, "as-built", cli_get(a, "as-built", 0), &s->lay))
-            return CLI_EXIT_USAGE;
-        s->as_built = 1;
-    } else {
-        for (size_t i = 0; i < s->lay.n; i++) s->lay.el[i].built_line_m = s->lay.el[i].line_m;
-    }
+    if (parse_layout(ctx, a, s, design_hz)) return CLI_EXIT_USAGE;
     s->reverse_each = cli_flag(a, "reverse-each");
     return 0;
 }
@@ -344,66 +357,59 @@ static void describe(cli_ctx *ctx, const array_spec *s, const char *label)
     fprintf(o, "  azimuth cut  elevation %s deg\n", cli_fmt(b[0], sizeof b[0], s->elevation_deg, 1));
 }
 
-static int array_run(cli_ctx *ctx, const cli_args *a)
+/* Every row (frequency x case), then the plots; *rows is the caller's to
+ * free. */
+static int compute(cli_ctx *ctx, const cli_args *a, const array_spec *s,
+                   const cli_freq_point *pts, int n, array_row **rows)
 {
-    static _Thread_local cli_freq_point pts[4 * CLI_MAX_ITEMS];
-    array_spec s;
-    if (parse_spec(ctx, a, &s)) {
-        free_spec(&s);
-        return CLI_EXIT_USAGE;
-    }
-    int n = cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0], NULL);
-    int code = n < 0 ? CLI_EXIT_USAGE : 0;
-    if (!code && (cli_count(a, "plot-freq") || cli_count(a, "plot-range")) && !cli_count(a, "plot"))
-        code = cli_error(ctx, cli_count(a, "plot-freq") ? "plot-freq" : "plot-range",
-                         "--plot FILE.svg with it", "it only applies to --plot");
-    int nc = ncases(&s);
-    array_row *rows = NULL;
+    int code = cli_plot_options_check(ctx, a);
+    int nc = ncases(s);
     if (!code) {
-        rows = calloc((size_t)n * (size_t)nc, sizeof *rows);
-        if (!rows) code = cli_error(ctx, "layout", NULL, "out of memory");
+        *rows = calloc((size_t)n * (size_t)nc, sizeof **rows);
+        if (!*rows) code = cli_error(ctx, "layout", NULL, "out of memory");
     }
     for (int i = 0; !code && i < n; i++)
         for (int c = 0; !code && c < nc; c++)
-            code = evaluate(ctx, &s, c, pts[i].freq_hz, &rows[(size_t)i * nc + c]);
+            code = evaluate(ctx, s, c, pts[i].freq_hz, &(*rows)[(size_t)i * nc + c]);
     if (!code && cli_count(a, "plot")) {
         double freqs[MAX_PLOT_CURVES];
         int nf = plot_freqs(ctx, a, pts, n, freqs);
-        code = nf < 0 ? CLI_EXIT_USAGE : plot(ctx, a, &s, freqs, nf);
+        code = nf < 0 ? CLI_EXIT_USAGE : plot(ctx, a, s, freqs, nf);
     }
-    if (!code && cli_count(a, "sweep-plot")) code = sweep_plot(ctx, a, &s, pts, n);
-    if (code) {
-        free(rows);
-        free_spec(&s);
-        return code;
-    }
+    if (!code && cli_count(a, "sweep-plot")) code = sweep_plot(ctx, a, s, pts, n);
+    return code;
+}
 
-    const char *label = cli_label(a);
+static void write_table(cli_ctx *ctx, const array_spec *s, const char *label,
+                        const cli_freq_point *pts, int n, const array_row *rows)
+{
     char name[96];
-    if (ctx->format != CLI_TEXT) {
-        for (int i = 0; i < n; i++)
-            for (int c = 0; c < nc; c++) {
-                const array_row *r = &rows[(size_t)i * nc + c];
-                case_name(&s, c, name, sizeof name);
-                cli_cell cells[NCOLS] = {
-                    CLI_TXT(label), CLI_TXT(name), CLI_TXT(pts[i].band), CLI_TXT(pts[i].edge),
-                    CLI_NUM(pts[i].freq_hz / 1e6), CLI_NUM(s.elevation_deg), CLI_NUM(r->gain),
-                    CLI_NUM(r->fb), r->has_null ? CLI_NUM(r->null_db) : CLI_NONE,
-                    r->has_null ? CLI_NUM(r->null_az) : CLI_NONE, CLI_NUM(r->rdf_fwd),
-                    CLI_NUM(r->rdf), r->has_bw ? CLI_NUM(r->bw) : CLI_NONE,
-                    CLI_TXT(s.model_text), CLI_TXT(RDF_TEXT),
-                    CLI_TXT(AZ_TEXT),
-                };
-                cli_table_row(ctx, array_cols, NCOLS, cells);
-            }
-        free(rows);
-        free_spec(&s);
-        return CLI_EXIT_OK;
-    }
+    int nc = ncases(s);
+    for (int i = 0; i < n; i++)
+        for (int c = 0; c < nc; c++) {
+            const array_row *r = &rows[(size_t)i * nc + c];
+            case_name(s, c, name, sizeof name);
+            cli_cell cells[NCOLS] = {
+                CLI_TXT(label), CLI_TXT(name), CLI_TXT(pts[i].band), CLI_TXT(pts[i].edge),
+                CLI_NUM(pts[i].freq_hz / 1e6), CLI_NUM(s->elevation_deg), CLI_NUM(r->gain),
+                CLI_NUM(r->fb), r->has_null ? CLI_NUM(r->null_db) : CLI_NONE,
+                r->has_null ? CLI_NUM(r->null_az) : CLI_NONE, CLI_NUM(r->rdf_fwd),
+                CLI_NUM(r->rdf), r->has_bw ? CLI_NUM(r->bw) : CLI_NONE,
+                CLI_TXT(s->model_text), CLI_TXT(RDF_TEXT),
+                CLI_TXT(AZ_TEXT),
+            };
+            cli_table_row(ctx, array_cols, NCOLS, cells);
+        }
+}
 
+static void write_text(cli_ctx *ctx, const array_spec *s, const char *label,
+                       const cli_freq_point *pts, int n, const array_row *rows)
+{
     FILE *o = ctx->out;
+    char name[96];
+    int nc = ncases(s);
     if (ctx->rows_out++) putc('\n', o);
-    describe(ctx, &s, label);
+    describe(ctx, s, label);
     fprintf(o, "\n  %-6s %-6s %10s  %-16s %8s %7s %8s %6s %8s %6s %6s\n", "band", "edge",
             "freq MHz", "case", "gain", "F/B", "null", "at az", "RDF fwd", "RDF", "-3 dB");
     fprintf(o, "  %-6s %-6s %10s  %-16s %8s %7s %8s %6s %8s %6s %6s\n", "", "", "", "", "dBi",
@@ -413,8 +419,8 @@ static int array_run(cli_ctx *ctx, const cli_args *a)
         for (int c = 0; c < nc; c++) {
             const array_row *r = &rows[(size_t)i * nc + c];
             char f[32], v[7][32];
-            case_name(&s, c, name, sizeof name);
-            at_limit |= fabs(r->fb) >= CXL_DB_LIMIT || (r->has_null && fabs(r->null_db) >= CXL_DB_LIMIT);
+            case_name(s, c, name, sizeof name);
+            at_limit |= cli_at_db_limit(r->fb) || (r->has_null && cli_at_db_limit(r->null_db));
             undefined |= !r->has_null || !r->has_bw;
             fprintf(o, "  %-6s %-6s %10s  %-16s %8s %7s %8s %6s %8s %6s %6s\n",
                     c ? "" : pts[i].band, c ? "" : pts[i].edge,
@@ -425,12 +431,27 @@ static int array_run(cli_ctx *ctx, const cli_args *a)
                     cli_fmt(v[4], sizeof v[4], r->rdf_fwd, 2), cli_fmt(v[5], sizeof v[5], r->rdf, 2),
                     r->has_bw ? cli_fmt(v[6], sizeof v[6], r->bw, 1) : "-");
         }
-    if (at_limit) fprintf(o, "  (300 dB is the model's limit: a perfect null)\n");
+    cli_db_limit_note(ctx, at_limit);
     if (undefined)
         fprintf(o, "  (-: no forward response, so no null depth or beamwidth referred to it)\n");
+}
+
+static int array_run(cli_ctx *ctx, const cli_args *a)
+{
+    static _Thread_local cli_freq_point pts[4 * CLI_MAX_ITEMS];
+    array_spec s;
+    array_row *rows = NULL;
+    int code = parse_spec(ctx, a, &s) ? CLI_EXIT_USAGE : 0;
+    int n = code ? 0 : cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0], NULL);
+    if (!code && n < 0) code = CLI_EXIT_USAGE;
+    if (!code) code = compute(ctx, a, &s, pts, n, &rows);
+    if (!code && ctx->format != CLI_TEXT)
+        write_table(ctx, &s, cli_label(a), pts, n, rows);
+    else if (!code)
+        write_text(ctx, &s, cli_label(a), pts, n, rows);
     free(rows);
     free_spec(&s);
-    return CLI_EXIT_OK;
+    return code ? code : CLI_EXIT_OK;
 }
 
 const cli_command cli_cmd_array = {

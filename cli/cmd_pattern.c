@@ -166,6 +166,34 @@ static int sweep_plot(cli_ctx *ctx, const cli_args *a, const cli_pair_spec *s,
     return cli_fb_sweep_save(ctx, a, pts, n, &plot, pair_fb, (void *)s);
 }
 
+/* The as-built line of describe(): what differs from the design. */
+static void describe_as_built(cli_ctx *ctx, const cli_pair_spec *s)
+{
+    FILE *o = ctx->out;
+    char b1[96];
+    const char *sep = "  as built     ";
+    for (int k = 0; k < 2; k++)
+        if (s->built_line_m[k] != s->line_m[k]) {
+            fprintf(o, "%s%c line %s", sep, k ? 'B' : 'A',
+                    cli_fmt_length(ctx, b1, sizeof b1, s->built_line_m[k]));
+            sep = "; ";
+        }
+    if (s->actual_vf != s->vf) {
+        fprintf(o, "%sspool VF %s", sep, cli_fmt(b1, sizeof b1, s->actual_vf, 4));
+        sep = "; ";
+    }
+    if (s->phase_error_deg != 0.0) {
+        fprintf(o, "%sB lags %s deg more", sep, cli_fmt(b1, sizeof b1, s->phase_error_deg, 2));
+        sep = "; ";
+    }
+    if (s->imbalance_db != 0.0) {
+        fprintf(o, "%sB %s dB weaker", sep, cli_fmt(b1, sizeof b1, s->imbalance_db, 2));
+        sep = "; ";
+    }
+    if (s->line_loss) fprintf(o, "%sloss of the %s lines", sep, s->cable);
+    putc('\n', o);
+}
+
 static void describe(cli_ctx *ctx, const cli_pair_spec *s, const char *label)
 {
     FILE *o = ctx->out;
@@ -193,84 +221,60 @@ static void describe(cli_ctx *ctx, const cli_pair_spec *s, const char *label)
                     cli_fmt(b3, sizeof b3, s->vf, 4));
         fprintf(o, "%s\n", s->flip[k] ? ", inverted" : "");
     }
-    if (s->has_errors) {
-        const char *sep = "  as built     ";
-        for (int k = 0; k < 2; k++)
-            if (s->built_line_m[k] != s->line_m[k]) {
-                fprintf(o, "%s%c line %s", sep, k ? 'B' : 'A',
-                        cli_fmt_length(ctx, b1, sizeof b1, s->built_line_m[k]));
-                sep = "; ";
-            }
-        if (s->actual_vf != s->vf) {
-            fprintf(o, "%sspool VF %s", sep, cli_fmt(b1, sizeof b1, s->actual_vf, 4));
-            sep = "; ";
-        }
-        if (s->phase_error_deg != 0.0) {
-            fprintf(o, "%sB lags %s deg more", sep, cli_fmt(b1, sizeof b1, s->phase_error_deg, 2));
-            sep = "; ";
-        }
-        if (s->imbalance_db != 0.0) {
-            fprintf(o, "%sB %s dB weaker", sep, cli_fmt(b1, sizeof b1, s->imbalance_db, 2));
-            sep = "; ";
-        }
-        if (s->line_loss) fprintf(o, "%sloss of the %s lines", sep, s->cable);
-        putc('\n', o);
-    }
+    if (s->has_errors) describe_as_built(ctx, s);
     fprintf(o, "  azimuth cut  elevation %s deg%s\n", cli_fmt(b1, sizeof b1, s->elevation_deg, 1),
             s->wire && s->elevation_default
                 ? " (default for wires: a wire hears nothing along its own axis at 0)" : "");
 }
 
-static int pattern_run(cli_ctx *ctx, const cli_args *a)
+typedef pattern_row pattern_rows[4 * CLI_MAX_ITEMS][2];
+
+/* Every row (frequency x case), then the plots. */
+static int compute(cli_ctx *ctx, const cli_args *a, const cli_pair_spec *s,
+                   const cli_freq_point *pts, int n, pattern_rows rows)
 {
-    static _Thread_local cli_freq_point pts[4 * CLI_MAX_ITEMS];
-    static _Thread_local pattern_row rows[4 * CLI_MAX_ITEMS][2];
-    cli_pair_spec s;
     double plot_hz = 0.0;
-    if (cli_pair_spec_parse(ctx, a, &s)) return CLI_EXIT_USAGE;
-    int n = cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0], NULL);
-    int code = n < 0 ? CLI_EXIT_USAGE : 0;
-    if (!code && (cli_count(a, "plot-freq") || cli_count(a, "plot-range")) && !cli_count(a, "plot"))
-        code = cli_error(ctx, cli_count(a, "plot-freq") ? "plot-freq" : "plot-range",
-                         "--plot FILE.svg with it", "it only applies to --plot");
+    int code = cli_plot_options_check(ctx, a);
     if (!code && cli_count(a, "plot-freq"))
         code = cli_freq(ctx, "plot-freq", cli_get(a, "plot-freq", 0), &plot_hz);
-    int ncases = s.has_errors ? 2 : 1;
+    int ncases = s->has_errors ? 2 : 1;
     for (int i = 0; !code && i < n; i++)
         for (int c = 0; !code && c < ncases; c++)
-            code = evaluate(ctx, &s, c, pts[i].freq_hz, &rows[i][c]);
+            code = evaluate(ctx, s, c, pts[i].freq_hz, &rows[i][c]);
     if (!code && cli_count(a, "plot")) {
         if (!(plot_hz > 0.0))   /* a band's centre, or the first --freq */
             plot_hz = pts[0].band[0] && n > 1 ? pts[1].freq_hz : pts[0].freq_hz;
-        code = plot(ctx, a, &s, plot_hz);
+        code = plot(ctx, a, s, plot_hz);
     }
-    if (!code && cli_count(a, "sweep-plot")) code = sweep_plot(ctx, a, &s, pts, n);
-    if (code) {
-        cli_pair_spec_free(&s);
-        return code;
-    }
+    if (!code && cli_count(a, "sweep-plot")) code = sweep_plot(ctx, a, s, pts, n);
+    return code;
+}
 
-    const char *label = cli_label(a);
-    if (ctx->format != CLI_TEXT) {
-        for (int i = 0; i < n; i++)
-            for (int c = 0; c < ncases; c++) {
-                const pattern_row *r = &rows[i][c];
-                cli_cell cells[NCOLS] = {
-                    CLI_TXT(label), CLI_TXT(case_name[c]), CLI_TXT(pts[i].band),
-                    CLI_TXT(pts[i].edge), CLI_NUM(pts[i].freq_hz / 1e6), CLI_NUM(s.elevation_deg),
-                    CLI_NUM(r->phase_deg), CLI_NUM(r->imbalance_db), CLI_NUM(r->gain_dbi),
-                    CLI_NUM(r->fb_db), CLI_NUM(r->null_db), CLI_NUM(r->null_az_deg),
-                    CLI_NUM(r->rdf_db), CLI_TXT(MODEL_TEXT), CLI_TXT(RDF_TEXT),
-                };
-                cli_table_row(ctx, pattern_cols, NCOLS, cells);
-            }
-        cli_pair_spec_free(&s);
-        return CLI_EXIT_OK;
-    }
+static void write_table(cli_ctx *ctx, const cli_pair_spec *s, const char *label,
+                        const cli_freq_point *pts, int n, pattern_rows rows)
+{
+    int ncases = s->has_errors ? 2 : 1;
+    for (int i = 0; i < n; i++)
+        for (int c = 0; c < ncases; c++) {
+            const pattern_row *r = &rows[i][c];
+            cli_cell cells[NCOLS] = {
+                CLI_TXT(label), CLI_TXT(case_name[c]), CLI_TXT(pts[i].band),
+                CLI_TXT(pts[i].edge), CLI_NUM(pts[i].freq_hz / 1e6), CLI_NUM(s->elevation_deg),
+                CLI_NUM(r->phase_deg), CLI_NUM(r->imbalance_db), CLI_NUM(r->gain_dbi),
+                CLI_NUM(r->fb_db), CLI_NUM(r->null_db), CLI_NUM(r->null_az_deg),
+                CLI_NUM(r->rdf_db), CLI_TXT(MODEL_TEXT), CLI_TXT(RDF_TEXT),
+            };
+            cli_table_row(ctx, pattern_cols, NCOLS, cells);
+        }
+}
 
+static void write_text(cli_ctx *ctx, const cli_pair_spec *s, const char *label,
+                       const cli_freq_point *pts, int n, pattern_rows rows)
+{
     FILE *o = ctx->out;
+    int ncases = s->has_errors ? 2 : 1;
     if (ctx->rows_out++) putc('\n', o);
-    describe(ctx, &s, label);
+    describe(ctx, s, label);
     fprintf(o, "\n  %-6s %-6s %10s  %-8s %7s %7s %8s %7s %8s %6s %6s\n", "band", "edge",
             "freq MHz", "case", "B lag", "B weak", "gain", "F/B", "null", "at az", "RDF");
     fprintf(o, "  %-6s %-6s %10s  %-8s %7s %7s %8s %7s %8s %6s %6s\n", "", "", "", "", "deg",
@@ -280,7 +284,7 @@ static int pattern_run(cli_ctx *ctx, const cli_args *a)
         for (int c = 0; c < ncases; c++) {
             const pattern_row *r = &rows[i][c];
             char f[32], v[7][32];
-            at_limit |= fabs(r->fb_db) >= CXL_DB_LIMIT || fabs(r->null_db) >= CXL_DB_LIMIT;
+            at_limit |= cli_at_db_limit(r->fb_db) || cli_at_db_limit(r->null_db);
             fprintf(o, "  %-6s %-6s %10s  %-8s %7s %7s %8s %7s %8s %6s %6s\n",
                     c ? "" : pts[i].band, c ? "" : pts[i].edge,
                     c ? "" : cli_fmt(f, sizeof f, pts[i].freq_hz / 1e6, 6), case_name[c],
@@ -292,10 +296,23 @@ static int pattern_run(cli_ctx *ctx, const cli_args *a)
                     cli_fmt(v[5], sizeof v[5], r->null_az_deg, 1),
                     cli_fmt(v[6], sizeof v[6], r->rdf_db, 2));
         }
-    if (at_limit)
-        fprintf(o, "  (300 dB is the model's limit: a perfect null)\n");
+    cli_db_limit_note(ctx, at_limit);
+}
+
+static int pattern_run(cli_ctx *ctx, const cli_args *a)
+{
+    static _Thread_local cli_freq_point pts[4 * CLI_MAX_ITEMS];
+    static _Thread_local pattern_rows rows;
+    cli_pair_spec s;
+    if (cli_pair_spec_parse(ctx, a, &s)) return CLI_EXIT_USAGE;
+    int n = cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0], NULL);
+    int code = n < 0 ? CLI_EXIT_USAGE : compute(ctx, a, &s, pts, n, rows);
+    if (!code && ctx->format != CLI_TEXT)
+        write_table(ctx, &s, cli_label(a), pts, n, rows);
+    else if (!code)
+        write_text(ctx, &s, cli_label(a), pts, n, rows);
     cli_pair_spec_free(&s);
-    return CLI_EXIT_OK;
+    return code ? code : CLI_EXIT_OK;
 }
 
 const cli_command cli_cmd_pattern = {

@@ -90,7 +90,7 @@ static int parse_goal(cli_ctx *ctx, const cli_args *a, yield_spec *s)
     return 0;
 }
 
-static int parse_tolerances(cli_ctx *ctx, const cli_args *a, yield_spec *s)
+static int parse_tolerance_options(cli_ctx *ctx, const cli_args *a, yield_spec *s)
 {
     if (cli_count(a, "length-tol") &&
         cli_length(ctx, "length-tol", cli_get(a, "length-tol", 0), CLI_NONNEG, &s->length_tol_m))
@@ -107,6 +107,12 @@ static int parse_tolerances(cli_ctx *ctx, const cli_args *a, yield_spec *s)
         cli_number(ctx, "phase-tol", cli_get(a, "phase-tol", 0), 0.0, 180.0,
                    "a phase tolerance from 0 to 180 degrees, such as 3", &s->phase_tol_deg))
         return CLI_EXIT_USAGE;
+    return 0;
+}
+
+static int parse_tolerances(cli_ctx *ctx, const cli_args *a, yield_spec *s)
+{
+    if (parse_tolerance_options(ctx, a, s)) return CLI_EXIT_USAGE;
     /* what the lines can take: no negative length, a VF in (0, 1] */
     double shortest = INFINITY;
     int lines = 0;
@@ -209,98 +215,108 @@ static void describe(cli_ctx *ctx, const yield_spec *s, const char *label)
     fprintf(o, "  random       %s; the same for any number of threads\n", RNG_TEXT);
 }
 
+/* The nominal array and the Monte-Carlo plan, then every frequency. */
+static int compute(cli_ctx *ctx, const yield_spec *s, const cli_freq_point *pts, int n,
+                   yield_row **rows)
+{
+    int code = 0;
+    cxl_array *arr = NULL;
+    cxl_yield *y = NULL;
+    if (cli_layout_array(&s->lay, &s->m, s->vf, s->vf, s->model, 0, -1, &arr) != CXL_OK ||
+        cxl_yield_new(&y) != CXL_OK || !(*rows = calloc((size_t)n, sizeof **rows)))
+        code = cli_error(ctx, "layout", NULL, "out of memory");
+    if (!code &&
+        (cxl_yield_set_tolerances(y, s->length_tol_m, s->vf_tol, s->imbalance_tol_db,
+                                  s->phase_tol_deg) ||
+         (s->goal_null ? cxl_yield_set_goal_null(y, s->goal_db)
+                       : cxl_yield_set_goal_front_to_back(y, s->goal_db)) ||
+         cxl_yield_set_run(y, (size_t)s->trials, (unsigned long)s->seed, (unsigned)s->threads)))
+        code = cli_error(ctx, "layout", NULL, "tolerances, goal or run refused by the library");
+    for (int i = 0; !code && i < n; i++)
+        code = evaluate(ctx, s, arr, y, pts[i].freq_hz, &(*rows)[i]);
+    cxl_yield_free(y);
+    cxl_array_free(arr);
+    return code;
+}
+
+static void write_table(cli_ctx *ctx, const yield_spec *s, const char *label,
+                        const cli_freq_point *pts, int n, const yield_row *rows)
+{
+    const char *goal = s->goal_null ? "null" : "front-to-back";
+    for (int i = 0; i < n; i++) {
+        const yield_row *r = &rows[i];
+        cli_cell cells[NCOLS] = {
+            CLI_TXT(label), CLI_TXT(pts[i].band), CLI_TXT(pts[i].edge),
+            CLI_NUM(pts[i].freq_hz / 1e6), CLI_NUM(s->m.elevation_deg), CLI_TXT(goal),
+            CLI_NUM(s->goal_db), CLI_NUM(s->trials), CLI_NUM(s->seed), CLI_NUM(100.0 * r->p),
+            CLI_NUM(100.0 * r->se), CLI_NUM(r->fb_nom), CLI_NUM(r->fb_med), CLI_NUM(r->fb_p5),
+            s->with_null ? CLI_NUM(r->null_nom) : CLI_NONE,
+            s->with_null ? CLI_NUM(r->null_med) : CLI_NONE,
+            s->with_null ? CLI_NUM(r->null_p5) : CLI_NONE,
+        };
+        cli_table_row(ctx, yield_cols, NCOLS, cells);
+    }
+}
+
+static void text_row(cli_ctx *ctx, const yield_spec *s, const cli_freq_point *pt,
+                     const yield_row *r)
+{
+    FILE *o = ctx->out;
+    char f[32], v[8][32], pct[48];
+    snprintf(pct, sizeof pct, "%s +- %s", cli_fmt(v[0], sizeof v[0], 100.0 * r->p, 2),
+             cli_fmt(v[1], sizeof v[1], 100.0 * r->se, 2));
+    fprintf(o, "  %-6s %-6s %10s  %15s  %7s %7s %7s", pt->band, pt->edge,
+            cli_fmt(f, sizeof f, pt->freq_hz / 1e6, 6), pct,
+            cli_fmt(v[2], sizeof v[2], r->fb_nom, 2), cli_fmt(v[3], sizeof v[3], r->fb_med, 2),
+            cli_fmt(v[4], sizeof v[4], r->fb_p5, 2));
+    if (s->with_null)
+        fprintf(o, "  %7s %7s %7s", cli_fmt(v[5], sizeof v[5], r->null_nom, 2),
+                cli_fmt(v[6], sizeof v[6], r->null_med, 2), cli_fmt(v[7], sizeof v[7], r->null_p5, 2));
+    putc('\n', o);
+}
+
+static void write_text(cli_ctx *ctx, const yield_spec *s, const char *label,
+                       const cli_freq_point *pts, int n, const yield_row *rows)
+{
+    FILE *o = ctx->out;
+    if (ctx->rows_out++) putc('\n', o);
+    describe(ctx, s, label);
+    fprintf(o, "\n  %-6s %-6s %10s  %15s  %s", "band", "edge", "freq MHz", "yield %",
+            s->with_null ? "front-to-back dB         rear null dB" : "front-to-back dB");
+    fprintf(o, "\n  %-6s %-6s %10s  %15s  %7s %7s %7s", "", "", "", "+- 1 se", "nominal", "median",
+            "95% >=");
+    if (s->with_null) fprintf(o, "  %7s %7s %7s", "nominal", "median", "95% <=");
+    putc('\n', o);
+    for (int i = 0; i < n; i++) text_row(ctx, s, &pts[i], &rows[i]);
+    fprintf(o, "  (95%% >=: 95 %% of the builds reach at least this front-to-back%s)\n",
+            s->with_null ? "; 95% <=: a null at least this deep" : "");
+    int all_or_none = 0, at_limit = 0;
+    for (int i = 0; i < n; i++) {
+        all_or_none |= rows[i].se == 0.0;
+        at_limit |= cli_at_db_limit(rows[i].fb_nom) ||
+                    (s->with_null && cli_at_db_limit(rows[i].null_nom));
+    }
+    cli_db_limit_note(ctx, at_limit);
+    if (all_or_none)
+        fprintf(o, "  (+- 0: every build or none passed; about 300/trials %% is then a 95 %% bound)\n");
+}
+
 static int yield_run(cli_ctx *ctx, const cli_args *a)
 {
     static cli_freq_point pts[4 * CLI_MAX_ITEMS];
     yield_spec s;
-    if (parse_spec(ctx, a, &s)) {
-        free_spec(&s);
-        return CLI_EXIT_USAGE;
-    }
-    int n = cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0], NULL);
-    int code = n < 0 ? CLI_EXIT_USAGE : 0;
-    cxl_array *arr = NULL;
-    cxl_yield *y = NULL;
     yield_row *rows = NULL;
-    if (!code &&
-        (cli_layout_array(&s.lay, &s.m, s.vf, s.vf, s.model, 0, -1, &arr) != CXL_OK ||
-         cxl_yield_new(&y) != CXL_OK ||
-         !(rows = calloc((size_t)n, sizeof *rows))))
-        code = cli_error(ctx, "layout", NULL, "out of memory");
-    if (!code &&
-        (cxl_yield_set_tolerances(y, s.length_tol_m, s.vf_tol, s.imbalance_tol_db, s.phase_tol_deg) ||
-         (s.goal_null ? cxl_yield_set_goal_null(y, s.goal_db)
-                      : cxl_yield_set_goal_front_to_back(y, s.goal_db)) ||
-         cxl_yield_set_run(y, (size_t)s.trials, (unsigned long)s.seed, (unsigned)s.threads)))
-        code = cli_error(ctx, "layout", NULL, "tolerances, goal or run refused by the library");
-    for (int i = 0; !code && i < n; i++)
-        code = evaluate(ctx, &s, arr, y, pts[i].freq_hz, &rows[i]);
-    cxl_yield_free(y);
-    cxl_array_free(arr);
-    if (code) {
-        free(rows);
-        free_spec(&s);
-        return code;
-    }
-
-    const char *label = cli_label(a);
-    const char *goal = s.goal_null ? "null" : "front-to-back";
-    if (ctx->format != CLI_TEXT) {
-        for (int i = 0; i < n; i++) {
-            const yield_row *r = &rows[i];
-            cli_cell cells[NCOLS] = {
-                CLI_TXT(label), CLI_TXT(pts[i].band), CLI_TXT(pts[i].edge),
-                CLI_NUM(pts[i].freq_hz / 1e6), CLI_NUM(s.m.elevation_deg), CLI_TXT(goal),
-                CLI_NUM(s.goal_db), CLI_NUM(s.trials), CLI_NUM(s.seed), CLI_NUM(100.0 * r->p),
-                CLI_NUM(100.0 * r->se), CLI_NUM(r->fb_nom), CLI_NUM(r->fb_med), CLI_NUM(r->fb_p5),
-                s.with_null ? CLI_NUM(r->null_nom) : CLI_NONE,
-                s.with_null ? CLI_NUM(r->null_med) : CLI_NONE,
-                s.with_null ? CLI_NUM(r->null_p5) : CLI_NONE,
-            };
-            cli_table_row(ctx, yield_cols, NCOLS, cells);
-        }
-        free(rows);
-        free_spec(&s);
-        return CLI_EXIT_OK;
-    }
-
-    FILE *o = ctx->out;
-    if (ctx->rows_out++) putc('\n', o);
-    describe(ctx, &s, label);
-    fprintf(o, "\n  %-6s %-6s %10s  %15s  %s", "band", "edge", "freq MHz", "yield %",
-            s.with_null ? "front-to-back dB         rear null dB" : "front-to-back dB");
-    fprintf(o, "\n  %-6s %-6s %10s  %15s  %7s %7s %7s", "", "", "", "+- 1 se", "nominal", "median",
-            "95% >=");
-    if (s.with_null) fprintf(o, "  %7s %7s %7s", "nominal", "median", "95% <=");
-    putc('\n', o);
-    for (int i = 0; i < n; i++) {
-        const yield_row *r = &rows[i];
-        char f[32], v[8][32], pct[48];
-        snprintf(pct, sizeof pct, "%s +- %s", cli_fmt(v[0], sizeof v[0], 100.0 * r->p, 2),
-                 cli_fmt(v[1], sizeof v[1], 100.0 * r->se, 2));
-        fprintf(o, "  %-6s %-6s %10s  %15s  %7s %7s %7s", pts[i].band, pts[i].edge,
-                cli_fmt(f, sizeof f, pts[i].freq_hz / 1e6, 6), pct,
-                cli_fmt(v[2], sizeof v[2], r->fb_nom, 2), cli_fmt(v[3], sizeof v[3], r->fb_med, 2),
-                cli_fmt(v[4], sizeof v[4], r->fb_p5, 2));
-        if (s.with_null)
-            fprintf(o, "  %7s %7s %7s", cli_fmt(v[5], sizeof v[5], r->null_nom, 2),
-                    cli_fmt(v[6], sizeof v[6], r->null_med, 2), cli_fmt(v[7], sizeof v[7], r->null_p5, 2));
-        putc('\n', o);
-    }
-    fprintf(o, "  (95%% >=: 95 %% of the builds reach at least this front-to-back%s)\n",
-            s.with_null ? "; 95% <=: a null at least this deep" : "");
-    int all_or_none = 0, at_limit = 0;
-    for (int i = 0; i < n; i++) {
-        all_or_none |= rows[i].se == 0.0;
-        at_limit |= fabs(rows[i].fb_nom) >= CXL_DB_LIMIT ||
-                    (s.with_null && fabs(rows[i].null_nom) >= CXL_DB_LIMIT);
-    }
-    if (at_limit) fprintf(o, "  (300 dB is the model's limit: a perfect null)\n");
-    if (all_or_none)
-        fprintf(o, "  (+- 0: every build or none passed; about 300/trials %% is then a 95 %% bound)\n");
+    int code = parse_spec(ctx, a, &s) ? CLI_EXIT_USAGE : 0;
+    int n = code ? 0 : cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0], NULL);
+    if (!code && n < 0) code = CLI_EXIT_USAGE;
+    if (!code) code = compute(ctx, &s, pts, n, &rows);
+    if (!code && ctx->format != CLI_TEXT)
+        write_table(ctx, &s, cli_label(a), pts, n, rows);
+    else if (!code)
+        write_text(ctx, &s, cli_label(a), pts, n, rows);
     free(rows);
     free_spec(&s);
-    return CLI_EXIT_OK;
+    return code ? code : CLI_EXIT_OK;
 }
 
 const cli_command cli_cmd_yield = {

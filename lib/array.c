@@ -344,6 +344,35 @@ static cxl_status feed_of(const array_elem *el, double freq_hz, double omega,
     return CXL_OK;
 }
 
+/* Element i's weight at the array's output (its feed and line) and its
+ * position times k; adds |weight| to *sum_w. */
+static cxl_status prepare_element(const array_elem *el, double freq_hz,
+                                  double omega, array_eval *e, size_t i,
+                                  double *sum_w)
+{
+    cxl__array_feed fd;
+    cxl_status st = feed_of(el, freq_hz, omega, &fd);
+    if (st)
+        return st;
+    double amp = fd.amp, ph = fd.phase_rad;
+    if (el->line_m > 0.0 && el->line_vf > 0.0) {
+        ph -= fmod(omega * fd.line_m / (fd.line_vf * CXL_C_M_PER_S),
+                   2.0 * M_PI);
+    } else if (el->line_m > 0.0 && el->line_model) {
+        amp *= exp(-fd.alpha_np_per_m * fd.line_m);
+        ph -= fmod(fd.beta_rad_per_m * fd.line_m, 2.0 * M_PI);
+    }
+    if (!isfinite(ph) || !isfinite(amp))
+        return CXL_ERANGE;
+    e->wr[i] = amp * cos(ph);
+    e->wi[i] = amp * sin(ph);
+    e->kx[i] = e->k * el->x_m;
+    e->ky[i] = e->k * el->y_m;
+    e->kz[i] = e->k * el->z_m;
+    *sum_w += fabs(amp);
+    return CXL_OK;
+}
+
 static cxl_status prepare(const cxl_array *a, double freq_hz,
                           array_eval *e)
 {
@@ -366,27 +395,9 @@ static cxl_status prepare(const cxl_array *a, double freq_hz,
     e->inv_p = 1.0 / a->wire_vf;
     double sum_w = 0.0;
     for (size_t i = 0; i < a->n; i++) {
-        const array_elem *el = &a->el[i];
-        cxl__array_feed fd;
-        cxl_status st = feed_of(el, freq_hz, omega, &fd);
+        cxl_status st = prepare_element(&a->el[i], freq_hz, omega, e, i, &sum_w);
         if (st)
             return st;
-        double amp = fd.amp, ph = fd.phase_rad;
-        if (el->line_m > 0.0 && el->line_vf > 0.0) {
-            ph -= fmod(omega * fd.line_m / (fd.line_vf * CXL_C_M_PER_S),
-                       2.0 * M_PI);
-        } else if (el->line_m > 0.0 && el->line_model) {
-            amp *= exp(-fd.alpha_np_per_m * fd.line_m);
-            ph -= fmod(fd.beta_rad_per_m * fd.line_m, 2.0 * M_PI);
-        }
-        if (!isfinite(ph) || !isfinite(amp))
-            return CXL_ERANGE;
-        e->wr[i] = amp * cos(ph);
-        e->wi[i] = amp * sin(ph);
-        e->kx[i] = e->k * el->x_m;
-        e->ky[i] = e->k * el->y_m;
-        e->kz[i] = e->k * el->z_m;
-        sum_w += fabs(amp);
     }
     e->scale = sum_w * sum_w;
     if (!(e->scale > 0.0) || !isfinite(e->scale))
@@ -603,6 +614,19 @@ static double elevation_rule(const array_eval *e, const pair_table *pt,
     return total.sum + total.c;
 }
 
+/* First node counts of mean_power: the integrand's oscillation grows
+ * with the size (exact rings: elevation nodes only). */
+static void mean_nodes(const array_eval *e, int exact_rings, size_t *n_el,
+                       size_t *n_az)
+{
+    *n_el = 32;
+    *n_az = 32 + 2 * (size_t)ceil(e->size);
+    while ((double)*n_el < 16.0 + e->size)
+        *n_el *= 2;
+    if (!exact_rings)
+        *n_el = 16 + (size_t)ceil(e->size);
+}
+
 /* Mean of the response over elevation lo..hi and all azimuths. */
 static cxl_status mean_power(const array_eval *e, double lo, double hi,
                              double *mean)
@@ -618,12 +642,8 @@ static cxl_status mean_power(const array_eval *e, double lo, double hi,
             return st;
         ptp = &pt;
     }
-    /* node counts: the integrand's oscillation grows with the size */
-    size_t n_el = 32, n_az = 32 + 2 * (size_t)ceil(e->size);
-    while ((double)n_el < 16.0 + e->size)
-        n_el *= 2;
-    if (!ptp)
-        n_el = 16 + (size_t)ceil(e->size);
+    size_t n_el, n_az;
+    mean_nodes(e, ptp != NULL, &n_el, &n_az);
     double prev = NAN;
     cxl_status st = CXL_ENOCONV;
     while (n_el <= 16384) {
@@ -729,84 +749,123 @@ static cxl_status refine_peak(const array_eval *e, double lo, double hi,
     return CXL_OK;
 }
 
+/* Keeps the indices of the max best values of v seen so far in cand[],
+ * best first (sign +1: largest, -1: smallest); *nc counts them. */
+static void keep_best(size_t *cand, size_t *nc, size_t max, const double *v,
+                      size_t idx, double sign)
+{
+    double x = sign * v[idx];
+    size_t pos = *nc < max ? (*nc)++ : max;
+    if (pos == max) {
+        if (!(x > sign * v[cand[max - 1]]))
+            return;
+        pos = max - 1;
+    }
+    while (pos > 0 && sign * v[cand[pos - 1]] < x) {
+        cand[pos] = cand[pos - 1];
+        pos--;
+    }
+    cand[pos] = idx;
+}
+
+/* The coarse grid of find_peak: n_el elevations lo..hi by n_az azimuths. */
+typedef struct {
+    double lo, hi;
+    size_t n_az, n_el;
+    double *g;   /* n_el rows of n_az powers */
+} peak_grid;
+
+static double grid_el(const peak_grid *pg, size_t i)
+{
+    return fmin(pg->lo + i * (pg->hi - pg->lo) / (pg->n_el - 1), pg->hi);
+}
+
+static cxl_status grid_fill(const array_eval *e, peak_grid *pg)
+{
+    size_t n_az = pg->n_az;
+    pg->g = malloc((n_az * pg->n_el + 2 * n_az) * sizeof *pg->g);
+    if (!pg->g)
+        return CXL_ENOMEM;
+    double *caz = pg->g + n_az * pg->n_el, *saz = caz + n_az;
+    for (size_t j = 0; j < n_az; j++) {
+        caz[j] = cos(2.0 * M_PI * j / n_az);
+        saz[j] = sin(2.0 * M_PI * j / n_az);
+    }
+    for (size_t i = 0; i < pg->n_el; i++) {
+        double el = grid_el(pg, i);
+        double ce = cos(el), se = sin(el);
+        for (size_t j = 0; j < n_az; j++) {
+            double re, im;
+            field_dir(e, ce * caz[j], ce * saz[j], se, el, &re, &im);
+            pg->g[i * n_az + j] = re * re + im * im;
+        }
+    }
+    return CXL_OK;
+}
+
+/* Whether grid point (i, j) is a local maximum (azimuth wraps); a pole is
+ * one direction, so only its azimuth 0 counts. */
+static int grid_is_max(const peak_grid *pg, size_t i, size_t j)
+{
+    size_t n_az = pg->n_az;
+    double v = pg->g[i * n_az + j];
+    if (!(v > 0.0) || (j > 0 && fabs(pg->lo + i * (pg->hi - pg->lo) / (pg->n_el - 1)) >=
+                                    0.5 * M_PI - 1e-12))
+        return 0;
+    for (int di = -1; di <= 1; di++) {
+        if ((di < 0 && i == 0) || (di > 0 && i + 1 == pg->n_el))
+            continue;
+        for (int dj = -1; dj <= 1; dj++) {
+            if (!di && !dj)
+                continue;
+            size_t jj = (j + n_az + (size_t)(dj + 1) - 1) % n_az;
+            if (pg->g[(i + di) * n_az + jj] > v)
+                return 0;
+        }
+    }
+    return 1;
+}
+
+/* The best PEAK_CANDIDATES local maxima of the grid, best first. */
+static size_t grid_maxima(const peak_grid *pg, size_t *cand)
+{
+    size_t nc = 0;
+    for (size_t i = 0; i < pg->n_el; i++)
+        for (size_t j = 0; j < pg->n_az; j++)
+            if (grid_is_max(pg, i, j))
+                keep_best(cand, &nc, PEAK_CANDIDATES, pg->g, i * pg->n_az + j, 1.0);
+    return nc;
+}
+
 /* Largest response over elevation lo..hi: coarse grid, then the simplex
  * from the best few local maxima of the grid. */
 static cxl_status find_peak(const array_eval *e, double lo, double hi,
                             double *az_out, double *el_out, double *p_out)
 {
     double h = coarse_step(e, 2.0, 10.0);
-    size_t n_az = (size_t)ceil(2.0 * M_PI / h);
-    size_t n_el = (size_t)ceil((hi - lo) / h) + 1;
-    double *g = malloc((n_az * n_el + 2 * n_az) * sizeof *g);
-    if (!g)
-        return CXL_ENOMEM;
-    double *caz = g + n_az * n_el, *saz = caz + n_az;
-    for (size_t j = 0; j < n_az; j++) {
-        caz[j] = cos(2.0 * M_PI * j / n_az);
-        saz[j] = sin(2.0 * M_PI * j / n_az);
-    }
-    for (size_t i = 0; i < n_el; i++) {
-        double el = fmin(lo + i * (hi - lo) / (n_el - 1), hi);
-        double ce = cos(el), se = sin(el);
-        for (size_t j = 0; j < n_az; j++) {
-            double re, im;
-            field_dir(e, ce * caz[j], ce * saz[j], se, el, &re, &im);
-            g[i * n_az + j] = re * re + im * im;
-        }
-    }
-    /* the best local maxima of the grid (azimuth wraps) */
-    size_t cand[PEAK_CANDIDATES];
-    size_t nc = 0;
-    for (size_t i = 0; i < n_el; i++)
-        for (size_t j = 0; j < n_az; j++) {
-            double v = g[i * n_az + j];
-            if (!(v > 0.0) || (j > 0 && fabs(lo + i * (hi - lo) / (n_el - 1)) >=
-                                             0.5 * M_PI - 1e-12))
-                continue;   /* a pole is one direction: keep azimuth 0 */
-            int is_max = 1;
-            for (int di = -1; di <= 1 && is_max; di++) {
-                if ((di < 0 && i == 0) || (di > 0 && i + 1 == n_el))
-                    continue;
-                for (int dj = -1; dj <= 1; dj++) {
-                    if (!di && !dj)
-                        continue;
-                    size_t jj = (j + n_az + (size_t)(dj + 1) - 1) % n_az;
-                    if (g[(i + di) * n_az + jj] > v) {
-                        is_max = 0;
-                        break;
-                    }
-                }
-            }
-            if (!is_max)
-                continue;
-            size_t pos = nc < PEAK_CANDIDATES ? nc++ : PEAK_CANDIDATES;
-            if (pos == PEAK_CANDIDATES) {
-                if (!(v > g[cand[PEAK_CANDIDATES - 1]]))
-                    continue;
-                pos = PEAK_CANDIDATES - 1;
-            }
-            while (pos > 0 && g[cand[pos - 1]] < v) {
-                cand[pos] = cand[pos - 1];
-                pos--;
-            }
-            cand[pos] = i * n_az + j;
-        }
+    peak_grid pg = { lo, hi, (size_t)ceil(2.0 * M_PI / h),
+                     (size_t)ceil((hi - lo) / h) + 1, NULL };
+    cxl_status st = grid_fill(e, &pg);
+    if (st)
+        return st;
+    size_t cand[PEAK_CANDIDATES], n_az = pg.n_az;
+    size_t nc = grid_maxima(&pg, cand);
+    const double *g = pg.g;
     double best = -1.0, best_az = 0.0, best_el = lo;
-    cxl_status st = CXL_OK;
     if (nc > 0) {
         best = g[cand[0]];
         best_az = 2.0 * M_PI * (cand[0] % n_az) / n_az;
-        best_el = fmin(lo + (cand[0] / n_az) * (hi - lo) / (n_el - 1), hi);
+        best_el = grid_el(&pg, cand[0] / n_az);
     }
     /* a lobe sampled at least every quarter of its width shows at least
      * half its peak on the grid, so weaker grid maxima cannot win */
     for (size_t c = 0; c < nc && st == CXL_OK && g[cand[c]] >= 0.5 * g[cand[0]];
          c++) {
         double az = 2.0 * M_PI * (cand[c] % n_az) / n_az;
-        double el = fmin(lo + (cand[c] / n_az) * (hi - lo) / (n_el - 1), hi);
+        double el = grid_el(&pg, cand[c] / n_az);
         st = refine_peak(e, lo, hi, az, el, h, &best, &best_az, &best_el);
     }
-    free(g);
+    free(pg.g);
     if (st)
         return st;
     if (!(best > 0.0))
@@ -886,21 +945,9 @@ static cxl_status rear_null(const array_eval *e, double el, double *az_out,
     /* Brent on the deepest interior local minima (strict brackets); a
      * null on the scan's edge or a flat cut keeps the scan value. */
     size_t cand[NULL_CANDIDATES], nc = 0;
-    for (size_t i = 1; i < n; i++) {
-        if (!(v[i] < v[i - 1] && v[i] < v[i + 1] && v[i] > 0.0))
-            continue;
-        size_t pos = nc < NULL_CANDIDATES ? nc++ : NULL_CANDIDATES;
-        if (pos == NULL_CANDIDATES) {
-            if (!(v[i] < v[cand[NULL_CANDIDATES - 1]]))
-                continue;
-            pos = NULL_CANDIDATES - 1;
-        }
-        while (pos > 0 && v[cand[pos - 1]] > v[i]) {
-            cand[pos] = cand[pos - 1];
-            pos--;
-        }
-        cand[pos] = i;
-    }
+    for (size_t i = 1; i < n; i++)
+        if (v[i] < v[i - 1] && v[i] < v[i + 1] && v[i] > 0.0)
+            keep_best(cand, &nc, NULL_CANDIDATES, v, i, -1.0);
     cxl_status st = CXL_OK;
     for (size_t c = 0; c < nc && st == CXL_OK; c++) {
         double x = lo + cand[c] * step;

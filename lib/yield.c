@@ -157,6 +157,59 @@ static double draw(gsl_rng *r, double tol)
     return tol * (2.0 * gsl_rng_uniform(r) - 1.0);
 }
 
+/* One element's weight in one trial: its three errors drawn in order
+ * (length, amplitude, phase) after the trial's VF error dv. */
+static void trial_weight(const yield_run *c, size_t i, double dv, gsl_rng *rng,
+                         double *wr, double *wi)
+{
+    const cxl_yield *y = c->y;
+    double d_len = draw(rng, y->length_tol_m);
+    double d_db = draw(rng, y->imbalance_tol_db);
+    double d_ph = draw(rng, c->phase_tol_rad);
+    const cxl__array_feed *fd = &c->feed[i];
+    double amp = fd->amp, ph = fd->phase_rad;
+    if (fd->line_m > 0.0) {
+        /* the same arithmetic as array.c for a zero error */
+        double len = fd->line_m + d_len;
+        double line_ph;
+        if (fd->beta_rad_per_m > 0.0) {
+            amp *= exp(-fd->alpha_np_per_m * len);
+            line_ph = dv == 0.0 ? fd->beta_rad_per_m * len
+                                : c->omega * len /
+                                      ((fd->line_vf + dv) * CXL_C_M_PER_S);
+        } else {
+            line_ph = c->omega * len / ((fd->line_vf + dv) * CXL_C_M_PER_S);
+        }
+        ph -= fmod(line_ph, 2.0 * M_PI);
+    }
+    ph += d_ph;
+    amp *= exp(d_db * LN10_OVER_20);
+    *wr = amp * cos(ph);
+    *wi = amp * sin(ph);
+}
+
+/* One trial's front-to-back (dB); the weights also go to w->eval when
+ * the null is wanted. */
+static double trial_fb(const yield_run *c, yield_worker *w)
+{
+    double dv = draw(w->rng, c->y->vf_tol);
+    double f_re = 0.0, f_im = 0.0, b_re = 0.0, b_im = 0.0;
+    for (size_t i = 0; i < c->n; i++) {
+        double wr, wi;
+        trial_weight(c, i, dv, w->rng, &wr, &wi);
+        f_re += wr * c->fr[i] - wi * c->fi[i];
+        f_im += wr * c->fi[i] + wi * c->fr[i];
+        b_re += wr * c->br[i] - wi * c->bi[i];
+        b_im += wr * c->bi[i] + wi * c->br[i];
+        if (c->want_null)
+            cxl__array_eval_set_weight(w->eval, i, wr, wi);
+    }
+    double front = f_re * f_re + f_im * f_im;
+    double back = b_re * b_re + b_im * b_im;
+    return back > 0.0 ? cxl__power_db(front / back)
+                      : front > 0.0 ? CXL_DB_LIMIT : -CXL_DB_LIMIT;
+}
+
 static void run_block(void *ctx, unsigned worker, size_t block)
 {
     const yield_run *c = ctx;
@@ -169,42 +222,7 @@ static void run_block(void *ctx, unsigned worker, size_t block)
     gsl_rng_set(w->rng, (unsigned long)(uint32_t)(c->base_seed + (uint32_t)block));
     size_t pass = 0;   /* counted here: workers' structs share cache lines */
     for (size_t t = t0; t < t1; t++) {
-        double dv = draw(w->rng, y->vf_tol);
-        double f_re = 0.0, f_im = 0.0, b_re = 0.0, b_im = 0.0;
-        for (size_t i = 0; i < c->n; i++) {
-            double d_len = draw(w->rng, y->length_tol_m);
-            double d_db = draw(w->rng, y->imbalance_tol_db);
-            double d_ph = draw(w->rng, c->phase_tol_rad);
-            const cxl__array_feed *fd = &c->feed[i];
-            double amp = fd->amp, ph = fd->phase_rad;
-            if (fd->line_m > 0.0) {
-                /* the same arithmetic as array.c for a zero error */
-                double len = fd->line_m + d_len;
-                double line_ph;
-                if (fd->beta_rad_per_m > 0.0) {
-                    amp *= exp(-fd->alpha_np_per_m * len);
-                    line_ph = dv == 0.0 ? fd->beta_rad_per_m * len
-                                        : c->omega * len /
-                                              ((fd->line_vf + dv) * CXL_C_M_PER_S);
-                } else {
-                    line_ph = c->omega * len / ((fd->line_vf + dv) * CXL_C_M_PER_S);
-                }
-                ph -= fmod(line_ph, 2.0 * M_PI);
-            }
-            ph += d_ph;
-            amp *= exp(d_db * LN10_OVER_20);
-            double wr = amp * cos(ph), wi = amp * sin(ph);
-            f_re += wr * c->fr[i] - wi * c->fi[i];
-            f_im += wr * c->fi[i] + wi * c->fr[i];
-            b_re += wr * c->br[i] - wi * c->bi[i];
-            b_im += wr * c->bi[i] + wi * c->br[i];
-            if (c->want_null)
-                cxl__array_eval_set_weight(w->eval, i, wr, wi);
-        }
-        double front = f_re * f_re + f_im * f_im;
-        double back = b_re * b_re + b_im * b_im;
-        double fb = back > 0.0 ? cxl__power_db(front / back)
-                               : front > 0.0 ? CXL_DB_LIMIT : -CXL_DB_LIMIT;
+        double fb = trial_fb(c, w);
         w->hist_fb[bin_of(fb)]++;
         if (!y->goal_null)
             pass += fb >= y->goal_db;
@@ -284,6 +302,88 @@ static cxl_status setup(const cxl_yield *y, const cxl_array *array,
     return CXL_OK;
 }
 
+/* nw workers, each with its generator, histograms and (for the null) its
+ * own evaluation of the array. */
+static cxl_status workers_new(const cxl_array *array, double freq_hz,
+                              int want_null, size_t nw, yield_worker **out)
+{
+    yield_worker *w = calloc(nw, sizeof *w);
+    if (!w)
+        return CXL_ENOMEM;
+    cxl_status st = CXL_OK;
+    for (size_t i = 0; !st && i < nw; i++) {
+        w[i].rng = gsl_rng_alloc(gsl_rng_mt19937);
+        w[i].hist_fb = calloc(NBINS, sizeof *w[i].hist_fb);
+        if (want_null) {
+            w[i].hist_null = calloc(NBINS, sizeof *w[i].hist_null);
+            if (w[i].hist_null)
+                st = cxl__array_eval_new(array, freq_hz, &w[i].eval);
+        }
+        if (!w[i].rng || !w[i].hist_fb || (want_null && !w[i].hist_null))
+            st = CXL_ENOMEM;
+    }
+    *out = w;
+    return st;
+}
+
+static void run_all(yield_run *run, size_t nw, size_t nblocks)
+{
+    cxl__pool *pool = NULL;
+    if (nw > 1 && cxl__pool_new((unsigned)nw, &pool) == CXL_OK) {
+        cxl__pool_run(pool, nblocks, run_block, run);
+        cxl__pool_free(pool);
+    } else {
+        for (size_t b = 0; b < nblocks; b++)
+            run_block(run, 0, b);
+    }
+}
+
+typedef struct {
+    double *frac, *se, *fb_median, *fb_p5, *null_median, *null_p5;
+} yield_out;
+
+/* reduce: integer sums, the same in any order */
+static cxl_status reduce(const cxl_yield *yield, const yield_worker *w,
+                         size_t nw, int want_null, const yield_out *o)
+{
+    size_t pass = 0;
+    for (size_t i = 0; i < nw; i++) {
+        if (w[i].st)
+            return w[i].st;
+        pass += w[i].pass;
+    }
+    uint64_t *hist = calloc(2 * NBINS, sizeof *hist);
+    if (!hist)
+        return CXL_ENOMEM;
+    for (size_t i = 0; i < nw; i++)
+        for (size_t b = 0; b < NBINS; b++) {
+            hist[b] += w[i].hist_fb[b];
+            if (want_null)
+                hist[NBINS + b] += w[i].hist_null[b];
+        }
+    size_t trials = yield->trials;
+    size_t k_median = (trials + 1) / 2, k_p5 = (trials + 19) / 20;
+    double p = (double)pass / (double)trials;
+    *o->frac = p;
+    *o->se = sqrt(p * (1.0 - p) / (double)trials);
+    *o->fb_median = quantile(hist, k_median, 1);
+    *o->fb_p5 = quantile(hist, k_p5, 1);
+    if (o->null_median)
+        *o->null_median = quantile(hist + NBINS, k_median, 0);
+    if (o->null_p5)
+        *o->null_p5 = quantile(hist + NBINS, k_p5, 0);
+    free(hist);
+    return CXL_OK;
+}
+
+static int valid_args(const cxl_yield *yield, const cxl_array *array,
+                      double freq_hz, double elevation_deg, const yield_out *o)
+{
+    return yield && array && o->frac && o->se && o->fb_median && o->fb_p5 &&
+           cxl__finite_pos(freq_hz) && isfinite(elevation_deg) &&
+           fabs(elevation_deg) <= 90.0 && cxl_array_count(array) != 0;
+}
+
 cxl_status cxl_yield_eval(const cxl_yield *yield, const cxl_array *array,
                           double freq_hz, double elevation_deg,
                           double *yield_frac, double *yield_se,
@@ -291,11 +391,9 @@ cxl_status cxl_yield_eval(const cxl_yield *yield, const cxl_array *array,
                           double *front_to_back_p5_db,
                           double *null_median_db, double *null_p5_db)
 {
-    if (!yield || !array || !yield_frac || !yield_se ||
-        !front_to_back_median_db || !front_to_back_p5_db ||
-        !cxl__finite_pos(freq_hz) ||
-        !isfinite(elevation_deg) || fabs(elevation_deg) > 90.0 ||
-        cxl_array_count(array) == 0)
+    yield_out out = { yield_frac, yield_se, front_to_back_median_db,
+                      front_to_back_p5_db, null_median_db, null_p5_db };
+    if (!valid_args(yield, array, freq_hz, elevation_deg, &out))
         return CXL_EINVAL;
     size_t n = cxl_array_count(array);
     int want_null = yield->goal_null || null_median_db || null_p5_db;
@@ -312,69 +410,16 @@ cxl_status cxl_yield_eval(const cxl_yield *yield, const cxl_array *array,
     if (nw > nblocks)
         nw = nblocks;
     yield_worker *w = NULL;
-    if (!st) {
-        w = calloc(nw, sizeof *w);
-        if (!w)
-            st = CXL_ENOMEM;
-    }
-    for (size_t i = 0; !st && i < nw; i++) {
-        w[i].rng = gsl_rng_alloc(gsl_rng_mt19937);
-        w[i].hist_fb = calloc(NBINS, sizeof *w[i].hist_fb);
-        if (want_null) {
-            w[i].hist_null = calloc(NBINS, sizeof *w[i].hist_null);
-            if (w[i].hist_null)
-                st = cxl__array_eval_new(array, freq_hz, &w[i].eval);
-        }
-        if (!w[i].rng || !w[i].hist_fb || (want_null && !w[i].hist_null))
-            st = CXL_ENOMEM;
-    }
+    if (!st)
+        st = workers_new(array, freq_hz, want_null, nw, &w);
     yield_run run = { yield, n, feed, sig, sig + n, sig + 2 * n, sig + 3 * n,
                       2.0 * M_PI * freq_hz, elevation_deg * DEG,
                       yield->phase_tol_deg * DEG, want_null,
                       mix_seed(yield->seed), w };
-    if (!st) {
-        cxl__pool *pool = NULL;
-        if (nw > 1 && cxl__pool_new((unsigned)nw, &pool) == CXL_OK) {
-            cxl__pool_run(pool, nblocks, run_block, &run);
-            cxl__pool_free(pool);
-        } else {
-            for (size_t b = 0; b < nblocks; b++)
-                run_block(&run, 0, b);
-        }
-    }
-    /* reduce: integer sums, the same in any order */
-    uint64_t *hist = NULL;
-    size_t pass = 0;
-    for (size_t i = 0; !st && i < nw; i++) {
-        if (w[i].st)
-            st = w[i].st;
-        pass += w[i].pass;
-    }
-    if (!st) {
-        hist = calloc(2 * NBINS, sizeof *hist);
-        if (!hist)
-            st = CXL_ENOMEM;
-    }
-    if (!st) {
-        for (size_t i = 0; i < nw; i++)
-            for (size_t b = 0; b < NBINS; b++) {
-                hist[b] += w[i].hist_fb[b];
-                if (want_null)
-                    hist[NBINS + b] += w[i].hist_null[b];
-            }
-        size_t trials = yield->trials;
-        size_t k_median = (trials + 1) / 2, k_p5 = (trials + 19) / 20;
-        double p = (double)pass / (double)trials;
-        *yield_frac = p;
-        *yield_se = sqrt(p * (1.0 - p) / (double)trials);
-        *front_to_back_median_db = quantile(hist, k_median, 1);
-        *front_to_back_p5_db = quantile(hist, k_p5, 1);
-        if (null_median_db)
-            *null_median_db = quantile(hist + NBINS, k_median, 0);
-        if (null_p5_db)
-            *null_p5_db = quantile(hist + NBINS, k_p5, 0);
-    }
-    free(hist);
+    if (!st)
+        run_all(&run, nw, nblocks);
+    if (!st)
+        st = reduce(yield, w, nw, want_null, &out);
     free_workers(w, w ? nw : 0);
     free(feed);
     free(sig);
