@@ -731,7 +731,7 @@ cxl_status cxl_stub_result_flags(const cxl_stub_result *result, unsigned *flags)
 
 cxl_status cxl__stub_result_vf_at_ws(const cxl_stub_result *result, double freq_hz,
                                      double *vf, double *vf_err, unsigned *how,
-                                     cxl__fitws *ws)
+                                     cxl__fitws *ws, const struct cxl_drift *known)
 {
     if (!result || !vf || !vf_err || !cxl__finite_pos(freq_hz) || result->n == 0)
         return CXL_EINVAL;
@@ -761,9 +761,10 @@ cxl_status cxl__stub_result_vf_at_ws(const cxl_stub_result *result, double freq_
     double v_t = 0.0, e_t = INFINITY;
     unsigned t_how = 0;
     if (result->n >= 2) {
-        struct cxl_drift drift, *d = &drift;
+        struct cxl_drift drift;
+        const struct cxl_drift *d = known ? known : &drift;
         double lo, hi, v, e;
-        if (cxl__drift_fill_stub(result, df, ws, d) == CXL_OK &&
+        if ((known || cxl__drift_fill_stub(result, df, ws, &drift) == CXL_OK) &&
             cxl_drift_vf(d, freq_hz, &v, &e) == CXL_OK &&
             cxl_drift_range(d, &lo, &hi) == CXL_OK) {
             v_t = v;
@@ -787,7 +788,7 @@ cxl_status cxl_stub_result_vf_at(const cxl_stub_result *result, double freq_hz,
                                  double *vf, double *vf_err, unsigned *how)
 {
     cxl__fitws ws = { 0 };
-    cxl_status st = cxl__stub_result_vf_at_ws(result, freq_hz, vf, vf_err, how, &ws);
+    cxl_status st = cxl__stub_result_vf_at_ws(result, freq_hz, vf, vf_err, how, &ws, NULL);
     cxl__fitws_free(&ws);
     return st;
 }
