@@ -384,6 +384,24 @@ static cxl_status correct_readings(const cxl_trim *t, trim_reading *rd, cxl_stub
     return st == CXL_OK ? fit_readings(t, rd, stub, fit) : st;
 }
 
+/* After the fit: the trend over two or more readings (*drift), and the
+ * readings' orders, VFs and frequencies as shown. */
+static cxl_status trend_step(const cxl_trim *trim, cxl_trim_result *r,
+                             const trim_reading *shown, const cxl_drift **drift)
+{
+    cxl_status st = CXL_OK;
+    if (trim->n >= 2) {
+        st = cxl__drift_fill_stub(r->fit, trim->freq_res_hz, &r->ws, &r->drift);
+        *drift = &r->drift;
+    }
+    for (size_t i = 0; i < trim->n && st == CXL_OK; i++)
+        st = cxl_stub_result_reading(r->fit, i, NULL, &r->freq_hz[i], &r->order[i], &r->vf[i],
+                                     NULL, NULL);
+    /* report what the analyzer showed (sorted), not a corrected value */
+    for (size_t i = 0; i < trim->n && st == CXL_OK; i++) r->freq_hz[i] = shown[i].freq_hz;
+    return st;
+}
+
 /* Readings sorted by frequency into r->rd (and as shown, r->rd + n), the
  * fit (corrected with the model when there is one), its flags, per-reading
  * values and the trend over two or more readings (*drift, else NULL). */
@@ -409,16 +427,7 @@ static cxl_status fit_step(const cxl_trim *trim, cxl_trim_result *r, double *vf_
     }
     if (st == CXL_OK) st = cxl_stub_result_vf(r->fit, vf_fit, NULL);
     *drift = NULL;
-    if (st == CXL_OK && n >= 2) {
-        st = cxl__drift_fill_stub(r->fit, trim->freq_res_hz, &r->ws, &r->drift);
-        *drift = &r->drift;
-    }
-    for (size_t i = 0; i < n && st == CXL_OK; i++)
-        st = cxl_stub_result_reading(r->fit, i, NULL, &r->freq_hz[i], &r->order[i], &r->vf[i],
-                                     NULL, NULL);
-    /* report what the analyzer showed (sorted), not a corrected value */
-    for (size_t i = 0; i < n && st == CXL_OK; i++) r->freq_hz[i] = shown[i].freq_hz;
-    return st;
+    return st == CXL_OK ? trend_step(trim, r, shown, drift) : st;
 }
 
 /* VF at the target frequency and its uncertainty: the trend over the
