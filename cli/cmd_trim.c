@@ -4,6 +4,7 @@
 #include <config.h>
 #include <math.h>
 #include <stdio.h>
+#include <stdlib.h>
 #include <string.h>
 #include "cli.h"
 
@@ -408,67 +409,92 @@ static int solve_error(cli_ctx *ctx, const cli_args *a, cxl_status st)
     return cli_error(ctx, "resonance", "readings the model can follow", "%s", cxl_strerror(st));
 }
 
-static int trim_run(cli_ctx *ctx, const cli_args *a)
+/* What the rows of a batch reuse (ctx->state): the trim and its result,
+ * reset and solved again row after row, and the cables' line models. */
+typedef struct trim_state {
+    cxl_trim *trim;
+    cxl_trim_result *res;
+    cli_cable_cache *cables;
+} trim_state;
+
+static int trim_end(cli_ctx *ctx)
 {
-    trim_in in;
-    if (read_piece(ctx, a, &in)) return CLI_EXIT_USAGE;
-    cxl_trim *trim = NULL;
-    cxl_loss_model *model = NULL;
-    cxl_trim_result *r = NULL;
-    char what[160];
-    const char *cable = cli_get(a, "cable", 0);
-    int code = CLI_EXIT_USAGE;
-    if (cxl_trim_new(in.end, in.length_m, &trim) != CXL_OK) {
-        cli_error(ctx, "length", NULL, "out of memory");
-        goto done;
+    trim_state *ts = ctx->state;
+    if (ts) {
+        cxl_trim_free(ts->trim);
+        cxl_trim_result_free(ts->res);
+        cli_cable_cache_free(ts->cables);
+        free(ts);
     }
-    cxl_trim_set_fixture(trim, in.fixture_m, in.fixture_vf, in.fixture_tol_m);
-    cxl_trim_set_resolution(trim, in.res_hz);
+    ctx->state = NULL;
+    return CLI_EXIT_OK;
+}
+
+/* The batch's state, made on the first row; NULL after an error line. */
+static trim_state *trim_state_of(cli_ctx *ctx)
+{
+    trim_state *ts = ctx->state;
+    if (ts) return ts;
+    ts = calloc(1, sizeof *ts);
+    if (!ts || cxl_trim_new(CXL_STUB_OPEN, 1.0, &ts->trim) != CXL_OK ||
+        cxl_trim_result_new(&ts->res) != CXL_OK) {
+        if (ts) cxl_trim_free(ts->trim);
+        free(ts);
+        cli_error(ctx, "length", NULL, "out of memory");
+        return NULL;
+    }
+    ctx->state = ts;
+    return ts;
+}
+
+/* The piece, its readings, the kind of reading, the allowance, the target
+ * and the cable's model into the emptied trim. */
+static int trim_setup(cli_ctx *ctx, const cli_args *a, const trim_in *in, trim_state *ts,
+                      char *what, size_t what_size)
+{
+    cxl_trim *trim = ts->trim;
+    const char *cable = cli_get(a, "cable", 0);
+    cxl_trim_reset(trim, in->end, in->length_m);
+    cxl_trim_set_fixture(trim, in->fixture_m, in->fixture_vf, in->fixture_tol_m);
+    cxl_trim_set_resolution(trim, in->res_hz);
     cxl_dip_kind kind;
     double ref_ohm, allow_m = 0.0, allow_vf = 0.0;
     const char *kind_name;
-    if (cli_reading_kind(ctx, a, cable != NULL, &kind, &ref_ohm, &kind_name)) goto done;
+    if (cli_reading_kind(ctx, a, cable != NULL, &kind, &ref_ohm, &kind_name)) return CLI_EXIT_USAGE;
     cxl_trim_set_reading(trim, kind, ref_ohm);
-    if (cli_count(a, "allowance-vf") && !cli_count(a, "allowance")) {
-        cli_error(ctx, "allowance-vf", "--allowance 0.12m with it", "given without --allowance");
-        goto done;
-    }
+    if (cli_count(a, "allowance-vf") && !cli_count(a, "allowance"))
+        return cli_error(ctx, "allowance-vf", "--allowance 0.12m with it", "given without --allowance");
     if (cli_count(a, "allowance") &&
         cli_length(ctx, "allowance", cli_get(a, "allowance", 0), CLI_NONNEG, &allow_m))
-        goto done;
+        return CLI_EXIT_USAGE;
     if (cli_count(a, "allowance-vf") &&
         cli_vf(ctx, "allowance-vf", cli_get(a, "allowance-vf", 0), &allow_vf))
-        goto done;
+        return CLI_EXIT_USAGE;
     cxl_trim_set_allowance(trim, allow_m, allow_vf);
-    for (int i = 0; i < in.n; i++) cxl_trim_add_reading(trim, in.freq_hz[i], in.order[i]);
-    if (set_target(ctx, a, &in, trim, what, sizeof what)) goto done;
-    if (cable) {
-        size_t idx;
-        if (cli_cable_index(ctx, cable, &idx)) goto done;
-        if (cxl_loss_model_new_cable(cli_catalog(ctx), idx, &model) != CXL_OK) {
-            cli_error(ctx, "cable", "a cable with inner and dielectric diameters (coaxline cables)",
-                      "cable '%s' has no geometry to model", cable);
-            goto done;
-        }
-        cxl_trim_set_model(trim, model);
-    }
-    cxl_status st = cxl_trim_solve(trim, &r);
-    if (st != CXL_OK) {
-        solve_error(ctx, a, st);
-        goto done;
-    }
-    if (!result_finite(r)) {
-        cli_error(ctx, "resonance", "readings of an ordinary piece of cable", "no finite result");
-        goto done;
-    }
-    if (result_printable(ctx, a, r)) goto done;
+    for (int i = 0; i < in->n; i++) cxl_trim_add_reading(trim, in->freq_hz[i], in->order[i]);
+    if (set_target(ctx, a, in, trim, what, what_size)) return CLI_EXIT_USAGE;
+    if (!cable) return 0;
+    size_t idx;
+    const cxl_loss_model *model = NULL;
+    if (cli_cable_index(ctx, cable, &idx)) return CLI_EXIT_USAGE;
+    if (cli_cable_cache_model(&ts->cables, cli_catalog(ctx), idx, &model) != CXL_OK)
+        return cli_error(ctx, "cable", "a cable with inner and dielectric diameters (coaxline cables)",
+                         "cable '%s' has no geometry to model", cable);
+    cxl_trim_set_model(trim, model);
+    return 0;
+}
+
+/* The solved piece in the output, its warnings, and the exit code. */
+static int trim_report(cli_ctx *ctx, const cli_args *a, const trim_in *in,
+                       const cxl_trim_result *r, const char *what)
+{
     double cut, res;
     cxl_trim_action act;
     unsigned flags;
     cxl_trim_result_cut(r, &cut, NULL, &res, &act);
     cxl_trim_result_flags(r, &flags);
-    if (ctx->format == CLI_TEXT) print_text(ctx, a, &in, r, what, cable);
-    else print_rows(ctx, a, &in, r);
+    if (ctx->format == CLI_TEXT) print_text(ctx, a, in, r, what, cli_get(a, "cable", 0));
+    else print_rows(ctx, a, in, r);
     if (flags & CXL_STUB_FLAG_INCONSISTENT)
         cli_warn(ctx, "the readings are not multiples of one fundamental within 2 %%: "
                       "check the orders, the far end and the fixture");
@@ -478,12 +504,22 @@ static int trim_run(cli_ctx *ctx, const cli_args *a)
                       "stop, or read a higher order or with a finer step",
                  cli_fmt(b1, sizeof b1, cut * 1e3, 1), cli_fmt(b2, sizeof b2, res * 1e3, 1));
     }
-    code = act == CXL_TRIM_SHORT ? CLI_EXIT_TOLERANCE : CLI_EXIT_OK;
-done:
-    cxl_trim_result_free(r);
-    cxl_trim_free(trim);
-    cxl_loss_model_free(model);
-    return code;
+    return act == CXL_TRIM_SHORT ? CLI_EXIT_TOLERANCE : CLI_EXIT_OK;
+}
+
+static int trim_run(cli_ctx *ctx, const cli_args *a)
+{
+    trim_in in;
+    if (read_piece(ctx, a, &in)) return CLI_EXIT_USAGE;
+    trim_state *ts = trim_state_of(ctx);
+    char what[160];
+    if (!ts || trim_setup(ctx, a, &in, ts, what, sizeof what)) return CLI_EXIT_USAGE;
+    cxl_status st = cxl_trim_solve_into(ts->trim, ts->res);
+    if (st != CXL_OK) return solve_error(ctx, a, st);
+    if (!result_finite(ts->res))
+        return cli_error(ctx, "resonance", "readings of an ordinary piece of cable", "no finite result");
+    if (result_printable(ctx, a, ts->res)) return CLI_EXIT_USAGE;
+    return trim_report(ctx, a, &in, ts->res, what);
 }
 
 const cli_command cli_cmd_trim = {
@@ -493,5 +529,6 @@ const cli_command cli_cmd_trim = {
                 "--match-resonance F) [OPTIONS]",
     .opts = trim_opts,
     .run = trim_run,
+    .end = trim_end,
     .batch = 1,
 };

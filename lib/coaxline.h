@@ -1308,6 +1308,9 @@ typedef enum cxl_trim_action {
 
 cxl_status cxl_trim_new(cxl_stub_end end, double length_m, cxl_trim **trim);
 void cxl_trim_free(cxl_trim *trim);
+/* Empty the trim for another piece, as cxl_trim_new leaves it (no
+ * readings, fixture, model, allowance or target), keeping its memory. */
+cxl_status cxl_trim_reset(cxl_trim *trim, cxl_stub_end end, double length_m);
 /* What sits between the analyzer and the piece while measuring (tee,
  * adapters, a jumper; not part of the finished piece): fixture_m of line
  * with velocity factor fixture_vf, or of the piece's own cable when
@@ -1361,6 +1364,12 @@ cxl_status cxl_trim_target_resonance(cxl_trim *trim, cxl_stub_end end,
  * CXL_EINCONSISTENT when given orders do not rise with frequency. */
 cxl_status cxl_trim_solve(const cxl_trim *trim, cxl_trim_result **result);
 void cxl_trim_result_free(cxl_trim_result *result);
+/* A result to solve into with cxl_trim_solve_into, empty until then;
+ * solved piece after piece it allocates only for more readings than
+ * before.  On failure it is left empty (its functions return CXL_EINVAL)
+ * and the status is cxl_trim_solve's. */
+cxl_status cxl_trim_result_new(cxl_trim_result **result);
+cxl_status cxl_trim_solve_into(const cxl_trim *trim, cxl_trim_result *result);
 /* Length to cut off (negative: the piece is short), the length that will
  * remain, the uncertainty of that length (remaining times the relative
  * uncertainty of the VF at the target, cxl_stub_result_vf_at: the step of

@@ -63,10 +63,11 @@ struct cxl_drift {
  * ws holds room for the result's readings). */
 cxl_status cxl__drift_fill_stub(const cxl_stub_result *result, double freq_res_hz,
                                 cxl__fitws *ws, struct cxl_drift *drift);
-/* stub.c: cxl_stub_result_vf_at with its trend fitted in ws. */
+/* stub.c: cxl_stub_result_vf_at with its trend fitted in ws, or known
+ * (non-NULL: cxl__drift_fill_stub of this result at its own step). */
 cxl_status cxl__stub_result_vf_at_ws(const cxl_stub_result *result, double freq_hz,
                                      double *vf, double *vf_err, unsigned *how,
-                                     cxl__fitws *ws);
+                                     cxl__fitws *ws, const struct cxl_drift *known);
 
 /* Case-insensitive ASCII comparison of n bytes, locale-free. */
 int cxl__ascii_ncaseeq(const char *a, const char *b, size_t n);

@@ -729,50 +729,72 @@ cxl_status cxl_stub_result_flags(const cxl_stub_result *result, unsigned *flags)
     return CXL_OK;
 }
 
-cxl_status cxl__stub_result_vf_at_ws(const cxl_stub_result *result, double freq_hz,
-                                     double *vf, double *vf_err, unsigned *how,
-                                     cxl__fitws *ws)
+/* The largest relative length tolerance: it moves every VF by the same
+ * relative amount. */
+static double rel_length_tol(const cxl_stub_result *result)
 {
-    if (!result || !vf || !vf_err || !cxl__finite_pos(freq_hz) || result->n == 0)
-        return CXL_EINVAL;
-    const double df = result->freq_res_hz;
-    /* the length tolerance moves every VF by the same relative amount */
     double rel_len = 0.0;
     for (size_t i = 0; i < result->n; i++) {
         double rl = result->length_tol_m / result->length_m[i];
         if (rl > rel_len) rel_len = rl;
     }
-    /* the nearest reading in 1/sqrt(f), moved by the drift allowance */
+    return rel_len;
+}
+
+/* The nearest reading in 1/sqrt(f), moved by the drift allowance: *v, *e
+ * (e infinite when it does not apply); cxl_drift_allowance's status. */
+static cxl_status at_by_allowance(const cxl_stub_result *result, double freq_hz,
+                                  double rel_len, double *v, double *e)
+{
     size_t near = 0;
-    double best = INFINITY;
+    double best = INFINITY, factor, half;
     for (size_t i = 0; i < result->n; i++) {
         double dx = fabs(1.0 / sqrt(result->freq_hz[i]) - 1.0 / sqrt(freq_hz));
         if (dx < best) { best = dx; near = i; }
     }
-    double v_a = 0.0, e_a = INFINITY, factor, half;
-    cxl_status st_a = cxl_drift_allowance(result->freq_hz[near], freq_hz, &factor, &half);
-    if (st_a == CXL_OK) {
-        double v0 = result->vf[near];
-        v_a = v0 * factor;
-        e_a = hypot(hypot(v0 * half, v0 * df / result->freq_hz[near]), v_a * rel_len);
+    *v = 0.0;
+    *e = INFINITY;
+    cxl_status st = cxl_drift_allowance(result->freq_hz[near], freq_hz, &factor, &half);
+    if (st == CXL_OK) {
+        double v0 = result->vf[near], df = result->freq_res_hz;
+        *v = v0 * factor;
+        *e = hypot(hypot(v0 * half, v0 * df / result->freq_hz[near]), *v * rel_len);
     }
-    /* the trend over two or more readings (without a frequency step two
-     * readings are taken as exact, as the fit takes them) */
-    double v_t = 0.0, e_t = INFINITY;
-    unsigned t_how = 0;
-    if (result->n >= 2) {
-        struct cxl_drift drift, *d = &drift;
-        double lo, hi, v, e;
-        if (cxl__drift_fill_stub(result, df, ws, d) == CXL_OK &&
-            cxl_drift_vf(d, freq_hz, &v, &e) == CXL_OK &&
-            cxl_drift_range(d, &lo, &hi) == CXL_OK) {
-            v_t = v;
-            e_t = hypot(e, v * rel_len);
-            t_how = CXL_STUB_AT_TREND | (freq_hz < lo || freq_hz > hi ? CXL_STUB_AT_EXTRAPOLATED : 0u);
-        }
+    return st;
+}
+
+/* The trend over two or more readings (without a frequency step two
+ * readings are taken as exact, as the fit takes them): *v, *e (e infinite
+ * when there is none) and how it was found. */
+static void at_by_trend(const cxl_stub_result *result, double freq_hz, double rel_len,
+                        cxl__fitws *ws, const struct cxl_drift *known, double *v_t,
+                        double *e_t, unsigned *t_how)
+{
+    *v_t = 0.0;
+    *e_t = INFINITY;
+    *t_how = 0;
+    if (result->n < 2) return;
+    struct cxl_drift drift;
+    const struct cxl_drift *d = known ? known : &drift;
+    double lo, hi, v, e;
+    if ((known || cxl__drift_fill_stub(result, result->freq_res_hz, ws, &drift) == CXL_OK) &&
+        cxl_drift_vf(d, freq_hz, &v, &e) == CXL_OK && cxl_drift_range(d, &lo, &hi) == CXL_OK) {
+        *v_t = v;
+        *e_t = hypot(e, v * rel_len);
+        *t_how = CXL_STUB_AT_TREND | (freq_hz < lo || freq_hz > hi ? CXL_STUB_AT_EXTRAPOLATED : 0u);
     }
-    double v, e;
-    unsigned h;
+}
+
+cxl_status cxl__stub_result_vf_at_ws(const cxl_stub_result *result, double freq_hz,
+                                     double *vf, double *vf_err, unsigned *how,
+                                     cxl__fitws *ws, const struct cxl_drift *known)
+{
+    if (!result || !vf || !vf_err || !cxl__finite_pos(freq_hz) || result->n == 0)
+        return CXL_EINVAL;
+    double rel_len = rel_length_tol(result), v_a, e_a, v_t, e_t, v, e;
+    cxl_status st_a = at_by_allowance(result, freq_hz, rel_len, &v_a, &e_a);
+    unsigned t_how, h;
+    at_by_trend(result, freq_hz, rel_len, ws, known, &v_t, &e_t, &t_how);
     if (e_t <= e_a) { v = v_t; e = e_t; h = t_how; }
     else if (st_a == CXL_OK) { v = v_a; e = e_a; h = CXL_STUB_AT_ALLOWANCE; }
     else return st_a == CXL_ERANGE ? CXL_ERANGE : CXL_EINVAL;
@@ -787,7 +809,7 @@ cxl_status cxl_stub_result_vf_at(const cxl_stub_result *result, double freq_hz,
                                  double *vf, double *vf_err, unsigned *how)
 {
     cxl__fitws ws = { 0 };
-    cxl_status st = cxl__stub_result_vf_at_ws(result, freq_hz, vf, vf_err, how, &ws);
+    cxl_status st = cxl__stub_result_vf_at_ws(result, freq_hz, vf, vf_err, how, &ws, NULL);
     cxl__fitws_free(&ws);
     return st;
 }

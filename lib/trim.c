@@ -60,6 +60,15 @@ struct cxl_trim_result {
     double cut_m, remaining_m, resolution_m_all;
     cxl_trim_action action;
     unsigned flags;
+    /* kept across cxl_trim_solve_into calls: room for cap readings, the
+     * stub and its fit, the readings sorted and as shown, the trend and
+     * the workspace its fit runs in */
+    size_t cap;
+    cxl_stub *stub;
+    cxl_stub_result *fit;
+    trim_reading *rd;
+    struct cxl_drift drift;
+    cxl__fitws ws;
 };
 
 cxl_status cxl_trim_new(cxl_stub_end end, double length_m, cxl_trim **trim)
@@ -74,6 +83,23 @@ cxl_status cxl_trim_new(cxl_stub_end end, double length_m, cxl_trim **trim)
     t->kind = CXL_DIP_ZERO_X;
     t->ref_ohm = 50.0;
     *trim = t;
+    return CXL_OK;
+}
+
+cxl_status cxl_trim_reset(cxl_trim *trim, cxl_stub_end end, double length_m)
+{
+    if (!trim || (end != CXL_STUB_OPEN && end != CXL_STUB_SHORT) ||
+        !cxl__finite_pos(length_m))
+        return CXL_EINVAL;
+    trim_reading *r = trim->r;
+    size_t cap = trim->cap;
+    memset(trim, 0, sizeof *trim);
+    trim->r = r;
+    trim->cap = cap;
+    trim->end = end;
+    trim->length_m = length_m;
+    trim->kind = CXL_DIP_ZERO_X;
+    trim->ref_ohm = 50.0;
     return CXL_OK;
 }
 
@@ -198,21 +224,33 @@ static int cmp_reading(const void *a, const void *b)
     return (x->freq_hz > y->freq_hz) - (x->freq_hz < y->freq_hz);
 }
 
-static cxl_trim_result *result_alloc(size_t n)
+/* Room for n readings in r; grows only. */
+static cxl_status result_reserve(cxl_trim_result *r, size_t n)
 {
+    if (!r->stub && cxl_stub_new(CXL_STUB_OPEN, &r->stub) != CXL_OK) return CXL_ENOMEM;
+    if (!r->fit && cxl_stub_result_new(&r->fit) != CXL_OK) return CXL_ENOMEM;
+    if (n <= r->cap) return CXL_OK;
+    double *d = realloc(r->freq_hz, 4 * n * sizeof *d);
+    if (d) r->freq_hz = d;
+    int *o = realloc(r->order, n * sizeof *o);
+    if (o) r->order = o;
+    trim_reading *rd = realloc(r->rd, 2 * n * sizeof *rd);
+    if (rd) r->rd = rd;
+    if (!d || !o || !rd) return CXL_ENOMEM;
+    r->cap = n;
+    r->vf = d + n;
+    r->expected_hz = d + 2 * n;
+    r->resolution_m = d + 3 * n;
+    return CXL_OK;
+}
+
+cxl_status cxl_trim_result_new(cxl_trim_result **result)
+{
+    if (!result) return CXL_EINVAL;
     cxl_trim_result *r = calloc(1, sizeof *r);
-    if (!r) return NULL;
-    r->n = n;
-    r->freq_hz = malloc(4 * n * sizeof(double));
-    r->order = malloc(n * sizeof(int));
-    if (!r->freq_hz || !r->order) {
-        cxl_trim_result_free(r);
-        return NULL;
-    }
-    r->vf = r->freq_hz + n;
-    r->expected_hz = r->freq_hz + 2 * n;
-    r->resolution_m = r->freq_hz + 3 * n;
-    return r;
+    if (!r) return CXL_ENOMEM;
+    *result = r;
+    return CXL_OK;
 }
 
 void cxl_trim_result_free(cxl_trim_result *result)
@@ -220,6 +258,10 @@ void cxl_trim_result_free(cxl_trim_result *result)
     if (!result) return;
     free(result->freq_hz);
     free(result->order);
+    free(result->rd);
+    cxl_stub_free(result->stub);
+    cxl_stub_result_free(result->fit);
+    cxl__fitws_free(&result->ws);
     free(result);
 }
 
@@ -240,11 +282,10 @@ static double vf_at(const cxl_drift *drift, double f, double vf0)
 
 /* Readings sorted by frequency into a stub fit; the fixture is removed
  * there, or (same cable as the piece) counted as part of the line. */
-static cxl_status fit_readings(const cxl_trim *t, const trim_reading *rd,
-                               cxl_stub_result **res)
+static cxl_status fit_readings(const cxl_trim *t, const trim_reading *rd, cxl_stub *s,
+                               cxl_stub_result *res)
 {
-    cxl_stub *s;
-    cxl_status st = cxl_stub_new(t->end, &s);
+    cxl_status st = cxl_stub_reset(s, t->end);
     if (st != CXL_OK) return st;
     double line_m = t->length_m;
     if (t->fixture_vf > 0.0) st = cxl_stub_set_fixture(s, t->fixture_m, t->fixture_vf);
@@ -253,8 +294,7 @@ static cxl_status fit_readings(const cxl_trim *t, const trim_reading *rd,
     if (st == CXL_OK && rd[0].order == 0) st = cxl_stub_set_orders(s, CXL_STUB_ORDERS_BEST_FIT);
     for (size_t i = 0; i < t->n && st == CXL_OK; i++)
         st = cxl_stub_add_reading(s, line_m, rd[i].freq_hz, rd[i].order);
-    if (st == CXL_OK) st = cxl_stub_fit(s, res);
-    cxl_stub_free(s);
+    if (st == CXL_OK) st = cxl_stub_fit_into(s, res);
     return st;
 }
 
@@ -331,113 +371,154 @@ static cxl_status expected_freq(const cxl_trim *t, const cxl_drift *drift, int o
 
 /* With a model: read each resonance as the frequency at which the line is
  * exactly k wavelengths (orders from the first fit), and fit again. */
-static cxl_status correct_readings(const cxl_trim *t, trim_reading *rd,
-                                   cxl_stub_result **fit)
+static cxl_status correct_readings(const cxl_trim *t, trim_reading *rd, cxl_stub *stub,
+                                   cxl_stub_result *fit)
 {
     cxl_status st = CXL_OK;
     for (size_t i = 0; i < t->n && st == CXL_OK; i++) {
         double ratio;
-        st = cxl_stub_result_reading(*fit, i, NULL, NULL, &rd[i].order, NULL, NULL, NULL);
+        st = cxl_stub_result_reading(fit, i, NULL, NULL, &rd[i].order, NULL, NULL, NULL);
         if (st == CXL_OK) st = model_offset(t, rd[i].order, t->length_m, &ratio);
         if (st == CXL_OK) rd[i].freq_hz /= ratio;
     }
-    cxl_stub_result_free(*fit);
-    *fit = NULL;
-    return st == CXL_OK ? fit_readings(t, rd, fit) : st;
+    return st == CXL_OK ? fit_readings(t, rd, stub, fit) : st;
 }
 
-cxl_status cxl_trim_solve(const cxl_trim *trim, cxl_trim_result **result)
+/* After the fit: the trend over two or more readings (*drift), and the
+ * readings' orders, VFs and frequencies as shown. */
+static cxl_status trend_step(const cxl_trim *trim, cxl_trim_result *r,
+                             const trim_reading *shown, const cxl_drift **drift)
 {
-    if (!trim || !result || trim->n == 0 || trim->target_kind == TARGET_NONE) return CXL_EINVAL;
-    const size_t n = trim->n;
-    trim_reading *rd = malloc(2 * n * sizeof *rd), *shown = rd ? rd + n : NULL;
-    cxl_trim_result *r = result_alloc(n);
-    cxl_stub_result *fit = NULL;
-    cxl_drift *drift = NULL;
-    cxl_status st = rd && r ? CXL_OK : CXL_ENOMEM;
-    if (st == CXL_OK) {
-        memcpy(rd, trim->r, n * sizeof *rd);
-        qsort(rd, n, sizeof *rd, cmp_reading);
-        memcpy(shown, rd, n * sizeof *rd);
-        /* given orders must rise with frequency */
-        for (size_t i = 1; i < n && st == CXL_OK; i++)
-            if (rd[0].order != 0 && rd[i].order <= rd[i - 1].order) st = CXL_EINCONSISTENT;
+    cxl_status st = CXL_OK;
+    if (trim->n >= 2) {
+        st = cxl__drift_fill_stub(r->fit, trim->freq_res_hz, &r->ws, &r->drift);
+        *drift = &r->drift;
     }
-    if (st == CXL_OK) st = fit_readings(trim, rd, &fit);
-    if (st == CXL_OK) st = cxl_stub_result_flags(fit, &r->flags);
+    for (size_t i = 0; i < trim->n && st == CXL_OK; i++)
+        st = cxl_stub_result_reading(r->fit, i, NULL, &r->freq_hz[i], &r->order[i], &r->vf[i],
+                                     NULL, NULL);
+    /* report what the analyzer showed (sorted), not a corrected value */
+    for (size_t i = 0; i < trim->n && st == CXL_OK; i++) r->freq_hz[i] = shown[i].freq_hz;
+    return st;
+}
+
+/* Readings sorted by frequency into r->rd (and as shown, r->rd + n), the
+ * fit (corrected with the model when there is one), its flags, per-reading
+ * values and the trend over two or more readings (*drift, else NULL). */
+static cxl_status fit_step(const cxl_trim *trim, cxl_trim_result *r, double *vf_fit,
+                           const cxl_drift **drift)
+{
+    const size_t n = trim->n;
+    trim_reading *rd = r->rd, *shown = rd + n;
+    cxl_status st = CXL_OK;
+    memcpy(rd, trim->r, n * sizeof *rd);
+    qsort(rd, n, sizeof *rd, cmp_reading);
+    memcpy(shown, rd, n * sizeof *rd);
+    /* given orders must rise with frequency */
+    for (size_t i = 1; i < n && st == CXL_OK; i++)
+        if (rd[0].order != 0 && rd[i].order <= rd[i - 1].order) st = CXL_EINCONSISTENT;
+    if (st == CXL_OK) st = fit_readings(trim, rd, r->stub, r->fit);
+    if (st == CXL_OK) st = cxl_stub_result_flags(r->fit, &r->flags);
     if (st == CXL_OK && trim->model) {
         unsigned more = 0;
-        st = correct_readings(trim, rd, &fit);
-        if (st == CXL_OK) st = cxl_stub_result_flags(fit, &more);
+        st = correct_readings(trim, rd, r->stub, r->fit);
+        if (st == CXL_OK) st = cxl_stub_result_flags(r->fit, &more);
         r->flags |= more | CXL_TRIM_FLAG_MODEL;
     }
-    double vf_fit = 0.0, f_lo = 0.0, f_hi = 0.0;
-    if (st == CXL_OK) st = cxl_stub_result_vf(fit, &vf_fit, NULL);
-    if (st == CXL_OK && n >= 2) {
-        st = cxl_drift_new_stub(fit, trim->freq_res_hz, &drift);
-        if (st == CXL_OK) st = cxl_drift_range(drift, &f_lo, &f_hi);
-    }
-    for (size_t i = 0; i < n && st == CXL_OK; i++)
-        st = cxl_stub_result_reading(fit, i, NULL, &r->freq_hz[i], &r->order[i], &r->vf[i],
-                                     NULL, NULL);
-    if (st != CXL_OK) goto done;
-    /* report what the analyzer showed (sorted), not a corrected value */
-    for (size_t i = 0; i < n; i++) r->freq_hz[i] = shown[i].freq_hz;
+    if (st == CXL_OK) st = cxl_stub_result_vf(r->fit, vf_fit, NULL);
+    *drift = NULL;
+    return st == CXL_OK ? trend_step(trim, r, shown, drift) : st;
+}
 
-    /* VF at the target frequency and its uncertainty: the trend over the
-     * readings or the nearest reading with the drift allowance, whichever
-     * is the tighter (cxl_stub_result_vf_at); without a target frequency
-     * the fitted VF and how far a step of the resolution moves it */
-    double ft = trim->target_freq_hz, vf_t = vf_fit, vf_err = 0.0;
-    (void)f_lo;
-    (void)f_hi;
+/* VF at the target frequency and its uncertainty: the trend over the
+ * readings or the nearest reading with the drift allowance, whichever is
+ * the tighter (cxl_stub_result_vf_at); without a target frequency the
+ * fitted VF and how far a step of the resolution moves it. */
+static cxl_status target_vf(const cxl_trim *trim, cxl_trim_result *r, double vf_fit,
+                            double *vf_t, double *vf_err)
+{
+    double ft = trim->target_freq_hz;
+    cxl_status st = CXL_OK;
+    *vf_t = vf_fit;
+    *vf_err = 0.0;
     if (ft > 0.0) {
         unsigned how = 0;
-        st = cxl_stub_result_vf_at(fit, ft, &vf_t, &vf_err, &how);
-        if (st != CXL_OK) goto done;
+        /* the trend fit_step fitted (two or more readings) is the one
+         * cxl_stub_result_vf_at would fit again */
+        st = cxl__stub_result_vf_at_ws(r->fit, ft, vf_t, vf_err, &how, &r->ws,
+                                       trim->n >= 2 ? &r->drift : NULL);
+        if (st != CXL_OK) return st;
         if (how & CXL_STUB_AT_TREND) r->flags |= CXL_TRIM_FLAG_DRIFT;
         if (how & CXL_STUB_AT_EXTRAPOLATED) r->flags |= CXL_TRIM_FLAG_EXTRAPOLATED;
         if (how & CXL_STUB_AT_ALLOWANCE) r->flags |= CXL_TRIM_FLAG_ALLOWANCE;
-    } else {
-        if (n == 1) vf_err = vf_t * trim->freq_res_hz / r->freq_hz[0];
-        else st = cxl_stub_result_vf_budget(fit, NULL, NULL, &vf_err);
-        if (st != CXL_OK) goto done;
-        if (trim->freq_res_hz == 0.0) vf_err = 0.0; /* the scatter is not a resolution */
+        return CXL_OK;
     }
-    double e_t = target_free_m(trim, drift, vf_fit, vf_t);
-    if (!(e_t > 0.0) || !isfinite(e_t)) { st = CXL_ERANGE; goto done; }
-    r->vf_fit = vf_fit;
-    r->vf_target = vf_t;
-    r->target_freq_hz = ft;
-    r->remaining_m = e_t * vf_t;
-    r->cut_m = trim->length_m - r->remaining_m;
+    if (trim->n == 1) *vf_err = *vf_t * trim->freq_res_hz / r->freq_hz[0];
+    else st = cxl_stub_result_vf_budget(r->fit, NULL, NULL, vf_err);
+    if (trim->freq_res_hz == 0.0) *vf_err = 0.0; /* the scatter is not a resolution */
+    return st;
+}
 
-    /* resolution per order, and of the length to keep */
-    for (size_t i = 0; i < n; i++) {
+/* Resolution per order and of the length to keep, expected frequencies
+ * and the action. */
+static cxl_status resolution_step(const cxl_trim *trim, cxl_trim_result *r,
+                                  const cxl_drift *drift, double vf_t, double vf_err)
+{
+    cxl_status st = CXL_OK;
+    for (size_t i = 0; i < trim->n && st == CXL_OK; i++) {
         double k;
         cxl_stub_wavelengths(trim->end, r->order[i], &k);
         /* dE = k c df / f^2 free-space metres, times VF as cable */
         r->resolution_m[i] = r->vf[i] * k * CXL_C_M_PER_S * trim->freq_res_hz /
                              r->freq_hz[i] / r->freq_hz[i];
-        if (!isfinite(r->resolution_m[i])) { st = CXL_ERANGE; goto done; }
+        if (!isfinite(r->resolution_m[i])) return CXL_ERANGE;
         st = expected_freq(trim, drift, r->order[i], r->remaining_m, r->freq_hz[i], r->vf[i],
                            &r->expected_hz[i]);
-        if (st != CXL_OK) goto done;
     }
+    if (st != CXL_OK) return st;
     double fix_tol = trim->fixture_tol_m *
                      (trim->fixture_vf > 0.0 ? vf_t / trim->fixture_vf : 1.0);
     double res_vf = r->remaining_m * vf_err / vf_t;
     /* hypot: a huge fixture tolerance must not square to infinity */
     r->resolution_m_all = hypot(res_vf, fix_tol);
-    if (!isfinite(r->resolution_m_all)) { st = CXL_ERANGE; goto done; }
+    if (!isfinite(r->resolution_m_all)) return CXL_ERANGE;
     if (r->cut_m > r->resolution_m_all) r->action = CXL_TRIM_CUT;
     else if (r->cut_m < -r->resolution_m_all) r->action = CXL_TRIM_SHORT;
     else r->action = CXL_TRIM_WITHIN;
+    return CXL_OK;
+}
 
-done:
-    free(rd);
-    cxl_stub_result_free(fit);
-    cxl_drift_free(drift);
+cxl_status cxl_trim_solve_into(const cxl_trim *trim, cxl_trim_result *result)
+{
+    if (!trim || !result || trim->n == 0 || trim->target_kind == TARGET_NONE) return CXL_EINVAL;
+    cxl_trim_result *r = result;
+    cxl_status st = result_reserve(r, trim->n);
+    r->n = 0; /* empty until solved */
+    if (st != CXL_OK) return st;
+    r->flags = 0;
+    double vf_fit = 0.0, vf_t = 0.0, vf_err = 0.0;
+    const cxl_drift *drift = NULL;
+    st = fit_step(trim, r, &vf_fit, &drift);
+    if (st == CXL_OK) st = target_vf(trim, r, vf_fit, &vf_t, &vf_err);
+    if (st != CXL_OK) return st;
+    double e_t = target_free_m(trim, drift, vf_fit, vf_t);
+    if (!(e_t > 0.0) || !isfinite(e_t)) return CXL_ERANGE;
+    r->vf_fit = vf_fit;
+    r->vf_target = vf_t;
+    r->target_freq_hz = trim->target_freq_hz;
+    r->remaining_m = e_t * vf_t;
+    r->cut_m = trim->length_m - r->remaining_m;
+    st = resolution_step(trim, r, drift, vf_t, vf_err);
+    if (st == CXL_OK) r->n = trim->n;
+    return st;
+}
+
+cxl_status cxl_trim_solve(const cxl_trim *trim, cxl_trim_result **result)
+{
+    if (!trim || !result || trim->n == 0 || trim->target_kind == TARGET_NONE) return CXL_EINVAL;
+    cxl_trim_result *r = NULL;
+    cxl_status st = cxl_trim_result_new(&r);
+    if (st == CXL_OK) st = cxl_trim_solve_into(trim, r);
     if (st != CXL_OK) {
         cxl_trim_result_free(r);
         return st;
@@ -452,7 +533,7 @@ cxl_status cxl_trim_result_cut(const cxl_trim_result *result, double *cut_off_m,
                                double *remaining_m, double *resolution_m,
                                cxl_trim_action *action)
 {
-    if (!result) return CXL_EINVAL;
+    if (!result || result->n == 0) return CXL_EINVAL;
     if (cut_off_m) *cut_off_m = result->cut_m;
     if (remaining_m) *remaining_m = result->remaining_m;
     if (resolution_m) *resolution_m = result->resolution_m_all;
@@ -463,7 +544,7 @@ cxl_status cxl_trim_result_cut(const cxl_trim_result *result, double *cut_off_m,
 cxl_status cxl_trim_result_vf(const cxl_trim_result *result, double *vf_fit,
                               double *vf_target, double *target_freq_hz)
 {
-    if (!result) return CXL_EINVAL;
+    if (!result || result->n == 0) return CXL_EINVAL;
     if (vf_fit) *vf_fit = result->vf_fit;
     if (vf_target) *vf_target = result->vf_target;
     if (target_freq_hz) *target_freq_hz = result->target_freq_hz;
@@ -472,7 +553,7 @@ cxl_status cxl_trim_result_vf(const cxl_trim_result *result, double *vf_fit,
 
 cxl_status cxl_trim_result_flags(const cxl_trim_result *result, unsigned *flags)
 {
-    if (!result || !flags) return CXL_EINVAL;
+    if (!result || !flags || result->n == 0) return CXL_EINVAL;
     *flags = result->flags;
     return CXL_OK;
 }

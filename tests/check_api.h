@@ -339,3 +339,9 @@ cxl_status call_sweepfit_loss(const double *a, double *o, unsigned nulls);
 cxl_status call_sweepfit_quality(const double *a, double *o, unsigned nulls);
 
 #endif
+cxl_status call_stub_reset(const double *a, double *o, unsigned nulls);
+cxl_status call_stub_result_new(const double *a, double *o, unsigned nulls);
+cxl_status call_stub_fit_into(const double *a, double *o, unsigned nulls);
+cxl_status call_trim_reset(const double *a, double *o, unsigned nulls);
+cxl_status call_trim_result_new(const double *a, double *o, unsigned nulls);
+cxl_status call_trim_solve_into(const double *a, double *o, unsigned nulls);

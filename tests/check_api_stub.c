@@ -255,3 +255,29 @@ ADAPTER(trim_result_reading)
     o[4] = order;
     return st;
 }
+
+/* handles reused row after row: reset, an empty result, a refit into it */
+STUB_SETTER(stub_reset, cxl_stub_reset(P(0, s), (cxl_stub_end)to_int(a[0])))
+NEW_ADAPTER(stub_result_new, cxl_stub_result, cxl_stub_result_new(P(0, &h)), cxl_stub_result_free)
+ADAPTER(stub_fit_into)
+{
+    (void)a;
+    cxl_stub_result *r = NULL;
+    ck_assert_int_eq(cxl_stub_result_new(&r), CXL_OK);
+    cxl_status st = cxl_stub_fit_into(P(0, g_stub), P(1, r));
+    if (st == CXL_OK) ck_assert_int_eq(cxl_stub_result_vf(r, &o[0], NULL), CXL_OK);
+    cxl_stub_result_free(r);
+    return st;
+}
+TRIM_SETTER(trim_reset, 3, 1, cxl_trim_reset(P(0, t), (cxl_stub_end)to_int(a[0]), a[1]))
+NEW_ADAPTER(trim_result_new, cxl_trim_result, cxl_trim_result_new(P(0, &h)), cxl_trim_result_free)
+ADAPTER(trim_solve_into)
+{
+    (void)a;
+    cxl_trim_result *r = NULL;
+    ck_assert_int_eq(cxl_trim_result_new(&r), CXL_OK);
+    cxl_status st = cxl_trim_solve_into(P(0, g_trim), P(1, r));
+    if (st == CXL_OK) ck_assert_int_eq(cxl_trim_result_cut(r, &o[0], NULL, NULL, NULL), CXL_OK);
+    cxl_trim_result_free(r);
+    return st;
+}

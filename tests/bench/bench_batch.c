@@ -604,6 +604,84 @@ static void bench_startup(void)
 }
 
 /* Other work on the machine shows in wall times (not much in cpu times). */
+/* ---- per-row cost of vf, trim and loss ---------------------------------
+ * The row paths that fit readings or a cable's loss table: a batch of
+ * min(--rows, 100,000) rows of each (tests/rows_gen.sh: vf with 3
+ * readings, trim with 2, loss at the 3 points of one band), CPU time per
+ * row with the run on 10 rows (start-up, catalog) taken off, best of the
+ * rounds; and heap allocations per row with the preload counter
+ * tests/alloc_count.la when it is built. */
+
+/* rows_gen.sh's output for cmd and rows into p. */
+static void generate_rows(const char *cmd, long rows, const char *p)
+{
+    char gen[4096], n[32];
+    path(gen, sizeof gen, cfg.srcdir, "tests/rows_gen.sh");
+    snprintf(n, sizeof n, "%ld", rows);
+    char *argv[] = { "/bin/sh", gen, (char *)cmd, n, NULL };
+    if (run(argv, p, NULL).status != 0) die("%s failed", gen);
+}
+
+/* Allocations of one coaxline run under the preload counter, or -1. */
+static long count_allocs(const char *module, const char *cmd, const char *in)
+{
+    char cnt[4096];
+    path(cnt, sizeof cnt, cfg.tmp, "allocs.txt");
+    unlink(cnt);
+    setenv("ALLOC_COUNT_FILE", cnt, 1);
+    setenv("LD_PRELOAD", module, 1);
+    char *argv[] = { cfg.coaxline, (char *)cmd, "--input", (char *)in, NULL };
+    run(argv, NULL, NULL);
+    unsetenv("LD_PRELOAD");
+    unsetenv("ALLOC_COUNT_FILE");
+    size_t len;
+    char *text = exists(cnt, 0) ? slurp(cnt, &len) : NULL;
+    long n = text ? atol(text) : -1;
+    free(text);
+    unlink(cnt);
+    return n;
+}
+
+static void bench_row_paths(void)
+{
+    static const char *const cmds[] = { "vf", "trim", "loss" };
+    long rows = cfg.rows < 100000 ? cfg.rows : 100000;
+    if (rows < 20) rows = 20;
+    char module[4096];
+    path(module, sizeof module, cfg.builddir, "tests/.libs/alloc_count.so");
+    int counting = exists(module, 0);
+    printf("\nrow paths: %ld rows of each, CPU per row after start-up (the run on 10 rows "
+           "taken off), best of %d rounds\n", rows, cfg.repeat);
+    printf("  %-6s %12s %12s %14s\n", "", "us/row", "rows/s", "allocs/row");
+    for (size_t c = 0; c < sizeof cmds / sizeof cmds[0]; c++) {
+        char big[4096], small[4096];
+        path(big, sizeof big, cfg.tmp, "rows-big.csv");
+        path(small, sizeof small, cfg.tmp, "rows-small.csv");
+        generate_rows(cmds[c], rows, big);
+        generate_rows(cmds[c], 10, small);
+        char *ab[] = { cfg.coaxline, (char *)cmds[c], "--input", big, NULL };
+        char *as[] = { cfg.coaxline, (char *)cmds[c], "--input", small, NULL };
+        double best_big = INFINITY, best_small = INFINITY;
+        for (int r = 0; r < cfg.repeat; r++) {
+            run_result rb = run_forked(ab), rs = run_forked(as);
+            if (rb.status != 0 || rs.status != 0) die("coaxline %s --input failed", cmds[c]);
+            if (rb.cpu_s < best_big) best_big = rb.cpu_s;
+            if (rs.cpu_s < best_small) best_small = rs.cpu_s;
+        }
+        double per_row = (best_big - best_small) / (double)(rows - 10);
+        char allocs[32] = "not counted";
+        if (counting) {
+            long a_big = count_allocs(module, cmds[c], big), a_small = count_allocs(module, cmds[c], small);
+            if (a_big >= 0 && a_small >= 0)
+                snprintf(allocs, sizeof allocs, "%.2f", (double)(a_big - a_small) / (double)(rows - 10));
+        }
+        printf("  %-6s %12.2f %12.0f %14s\n", cmds[c], per_row * 1e6,
+               per_row > 0.0 ? 1.0 / per_row : 0.0, allocs);
+        unlink(big);
+        unlink(small);
+    }
+}
+
 static void print_load(const char *when)
 {
     char buf[128] = "?";
@@ -713,6 +791,7 @@ int main(int argc, char **argv)
             die("unknown command %s", c);
         bench_command(c);
     }
+    bench_row_paths();
     bench_startup();
     if (!cfg.keep) rmdir(cfg.tmp);
     else printf("\nfiles kept in %s\n", cfg.tmp);
