@@ -154,23 +154,35 @@ static int opt_index(const cli_command *cmd, const char *name)
     return -1;
 }
 
-/* opt_index through the args' cache.  Only a name that is the table's
- * own string (found by pointer) is kept: its bytes never change, where a
- * name built in a buffer could name another option at the same address
- * later.  A miss is not kept either. */
+/* opt_index through the args' cache.  A name that is the table's own
+ * string (found by pointer) is kept by its address: its bytes never
+ * change.  Any other name (one built in a buffer, which may hold another
+ * name at the same address later, or one the command does not declare)
+ * is kept by its content, hashed, and compared in full on a hit. */
 static int cached_index(const cli_args *a, const char *name)
 {
     cli_optcache *c = (cli_optcache *)&a->optcache; /* see cli.h */
-    size_t h = (((uintptr_t)name >> 3) ^ ((uintptr_t)name >> 9)) % CLI_OPTCACHE;
-    if (c->cmd == a->cmd && c->slot[h].name == name) return c->slot[h].index;
+    if (c->cmd != a->cmd) {
+        memset(c, 0, sizeof *c);
+        c->cmd = a->cmd;
+    }
+    size_t h = (size_t)(((uint64_t)(uintptr_t)name * 0x9E3779B97F4A7C15u) >> 58); /* 64 */
+    if (c->slot[h].name == name) return c->slot[h].index;
+    uint32_t fh = 2166136261u; /* FNV-1a */
+    size_t len = 0;
+    for (; name[len] && len < sizeof c->text[0].text; len++)
+        fh = (fh ^ (unsigned char)name[len]) * 16777619u;
+    int fits = len < sizeof c->text[0].text;
+    size_t t = fh % CLI_OPTCACHE_TEXT;
+    if (fits && c->text[t].text[0] && strcmp(c->text[t].text, name) == 0)
+        return c->text[t].index;
     int i = opt_index(a->cmd, name);
     if (i >= 0 && a->cmd->opts[i].name == name) {
-        if (c->cmd != a->cmd) {
-            memset(c, 0, sizeof *c);
-            c->cmd = a->cmd;
-        }
         c->slot[h].name = name;
         c->slot[h].index = i;
+    } else if (fits && len > 0) {
+        memcpy(c->text[t].text, name, len + 1);
+        c->text[t].index = i;
     }
     return i;
 }
