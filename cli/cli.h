@@ -57,9 +57,14 @@ typedef struct cli_command {
  * take a const cli_args, so a cli_args is never defined const.  Zeroed
  * with the cli_args; each copy (one per thread) has its own. */
 #define CLI_OPTCACHE 64
+#define CLI_OPTCACHE_TEXT 64
 typedef struct cli_optcache {
     const cli_command *cmd;  /* the command the entries belong to */
+    /* by the address of the table's own string */
     struct { const char *name; int index; } slot[CLI_OPTCACHE];
+    /* by content: names built at run time ("line-a"), names the command
+     * does not declare (index -1) */
+    struct { char text[24]; int index; } text[CLI_OPTCACHE_TEXT];
 } cli_optcache;
 
 /* One invocation's option values: a batch row's cells first, then the

@@ -140,11 +140,11 @@ static int plot(cli_ctx *ctx, const cli_args *a, phase_line *p, const cli_freq_p
     return cli_errplot_save(ctx, "plot", cli_get(a, "plot", 0), pts, np, plot_point, p, &spec);
 }
 
-static void text_output(cli_ctx *ctx, const cli_args *a, const phase_line *p, const char *from,
-                        double ref_deg, double ref_freq_hz, int region,
-                        const cli_freq_point *pts, const phase_point *r, int np)
+/* The text output's lines above its table. */
+static void text_head(cli_ctx *ctx, const cli_args *a, const phase_line *p, const char *from,
+                      double ref_deg, double ref_freq_hz, int region)
 {
-    char b1[200], b2[96], b3[96], b4[96], b5[96];
+    char b1[200], b2[96], b3[96];
     FILE *o = ctx->out;
     const char *label = cli_label(a);
     double delta_m = p->length_m - p->reference_m;
@@ -170,6 +170,29 @@ static void text_output(cli_ctx *ctx, const cli_args *a, const phase_line *p, co
     if (region) fprintf(o, "  band edges        ITU Region %d", region);
     else fprintf(o, "  band edges        widest across ITU Regions");
     fprintf(o, ", footnote segments %s\n", cli_flag(a, "exclude-footnotes") ? "left out" : "included");
+}
+
+/* With --load, the line's and the reference's figures under a point. */
+static void text_load_lines(FILE *o, const phase_point *r)
+{
+    char b2[96], b3[96], b4[96], b5[96];
+    fprintf(o, "%35s%-15s %10s %10s %10s %9s\n", "", "  line", cli_fmt(b2, sizeof b2, r->elec_deg, 3),
+            cli_fmt(b3, sizeof b3, r->xfer_deg, 3),
+            cli_fmt_signed(b4, sizeof b4, r->xfer_deg - r->elec_deg, 3),
+            cli_fmt(b5, sizeof b5, r->xfer_db, 3));
+    fprintf(o, "%35s%-15s %10s %10s %10s %9s\n", "", "  reference",
+            cli_fmt(b2, sizeof b2, r->ref_elec_deg, 3), cli_fmt(b3, sizeof b3, r->ref_xfer_deg, 3),
+            cli_fmt_signed(b4, sizeof b4, r->ref_xfer_deg - r->ref_elec_deg, 3),
+            cli_fmt(b5, sizeof b5, r->ref_xfer_db, 3));
+}
+
+static void text_output(cli_ctx *ctx, const cli_args *a, const phase_line *p, const char *from,
+                        double ref_deg, double ref_freq_hz, int region,
+                        const cli_freq_point *pts, const phase_point *r, int np)
+{
+    char b1[200], b2[96];
+    FILE *o = ctx->out;
+    text_head(ctx, a, p, from, ref_deg, ref_freq_hz, region);
     if (!p->load.given) {
         fprintf(o, "  %-6s %-7s %16s  %s\n", "band", "edge", "frequency", "phase error");
     } else {
@@ -183,31 +206,50 @@ static void text_output(cli_ctx *ctx, const cli_args *a, const phase_line *p, co
         fprintf(o, "  %-6s %-7s %12s MHz  %s deg\n", first ? pts[i].band : "", pts[i].edge,
                 cli_fmt(b1, sizeof b1, pts[i].freq_hz / 1e6, 6),
                 cli_fmt_signed(b2, sizeof b2, r[i].err_deg, 3));
-        if (!p->load.given) continue;
-        fprintf(o, "%35s%-15s %10s %10s %10s %9s\n", "", "  line", cli_fmt(b2, sizeof b2, r[i].elec_deg, 3),
-                cli_fmt(b3, sizeof b3, r[i].xfer_deg, 3),
-                cli_fmt_signed(b4, sizeof b4, r[i].xfer_deg - r[i].elec_deg, 3),
-                cli_fmt(b5, sizeof b5, r[i].xfer_db, 3));
-        fprintf(o, "%35s%-15s %10s %10s %10s %9s\n", "", "  reference",
-                cli_fmt(b2, sizeof b2, r[i].ref_elec_deg, 3), cli_fmt(b3, sizeof b3, r[i].ref_xfer_deg, 3),
-                cli_fmt_signed(b4, sizeof b4, r[i].ref_xfer_deg - r[i].ref_elec_deg, 3),
-                cli_fmt(b5, sizeof b5, r[i].ref_xfer_db, 3));
+        if (p->load.given) text_load_lines(o, &r[i]);
     }
+}
+
+static void phase_table(cli_ctx *ctx, const cli_args *a, const phase_line *p, int region,
+                        const cli_freq_point *pts, const phase_point *r, int np)
+{
+    const char *label = cli_label(a);
+    int l = p->load.given;
+    for (int i = 0; i < np; i++) {
+        cli_cell cells[NCOLS] = {
+            CLI_TXT(label), CLI_TXT(pts[i].band), CLI_TXT(pts[i].edge),
+            CLI_NUM(pts[i].freq_hz / 1e6), CLI_NUM(p->length_m), CLI_NUM(p->reference_m),
+            CLI_NUM(p->length_m - p->reference_m), CLI_NUM(r[i].err_deg), CLI_NUM(p->vf),
+            CLI_TXT(region_text[region]),
+            l ? CLI_NUM(r[i].xfer_deg) : CLI_NONE, CLI_NUM(r[i].elec_deg),
+            l ? CLI_NUM(r[i].xfer_db) : CLI_NONE,
+            l ? CLI_NUM(r[i].ref_xfer_deg) : CLI_NONE, CLI_NUM(r[i].ref_elec_deg),
+            l ? CLI_NUM(r[i].ref_xfer_db) : CLI_NONE,
+        };
+        cli_table_row(ctx, phase_cols, NCOLS, cells);
+    }
+}
+
+/* The measured length, its VF (and where it came from, for text) and the
+ * reference. */
+static int read_line(cli_ctx *ctx, const cli_args *a, phase_line *p, char *from, size_t from_size,
+                     double *ref_deg, double *ref_freq_hz)
+{
+    const char *len = cli_get(a, "length", 0);
+    if (!len)
+        return cli_error(ctx, "length", "--length 20.10m", "the measured length is needed");
+    if (cli_line_length(ctx, "length", len, &p->length_m)) return CLI_EXIT_USAGE;
+    int rc = cli_vf_source(ctx, a, &p->vf, ctx->format == CLI_TEXT ? from : NULL, from_size);
+    if (rc || cli_line_vf_check(ctx, a, p->vf)) return CLI_EXIT_USAGE;
+    return reference_length(ctx, a, p->vf, &p->reference_m, ref_deg, ref_freq_hz);
 }
 
 static int phase_run(cli_ctx *ctx, const cli_args *a)
 {
     phase_line p;
     double ref_deg, ref_freq_hz = 0.0;
-    const char *len = cli_get(a, "length", 0);
-    if (!len)
-        return cli_error(ctx, "length", "--length 20.10m", "the measured length is needed");
-    if (cli_line_length(ctx, "length", len, &p.length_m)) return CLI_EXIT_USAGE;
-
     char from[256];
-    int rc = cli_vf_source(ctx, a, &p.vf, ctx->format == CLI_TEXT ? from : NULL, sizeof from);
-    if (rc || cli_line_vf_check(ctx, a, p.vf)) return CLI_EXIT_USAGE;
-    if (reference_length(ctx, a, p.vf, &p.reference_m, &ref_deg, &ref_freq_hz)) return CLI_EXIT_USAGE;
+    if (read_line(ctx, a, &p, from, sizeof from, &ref_deg, &ref_freq_hz)) return CLI_EXIT_USAGE;
 
     int region;
     cli_freq_point pts[MAX_POINTS];
@@ -219,33 +261,12 @@ static int phase_run(cli_ctx *ctx, const cli_args *a)
     int code = cli_load_parse(ctx, a, p.vf, &p.load);
     for (int i = 0; !code && i < np; i++) code = evaluate(ctx, &p, pts[i].freq_hz, &r[i]);
     if (!code && cli_count(a, "plot")) code = plot(ctx, a, &p, pts, np);
-    if (code) {
-        cli_load_free(&p.load);
-        return code;
-    }
-
-    if (ctx->format == CLI_TEXT) {
+    if (!code && ctx->format == CLI_TEXT)
         text_output(ctx, a, &p, from, ref_deg, ref_freq_hz, region, pts, r, np);
-        cli_load_free(&p.load);
-        return CLI_EXIT_OK;
-    }
-    const char *label = cli_label(a);
-    int l = p.load.given;
-    for (int i = 0; i < np; i++) {
-        cli_cell cells[NCOLS] = {
-            CLI_TXT(label), CLI_TXT(pts[i].band), CLI_TXT(pts[i].edge),
-            CLI_NUM(pts[i].freq_hz / 1e6), CLI_NUM(p.length_m), CLI_NUM(p.reference_m),
-            CLI_NUM(p.length_m - p.reference_m), CLI_NUM(r[i].err_deg), CLI_NUM(p.vf),
-            CLI_TXT(region_text[region]),
-            l ? CLI_NUM(r[i].xfer_deg) : CLI_NONE, CLI_NUM(r[i].elec_deg),
-            l ? CLI_NUM(r[i].xfer_db) : CLI_NONE,
-            l ? CLI_NUM(r[i].ref_xfer_deg) : CLI_NONE, CLI_NUM(r[i].ref_elec_deg),
-            l ? CLI_NUM(r[i].ref_xfer_db) : CLI_NONE,
-        };
-        cli_table_row(ctx, phase_cols, NCOLS, cells);
-    }
+    else if (!code)
+        phase_table(ctx, a, &p, region, pts, r, np);
     cli_load_free(&p.load);
-    return CLI_EXIT_OK;
+    return code ? code : CLI_EXIT_OK;
 }
 
 const cli_command cli_cmd_phase = {

@@ -153,23 +153,35 @@ static int opt_index(const cli_command *cmd, const char *name)
     return -1;
 }
 
-/* opt_index through the args' cache.  Only a name that is the table's
- * own string (found by pointer) is kept: its bytes never change, where a
- * name built in a buffer could name another option at the same address
- * later.  A miss is not kept either. */
+/* opt_index through the args' cache.  A name that is the table's own
+ * string (found by pointer) is kept by its address: its bytes never
+ * change.  Any other name (one built in a buffer, which may hold another
+ * name at the same address later, or one the command does not declare)
+ * is kept by its content, hashed, and compared in full on a hit. */
 static int cached_index(const cli_args *a, const char *name)
 {
     cli_optcache *c = (cli_optcache *)&a->optcache; /* see cli.h */
-    size_t h = (((uintptr_t)name >> 3) ^ ((uintptr_t)name >> 9)) % CLI_OPTCACHE;
-    if (c->cmd == a->cmd && c->slot[h].name == name) return c->slot[h].index;
+    if (c->cmd != a->cmd) {
+        memset(c, 0, sizeof *c);
+        c->cmd = a->cmd;
+    }
+    size_t h = (size_t)(((uint64_t)(uintptr_t)name * 0x9E3779B97F4A7C15u) >> 58); /* 64 */
+    if (c->slot[h].name == name) return c->slot[h].index;
+    uint32_t fh = 2166136261u; /* FNV-1a */
+    size_t len = 0;
+    for (; name[len] && len < sizeof c->text[0].text; len++)
+        fh = (fh ^ (unsigned char)name[len]) * 16777619u;
+    int fits = len < sizeof c->text[0].text;
+    size_t t = fh % CLI_OPTCACHE_TEXT;
+    if (fits && c->text[t].text[0] && strcmp(c->text[t].text, name) == 0)
+        return c->text[t].index;
     int i = opt_index(a->cmd, name);
     if (i >= 0 && a->cmd->opts[i].name == name) {
-        if (c->cmd != a->cmd) {
-            memset(c, 0, sizeof *c);
-            c->cmd = a->cmd;
-        }
         c->slot[h].name = name;
         c->slot[h].index = i;
+    } else if (fits && len > 0) {
+        memcpy(c->text[t].text, name, len + 1);
+        c->text[t].index = i;
     }
     return i;
 }
@@ -243,6 +255,67 @@ int cli_flag(const cli_args *a, const char *name)
     return strcmp(v, "0") != 0 && strcmp(v, "no") != 0 && strcmp(v, "false") != 0;
 }
 
+static int is_digit_byte(char c)
+{
+    return c >= '0' && c <= '9';
+}
+
+/* In a list of numbers with units a comma straight between two digits is
+ * a decimal comma (1,83 for 1.83) or a thousands separator (1,830kHz) as
+ * often as a list (1 and 83): refused.  Band names (160,80) and orders
+ * (1,2,3) have no decimals.  Returns -1 after cli_error. */
+static int decimal_comma(const cli_ctx *ctx, const char *name, const char *v)
+{
+    if (strcmp(name, "band") == 0 || strcmp(name, "order") == 0) return 0;
+    for (const char *dc = v; *dc; dc++) {
+        if ((*dc != ',' && *dc != ';') || dc == v || !is_digit_byte(dc[-1]) ||
+            !is_digit_byte(dc[1]))
+            continue;
+        cli_error(ctx, name, strcmp(name, "length") == 0
+                      ? "'.' as the decimal mark and units or a space between "
+                        "items, e.g. 20.3m, or 20m,3m for two lines"
+                      : "'.' as the decimal mark and units or a space between "
+                        "items, e.g. 1.83MHz,3.5MHz or 1.83, 3.5",
+                  "'%s': a comma between digits may be a decimal comma or a "
+                  "thousands separator", v);
+        return -1;
+    }
+    return 0;
+}
+
+/* The items of copy (split in place on ',' and ';', empty ones and
+ * leading blanks dropped, as strtok_r would) after the *n already in
+ * items.  Returns -1 after cli_error. */
+static int split_items(const cli_ctx *ctx, const char *name, char *p, const char **items,
+                       size_t *n, size_t max)
+{
+    size_t before = *n;
+    for (;;) {
+        while (*p == ',' || *p == ';') p++;
+        if (*p == '\0') break;
+        char *tok = p;
+        while (*p && *p != ',' && *p != ';') p++;
+        int last = *p == '\0';
+        *p = '\0';
+        while (*tok == ' ') tok++;
+        if (*tok != '\0') {
+            if (*n == max) {
+                cli_error(ctx, name, "fewer items", "more than %zu items", max);
+                return -1;
+            }
+            items[(*n)++] = tok;
+        }
+        if (last) break;
+        p++;
+    }
+    if (*n == before) {
+        /* --freq '' or ',,' must not pass as "no frequency given" */
+        cli_error(ctx, name, "one or more values separated by commas", "value is empty");
+        return -1;
+    }
+    return 0;
+}
+
 int cli_items(const cli_ctx *ctx, const cli_args *a, const char *name,
               char *buf, size_t bufsize, const char **items, size_t max)
 {
@@ -255,43 +328,11 @@ int cli_items(const cli_ctx *ctx, const cli_args *a, const char *name,
             cli_error(ctx, name, "a shorter list", "list is too long");
             return -1;
         }
-        /* In a list of numbers with units a comma straight between two
-         * digits is a decimal comma (1,83 for 1.83) or a thousands
-         * separator (1,830kHz) as often as a list (1 and 83): refused.
-         * Band names (160,80) and orders (1,2,3) have no decimals. */
-        const char *dc = strcmp(name, "band") && strcmp(name, "order") ? v : NULL;
-        while (dc && (dc = strpbrk(dc, ",;")) != NULL) {
-            if (dc > v && dc[-1] >= '0' && dc[-1] <= '9' && dc[1] >= '0' && dc[1] <= '9') {
-                cli_error(ctx, name, strcmp(name, "length") == 0
-                              ? "'.' as the decimal mark and units or a space between "
-                                "items, e.g. 20.3m, or 20m,3m for two lines"
-                              : "'.' as the decimal mark and units or a space between "
-                                "items, e.g. 1.83MHz,3.5MHz or 1.83, 3.5",
-                          "'%s': a comma between digits may be a decimal comma or a "
-                          "thousands separator", v);
-                return -1;
-            }
-            dc++;
-        }
+        if (decimal_comma(ctx, name, v)) return -1;
         char *copy = buf + used;
         memcpy(copy, v, len + 1);
         used += len + 1;
-        char *save = NULL;
-        size_t before = n;
-        for (char *tok = strtok_r(copy, ",;", &save); tok; tok = strtok_r(NULL, ",;", &save)) {
-            while (*tok == ' ') tok++;
-            if (*tok == '\0') continue;
-            if (n == max) {
-                cli_error(ctx, name, "fewer items", "more than %zu items", max);
-                return -1;
-            }
-            items[n++] = tok;
-        }
-        if (n == before) {
-            /* --freq '' or ',,' must not pass as "no frequency given" */
-            cli_error(ctx, name, "one or more values separated by commas", "value is empty");
-            return -1;
-        }
+        if (split_items(ctx, name, copy, items, &n, max)) return -1;
     }
     return (int)n;
 }
