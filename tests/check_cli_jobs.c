@@ -98,7 +98,7 @@ static void same_with_jobs(const char *args, const char *input, int plots, const
     snprintf(both, sizeof both, "%s 2>&1", with);
     cli_result one_both = run_cli(env, both, NULL);
     char *one_files = plots ? dir_contents(dir) : NULL;
-    ck_assert_msg(one.out[0] != '\0', "%s: no output", with);
+    ck_assert_msg(one.out[0] != '\0' || one.err[0] != '\0', "%s: no output", with);
     for (size_t j = 0; j < sizeof jobs / sizeof jobs[0]; j++) {
         snprintf(with, sizeof with, "%s --jobs %d", cmd, jobs[j]);
         cli_result r = run_cli(env, with, NULL);
@@ -254,12 +254,16 @@ START_TEST(full_disk)
     ck_assert_int_eq(WIFEXITED(status) ? WEXITSTATUS(status) : -1, 2);
     FILE *fp = fopen(err, "r");
     ck_assert_ptr_nonnull(fp);
-    char text[4096];
+    char text[256];
+    /* the last line (the bad rows of the input come before it) */
+    if (fseek(fp, -(long)(sizeof text - 1), SEEK_END) != 0) rewind(fp);
     size_t n = fread(text, 1, sizeof text - 1, fp);
     fclose(fp);
     text[n] = '\0';
-    has(text, "output: write failed");
-    ck_assert_int_eq(count_lines(text), 1);
+    char *last = n > 1 ? memrchr(text, '\n', n - 1) : NULL;
+    last = last ? last + 1 : text;
+    ck_assert_msg(strncmp(last, "coaxline: phase: output: write failed\n", 39) == 0,
+                  "last line of stderr: %.200s", last);
     unlink(err);
     unlink(file);
     free(err);
