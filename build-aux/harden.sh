@@ -56,6 +56,35 @@ tsan)
     make -j"$jobs" >/dev/null
     make tests/check_threads >/dev/null
     TSAN_OPTIONS=halt_on_error=1 CK_FORK=no ./tests/check_threads
+    # coaxline --jobs 3 on every batch case of tests/golden/cases.txt, its
+    # input repeated (5000 rows for cut and phase: more than one block of
+    # 2048, so reading, running and writing overlap; 300 for the others:
+    # several chunks of 128 at once), plus {line} plots; a race exits 66,
+    # and the bytes must be --jobs 1's.
+    tmp=$(mktemp -d)
+    cp tests/golden/input/* "$tmp"/
+    bin="$PWD/cli/coaxline"
+    grep -- '--input' tests/golden/cases.txt | grep -v '^#' | sed 's/^coaxline //' |
+    while read -r line; do
+        in=$(echo "$line" | sed 's/.*--input \([^ ]*\).*/\1/')
+        case "$line" in cut*|phase*) rows=5000 ;; *) rows=300 ;; esac
+        (cd "$tmp" && awk -v want="$rows" 'NR == 1 { print; next } { body[++n] = $0 }
+            END { for (k = 0; k < want; k += n) for (i = 1; i <= n; i++) print body[i] }' \
+            "$in" > "big-$in")
+        args=$(echo "$line" | sed "s/--input $in/--input big-$in/")
+        case "$line" in phase*|pattern*) args="$args --plot p-{line}.svg" ;; esac
+        for j in 1 3; do
+            rc=0
+            (cd "$tmp" && TSAN_OPTIONS="halt_on_error=1 exitcode=66" \
+                $bin $args --jobs $j > "out.$j" 2> "err.$j") || rc=$?
+            if [ "$rc" = 66 ]; then echo "tsan: coaxline $args --jobs $j: race"; cat "$tmp/err.$j"; exit 1; fi
+        done
+        cmp -s "$tmp/out.1" "$tmp/out.3" && cmp -s "$tmp/err.1" "$tmp/err.3" ||
+            { echo "tsan: coaxline $args: --jobs 3 differs from --jobs 1"; exit 1; }
+        echo "tsan: coaxline $args --jobs 3: no race, same bytes"
+        rm -f "$tmp"/p-*.svg
+    done
+    rm -rf "$tmp"
     ;;
 fuzz)
     # Each libFuzzer target for a bounded time, from the seed corpus; new

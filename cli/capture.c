@@ -85,3 +85,10 @@ void cli_replay(const cli_ctx *ctx, const struct cli_capture *c, const cli_span 
         }
     }
 }
+
+void cli_capture_rewind(struct cli_capture *c)
+{
+    if (fseek(c->out, 0, SEEK_SET) || fseek(c->err, 0, SEEK_SET)) c->failed = 1;
+    c->nmark = 0;
+    c->whole_run = 0;
+}

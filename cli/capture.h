@@ -26,6 +26,8 @@ typedef struct cli_span {
 /* Two memory streams, no marks: 0, or -1 (failed set) when out of memory. */
 int cli_capture_open(struct cli_capture *c);
 void cli_capture_close(struct cli_capture *c);
+/* Empty again for the next block, the memory kept. */
+void cli_capture_rewind(struct cli_capture *c);
 /* The capture's position before and after one row (whole_run reset). */
 void cli_span_begin(struct cli_capture *c, cli_span *s);
 void cli_span_end(const struct cli_capture *c, cli_span *s);

@@ -37,7 +37,7 @@
 #include "capture.h"
 #include "cli.h"
 
-enum { BLOCK_ROWS = 1024, CHUNK_ROWS = 64, NCHUNKS = BLOCK_ROWS / CHUNK_ROWS };
+enum { BLOCK_ROWS = 2048, CHUNK_ROWS = 128, NCHUNKS = BLOCK_ROWS / CHUNK_ROWS };
 #define NO_CELL SIZE_MAX
 
 typedef struct slot {
@@ -162,7 +162,9 @@ static void row_pointers(const block *bk, const slot *s, const char **row, const
 static void run_chunk(const pool *p, cli_ctx *ctx, cli_args *args, block *bk, size_t c)
 {
     struct cli_capture *cap = &bk->chunk[c];
-    if (cli_capture_open(cap)) return;
+    if (cap->out) cli_capture_rewind(cap);
+    else if (cli_capture_open(cap)) return;
+    if (cap->failed) return;
     ctx->out = cap->out;
     ctx->capture = cap;
     size_t end = (c + 1) * CHUNK_ROWS < bk->n ? (c + 1) * CHUNK_ROWS : bk->n;
@@ -295,8 +297,7 @@ static int write_block(pool *p, cli_ctx *ctx, cli_args *args, block *bk)
     fflush(bk->reader.err);
     for (size_t i = 0; i < bk->n; i++)
         code = cli_batch_worse(code, write_slot(p, ctx, args, bk, &bk->slots[i]));
-    for (size_t c = 0; c < NCHUNKS; c++) cli_capture_close(&bk->chunk[c]);
-    cli_capture_close(&bk->reader);
+    cli_capture_rewind(&bk->reader);
     return code;
 }
 
@@ -304,13 +305,14 @@ static int write_block(pool *p, cli_ctx *ctx, cli_args *args, block *bk)
  * workers run the one before. */
 static int pipeline(pool *p, cli_batch *b, cli_ctx *ctx, cli_args *args, block *bk)
 {
-    if (cli_capture_open(&bk[0].reader)) return cli_batch_run_rows(b, ctx, args);
+    if (cli_capture_open(&bk[0].reader) || cli_capture_open(&bk[1].reader))
+        return cli_batch_run_rows(b, ctx, args);
     int code = CLI_EXIT_OK, cur = 0, ended = fill(&bk[0], b, ctx, args), rest = 0;
     submit(p, &bk[0]);
     for (;;) {
         int nxt = 1 - cur;
         bk[nxt].n = 0;
-        if (!ended && cli_capture_open(&bk[nxt].reader) == 0) {
+        if (!ended && !bk[nxt].reader.failed) {
             ended = fill(&bk[nxt], b, ctx, args);
             submit(p, &bk[nxt]);
         } else if (!ended) {
@@ -350,7 +352,11 @@ int cli_jobs_run(cli_batch *b, cli_ctx *ctx, cli_args *args)
     pthread_cond_broadcast(&p->work);
     pthread_mutex_unlock(&p->mu);
     for (int i = 0; i < nthreads; i++) pthread_join(tid[i], NULL);
-    for (int i = 0; i < 2; i++) free(bk[i].arena);
+    for (int i = 0; i < 2; i++) {
+        free(bk[i].arena);
+        cli_capture_close(&bk[i].reader);
+        for (size_t c = 0; c < NCHUNKS; c++) cli_capture_close(&bk[i].chunk[c]);
+    }
     pthread_cond_destroy(&p->work);
     pthread_cond_destroy(&p->done);
     pthread_mutex_destroy(&p->mu);

@@ -679,6 +679,48 @@ static void bench_row_paths(void)
                per_row > 0.0 ? 1.0 / per_row : 0.0, allocs);
         unlink(big);
         unlink(small);
+/* ---- --jobs 2 -------------------------------------------------------- */
+
+/* phase on cfg.rows generated rows with --jobs 1 and --jobs 2, in
+ * rounds side by side; the two outputs compared first on the sample. */
+static void bench_jobs(void)
+{
+    char full[4096], sample[4096], out1[4096], out2[4096];
+    path(full, sizeof full, cfg.tmp, "phase-jobs.csv");
+    path(sample, sizeof sample, cfg.tmp, "phase-jobs-sample.csv");
+    path(out1, sizeof out1, cfg.tmp, "out-jobs1.csv");
+    path(out2, sizeof out2, cfg.tmp, "out-jobs2.csv");
+    generate("phase", cfg.rows, full);
+    generate("phase", SAMPLE_ROWS < cfg.rows ? SAMPLE_ROWS : cfg.rows, sample);
+    printf("\nphase --jobs 2: %ld rows, %.1f MB of input\n", cfg.rows, (double)file_size(full) / 1e6);
+    char *one[] = { cfg.coaxline, "phase", "--input", sample, "--format", "csv", "--jobs", "1", NULL };
+    char *two[] = { cfg.coaxline, "phase", "--input", sample, "--format", "csv", "--jobs", "2", NULL };
+    run_result r1 = run(one, out1, NULL), r2 = run(two, out2, NULL);
+    if (r1.status == 2 && r2.status == 2) {
+        printf("    skipped: this coaxline has no --jobs\n");
+    } else {
+        check_failed |= r1.status != 0 || r2.status != 0;
+        check_failed |= same_bytes("--jobs 2 vs --jobs 1:", out2, out1);
+        timed t[2];
+        memset(t, 0, sizeof t);
+        t[0] = (timed){ .label = "coaxline --jobs 1",
+                        .argv = { cfg.coaxline, "phase", "--input", full, "--format=csv",
+                                  "--jobs=1" } };
+        t[1] = (timed){ .label = "coaxline --jobs 2",
+                        .argv = { cfg.coaxline, "phase", "--input", full, "--format=csv",
+                                  "--jobs=2" } };
+        time_rounds(t, 2, cfg.repeat);
+        for (int k = 0; k < 2; k++) {
+            summarise(&t[k]);
+            print_timed(&t[k], file_size(full));
+        }
+        print_ratio("--jobs 1 / --jobs 2", &t[0], &t[1]);
+    }
+    if (!cfg.keep) {
+        unlink(full);
+        unlink(sample);
+        unlink(out1);
+        unlink(out2);
     }
 }
 
@@ -792,6 +834,7 @@ int main(int argc, char **argv)
         bench_command(c);
     }
     bench_row_paths();
+    bench_jobs();
     bench_startup();
     if (!cfg.keep) rmdir(cfg.tmp);
     else printf("\nfiles kept in %s\n", cfg.tmp);
