@@ -93,10 +93,10 @@ static int geometric_tolerance(cli_ctx *ctx, const cli_goal *g, double freq_hz,
     if (st == CXL_OK && (g->kind == CLI_GOAL_FB ? free_db < g->goal_db : free_db > g->goal_db))
         code = CLI_EXIT_TOLERANCE;
     else if (st == CXL_OK && g->kind == CLI_GOAL_FB)
-        st = cxl_budget_phase_for_front_to_back(pair, freq_hz, g->spec.elevation_deg, g->goal_db,
+        st = cxl_budget_phase_for_front_to_back(pair, g->goal_db, freq_hz, g->spec.elevation_deg,
                                                 &tol);
     else if (st == CXL_OK)
-        st = cxl_budget_phase_for_rear_null(pair, freq_hz, g->spec.elevation_deg, g->goal_db, &tol);
+        st = cxl_budget_phase_for_rear_null(pair, g->goal_db, freq_hz, g->spec.elevation_deg, &tol);
     cxl_array_pair_free(pair);
     if (st != CXL_OK) {
         char f[32];

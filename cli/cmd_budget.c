@@ -46,7 +46,7 @@ static int budget_points(cli_ctx *ctx, const cli_goal *g, const cli_freq_point *
         if (!r->reachable) result = CLI_EXIT_TOLERANCE;
         r->len_m = NAN;
         if (r->reachable && spec->has_vf &&
-            cxl_budget_length_for_phase(r->tol_deg, f, spec->vf, &r->len_m) != CXL_OK)
+            cxl_budget_length_for_phase(r->tol_deg, spec->vf, f, &r->len_m) != CXL_OK)
             r->len_m = NAN;
     }
     return result;

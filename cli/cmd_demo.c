@@ -199,7 +199,7 @@ static int demo_pair(cli_ctx *ctx, demo *d)
         double lo, hi, delta, err, unc, allowed;
         cxl_verdict v;
         if (cxl_bands_edges(bt, bands[i], 0, 1, &lo, &hi) != CXL_OK ||
-            cxl_pair_check(feeds, 2, d->vf, hi, TOL_DEG, 0.005, 0.0, &delta, &err, &unc, &v) != CXL_OK ||
+            cxl_pair_check(feeds, 2, TOL_DEG, d->vf, hi, 0.005, 0.0, &delta, &err, &unc, &v) != CXL_OK ||
             cxl_pair_max_mismatch(TOL_DEG, d->vf, hi, &allowed) != CXL_OK)
             FAIL("pair check");
         fprintf(o, "   %-5s at %s MHz: %s deg apart, allowed %s mm for %s deg: %s\n", bands[i],

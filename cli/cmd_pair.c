@@ -132,8 +132,8 @@ static int worse_check(const check *a, const check *b)
  * into the load (the library's check). */
 static int load_check(cli_ctx *ctx, const pair_set *s, double f, int want_allowed, check *c)
 {
-    cxl_status st = cxl_pair_load_check(s->load.handle, s->len, (size_t)s->nlen, s->vf, f,
-                                        s->reachable ? s->tol : 360.0, s->length_tol_m,
+    cxl_status st = cxl_pair_load_check(s->load.handle, s->len, (size_t)s->nlen,
+                                        s->reachable ? s->tol : 360.0, s->vf, f, s->length_tol_m,
                                         s->vf_tol, &c->err_deg, &c->unc_deg, &c->elec_deg,
                                         &c->imbalance_db, &c->verdict);
     if (st != CXL_OK) return cli_load_error(ctx, &s->load, f, st);
@@ -152,7 +152,7 @@ static int load_check(cli_ctx *ctx, const pair_set *s, double f, int want_allowe
 static int check_point(cli_ctx *ctx, const pair_set *s, double f, int want_allowed, check *c)
 {
     /* the library's verdict needs a tolerance; an unreachable goal fails */
-    if (cxl_pair_check(s->len, (size_t)s->nlen, s->vf, f, s->reachable ? s->tol : 360.0,
+    if (cxl_pair_check(s->len, (size_t)s->nlen, s->reachable ? s->tol : 360.0, s->vf, f,
                        s->length_tol_m, s->vf_tol, &c->delta_m, &c->err_deg, &c->unc_deg,
                        &c->verdict) != CXL_OK ||
         !isfinite(c->err_deg) || !isfinite(c->unc_deg))

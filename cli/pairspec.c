@@ -253,7 +253,7 @@ int cli_pair_spec_build(cli_ctx *ctx, const cli_pair_spec *s, int as_built, doub
     double phase = 0.0, imbalance = 0.0;
     if (as_built) {
         /* extra lag of B over A against the design, in degrees */
-        if (cxl_array_pair_built_phase(s->delay_s, delay, freq_hz, s->phase_error_deg,
+        if (cxl_array_pair_built_phase(s->delay_s, delay, s->phase_error_deg, freq_hz,
                                        &phase) != CXL_OK)
             return cli_error(ctx, "phase-error", "smaller values",
                              "the as-built phase error cannot be worked out");

@@ -1515,7 +1515,7 @@ cxl_status cxl_array_pair_feed(const cxl_array_pair *pair, int element,
 
 cxl_status cxl_array_pair_built_phase(const double *design_delay_s,
                                       const double *built_delay_s,
-                                      double freq_hz, double extra_phase_deg,
+                                      double extra_phase_deg, double freq_hz,
                                       double *phase_error_deg)
 {
     if (!design_delay_s || !built_delay_s || !phase_error_deg || !cxl__finite_pos(freq_hz) ||

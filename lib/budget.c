@@ -104,9 +104,9 @@ static double fb_shortfall(double d_deg, void *params)
 }
 
 cxl_status cxl_budget_phase_for_front_to_back(const cxl_array_pair *pair,
+                                              double ratio_db,
                                               double freq_hz,
                                               double elevation_deg,
-                                              double ratio_db,
                                               double *phase_error_deg)
 {
     double fb0, limit[2];
@@ -162,9 +162,9 @@ static double null_excess(double d_deg, void *params)
 }
 
 cxl_status cxl_budget_phase_for_rear_null(const cxl_array_pair *pair,
+                                          double depth_db,
                                           double freq_hz,
                                           double elevation_deg,
-                                          double depth_db,
                                           double *phase_error_deg)
 {
     double az, depth0, limit[2];
@@ -194,11 +194,11 @@ cxl_status cxl_budget_phase_for_rear_null(const cxl_array_pair *pair,
 }
 
 cxl_status cxl_budget_length_for_phase(double phase_error_deg,
-                                       double freq_hz, double vf,
+                                       double vf, double freq_hz,
                                        double *length_m)
 {
     if (!length_m || !cxl__finite_nonneg(phase_error_deg))
         return CXL_EINVAL;
-    return cxl_line_length_from_degrees(phase_error_deg, freq_hz, vf,
+    return cxl_line_length_from_degrees(phase_error_deg, vf, freq_hz,
                                         length_m);
 }

@@ -10,7 +10,21 @@
  *   - no global mutable state, nothing printed, the process-wide GSL error
  *     handler is never changed (host programs should turn it off:
  *     gsl_set_error_handler_off());
- *   - numbers are parsed and formatted without reading the C locale.
+ *   - numbers are parsed and formatted without reading the C locale;
+ *   - one argument order for the same quantities, so that two doubles
+ *     swapped cannot read as a plausible call: the handle; the quantity
+ *     the function converts or judges (lengths, delays, degrees, the goal
+ *     or tolerance); the line (Z0, gamma, vf); the frequency, then the
+ *     direction (azimuth, elevation); what is at the line's ends and how
+ *     well the inputs are known (fixture, allowance, load, tolerances);
+ *     the outputs last.  It reads as said aloud: "this length, on this
+ *     line, at this frequency", e.g.
+ *     cxl_line_degrees_from_length(length_m, vf, freq_hz, &phase_deg) and
+ *     cxl_line_length_from_degrees(phase_deg, vf, freq_hz, &length_m).
+ *     tests/api_order.sh checks it by parameter name;
+ *   - counts are returned as size_t (0 for a NULL handle), never through
+ *     a status and an out-parameter: a count of a valid handle cannot
+ *     fail, and reads in a loop bound.
  *
  * Copyright (C) 2026 the libcoaxline authors.  GPL-3.0-or-later.
  */
@@ -118,8 +132,8 @@ cxl_status cxl_line_length_from_delay(double delay_s, double vf,
 cxl_status cxl_line_degrees_from_length(double length_m, double vf,
                                         double freq_hz, double *phase_deg);
 /* Line length that is phase_deg long at freq_hz. */
-cxl_status cxl_line_length_from_degrees(double phase_deg, double freq_hz,
-                                        double vf, double *length_m);
+cxl_status cxl_line_length_from_degrees(double phase_deg, double vf,
+                                        double freq_hz, double *length_m);
 /* Phase in degrees that a delay makes at a frequency: 360 f t. */
 cxl_status cxl_line_degrees_from_delay(double delay_s, double freq_hz,
                                        double *phase_deg);
@@ -394,9 +408,9 @@ cxl_status cxl_pair_phase_error(double length_m, double reference_m,
 /* The same with the reference given as an electrical length reference_deg
  * at reference_freq_hz on the same cable (CXL_ERANGE when that rounds to no
  * length). */
-cxl_status cxl_pair_phase_error_ref_deg(double length_m, double vf,
-                                        double reference_deg,
+cxl_status cxl_pair_phase_error_ref_deg(double length_m, double reference_deg,
                                         double reference_freq_hz,
+                                        double vf,
                                         double freq_hz,
                                         double *phase_error_deg);
 /* Length mismatch that makes tolerance_deg at freq_hz:
@@ -427,8 +441,8 @@ cxl_status cxl_pair_verdict(double phase_error_deg, double uncertainty_deg,
  * difference (longest minus shortest), its phase error at freq_hz, the
  * uncertainty of that error (each length within length_tol_m, VF within
  * vf_tol) and the verdict against tolerance_deg. */
-cxl_status cxl_pair_check(const double *lengths_m, size_t count, double vf,
-                          double freq_hz, double tolerance_deg,
+cxl_status cxl_pair_check(const double *lengths_m, size_t count, double tolerance_deg,
+                          double vf, double freq_hz,
                           double length_tol_m, double vf_tol,
                           double *delta_m, double *phase_error_deg,
                           double *uncertainty_deg, cxl_verdict *verdict);
@@ -466,8 +480,8 @@ cxl_status cxl_pair_load_transfer(const cxl_pair_load *load, double length_m,
  * the verdict of cxl_pair_verdict. */
 cxl_status cxl_pair_load_check(const cxl_pair_load *load,
                                const double *lengths_m, size_t count,
-                               double vf, double freq_hz,
-                               double tolerance_deg, double length_tol_m,
+                               double tolerance_deg, double vf,
+                               double freq_hz, double length_tol_m,
                                double vf_tol, double *phase_error_deg,
                                double *uncertainty_deg,
                                double *electrical_error_deg,
@@ -955,7 +969,7 @@ cxl_status cxl_array_pair_feed(const cxl_array_pair *pair, int element,
  * (built_delay_s[0..1], all >= 0), plus a fixed extra_phase_deg. */
 cxl_status cxl_array_pair_built_phase(const double *design_delay_s,
                                       const double *built_delay_s,
-                                      double freq_hz, double extra_phase_deg,
+                                      double extra_phase_deg, double freq_hz,
                                       double *phase_error_deg);
 cxl_status cxl_array_pair_set_imbalance(cxl_array_pair *pair,
                                         double imbalance_db);
@@ -1031,9 +1045,9 @@ cxl_status cxl_budget_phase_for_null(double depth_db, double imbalance_db,
  * when the error-free pair already misses ratio_db; 180 when no error up to
  * 180 degrees brings the ratio below ratio_db. */
 cxl_status cxl_budget_phase_for_front_to_back(const cxl_array_pair *pair,
+                                              double ratio_db,
                                               double freq_hz,
                                               double elevation_deg,
-                                              double ratio_db,
                                               double *phase_error_deg);
 /* Largest phase error on element 1 (either sign; the smaller of the two
  * limits is returned, in [0, 180]) for which the pair's rear null at
@@ -1053,14 +1067,14 @@ cxl_status cxl_budget_phase_for_front_to_back(const cxl_array_pair *pair,
  * the pair has no forward response); 180 when no error up to 180 degrees
  * makes the null shallower than depth_db. */
 cxl_status cxl_budget_phase_for_rear_null(const cxl_array_pair *pair,
+                                          double depth_db,
                                           double freq_hz,
                                           double elevation_deg,
-                                          double depth_db,
                                           double *phase_error_deg);
 /* Length mismatch of a line with velocity factor vf that makes
  * phase_error_deg (>= 0) at freq_hz (cxl_line_length_from_degrees). */
 cxl_status cxl_budget_length_for_phase(double phase_error_deg,
-                                       double freq_hz, double vf,
+                                       double vf, double freq_hz,
                                        double *length_m);
 
 /* ---- hybrid.c: 0-degree combiner and transformer values ---------------- */
@@ -1150,9 +1164,9 @@ cxl_status cxl_loss_cable_difference(const cxl_loss_cable *loss,
  * when the line turns a reactive load into a short at its input, or when
  * alpha l exceeds 345 Np.  A very high-impedance load (a probe, an open
  * end) is given as a large resistance, e.g. 1e9 ohm. */
-cxl_status cxl_transfer_ratio(double z0_re_ohm, double z0_im_ohm,
-                              double alpha_np_per_m, double beta_rad_per_m,
-                              double length_m, double load_re_ohm,
+cxl_status cxl_transfer_ratio(double length_m, double z0_re_ohm,
+                              double z0_im_ohm, double alpha_np_per_m,
+                              double beta_rad_per_m, double load_re_ohm,
                               double load_im_ohm, double *ratio_re,
                               double *ratio_im);
 /* A ratio as 20 log10 |ratio| (dB; above 0 where the load sees more
@@ -1169,23 +1183,23 @@ cxl_status cxl_transfer_delay(double ratio_re, double ratio_im,
  * freq_hz: transfer in dB, delay in degrees, and the electrical length
  * 360 f l / (vf c) in degrees (electrical_deg may be NULL; CXL_ERANGE when
  * the phase constant or that length over- or underflows). */
-cxl_status cxl_transfer_lossless(double z0_ohm, double vf, double length_m,
+cxl_status cxl_transfer_lossless(double length_m, double z0_ohm, double vf,
                                  double freq_hz, double load_re_ohm,
                                  double load_im_ohm, double *transfer_db,
                                  double *delay_deg, double *electrical_deg);
 /* The same for a physical cable model (complex gamma and Z0 at freq_hz,
  * flags as for cxl_loss_model_gamma); electrical_deg is beta l. */
-cxl_status cxl_transfer_model(const cxl_loss_model *model, double freq_hz,
-                              unsigned flags, double length_m,
+cxl_status cxl_transfer_model(const cxl_loss_model *model, double length_m,
+                              double freq_hz, unsigned flags,
                               double load_re_ohm, double load_im_ohm,
                               double *transfer_db, double *delay_deg,
                               double *electrical_deg);
 /* Input impedance Z0 (1 + G e^{-2 gamma l}) / (1 - G e^{-2 gamma l}) of the
  * same line and load; CXL_ERANGE when it is an open circuit. */
-cxl_status cxl_transfer_input_impedance(double z0_re_ohm, double z0_im_ohm,
+cxl_status cxl_transfer_input_impedance(double length_m, double z0_re_ohm,
+                                        double z0_im_ohm,
                                         double alpha_np_per_m,
-                                        double beta_rad_per_m,
-                                        double length_m, double load_re_ohm,
+                                        double beta_rad_per_m, double load_re_ohm,
                                         double load_im_ohm, double *zin_re_ohm,
                                         double *zin_im_ohm);
 /* What an analyzer shows on length_m of a modelled cable with its far end
@@ -1235,11 +1249,11 @@ cxl_status cxl_transfer_stub_dip(const cxl_loss_model *model, unsigned flags,
  * does not follow this law. */
 typedef struct cxl_drift cxl_drift;
 
-/* From n readings: frequency, VF and (vf_err may be NULL) its standard
+/* From n readings: frequency, VF and (vf_errs may be NULL) its standard
  * error, used as weight 1/err^2.  CXL_ERANGE unless there are two distinct
  * frequencies; with two points the line goes through both. */
-cxl_status cxl_drift_new(const double *freq_hz, const double *vf,
-                         const double *vf_err, size_t n, cxl_drift **drift);
+cxl_status cxl_drift_new(const double *freqs_hz, const double *vfs,
+                         const double *vf_errs, size_t n, cxl_drift **drift);
 /* From the per-reading VFs of a stub fit; freq_res_hz (>= 0) the analyzer's
  * resolution, which weights each reading by its VF error VF df / f (equal
  * weights when 0; CXL_ERANGE when that error under- or overflows). */

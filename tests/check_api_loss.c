@@ -179,7 +179,7 @@ ADAPTER(transfer_lossless)
 }
 ADAPTER(transfer_model)
 {
-    return cxl_transfer_model(P(0, g_model), a[0], to_uint(a[1]), a[2], a[3], a[4],
+    return cxl_transfer_model(P(0, g_model), a[0], a[1], to_uint(a[2]), a[3], a[4],
                               P(1, &o[0]), P(2, &o[1]), P(3, &o[2]));
 }
 ADAPTER(transfer_input_impedance)

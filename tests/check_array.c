@@ -351,10 +351,10 @@ START_TEST(test_invalid_arguments)
     ck_assert_int_eq(cxl_array_directivity(p, INFINITY, &v), CXL_EINVAL);
     ck_assert_int_eq(cxl_array_null_depth(NAN, 0.0, &v), CXL_EINVAL);
     ck_assert_int_eq(cxl_budget_phase_for_null(3.0, 0.0, &v), CXL_EINVAL);
-    ck_assert_int_eq(cxl_budget_phase_for_front_to_back(NULL, F_HZ, 0.0,
-                                                        20.0, &v),
+    ck_assert_int_eq(cxl_budget_phase_for_front_to_back(NULL, 20.0, F_HZ,
+                                                        0.0, &v),
                      CXL_EINVAL);
-    ck_assert_int_eq(cxl_budget_length_for_phase(-1.0, F_HZ, 0.66, &v),
+    ck_assert_int_eq(cxl_budget_length_for_phase(-1.0, 0.66, F_HZ, &v),
                      CXL_EINVAL);
     /* out-parameters untouched on failure */
     v = 42.0;
@@ -412,12 +412,12 @@ START_TEST(test_budget_front_to_back)
      * allows e = 2 atan(0.1) = 11.42 degrees. */
     cxl_array_pair *p = endfire();
     double d;
-    ck_assert_int_eq(cxl_budget_phase_for_front_to_back(p, F_HZ, 0.0, 20.0,
+    ck_assert_int_eq(cxl_budget_phase_for_front_to_back(p, 20.0, F_HZ, 0.0,
                                                         &d), CXL_OK);
     ck_assert_double_eq_tol(d, 2.0 * atan(0.1) / DEG, 1e-8);
     /* 1 dB imbalance caps F/B at 24.81 dB: 30 dB is out of reach. */
     cxl_array_pair_set_imbalance(p, 1.0);
-    ck_assert_int_eq(cxl_budget_phase_for_front_to_back(p, F_HZ, 0.0, 30.0,
+    ck_assert_int_eq(cxl_budget_phase_for_front_to_back(p, 30.0, F_HZ, 0.0,
                                                         &d), CXL_ERANGE);
     cxl_array_pair_free(p);
 }
@@ -428,7 +428,7 @@ START_TEST(test_budget_length)
     /* degrees = 360 f L / (VF c) (DESIGN.md physics, any line text):
      * 10 degrees at 1.83 MHz, VF 0.66 is 10/360 * 0.66 c / f = 3.0034 m. */
     double len;
-    ck_assert_int_eq(cxl_budget_length_for_phase(10.0, 1.83e6, 0.66, &len),
+    ck_assert_int_eq(cxl_budget_length_for_phase(10.0, 0.66, 1.83e6, &len),
                      CXL_OK);
     ck_assert_double_eq_tol(len, 10.0 / 360.0 * 0.66 * 299792458.0 / 1.83e6,
                             1e-9);
@@ -854,7 +854,7 @@ START_TEST(test_rear_null_crossfire_closed_form)
             for (size_t g = 0; g < sizeof goal_db / sizeof goal_db[0]; g++) {
                 double r = pow(10.0, goal_db[g] / 20.0), tol;
                 double want = 2.0 * atan(r * sin(kd) / (1.0 - r * cos(kd))) / DEG;
-                ck_assert_int_eq(cxl_budget_phase_for_rear_null(p, f_hz[j], 0.0, goal_db[g], &tol),
+                ck_assert_int_eq(cxl_budget_phase_for_rear_null(p, goal_db[g], f_hz[j], 0.0, &tol),
                                  CXL_OK);
                 ck_assert_double_eq_tol(tol, want, 1e-6);
                 /* the closed form relative to the in-phase sum allows far
@@ -934,7 +934,7 @@ START_TEST(test_rear_null_budget_against_pattern)
         cxl_array_pair *p = build_case(c);
         double az, free_db, tol;
         ck_assert_int_eq(cxl_array_rear_null(p, c->f_hz, c->el_deg, &az, &free_db), CXL_OK);
-        cxl_status st = cxl_budget_phase_for_rear_null(p, c->f_hz, c->el_deg, c->goal_db, &tol);
+        cxl_status st = cxl_budget_phase_for_rear_null(p, c->goal_db, c->f_hz, c->el_deg, &tol);
         if (free_db > c->goal_db) {
             ck_assert_int_eq(st, CXL_ERANGE);
             cxl_array_pair_free(p);
@@ -976,24 +976,24 @@ START_TEST(test_rear_null_budget_limits)
     ck_assert_int_eq(cxl_array_rear_null(p, 1.83e6, 0.0, &az, &depth), CXL_OK);
     ck_assert(depth > -25.0);
     tol = 7777.0;
-    ck_assert_int_eq(cxl_budget_phase_for_rear_null(p, 1.83e6, 0.0, -25.0, &tol), CXL_ERANGE);
+    ck_assert_int_eq(cxl_budget_phase_for_rear_null(p, -25.0, 1.83e6, 0.0, &tol), CXL_ERANGE);
     ck_assert_double_eq(tol, 7777.0);
     /* the caller's pair keeps its own phase offset (a copy is worked on) */
     ck_assert_int_eq(cxl_array_pair_set_imbalance(p, 0.0), CXL_OK);
     ck_assert_int_eq(cxl_array_pair_set_phase_offset(p, 1, -3.0), CXL_OK);
     double before = null_with_lag(p, 1.83e6, 0.0, 3.0), after;
-    ck_assert_int_eq(cxl_budget_phase_for_rear_null(p, 1.83e6, 0.0, -25.0, &tol), CXL_OK);
+    ck_assert_int_eq(cxl_budget_phase_for_rear_null(p, -25.0, 1.83e6, 0.0, &tol), CXL_OK);
     cxl_array_field(p, 1.83e6, 180.0, 0.0, &az, &depth);
     after = null_with_lag(p, 1.83e6, 0.0, 3.0);
     ck_assert_double_eq(before, after);
-    ck_assert_int_eq(cxl_budget_phase_for_rear_null(p, 1.83e6, 0.0, 0.0, &tol), CXL_EINVAL);
+    ck_assert_int_eq(cxl_budget_phase_for_rear_null(p, 0.0, 1.83e6, 0.0, &tol), CXL_EINVAL);
     cxl_array_pair_free(p);
     /* An in-phase broadside pair 0.63 wavelength apart has two perfect
      * nulls (k s sin(az) = pi, Balanis AF); a phase error only moves them,
      * so no error up to 180 degrees fills the null. */
     p = new_pair();
     ck_assert_int_eq(cxl_array_pair_set_geometry(p, 90.0, 0.0), CXL_OK);
-    ck_assert_int_eq(cxl_budget_phase_for_rear_null(p, 2.1e6, 0.0, -20.0, &tol), CXL_OK);
+    ck_assert_int_eq(cxl_budget_phase_for_rear_null(p, -20.0, 2.1e6, 0.0, &tol), CXL_OK);
     ck_assert(tol > 179.9 && tol <= 180.0);
     cxl_array_pair_free(p);
     /* A crossfire pair 0.1 wavelength across and 0.025 along the axis
@@ -1003,9 +1003,9 @@ START_TEST(test_rear_null_budget_limits)
      * above): the tolerance ends there, at 18 degrees. */
     double f = 1.83e6, lambda_m = CXL_C_M_PER_S / f;
     p = crossfire(0.1 * lambda_m, -0.025 * lambda_m);
-    ck_assert_int_eq(cxl_budget_phase_for_rear_null(p, f, 0.0, -20.0, &tol), CXL_OK);
+    ck_assert_int_eq(cxl_budget_phase_for_rear_null(p, -20.0, f, 0.0, &tol), CXL_OK);
     ck_assert_double_eq_tol(tol, 18.0, 1e-6);
-    ck_assert_int_eq(cxl_budget_phase_for_rear_null(NULL, 1.83e6, 0.0, -25.0, &tol), CXL_EINVAL);
+    ck_assert_int_eq(cxl_budget_phase_for_rear_null(NULL, -25.0, 1.83e6, 0.0, &tol), CXL_EINVAL);
     cxl_array_pair_free(p);
 }
 END_TEST
@@ -1106,13 +1106,13 @@ START_TEST(test_built_phase)
      * (common practice, no source: phase = 360 f delay) */
     const double design[2] = { 0.0, 60e-9 }, built[2] = { 1e-9, 62e-9 };
     double ph;
-    ck_assert_int_eq(cxl_array_pair_built_phase(design, built, 1.83e6, 0.0, &ph), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_built_phase(design, built, 0.0, 1.83e6, &ph), CXL_OK);
     ck_assert_double_eq_tol(ph, 360.0 * 1.83e6 * 1e-9, 1e-12);
-    ck_assert_int_eq(cxl_array_pair_built_phase(design, built, 1.83e6, 5.0, &ph), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_built_phase(design, built, 5.0, 1.83e6, &ph), CXL_OK);
     ck_assert_double_eq_tol(ph, 360.0 * 1.83e6 * 1e-9 + 5.0, 1e-12);
     /* 1 us at 0.5 MHz is 180 deg; with 10 more, -170 */
     const double late[2] = { 0.0, 60e-9 + 1e-6 };
-    ck_assert_int_eq(cxl_array_pair_built_phase(design, late, 0.5e6, 10.0, &ph), CXL_OK);
+    ck_assert_int_eq(cxl_array_pair_built_phase(design, late, 10.0, 0.5e6, &ph), CXL_OK);
     ck_assert_double_eq_tol(ph, -170.0, 1e-9);
 }
 END_TEST

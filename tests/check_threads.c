@@ -199,7 +199,7 @@ static void catalog_work(int seed, catalog_result *r)
     /* pair check of three lines */
     double lengths[3] = { 20.0, 20.0 + seed * 1e-3, 19.99 };
     cxl_verdict verdict = CXL_VERDICT_FAIL;
-    r->status[s++] = cxl_pair_check(lengths, 3, vf, f, 5.0, 0.002, 0.005, &r->v[k],
+    r->status[s++] = cxl_pair_check(lengths, 3, 5.0, vf, f, 0.002, 0.005, &r->v[k],
                                     &r->v[k + 1], &r->v[k + 2], &verdict);
     r->v[k + 3] = verdict;
     k += 4;
@@ -218,7 +218,7 @@ static void catalog_work(int seed, catalog_result *r)
 
     /* transfer of 30 m of the modelled cable into 100 - j20 ohm */
     if (model)
-        r->status[s] = cxl_transfer_model(model, f, CXL_LOSS_EXTRAPOLATE, 30.0, 100.0, -20.0,
+        r->status[s] = cxl_transfer_model(model, 30.0, f, CXL_LOSS_EXTRAPOLATE, 100.0, -20.0,
                                           &r->v[k], &r->v[k + 1], &r->v[k + 2]);
     s++;
     k += 3;
