@@ -558,8 +558,9 @@ cxl_status cxl_catalog_load_loss(cxl_catalog *catalog, FILE *stream,
                                  const char *file_name, size_t *error_line,
                                  char *error_text, size_t error_size);
 
-/* Number of cables (built-in first, then user rows in load order). */
-cxl_status cxl_catalog_count(const cxl_catalog *catalog, size_t *count);
+/* Number of cables (built-in first, then user rows in load order); 0 for
+ * a NULL catalog. */
+size_t cxl_catalog_count(const cxl_catalog *catalog);
 /* Index of a cable by name, ASCII case ignored; CXL_ENOTFOUND if absent. */
 cxl_status cxl_catalog_find(const cxl_catalog *catalog, const char *name,
                             size_t *index);
@@ -578,9 +579,9 @@ cxl_status cxl_catalog_is_builtin(const cxl_catalog *catalog, size_t index,
  * has no default); CXL_ERANGE for an index past the end. */
 cxl_status cxl_catalog_value(const cxl_catalog *catalog, size_t index,
                              cxl_cable_prop prop, double *value);
-/* Attenuation table of a cable, sorted by frequency. */
-cxl_status cxl_catalog_loss_count(const cxl_catalog *catalog, size_t index,
-                                  size_t *count);
+/* Attenuation table of a cable, sorted by frequency: its number of points
+ * (0 for a NULL catalog or an index past the end), and each point. */
+size_t cxl_catalog_loss_count(const cxl_catalog *catalog, size_t index);
 cxl_status cxl_catalog_loss_point(const cxl_catalog *catalog, size_t index,
                                   size_t point, double *freq_hz,
                                   double *loss_db_per_m, const char **source);
@@ -616,8 +617,8 @@ cxl_status cxl_loss_fit_coefficients(const cxl_loss_fit *fit,
 /* Lowest and highest table frequency. */
 cxl_status cxl_loss_fit_range(const cxl_loss_fit *fit, double *min_freq_hz,
                               double *max_freq_hz);
-/* Table points and residuals (fitted - table). */
-cxl_status cxl_loss_fit_count(const cxl_loss_fit *fit, size_t *count);
+/* Table points (0 for a NULL fit) and residuals (fitted - table). */
+size_t cxl_loss_fit_count(const cxl_loss_fit *fit);
 /* The range evaluation accepts without CXL_LOSS_EXTRAPOLATE. */
 cxl_status cxl_loss_fit_usable_range(const cxl_loss_fit *fit,
                                      double *min_freq_hz, double *max_freq_hz);

@@ -287,14 +287,12 @@ static api_case cases[] = {
     { "cxl_catalog_new", call_catalog_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
     { "cxl_catalog_load_cables", call_catalog_load_cables, 0, {0}, {0}, 5, 0x1C, 1, 0, {{0}} },
     { "cxl_catalog_load_loss", call_catalog_load_loss, 0, {0}, {0}, 5, 0x1C, 1, 0, {{0}} },
-    { "cxl_catalog_count", call_catalog_count, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
     { "cxl_catalog_find", call_catalog_find, 0, {0}, {0}, 3, 0, 1, 0, {{0}} },
     { "cxl_catalog_name", call_catalog_name, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
     { "cxl_catalog_dielectric", call_catalog_dielectric, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
     { "cxl_catalog_source", call_catalog_source, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
     { "cxl_catalog_is_builtin", call_catalog_is_builtin, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
     { "cxl_catalog_value", call_catalog_value, 2, {0, CXL_CABLE_VF}, {&K_INDEX, &K_PROP}, 2, 0, 1, 0, {{0}} },
-    { "cxl_catalog_loss_count", call_catalog_loss_count, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
     { "cxl_catalog_loss_point", call_catalog_loss_point, 2, {0, 1}, {&K_INDEX, &K_INDEX}, 4, 0x8, 3, 0, {{0}} },
     /* loss.c */
     { "cxl_loss_fit_new", call_loss_fit_new, 5, {1.8e6, 30e6, 0.012, 0.055, 2},
@@ -311,7 +309,6 @@ static api_case cases[] = {
     { "cxl_loss_cable_difference", call_loss_cable_difference, 3, {20, 20.3, 50e6},
       {&K_NONNEG, &K_NONNEG, &K_POS}, 2, 0, 1, 1, {{20, 20.3, 1e6}} /* below the range */ },
     { "cxl_loss_fit_range", call_loss_fit_range, 0, {0}, {0}, 3, 0, 2, 0, {{0}} },
-    { "cxl_loss_fit_count", call_loss_fit_count, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
     { "cxl_loss_fit_point", call_loss_fit_point, 1, {1}, {&K_INDEX}, 4, 0, 3, 0, {{0}} },
     { "cxl_loss_fit_max_relative_residual", call_loss_fit_max_relative_residual, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
     { "cxl_loss_fit_eval", call_loss_fit_eval, 2, {10e6, 0}, {&K_POS, &K_FLAGS}, 2, 0, 1, 0, {{0}} },
@@ -700,6 +697,15 @@ START_TEST(free_and_count_null)
     ck_assert_uint_eq(cxl_stub_result_count(NULL), 0);
     ck_assert_uint_gt(cxl_bands_count(g_bands), 0);
     ck_assert_uint_eq(cxl_stub_count(g_stub), 3);
+    /* counts are size_t: 0 for NULL (and for a cable index past the end) */
+    ck_assert_uint_eq(cxl_catalog_count(NULL), 0);
+    ck_assert_uint_gt(cxl_catalog_count(g_cat), g_user);
+    ck_assert_uint_eq(cxl_catalog_loss_count(NULL, 0), 0);
+    ck_assert_uint_ge(cxl_catalog_loss_count(g_cat, g_user), 2);
+    ck_assert_uint_eq(cxl_catalog_loss_count(g_cat, cxl_catalog_count(g_cat)), 0);
+    ck_assert_uint_eq(cxl_catalog_loss_count(g_cat, SIZE_MAX), 0);
+    ck_assert_uint_eq(cxl_loss_fit_count(NULL), 0);
+    ck_assert_uint_eq(cxl_loss_fit_count(g_fit), 2);
     ck_assert_uint_eq(cxl_stub_result_count(g_res1), 3);
 }
 END_TEST
@@ -908,7 +914,7 @@ START_TEST(catalog_bad_files)
     cxl_catalog *cat = NULL;
     size_t before, after;
     ck_assert_int_eq(cxl_catalog_new(&cat), CXL_OK);
-    ck_assert_int_eq(cxl_catalog_count(cat, &before), CXL_OK);
+    before = cxl_catalog_count(cat);
     for (size_t i = 0; i < sizeof bad / sizeof bad[0]; i++) {
         size_t len = bad[i].len ? bad[i].len : strlen(bad[i].text);
         FILE *fp = fmemopen((void *)bad[i].text, len, "r");
@@ -923,14 +929,14 @@ START_TEST(catalog_bad_files)
         ck_assert_msg(line != SIZE_MAX && line >= 1, "cable file %zu: no error line", i);
         ck_assert_msg(strncmp(msg, "bad.csv:", 8) == 0 && !strchr(msg, '\n'),
                       "cable file %zu: message '%s'", i, msg);
-        ck_assert_int_eq(cxl_catalog_count(cat, &after), CXL_OK);
+        after = cxl_catalog_count(cat);
         ck_assert_uint_eq(after, before);
     }
     /* a header without rows adds nothing and is not an error */
     FILE *fp = text_stream("name,vf\n");
     ck_assert_int_eq(cxl_catalog_load_cables(cat, fp, NULL, NULL, NULL, 0), CXL_OK);
     fclose(fp);
-    ck_assert_int_eq(cxl_catalog_count(cat, &after), CXL_OK);
+    after = cxl_catalog_count(cat);
     ck_assert_uint_eq(after, before);
     cxl_catalog_free(cat);
 }
@@ -951,7 +957,7 @@ START_TEST(catalog_bad_loss_files)
         "name,freq_mhz,loss_db_per_100m\nbench-spool,10,nan\n",
     };
     size_t points_before;
-    ck_assert_int_eq(cxl_catalog_loss_count(g_cat, g_user, &points_before), CXL_OK);
+    points_before = cxl_catalog_loss_count(g_cat, g_user);
     for (size_t i = 0; i < sizeof bad / sizeof bad[0]; i++) {
         FILE *fp = text_stream(bad[i]);
         char msg[256] = "";
@@ -960,7 +966,7 @@ START_TEST(catalog_bad_loss_files)
         ck_assert_msg(st != CXL_OK, "loss file %zu accepted", i);
         ck_assert_msg(msg[0] != '\0', "loss file %zu: no message", i);
         size_t n;
-        ck_assert_int_eq(cxl_catalog_loss_count(g_cat, g_user, &n), CXL_OK);
+        n = cxl_catalog_loss_count(g_cat, g_user);
         ck_assert_uint_eq(n, points_before);
     }
     /* names that are not there */
@@ -973,7 +979,7 @@ START_TEST(catalog_bad_loss_files)
     /* the index just past the end, and a cable without points */
     size_t n, idx;
     double v = SENT;
-    ck_assert_int_eq(cxl_catalog_count(g_cat, &n), CXL_OK);
+    n = cxl_catalog_count(g_cat);
     ck_assert_int_eq(cxl_catalog_value(g_cat, n, CXL_CABLE_VF, &v), CXL_ERANGE);
     ck_assert(v == SENT);
     const char *t = sentinel_text;

@@ -127,14 +127,6 @@ ADAPTER(catalog_load_loss)
     cxl_catalog_free(c);
     return st;
 }
-ADAPTER(catalog_count)
-{
-    (void)a;
-    size_t n = (size_t)SENT;
-    cxl_status st = cxl_catalog_count(P(0, g_cat), P(1, &n));
-    o[0] = (double)n;
-    return st;
-}
 ADAPTER(catalog_find)
 {
     (void)a;
@@ -165,13 +157,6 @@ ADAPTER(catalog_value)
 {
     return cxl_catalog_value(P(0, g_cat), to_size(a[0]), (cxl_cable_prop)to_int(a[1]),
                              P(1, &o[0]));
-}
-ADAPTER(catalog_loss_count)
-{
-    size_t n = (size_t)SENT;
-    cxl_status st = cxl_catalog_loss_count(P(0, g_cat), to_size(a[0]), P(1, &n));
-    o[0] = (double)n;
-    return st;
 }
 ADAPTER(catalog_loss_point)
 {
