@@ -494,7 +494,7 @@ cxl_status cxl_pair_load_max_mismatch(const cxl_pair_load *load,
                                       double tolerance_deg, double length_m,
                                       double vf, double freq_hz,
                                       double *delta_m);
-/* ---- cable.c: cable catalog ------------------------------------------- */
+/* ---- catalog.c: cable catalog ----------------------------------------- */
 
 /* A catalog of cables: the built-in rows (compiled in from data/cables.csv
  * and data/cable_loss.csv) plus rows the caller loads from files of the same

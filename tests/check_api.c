@@ -283,7 +283,7 @@ static api_case cases[] = {
       2, {{10.0, 10.02, 1, 5, 0.66, F, 0.005, 0.01}, {10.0, 10.02, 2, 5, 0.66, F, 0.005, 0.7}} },
     { "cxl_pair_load_max_mismatch", call_pair_load_max_mismatch, 4, {5, 10.0, 0.66, F},
       {&K_POS, &K_POS, &K_VF, &K_POS}, 2, 0, 1, 0, {{0}} },
-    /* cable.c */
+    /* catalog.c */
     { "cxl_catalog_new", call_catalog_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
     { "cxl_catalog_load_cables", call_catalog_load_cables, 0, {0}, {0}, 5, 0x1C, 1, 0, {{0}} },
     { "cxl_catalog_load_loss", call_catalog_load_loss, 0, {0}, {0}, 5, 0x1C, 1, 0, {{0}} },

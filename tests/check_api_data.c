@@ -1,4 +1,4 @@
-/* check_api_data.c - the walk's adapters for csv.c, band.c and cable.c (see check_api.c). */
+/* check_api_data.c - the walk's adapters for csv.c, band.c and catalog.c (see check_api.c). */
 #include <config.h>
 #include "check_api.h"
 
@@ -91,7 +91,7 @@ ADAPTER(bands_edges)
 }
 
 
-/* cable.c */
+/* catalog.c */
 NEW_ADAPTER(catalog_new, cxl_catalog, cxl_catalog_new(P(0, &h)), cxl_catalog_free)
 ADAPTER(catalog_load_cables)
 {
