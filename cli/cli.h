@@ -309,7 +309,7 @@ extern const cli_command cli_cmd_demo;
 /* ---- cmd_trim.c: cut long, read, trim ---- */
 extern const cli_command cli_cmd_trim;
 
-/* ---- pattern, budget, hybrid, plots (pairspec.c, budgettol.c, svg.c) -- */
+/* ---- pattern, budget, hybrid, plots (duospec.c, budgettol.c, svg.c) --- */
 
 /* Plain SVG plots written without any external program (svg.c).  Numbers
  * go through cxl_units_format_fixed, so a file is the same bytes in every
@@ -373,7 +373,7 @@ int cli_svg_save(const cli_ctx *ctx, const char *field, const char *path,
                  const cli_svg_polar *polar, const cli_svg_xy *xy);
 
 /* A two-element receive pair as pattern and budget describe it
- * (pairspec.c).  Element A is the library's element 0, B element 1. */
+ * (duospec.c).  Element A is the library's element 0, B element 1. */
 #define CLI_PAIR_OPTDEFS \
     CLI_PAIR_PLACE_OPTDEFS, \
     { "line-a", "LEN", "line making A's feed delay, at --vf or --cable", 0 }, \
