@@ -15,7 +15,7 @@ static const cli_optdef pair_opts[] = {
     { "vf-from", "FILE|-", "take the fitted VF from coaxline vf --format csv output", 0 },
     { "tolerance", "DEG", "largest phase difference allowed between the lines", 0 },
     CLI_BUDGET_OPTDEFS,
-    CLI_PAIR_GEOMETRY_OPTDEFS,
+    CLI_DUO_GEOMETRY_OPTDEFS,
     { "band", "LIST", "bands to check, e.g. 160m,80m", 1 },
     { "region", "N", "ITU Region 1, 2 or 3 (default: widest edges across Regions)", 0 },
     { "exclude-footnotes", NULL, "band edges without footnote segments", 0 },
@@ -226,7 +226,7 @@ static void goal_tolerance_text(cli_ctx *ctx, const pair_set *s, int np)
     char b1[96], b2[96], b3[96];
     FILE *o = ctx->out;
     const cli_goal *g = &s->goal;
-    const cli_pair_spec *p = &g->spec;
+    const cli_duo_spec *p = &g->spec;
     double lo = INFINITY, hi = -INFINITY, free_db = -INFINITY;
     int all = 1;
     for (int i = 0; i < np; i++) {

@@ -144,7 +144,7 @@ static const char *const lenient[] = {
     "cxl_pair_phase_uncertainty", /* a tiny VF under vf_tol, a huge vf_tol */
     "cxl_pair_check",             /* the same */
     "cxl_pair_load_check",        /* the same */
-    "cxl_array_pair_set_feed",    /* a frequency of 0 with an end-fire feed */
+    "cxl_duo_set_feed",    /* a frequency of 0 with an end-fire feed */
     "cxl_hybrid_response",        /* |Gamma| of 1 with another one */
     "cxl_trim_add_reading",       /* order 0 among given orders */
     "cxl_sweep_resonances",       /* a length of 0 with a VF guess */
@@ -170,7 +170,7 @@ cxl_stub_result *g_res1;
 cxl_stub_result *g_res2; /* readings on two lengths: fixture fitted */
 cxl_loss_fit *g_fit;
 cxl_loss_model *g_model;
-cxl_array_pair *g_pair;  /* end-fire pair of long wires */
+cxl_duo *g_pair;  /* end-fire pair of long wires */
 cxl_array *g_array;      /* three elements, one fed by a modelled line */
 cxl_loss_model *g_clad;  /* g_model with a copper-clad steel centre */
 cxl_drift *g_drift;      /* VF at three frequencies */
@@ -334,35 +334,35 @@ static api_case cases[] = {
     { "cxl_loss_total_db", call_loss_total_db, 2, {1.5, 2.0}, {&K_NONNEG, &K_SWR}, 1, 0, 1, 0, {{0}} },
     { "cxl_loss_run_db", call_loss_run_db, 3, {0.02, 50, 2.0}, {&K_NONNEG, &K_POS, &K_SWR}, 2, 0, 2, 0, {{0}} },
     /* array.c */
-    { "cxl_array_pair_new", call_pair_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_copy", call_pair_copy, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_geometry", call_pair_set_geometry, 2, {10, 40}, {&K_NONNEG, &K_FIN}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_delay", call_pair_set_delay, 2, {1, 100e-9}, {&K_ELEMENT, &K_NONNEG}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_delay_deg", call_pair_set_delay_deg, 3, {1, 90, F},
+    { "cxl_duo_new", call_pair_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_copy", call_pair_copy, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
+    { "cxl_duo_set_geometry", call_pair_set_geometry, 2, {10, 40}, {&K_NONNEG, &K_FIN}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_set_delay", call_pair_set_delay, 2, {1, 100e-9}, {&K_ELEMENT, &K_NONNEG}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_set_delay_deg", call_pair_set_delay_deg, 3, {1, 90, F},
       {&K_ELEMENT, &K_NONNEG, &K_POS}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_phase_offset", call_pair_set_phase_offset, 2, {1, 5}, {&K_ELEMENT, &K_FIN}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_feed", call_pair_set_feed, 2, {CXL_FEED_CROSSFIRE, 0}, {&K_ENUM2, &K_NONNEG},
+    { "cxl_duo_set_phase_offset", call_pair_set_phase_offset, 2, {1, 5}, {&K_ELEMENT, &K_FIN}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_set_feed", call_pair_set_feed, 2, {CXL_FEED_CROSSFIRE, 0}, {&K_ENUM2, &K_NONNEG},
       1, 0, 4, 0, {{0}} },
-    { "cxl_array_pair_set_feed", call_pair_set_feed, 2, {CXL_FEED_ENDFIRE, F}, {&K_ENUM2, &K_NONNEG},
+    { "cxl_duo_set_feed", call_pair_set_feed, 2, {CXL_FEED_ENDFIRE, F}, {&K_ENUM2, &K_NONNEG},
       1, 0, 4, 1, {{CXL_FEED_ENDFIRE, 0}} /* end-fire needs its frequency */ },
-    { "cxl_array_pair_feed", call_pair_feed, 1, {1}, {&K_ELEMENT}, 3, 0, 2, 0, {{0}} },
-    { "cxl_array_pair_built_phase", call_pair_built_phase, 6, {0, 60e-9, 1e-9, 62e-9, 2, F},
+    { "cxl_duo_feed", call_pair_feed, 1, {1}, {&K_ELEMENT}, 3, 0, 2, 0, {{0}} },
+    { "cxl_duo_built_phase", call_pair_built_phase, 6, {0, 60e-9, 1e-9, 62e-9, 2, F},
       {&K_NONNEG, &K_NONNEG, &K_NONNEG, &K_NONNEG, &K_FIN, &K_POS}, 3, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_flip", call_pair_set_flip, 2, {1, 1}, {&K_ELEMENT, &K_ANYINT}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_imbalance", call_pair_set_imbalance, 1, {1}, {&K_IMB}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_isotropic", call_pair_set_isotropic, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_long_wire", call_pair_set_long_wire, 2, {80, 0.7}, {&K_POS, &K_VF}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_field", call_array_field, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 3, 0, 2, 0, {{0}} },
-    { "cxl_array_response", call_array_response, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 2, 0, 1, 0, {{0}} },
-    { "cxl_array_gain", call_array_gain, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 2, 0, 1, 0, {{0}} },
-    { "cxl_array_forward_gain", call_array_forward_gain, 2, {F, 15}, {&K_POS, &K_ELEV}, 2, 0, 1, 0, {{0}} },
-    { "cxl_array_pattern", call_array_pattern, 3, {F, 15, 4}, {&K_POS, &K_ELEV, &K_COUNT1}, 2, 0, 4, 0, {{0}} },
-    { "cxl_array_front_to_back", call_array_front_to_back, 2, {F, 15}, {&K_POS, &K_ELEV}, 2, 0, 1, 0, {{0}} },
-    { "cxl_array_rear_null", call_array_rear_null, 2, {F, 15}, {&K_POS, &K_ELEV}, 3, 0, 2, 0, {{0}} },
-    { "cxl_array_peak", call_array_peak, 1, {F}, {&K_POS}, 3, 0, 2, 0, {{0}} },
-    { "cxl_array_directivity", call_array_directivity, 1, {F}, {&K_POS}, 2, 0, 1, 0, {{0}} },
-    { "cxl_array_rdf", call_array_rdf, 1, {F}, {&K_POS}, 2, 0, 1, 0, {{0}} },
-    { "cxl_array_null_depth", call_array_null_depth, 2, {2, 0.5}, {&K_FIN, &K_IMB}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_set_flip", call_pair_set_flip, 2, {1, 1}, {&K_ELEMENT, &K_ANYINT}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_set_imbalance", call_pair_set_imbalance, 1, {1}, {&K_IMB}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_set_isotropic", call_pair_set_isotropic, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_set_long_wire", call_pair_set_long_wire, 2, {80, 0.7}, {&K_POS, &K_VF}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_field", call_array_field, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 3, 0, 2, 0, {{0}} },
+    { "cxl_duo_response", call_array_response, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 2, 0, 1, 0, {{0}} },
+    { "cxl_duo_gain", call_array_gain, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 2, 0, 1, 0, {{0}} },
+    { "cxl_duo_forward_gain", call_array_forward_gain, 2, {F, 15}, {&K_POS, &K_ELEV}, 2, 0, 1, 0, {{0}} },
+    { "cxl_duo_pattern", call_array_pattern, 3, {F, 15, 4}, {&K_POS, &K_ELEV, &K_COUNT1}, 2, 0, 4, 0, {{0}} },
+    { "cxl_duo_front_to_back", call_array_front_to_back, 2, {F, 15}, {&K_POS, &K_ELEV}, 2, 0, 1, 0, {{0}} },
+    { "cxl_duo_rear_null", call_array_rear_null, 2, {F, 15}, {&K_POS, &K_ELEV}, 3, 0, 2, 0, {{0}} },
+    { "cxl_duo_peak", call_array_peak, 1, {F}, {&K_POS}, 3, 0, 2, 0, {{0}} },
+    { "cxl_duo_directivity", call_array_directivity, 1, {F}, {&K_POS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_duo_rdf", call_array_rdf, 1, {F}, {&K_POS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_duo_null_depth", call_array_null_depth, 2, {2, 0.5}, {&K_FIN, &K_IMB}, 1, 0, 1, 0, {{0}} },
     { "cxl_yield_new", call_yield_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
     { "cxl_yield_set_tolerances", call_yield_set_tolerances, 4, {0.1, 0.01, 0.5, 3},
       {&K_NONNEG, &K_VFTOL, &K_DBTOL, &K_PHTOL}, 1, 0, 1, 0, {{0}} },
@@ -663,7 +663,7 @@ START_TEST(free_and_count_null)
     cxl_catalog_free(NULL);
     cxl_loss_fit_free(NULL);
     cxl_loss_model_free(NULL);
-    cxl_array_pair_free(NULL);
+    cxl_duo_free(NULL);
     cxl_array_free(NULL);
     ck_assert_uint_eq(cxl_array_count(NULL), 0);
     ck_assert_uint_eq(cxl_array_count(g_array), 3);
@@ -1305,10 +1305,10 @@ static void setup_objects(void)
 
     /* end-fire pair of 60 m long wires, 40 m stagger, the front element
      * delayed by the stagger so that arrivals from the front add */
-    NEED(cxl_array_pair_new(&g_pair) == CXL_OK);
-    NEED(cxl_array_pair_set_geometry(g_pair, 5.0, 40.0) == CXL_OK);
-    NEED(cxl_array_pair_set_delay(g_pair, 0, 40.0 / C) == CXL_OK);
-    NEED(cxl_array_pair_set_long_wire(g_pair, 60.0, 0.8) == CXL_OK);
+    NEED(cxl_duo_new(&g_pair) == CXL_OK);
+    NEED(cxl_duo_set_geometry(g_pair, 5.0, 40.0) == CXL_OK);
+    NEED(cxl_duo_set_delay(g_pair, 0, 40.0 / C) == CXL_OK);
+    NEED(cxl_duo_set_long_wire(g_pair, 60.0, 0.8) == CXL_OK);
     NEED(cxl_array_new(&g_array) == CXL_OK);
     NEED(cxl_array_add(g_array, 0.0, 0.0, 0.0, NULL) == CXL_OK);
     NEED(cxl_array_add(g_array, -20.0, 5.0, 0.0, NULL) == CXL_OK);
@@ -1425,7 +1425,7 @@ int main(void)
     cxl_trim_free(g_trim);
     cxl_drift_free(g_drift);
     cxl_loss_model_free(g_clad);
-    cxl_array_pair_free(g_pair);
+    cxl_duo_free(g_pair);
     cxl_yield_free(g_yield);
     cxl_yield_free(NULL);
     cxl_array_free(g_array);

@@ -58,7 +58,7 @@ extern cxl_stub_result *g_res1;
 extern cxl_stub_result *g_res2; /* readings on two lengths: fixture fitted */
 extern cxl_loss_fit *g_fit;
 extern cxl_loss_model *g_model;
-extern cxl_array_pair *g_pair;  /* end-fire pair of long wires */
+extern cxl_duo *g_pair;  /* end-fire pair of long wires */
 extern cxl_array *g_array;      /* three elements, one fed by a modelled line */
 extern cxl_loss_model *g_clad;  /* g_model with a copper-clad steel centre */
 extern cxl_drift *g_drift;      /* VF at three frequencies */

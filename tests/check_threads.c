@@ -141,7 +141,7 @@ static void catalog_work(int seed, catalog_result *r)
     cxl_loss_model *model = NULL;
     cxl_stub *stub = NULL;
     cxl_stub_result *sres = NULL;
-    cxl_array_pair *pair = NULL;
+    cxl_duo *pair = NULL;
     cxl_trim *trim = NULL;
     cxl_trim_result *tres = NULL;
 
@@ -206,12 +206,12 @@ static void catalog_work(int seed, catalog_result *r)
 
     /* array RDF of a crossfire pair staggered 10 + seed m */
     double stagger = 10.0 + seed;
-    r->status[s++] = cxl_array_pair_new(&pair);
+    r->status[s++] = cxl_duo_new(&pair);
     if (pair) {
-        cxl_array_pair_set_geometry(pair, 0.0, stagger);
-        cxl_array_pair_set_delay(pair, 1, stagger / C);
-        cxl_array_pair_set_flip(pair, 1, 1);
-        r->status[s] = cxl_array_rdf(pair, f, &r->v[k]);
+        cxl_duo_set_geometry(pair, 0.0, stagger);
+        cxl_duo_set_delay(pair, 1, stagger / C);
+        cxl_duo_set_flip(pair, 1, 1);
+        r->status[s] = cxl_duo_rdf(pair, f, &r->v[k]);
     }
     s++;
     k++;
@@ -249,7 +249,7 @@ static void catalog_work(int seed, catalog_result *r)
 done:
     cxl_trim_result_free(tres);
     cxl_trim_free(trim);
-    cxl_array_pair_free(pair);
+    cxl_duo_free(pair);
     cxl_stub_result_free(sres);
     cxl_stub_free(stub);
     cxl_loss_model_free(model);
