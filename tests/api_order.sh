@@ -23,22 +23,9 @@ table='
 '
 
 # One prototype a line: comments and preprocessor lines removed, joined.
-protos=$(awk 'BEGIN { RS = "\001" }
-{
-    s = $0; out = ""
-    while ((i = index(s, "/*")) > 0) {
-        out = out substr(s, 1, i - 1) " "; s = substr(s, i + 2)
-        j = index(s, "*/"); if (j == 0) { s = ""; break }
-        s = substr(s, j + 2)
-    }
-    n = split(out s, line, "\n"); t = ""
-    for (k = 1; k <= n; k++) if (line[k] !~ /^[ \t]*#/) t = t " " line[k]
-    m = split(t, decl, ";")
-    for (k = 1; k <= m; k++) {
-        d = decl[k]; gsub(/[ \t\n]+/, " ", d)
-        if (d ~ /cxl_[a-z][a-z0-9_]* ?\(/ && d !~ /typedef/) print d
-    }
-}' "$hdr")
+protos=$(awk -f "${COAXLINE_SRCDIR:-.}/tests/api_decls.awk" "$hdr" |
+    sed 's/[[:space:]][[:space:]]*/ /g' |
+    awk '/cxl_[a-z][a-z0-9_]* ?\(/ && !/typedef/')
 
 result=$(printf '%s\n' "$protos" | awk -v table="$table" '
 BEGIN {
