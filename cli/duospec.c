@@ -1,4 +1,4 @@
-/* pairspec.c - the two-element receive pair that pattern and budget
+/* duospec.c - the two-element receive pair (the duo) that pattern and budget
  * describe: geometry, element type, the design feed (explicit delays or a
  * crossfire/end-fire feed worked out from the stagger), and the as-built
  * errors (measured lines, the spool's real VF, a fixed phase error, an

@@ -1,4 +1,4 @@
-/* cable.c - the cable catalog: built-in rows parsed at run time from the
+/* catalog.c - the cable catalog: built-in rows parsed at run time from the
  * compiled-in data/cables.csv and data/cable_loss.csv, plus user rows read
  * from files of the same formats by the same code.
  *

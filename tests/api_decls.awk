@@ -1,6 +1,6 @@
 # api_decls.awk - the declarations of a C header, one a line: comments and
 # preprocessor lines removed, each declaration ended by its ';'.  Shared by
-# tests/man_coverage.sh and tests/api_order.sh.
+# tests/api_sets.sh and tests/api_order.sh.
 BEGIN { RS = "\001" }
 {
     s = $0; out = ""
