@@ -60,44 +60,44 @@ int cli_goal_parse(cli_ctx *ctx, const cli_args *a, cli_goal *g)
                                "(--design-freq F) or the feed per element, as pattern takes them",
                          "--%s is relative to the forward response of a pair: its geometry is needed",
                          g->option);
-    if (cli_pair_spec_parse(ctx, a, &g->spec)) return CLI_EXIT_USAGE;
+    if (cli_duo_spec_parse(ctx, a, &g->spec)) return CLI_EXIT_USAGE;
     g->has_spec = 1;
     return 0;
 }
 
 void cli_goal_free(cli_goal *g)
 {
-    if (g->has_spec) cli_pair_spec_free(&g->spec);
+    if (g->has_spec) cli_duo_spec_free(&g->spec);
     g->has_spec = 0;
 }
 
 /* The error-free pair's result for a geometric goal. */
-static cxl_status error_free(const cli_goal *g, const cxl_array_pair *pair, double freq_hz,
+static cxl_status error_free(const cli_goal *g, const cxl_duo *pair, double freq_hz,
                              double *db)
 {
     double az;
     if (g->kind == CLI_GOAL_FB)
-        return cxl_array_front_to_back(pair, freq_hz, g->spec.elevation_deg, db);
-    return cxl_array_rear_null(pair, freq_hz, g->spec.elevation_deg, &az, db);
+        return cxl_duo_front_to_back(pair, freq_hz, g->spec.elevation_deg, db);
+    return cxl_duo_rear_null(pair, freq_hz, g->spec.elevation_deg, &az, db);
 }
 
 static int geometric_tolerance(cli_ctx *ctx, const cli_goal *g, double freq_hz,
                                double *error_free_db, double *tolerance_deg)
 {
-    cxl_array_pair *pair = NULL;
+    cxl_duo *pair = NULL;
     double free_db = 0.0, tol = 0.0;
-    if (cli_pair_spec_build(ctx, &g->spec, 0, freq_hz, &pair, NULL, NULL)) return CLI_EXIT_USAGE;
-    cxl_status st = cxl_array_pair_set_imbalance(pair, g->imbalance_db);
+    if (cli_duo_spec_build(ctx, &g->spec, 0, freq_hz, &pair, NULL, NULL)) return CLI_EXIT_USAGE;
+    cxl_status st = cxl_duo_set_imbalance(pair, g->imbalance_db);
     if (st == CXL_OK) st = error_free(g, pair, freq_hz, &free_db);
     int code = 0;
     if (st == CXL_OK && (g->kind == CLI_GOAL_FB ? free_db < g->goal_db : free_db > g->goal_db))
         code = CLI_EXIT_TOLERANCE;
     else if (st == CXL_OK && g->kind == CLI_GOAL_FB)
-        st = cxl_budget_phase_for_front_to_back(pair, freq_hz, g->spec.elevation_deg, g->goal_db,
+        st = cxl_budget_phase_for_front_to_back(pair, g->goal_db, freq_hz, g->spec.elevation_deg,
                                                 &tol);
     else if (st == CXL_OK)
-        st = cxl_budget_phase_for_rear_null(pair, freq_hz, g->spec.elevation_deg, g->goal_db, &tol);
-    cxl_array_pair_free(pair);
+        st = cxl_budget_phase_for_rear_null(pair, g->goal_db, freq_hz, g->spec.elevation_deg, &tol);
+    cxl_duo_free(pair);
     if (st != CXL_OK) {
         char f[32];
         return cli_error(ctx, g->option, "a pair that can be modelled at this frequency",
@@ -115,7 +115,7 @@ int cli_goal_tolerance(cli_ctx *ctx, const cli_goal *g, double freq_hz,
     if (g->kind != CLI_GOAL_INPHASE)
         return geometric_tolerance(ctx, g, freq_hz, error_free_db, tolerance_deg);
     double free_db, tol;
-    cxl_status st = cxl_array_null_depth(0.0, g->imbalance_db, &free_db);
+    cxl_status st = cxl_duo_null_depth(0.0, g->imbalance_db, &free_db);
     if (st != CXL_OK)
         return cli_error(ctx, g->option, "a depth below 0 dB, such as -25", "%s", cxl_strerror(st));
     *error_free_db = free_db;

@@ -101,13 +101,13 @@ cxl_status cli_cable_cache_model(cli_cable_cache **cache, const cxl_catalog *cat
 const char *cli_fmt_fit(char *buf, size_t size, const cxl_loss_fit *fit)
 {
     double lo, hi, rel;
-    size_t n;
     char range[96], usable[96], res[32];
-    if (cxl_loss_fit_range(fit, &lo, &hi) != CXL_OK || cxl_loss_fit_count(fit, &n) != CXL_OK ||
+    if (cxl_loss_fit_range(fit, &lo, &hi) != CXL_OK ||
         cxl_loss_fit_max_relative_residual(fit, &rel) != CXL_OK) {
         snprintf(buf, size, "?");
         return buf;
     }
+    size_t n = cxl_loss_fit_count(fit);
     cli_fmt_range_mhz(range, sizeof range, lo, hi);
     double use_lo = lo, use_hi = hi;
     cxl_loss_fit_usable_range(fit, &use_lo, &use_hi);

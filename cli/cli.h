@@ -369,7 +369,7 @@ extern const cli_command cli_cmd_demo;
 /* ---- cmd_trim.c: cut long, read, trim ---- */
 extern const cli_command cli_cmd_trim;
 
-/* ---- pattern, budget, hybrid, plots (pairspec.c, budgettol.c, svg.c) -- */
+/* ---- pattern, budget, hybrid, plots (duospec.c, budgettol.c, svg.c) --- */
 
 /* Plain SVG plots written without any external program (svg.c).  Numbers
  * go through cxl_units_format_fixed, so a file is the same bytes in every
@@ -433,32 +433,32 @@ int cli_svg_save(const cli_ctx *ctx, const char *field, const char *path,
                  const cli_svg_polar *polar, const cli_svg_xy *xy);
 
 /* A two-element receive pair as pattern and budget describe it
- * (pairspec.c).  Element A is the library's element 0, B element 1. */
-#define CLI_PAIR_OPTDEFS \
-    CLI_PAIR_PLACE_OPTDEFS, \
+ * (duospec.c).  Element A is the library's element 0, B element 1. */
+#define CLI_DUO_OPTDEFS \
+    CLI_DUO_PLACE_OPTDEFS, \
     { "line-a", "LEN", "line making A's feed delay, at --vf or --cable", 0 }, \
     { "line-b", "LEN", "line making B's feed delay", 0 }, \
-    CLI_PAIR_FEED_OPTDEFS, \
+    CLI_DUO_FEED_OPTDEFS, \
     { "vf", "X", "velocity factor of the feed lines", 0 }, \
     { "cable", "NAME", "feed-line cable from the catalog (VF, and loss for --line-loss)", 0 }, \
     { "vf-from", "FILE|-", "feed-line VF from coaxline vf --format csv output (its --at row at --design-freq)", 0 }, \
-    CLI_PAIR_ELEMENT_OPTDEFS
+    CLI_DUO_ELEMENT_OPTDEFS
 /* The pair's geometry without feed lines (pair takes these for
  * --null-depth; its --vf and --cable are the measured lines'). */
-#define CLI_PAIR_GEOMETRY_OPTDEFS \
-    CLI_PAIR_PLACE_OPTDEFS, CLI_PAIR_FEED_OPTDEFS, CLI_PAIR_ELEMENT_OPTDEFS
-#define CLI_PAIR_PLACE_OPTDEFS \
+#define CLI_DUO_GEOMETRY_OPTDEFS \
+    CLI_DUO_PLACE_OPTDEFS, CLI_DUO_FEED_OPTDEFS, CLI_DUO_ELEMENT_OPTDEFS
+#define CLI_DUO_PLACE_OPTDEFS \
     { "spacing", "LEN", "broadside distance between elements A and B (default 0)", 0 }, \
     { "stagger", "LEN", "how far B sits behind A along the forward axis, negative: in front (default 0)", 0 }, \
     { "feed", "crossfire|endfire", "design feed worked out from the stagger", 0 }, \
     { "design-freq", "F", "frequency for --degrees-a/--degrees-b and --feed endfire", 0 }
-#define CLI_PAIR_FEED_OPTDEFS \
+#define CLI_DUO_FEED_OPTDEFS \
     { "delay-a", "TIME", "feed delay of A", 0 }, \
     { "delay-b", "TIME", "feed delay of B", 0 }, \
     { "degrees-a", "DEG", "feed delay of A in electrical degrees at --design-freq", 0 }, \
     { "degrees-b", "DEG", "feed delay of B in electrical degrees at --design-freq", 0 }, \
     { "invert", "a|b", "reverse one element's polarity (crossfire)", 0 }
-#define CLI_PAIR_ELEMENT_OPTDEFS \
+#define CLI_DUO_ELEMENT_OPTDEFS \
     { "element", "isotropic|wire", "element type (default isotropic)", 0 }, \
     { "wire-length", "LEN", "length of each traveling-wave wire", 0 }, \
     { "wire-vf", "X", "velocity factor along the wire (0.45-0.8 on the ground, 0.95-0.99 raised)", 0 }, \
@@ -466,14 +466,14 @@ int cli_svg_save(const cli_ctx *ctx, const char *field, const char *path,
 
 /* The per-band options of cli_freq_points(), as pattern and budget take
  * them. */
-#define CLI_PAIR_BAND_OPTDEFS \
+#define CLI_DUO_BAND_OPTDEFS \
     { "band", "LIST", "bands to evaluate, e.g. 160m,80m", 1 }, \
     { "region", "N", "ITU Region 1, 2 or 3 (default: widest edges of all)", 0 }, \
     { "exclude-footnotes", NULL, "leave out band segments allowed only by footnote", 0 }, \
     { "freq", "F", "a single frequency to evaluate", 1 }
 
 /* Option values a pair command parsed; lengths in m, delays in s. */
-typedef struct cli_pair_spec {
+typedef struct cli_duo_spec {
     double spacing_m, stagger_m;
     const char *feed;           /* "crossfire", "endfire" or "manual" */
     double delay_s[2];          /* design feed delays */
@@ -496,28 +496,28 @@ typedef struct cli_pair_spec {
     double imbalance_db;        /* B weaker by this much */
     int line_loss;              /* add the lines' loss difference */
     cxl_loss_cable *loss;       /* owned; the lines' loss for line_loss */
-} cli_pair_spec;
+} cli_duo_spec;
 
-/* Parse CLI_PAIR_OPTDEFS (and, where the command declares them,
+/* Parse CLI_DUO_OPTDEFS (and, where the command declares them,
  * measured-a, measured-b, actual-vf, phase-error, imbalance, line-loss).
  * Returns 0, or CLI_EXIT_USAGE after cli_error(). */
-int cli_pair_spec_parse(cli_ctx *ctx, const cli_args *a, cli_pair_spec *spec);
+int cli_duo_spec_parse(cli_ctx *ctx, const cli_args *a, cli_duo_spec *spec);
 /* --wire-length and --wire-vf: both needed for a wire element (wire != 0),
  * neither for elements of another kind (named in the error).  Returns 0,
  * or CLI_EXIT_USAGE after cli_error(). */
 int cli_wire_parse(cli_ctx *ctx, const cli_args *a, int wire, const char *kind,
                    double *length_m, double *vf);
-void cli_pair_spec_free(cli_pair_spec *spec);
+void cli_duo_spec_free(cli_duo_spec *spec);
 /* The design pair (as_built 0) or the as-built one at freq_hz, with the
  * as-built phase error (deg, B lagging positive, wrapped to +-180) and
  * amplitude imbalance (dB, B weaker positive) relative to the design.
  * Returns 0, or CLI_EXIT_USAGE after cli_error(). */
-int cli_pair_spec_build(cli_ctx *ctx, const cli_pair_spec *spec, int as_built,
-                        double freq_hz, cxl_array_pair **pair,
+int cli_duo_spec_build(cli_ctx *ctx, const cli_duo_spec *spec, int as_built,
+                        double freq_hz, cxl_duo **pair,
                         double *phase_error_deg, double *imbalance_db);
 
 /* Phase tolerance from a wanted result (budgettol.c).  A command declares
- * CLI_BUDGET_OPTDEFS and CLI_PAIR_GEOMETRY_OPTDEFS (or CLI_PAIR_OPTDEFS);
+ * CLI_BUDGET_OPTDEFS and CLI_DUO_GEOMETRY_OPTDEFS (or CLI_DUO_OPTDEFS);
  * one goal is given:
  *   --null-depth DB (< 0): the rear null of the described pair relative to
  *     its forward response, as pattern measures it
@@ -538,7 +538,7 @@ typedef struct cli_goal {
     const char *option;         /* "null-depth", "null-vs-inphase", "front-to-back" */
     double goal_db;
     double imbalance_db;
-    cli_pair_spec spec;         /* the pair (geometric goals), the feed lines' VF */
+    cli_duo_spec spec;         /* the pair (geometric goals), the feed lines' VF */
     int has_spec;
 } cli_goal;
 /* Exactly one goal, its number, --imbalance, and for a geometric goal the

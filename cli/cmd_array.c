@@ -21,7 +21,7 @@ static const cli_optdef array_opts[] = {
     { "reverse-each", NULL, "also evaluate with each element reversed in turn", 0 },
     { "as-built", "FILE", "per-element errors: label,line,phase_error,imbalance", 0 },
     { "actual-vf", "X", "as built: the spool's real VF (the lines were cut for --vf/--cable)", 0 },
-    CLI_PAIR_BAND_OPTDEFS,
+    CLI_DUO_BAND_OPTDEFS,
     { "plot", "FILE", "write azimuth patterns as an SVG polar plot", 0 },
     { "plot-freq", "LIST", "frequencies of the plot (default: each band centre or --freq)", 1 },
     { "plot-range", "DB", "dB from the outer ring to the plot centre (default 40)", 0 },

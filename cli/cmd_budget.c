@@ -10,8 +10,8 @@
 static const cli_optdef budget_opts[] = {
     CLI_BUDGET_OPTDEFS,
     { "front-to-back", "DB", "wanted front-to-back ratio of the pair described below, e.g. 20", 0 },
-    CLI_PAIR_OPTDEFS,
-    CLI_PAIR_BAND_OPTDEFS,
+    CLI_DUO_OPTDEFS,
+    CLI_DUO_BAND_OPTDEFS,
     { "label", "TEXT", "name kept in every output row", 0 },
     { NULL, NULL, NULL, 0 }
 };
@@ -34,7 +34,7 @@ typedef struct {
 static int budget_points(cli_ctx *ctx, const cli_goal *g, const cli_freq_point *pts, int n,
                          budget_point *res)
 {
-    const cli_pair_spec *spec = &g->spec;
+    const cli_duo_spec *spec = &g->spec;
     int result = CLI_EXIT_OK;
     for (int i = 0; i < n; i++) {
         budget_point *r = &res[i];
@@ -46,7 +46,7 @@ static int budget_points(cli_ctx *ctx, const cli_goal *g, const cli_freq_point *
         if (!r->reachable) result = CLI_EXIT_TOLERANCE;
         r->len_m = NAN;
         if (r->reachable && spec->has_vf &&
-            cxl_budget_length_for_phase(r->tol_deg, f, spec->vf, &r->len_m) != CXL_OK)
+            cxl_budget_length_for_phase(r->tol_deg, spec->vf, f, &r->len_m) != CXL_OK)
             r->len_m = NAN;
     }
     return result;
@@ -57,7 +57,7 @@ static void goal_text(cli_ctx *ctx, const cli_goal *g)
 {
     FILE *o = ctx->out;
     char b1[96], b2[96];
-    const cli_pair_spec *s = &g->spec;
+    const cli_duo_spec *s = &g->spec;
     if (g->kind == CLI_GOAL_FB) {
         fprintf(o, "  goal          front-to-back at least %s dB at elevation %s deg; the error is\n"
                    "                added to B's feed; free space, no ground, no mutual coupling\n",
@@ -87,7 +87,7 @@ static void budget_table(cli_ctx *ctx, const cli_args *a, const cli_goal *g,
                          const cli_freq_point *pts, int n, const budget_point *res)
 {
     const char *label = cli_label(a);
-    const cli_pair_spec *spec = &g->spec;
+    const cli_duo_spec *spec = &g->spec;
     int geo = g->kind != CLI_GOAL_INPHASE;
     for (int i = 0; i < n; i++) {
         const budget_point *r = &res[i];
@@ -159,7 +159,7 @@ static void budget_text(cli_ctx *ctx, const cli_args *a, const cli_goal *g,
     FILE *o = ctx->out;
     char b1[96];
     const char *label = cli_label(a);
-    const cli_pair_spec *spec = &g->spec;
+    const cli_duo_spec *spec = &g->spec;
     if (ctx->rows_out++) putc('\n', o);
     fprintf(o, "budget%s%s\n", label[0] ? ": " : "", label);
     goal_text(ctx, g);

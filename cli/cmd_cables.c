@@ -52,7 +52,7 @@ static void get_info(const cxl_catalog *cat, size_t i, cable_info *c)
     cxl_catalog_dielectric(cat, i, &c->dielectric);
     cxl_catalog_source(cat, i, &c->source);
     cxl_catalog_is_builtin(cat, i, &c->builtin);
-    cxl_catalog_loss_count(cat, i, &c->npoints);
+    c->npoints = cxl_catalog_loss_count(cat, i);
     if (c->npoints) {
         cxl_catalog_loss_point(cat, i, 0, &c->lo_hz, &(double){ 0 }, NULL);
         cxl_catalog_loss_point(cat, i, c->npoints - 1, &c->hi_hz, &(double){ 0 }, NULL);
@@ -181,7 +181,7 @@ static int cables_run(cli_ctx *ctx, const cli_args *a)
     if (!cat) return CLI_EXIT_USAGE;
     size_t count = 0, first = 0;
     const char *want = cli_get(a, "cable", 0);
-    cxl_catalog_count(cat, &count);
+    count = cxl_catalog_count(cat);
     if (want) {
         if (cli_cable_index(ctx, want, &first)) return CLI_EXIT_USAGE;
         count = first + 1;

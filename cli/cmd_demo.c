@@ -199,7 +199,7 @@ static int demo_pair(cli_ctx *ctx, demo *d)
         double lo, hi, delta, err, unc, allowed;
         cxl_verdict v;
         if (cxl_bands_edges(bt, bands[i], 0, 1, &lo, &hi) != CXL_OK ||
-            cxl_pair_check(feeds, 2, d->vf, hi, TOL_DEG, 0.005, 0.0, &delta, &err, &unc, &v) != CXL_OK ||
+            cxl_pair_check(feeds, 2, TOL_DEG, d->vf, hi, 0.005, 0.0, &delta, &err, &unc, &v) != CXL_OK ||
             cxl_pair_max_mismatch(TOL_DEG, d->vf, hi, &allowed) != CXL_OK)
             FAIL("pair check");
         fprintf(o, "   %-5s at %s MHz: %s deg apart, allowed %s mm for %s deg: %s\n", bands[i],
@@ -239,22 +239,22 @@ static int demo_loss(cli_ctx *ctx, demo *d)
 static int demo_patterns(const demo *d, double extra_s, double feed_skew_s, double *rdf,
                          double *fb_ideal, double *fb_built, double *null_az)
 {
-    cxl_array_pair *ideal = NULL, *built = NULL;
+    cxl_duo *ideal = NULL, *built = NULL;
     double null_db, null_ideal_db, az0;
-    int ok = cxl_array_pair_new(&ideal) == CXL_OK &&
-             cxl_array_pair_set_geometry(ideal, SPACING_M, STAGGER_M) == CXL_OK &&
-             cxl_array_pair_set_delay(ideal, 1, d->delay_s) == CXL_OK &&
-             cxl_array_pair_set_flip(ideal, 1, 1) == CXL_OK &&
-             cxl_array_pair_copy(ideal, &built) == CXL_OK &&
-             cxl_array_pair_set_delay(built, 1, d->delay_s + extra_s) == CXL_OK &&
-             cxl_array_pair_set_delay(built, 0, feed_skew_s) == CXL_OK &&
-             cxl_array_rdf(ideal, DESIGN_HZ, rdf) == CXL_OK &&
-             cxl_array_front_to_back(ideal, DESIGN_HZ, 0.0, fb_ideal) == CXL_OK &&
-             cxl_array_front_to_back(built, DESIGN_HZ, 0.0, fb_built) == CXL_OK &&
-             cxl_array_rear_null(ideal, DESIGN_HZ, 0.0, &az0, &null_ideal_db) == CXL_OK &&
-             cxl_array_rear_null(built, DESIGN_HZ, 0.0, null_az, &null_db) == CXL_OK;
-    cxl_array_pair_free(ideal);
-    cxl_array_pair_free(built);
+    int ok = cxl_duo_new(&ideal) == CXL_OK &&
+             cxl_duo_set_geometry(ideal, SPACING_M, STAGGER_M) == CXL_OK &&
+             cxl_duo_set_delay(ideal, 1, d->delay_s) == CXL_OK &&
+             cxl_duo_set_flip(ideal, 1, 1) == CXL_OK &&
+             cxl_duo_copy(ideal, &built) == CXL_OK &&
+             cxl_duo_set_delay(built, 1, d->delay_s + extra_s) == CXL_OK &&
+             cxl_duo_set_delay(built, 0, feed_skew_s) == CXL_OK &&
+             cxl_duo_rdf(ideal, DESIGN_HZ, rdf) == CXL_OK &&
+             cxl_duo_front_to_back(ideal, DESIGN_HZ, 0.0, fb_ideal) == CXL_OK &&
+             cxl_duo_front_to_back(built, DESIGN_HZ, 0.0, fb_built) == CXL_OK &&
+             cxl_duo_rear_null(ideal, DESIGN_HZ, 0.0, &az0, &null_ideal_db) == CXL_OK &&
+             cxl_duo_rear_null(built, DESIGN_HZ, 0.0, null_az, &null_db) == CXL_OK;
+    cxl_duo_free(ideal);
+    cxl_duo_free(built);
     return ok ? 0 : -1;
 }
 

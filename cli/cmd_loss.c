@@ -59,7 +59,7 @@ static int setup_model(cli_ctx *ctx, const cli_args *a, const cxl_catalog *cat, 
                        const char *name, loss_setup *s)
 {
     const char *m = cli_get(a, "model", 0);
-    cxl_catalog_loss_count(cat, i, &s->npoints);
+    s->npoints = cxl_catalog_loss_count(cat, i);
     if (!m) {
         s->defaulted = 1;
         s->physical = s->npoints < 2;

@@ -15,7 +15,7 @@ static const cli_optdef pair_opts[] = {
     { "vf-from", "FILE|-", "take the fitted VF from coaxline vf --format csv output", 0 },
     { "tolerance", "DEG", "largest phase difference allowed between the lines", 0 },
     CLI_BUDGET_OPTDEFS,
-    CLI_PAIR_GEOMETRY_OPTDEFS,
+    CLI_DUO_GEOMETRY_OPTDEFS,
     { "band", "LIST", "bands to check, e.g. 160m,80m", 1 },
     { "region", "N", "ITU Region 1, 2 or 3 (default: widest edges across Regions)", 0 },
     { "exclude-footnotes", NULL, "band edges without footnote segments", 0 },
@@ -132,8 +132,8 @@ static int worse_check(const check *a, const check *b)
  * into the load (the library's check). */
 static int load_check(cli_ctx *ctx, const pair_set *s, double f, int want_allowed, check *c)
 {
-    cxl_status st = cxl_pair_load_check(s->load.handle, s->len, (size_t)s->nlen, s->vf, f,
-                                        s->reachable ? s->tol : 360.0, s->length_tol_m,
+    cxl_status st = cxl_pair_load_check(s->load.handle, s->len, (size_t)s->nlen,
+                                        s->reachable ? s->tol : 360.0, s->vf, f, s->length_tol_m,
                                         s->vf_tol, &c->err_deg, &c->unc_deg, &c->elec_deg,
                                         &c->imbalance_db, &c->verdict);
     if (st != CXL_OK) return cli_load_error(ctx, &s->load, f, st);
@@ -152,7 +152,7 @@ static int load_check(cli_ctx *ctx, const pair_set *s, double f, int want_allowe
 static int check_point(cli_ctx *ctx, const pair_set *s, double f, int want_allowed, check *c)
 {
     /* the library's verdict needs a tolerance; an unreachable goal fails */
-    if (cxl_pair_check(s->len, (size_t)s->nlen, s->vf, f, s->reachable ? s->tol : 360.0,
+    if (cxl_pair_check(s->len, (size_t)s->nlen, s->reachable ? s->tol : 360.0, s->vf, f,
                        s->length_tol_m, s->vf_tol, &c->delta_m, &c->err_deg, &c->unc_deg,
                        &c->verdict) != CXL_OK ||
         !isfinite(c->err_deg) || !isfinite(c->unc_deg))
@@ -226,7 +226,7 @@ static void goal_tolerance_text(cli_ctx *ctx, const pair_set *s, int np)
     char b1[96], b2[96], b3[96];
     FILE *o = ctx->out;
     const cli_goal *g = &s->goal;
-    const cli_pair_spec *p = &g->spec;
+    const cli_duo_spec *p = &g->spec;
     double lo = INFINITY, hi = -INFINITY, free_db = -INFINITY;
     int all = 1;
     for (int i = 0; i < np; i++) {

@@ -13,14 +13,14 @@
 #define PLOT_POINTS 360
 
 static const cli_optdef pattern_opts[] = {
-    CLI_PAIR_OPTDEFS,
+    CLI_DUO_OPTDEFS,
     { "measured-a", "LEN", "as built: A's line as measured (replaces its design length)", 0 },
     { "measured-b", "LEN", "as built: B's line as measured", 0 },
     { "actual-vf", "X", "as built: the spool's real VF (the lines were cut for --vf/--cable)", 0 },
     { "phase-error", "DEG", "as built: B lags A by this many degrees more than designed", 0 },
     { "imbalance", "DB", "as built: B weaker than A by this many dB", 0 },
     { "line-loss", NULL, "as built: add the loss difference of the two lines (--cable)", 0 },
-    CLI_PAIR_BAND_OPTDEFS,
+    CLI_DUO_BAND_OPTDEFS,
     { "plot", "FILE", "write the azimuth pattern (ideal and as built) as an SVG file", 0 },
     { "plot-freq", "F", "frequency of the plot (default: first band centre or first --freq)", 0 },
     { "plot-range", "DB", "dB from the outer ring to the plot centre (default 40)", 0 },
@@ -46,7 +46,7 @@ static const char *const case_name[2] = { "ideal", "as-built" };
 
 /* Above the frequency at which the pair's electrical size reaches the
  * model's bound (CXL_ARRAY_MAX_KSIZE), say so with the limit; 0 below. */
-static int size_limit(cli_ctx *ctx, const char *field, const cli_pair_spec *s, double f)
+static int size_limit(cli_ctx *ctx, const char *field, const cli_duo_spec *s, double f)
 {
     double size_m = hypot(s->spacing_m, s->stagger_m) + (s->wire ? s->wire_length_m : 0.0);
     if (!(size_m > 0.0)) return 0;
@@ -65,19 +65,19 @@ static int size_limit(cli_ctx *ctx, const char *field, const cli_pair_spec *s, d
 }
 
 /* The pair of one case at one frequency and what it does. */
-static int evaluate(cli_ctx *ctx, const cli_pair_spec *s, int as_built, double f,
+static int evaluate(cli_ctx *ctx, const cli_duo_spec *s, int as_built, double f,
                     pattern_row *r)
 {
-    cxl_array_pair *p;
+    cxl_duo *p;
     if (size_limit(ctx, "freq", s, f)) return CLI_EXIT_USAGE;
-    if (cli_pair_spec_build(ctx, s, as_built, f, &p, &r->phase_deg, &r->imbalance_db))
+    if (cli_duo_spec_build(ctx, s, as_built, f, &p, &r->phase_deg, &r->imbalance_db))
         return CLI_EXIT_USAGE;
     double el = s->elevation_deg;
-    cxl_status st = cxl_array_forward_gain(p, f, el, &r->gain_dbi);
-    if (st == CXL_OK) st = cxl_array_front_to_back(p, f, el, &r->fb_db);
-    if (st == CXL_OK) st = cxl_array_rear_null(p, f, el, &r->null_az_deg, &r->null_db);
-    if (st == CXL_OK) st = cxl_array_rdf(p, f, &r->rdf_db);
-    cxl_array_pair_free(p);
+    cxl_status st = cxl_duo_forward_gain(p, f, el, &r->gain_dbi);
+    if (st == CXL_OK) st = cxl_duo_front_to_back(p, f, el, &r->fb_db);
+    if (st == CXL_OK) st = cxl_duo_rear_null(p, f, el, &r->null_az_deg, &r->null_db);
+    if (st == CXL_OK) st = cxl_duo_rdf(p, f, &r->rdf_db);
+    cxl_duo_free(p);
     if (st == CXL_OK && (!isfinite(r->gain_dbi) || !isfinite(r->fb_db) || !isfinite(r->null_db) ||
                          !isfinite(r->null_az_deg) || !isfinite(r->rdf_db)))
         st = CXL_ERANGE;
@@ -91,7 +91,7 @@ static int evaluate(cli_ctx *ctx, const cli_pair_spec *s, int as_built, double f
 }
 
 /* The azimuth patterns of both cases at one frequency, as an SVG file. */
-static int plot(cli_ctx *ctx, const cli_args *a, const cli_pair_spec *s, double f)
+static int plot(cli_ctx *ctx, const cli_args *a, const cli_duo_spec *s, double f)
 {
     double range_db = 40.0;
     if (cli_count(a, "plot-range") &&
@@ -105,12 +105,12 @@ static int plot(cli_ctx *ctx, const cli_args *a, const cli_pair_spec *s, double 
     if (size_limit(ctx, "plot-freq", s, f)) return CLI_EXIT_USAGE;
     for (int i = 0; i < PLOT_POINTS; i++) az[i] = 360.0 * i / PLOT_POINTS;
     for (int c = 0; c < ncases; c++) {
-        cxl_array_pair *p;
+        cxl_duo *p;
         double rdf;
-        if (cli_pair_spec_build(ctx, s, c, f, &p, NULL, NULL)) return CLI_EXIT_USAGE;
-        cxl_status st = cxl_array_pattern(p, f, s->elevation_deg, PLOT_POINTS, gain[c]);
-        if (st == CXL_OK) st = cxl_array_rdf(p, f, &rdf);
-        cxl_array_pair_free(p);
+        if (cli_duo_spec_build(ctx, s, c, f, &p, NULL, NULL)) return CLI_EXIT_USAGE;
+        cxl_status st = cxl_duo_pattern(p, f, s->elevation_deg, PLOT_POINTS, gain[c]);
+        if (st == CXL_OK) st = cxl_duo_rdf(p, f, &rdf);
+        cxl_duo_free(p);
         if (st != CXL_OK)
             return cli_error(ctx, "plot-freq", "a frequency at which the pair can be modelled",
                              "at %s MHz: %s", cli_fmt(b1, sizeof b1, f / 1e6, 6), cxl_strerror(st));
@@ -140,19 +140,19 @@ static int plot(cli_ctx *ctx, const cli_args *a, const cli_pair_spec *s, double 
 /* Front-to-back of both cases across each band, as an x-y SVG file. */
 static int pair_fb(cli_ctx *ctx, void *user, int c, double f, double *fb_db)
 {
-    const cli_pair_spec *s = user;
-    cxl_array_pair *p;
+    const cli_duo_spec *s = user;
+    cxl_duo *p;
     char b1[32];
-    if (cli_pair_spec_build(ctx, s, c, f, &p, NULL, NULL)) return CLI_EXIT_USAGE;
-    cxl_status st = cxl_array_front_to_back(p, f, s->elevation_deg, fb_db);
-    cxl_array_pair_free(p);
+    if (cli_duo_spec_build(ctx, s, c, f, &p, NULL, NULL)) return CLI_EXIT_USAGE;
+    cxl_status st = cxl_duo_front_to_back(p, f, s->elevation_deg, fb_db);
+    cxl_duo_free(p);
     if (st != CXL_OK)
         return cli_error(ctx, "sweep-plot", "bands on which the pair can be modelled",
                          "at %s MHz: %s", cli_fmt(b1, sizeof b1, f / 1e6, 6), cxl_strerror(st));
     return 0;
 }
 
-static int sweep_plot(cli_ctx *ctx, const cli_args *a, const cli_pair_spec *s,
+static int sweep_plot(cli_ctx *ctx, const cli_args *a, const cli_duo_spec *s,
                       const cli_freq_point *pts, int n)
 {
     cli_fb_sweep plot = {
@@ -167,7 +167,7 @@ static int sweep_plot(cli_ctx *ctx, const cli_args *a, const cli_pair_spec *s,
 }
 
 /* The as-built line of describe(): what differs from the design. */
-static void describe_as_built(cli_ctx *ctx, const cli_pair_spec *s)
+static void describe_as_built(cli_ctx *ctx, const cli_duo_spec *s)
 {
     FILE *o = ctx->out;
     char b1[96];
@@ -194,7 +194,7 @@ static void describe_as_built(cli_ctx *ctx, const cli_pair_spec *s)
     putc('\n', o);
 }
 
-static void describe(cli_ctx *ctx, const cli_pair_spec *s, const char *label)
+static void describe(cli_ctx *ctx, const cli_duo_spec *s, const char *label)
 {
     FILE *o = ctx->out;
     char b1[96], b2[96], b3[96];
@@ -230,7 +230,7 @@ static void describe(cli_ctx *ctx, const cli_pair_spec *s, const char *label)
 typedef pattern_row pattern_rows[4 * CLI_MAX_ITEMS][2];
 
 /* Every row (frequency x case), then the plots. */
-static int compute(cli_ctx *ctx, const cli_args *a, const cli_pair_spec *s,
+static int compute(cli_ctx *ctx, const cli_args *a, const cli_duo_spec *s,
                    const cli_freq_point *pts, int n, pattern_rows rows)
 {
     double plot_hz = 0.0;
@@ -250,7 +250,7 @@ static int compute(cli_ctx *ctx, const cli_args *a, const cli_pair_spec *s,
     return code;
 }
 
-static void write_table(cli_ctx *ctx, const cli_pair_spec *s, const char *label,
+static void write_table(cli_ctx *ctx, const cli_duo_spec *s, const char *label,
                         const cli_freq_point *pts, int n, pattern_rows rows)
 {
     int ncases = s->has_errors ? 2 : 1;
@@ -268,7 +268,7 @@ static void write_table(cli_ctx *ctx, const cli_pair_spec *s, const char *label,
         }
 }
 
-static void write_text(cli_ctx *ctx, const cli_pair_spec *s, const char *label,
+static void write_text(cli_ctx *ctx, const cli_duo_spec *s, const char *label,
                        const cli_freq_point *pts, int n, pattern_rows rows)
 {
     FILE *o = ctx->out;
@@ -303,15 +303,15 @@ static int pattern_run(cli_ctx *ctx, const cli_args *a)
 {
     static _Thread_local cli_freq_point pts[4 * CLI_MAX_ITEMS];
     static _Thread_local pattern_rows rows;
-    cli_pair_spec s;
-    if (cli_pair_spec_parse(ctx, a, &s)) return CLI_EXIT_USAGE;
+    cli_duo_spec s;
+    if (cli_duo_spec_parse(ctx, a, &s)) return CLI_EXIT_USAGE;
     int n = cli_freq_points(ctx, a, pts, sizeof pts / sizeof pts[0], NULL);
     int code = n < 0 ? CLI_EXIT_USAGE : compute(ctx, a, &s, pts, n, rows);
     if (!code && ctx->format != CLI_TEXT)
         write_table(ctx, &s, cli_label(a), pts, n, rows);
     else if (!code)
         write_text(ctx, &s, cli_label(a), pts, n, rows);
-    cli_pair_spec_free(&s);
+    cli_duo_spec_free(&s);
     return code ? code : CLI_EXIT_OK;
 }
 

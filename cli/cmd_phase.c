@@ -67,7 +67,7 @@ static int reference_length(const cli_ctx *ctx, const cli_args *a, double vf,
                          "'%s' must be greater than zero", d);
     if (!f) return cli_error(ctx, "reference-freq", expected, "--reference-deg needs its frequency");
     if (cli_freq(ctx, "reference-freq", f, deg_freq_hz)) return CLI_EXIT_USAGE;
-    if (cxl_line_length_from_degrees(*deg, *deg_freq_hz, vf, reference_m) != CXL_OK ||
+    if (cxl_line_length_from_degrees(*deg, vf, *deg_freq_hz, reference_m) != CXL_OK ||
         !isfinite(*reference_m) || !(*reference_m > 0.0))
         return cli_error(ctx, "reference-deg", "a smaller value", "gives no usable length");
     return cli_line_length_check(ctx, "reference-deg", d, *reference_m);

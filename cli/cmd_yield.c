@@ -19,7 +19,7 @@
 static const cli_optdef yield_opts[] = {
     CLI_LAYOUT_OPTDEFS,
     CLI_ARRAY_MODEL_OPTDEFS,
-    CLI_PAIR_BAND_OPTDEFS,
+    CLI_DUO_BAND_OPTDEFS,
     { "length-tol", "LEN", "each line cut within +-LEN of its length (default 0)", 0 },
     { "vf-tol", "X", "the drum's VF within +-X of the nominal, one error for all lines (default 0)", 0 },
     { "imbalance-tol", "DB", "each element's amplitude within +-DB (default 0)", 0 },

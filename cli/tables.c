@@ -64,8 +64,7 @@ static void put_band_names(FILE *fp, const cxl_bands *bands)
 
 static void put_cable_names(FILE *fp, const cxl_catalog *cat)
 {
-    size_t n = 0;
-    if (!cat || cxl_catalog_count(cat, &n) != CXL_OK) return;
+    size_t n = cxl_catalog_count(cat);
     for (size_t i = 0; i < n; i++) {
         const char *name = NULL;
         if (cxl_catalog_name(cat, i, &name) == CXL_OK && plain_word(name))

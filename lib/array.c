@@ -3,8 +3,8 @@
  * directivity and receiving directivity factor.  The model is described
  * in coaxline.h.
  *
- * One implementation: the two-element pair API (cxl_array_pair_*,
- * cxl_array_gain, ...) builds a two-element cxl_array on the stack and
+ * One implementation: the two-element pair API (cxl_duo_*,
+ * cxl_duo_gain, ...) builds a two-element cxl_array on the stack and
  * calls the same evaluation code as the N-element API.
  *
  * Work is bounded by the array's electrical size S = k D (+ the wire's
@@ -61,7 +61,7 @@ struct cxl_array {
     double wire_length_m, wire_vf;
 };
 
-struct cxl_array_pair {
+struct cxl_duo {
     double spacing_m;
     double stagger_m;
     double delay_s[2];
@@ -1191,11 +1191,11 @@ cxl_status cxl_array_eval_rdf(const cxl_array *array, double freq_hz,
 
 /* ---- the two-element pair: a thin layer over the N-element code -------- */
 
-cxl_status cxl_array_pair_new(cxl_array_pair **pair)
+cxl_status cxl_duo_new(cxl_duo **pair)
 {
     if (!pair)
         return CXL_EINVAL;
-    cxl_array_pair *p = calloc(1, sizeof *p);
+    cxl_duo *p = calloc(1, sizeof *p);
     if (!p)
         return CXL_ENOMEM;
     p->element = CXL_ELEMENT_ISOTROPIC;
@@ -1204,17 +1204,17 @@ cxl_status cxl_array_pair_new(cxl_array_pair **pair)
     return CXL_OK;
 }
 
-void cxl_array_pair_free(cxl_array_pair *pair)
+void cxl_duo_free(cxl_duo *pair)
 {
     free(pair);
 }
 
-cxl_status cxl_array_pair_copy(const cxl_array_pair *pair,
-                               cxl_array_pair **copy)
+cxl_status cxl_duo_copy(const cxl_duo *pair,
+                        cxl_duo **copy)
 {
     if (!pair || !copy)
         return CXL_EINVAL;
-    cxl_array_pair *p = malloc(sizeof *p);
+    cxl_duo *p = malloc(sizeof *p);
     if (!p)
         return CXL_ENOMEM;
     *p = *pair;
@@ -1222,8 +1222,8 @@ cxl_status cxl_array_pair_copy(const cxl_array_pair *pair,
     return CXL_OK;
 }
 
-cxl_status cxl_array_pair_set_geometry(cxl_array_pair *pair,
-                                       double spacing_m, double stagger_m)
+cxl_status cxl_duo_set_geometry(cxl_duo *pair,
+                                double spacing_m, double stagger_m)
 {
     if (!pair || !cxl__finite_nonneg(spacing_m) || !isfinite(stagger_m))
         return CXL_EINVAL;
@@ -1237,8 +1237,8 @@ static int valid_element(int element)
     return element == 0 || element == 1;
 }
 
-cxl_status cxl_array_pair_set_delay(cxl_array_pair *pair, int element,
-                                    double delay_s)
+cxl_status cxl_duo_set_delay(cxl_duo *pair, int element,
+                             double delay_s)
 {
     if (!pair || !valid_element(element) || !cxl__finite_nonneg(delay_s))
         return CXL_EINVAL;
@@ -1246,9 +1246,9 @@ cxl_status cxl_array_pair_set_delay(cxl_array_pair *pair, int element,
     return CXL_OK;
 }
 
-cxl_status cxl_array_pair_set_delay_deg(cxl_array_pair *pair, int element,
-                                        double phase_deg,
-                                        double design_freq_hz)
+cxl_status cxl_duo_set_delay_deg(cxl_duo *pair, int element,
+                                 double phase_deg,
+                                 double design_freq_hz)
 {
     if (!pair || !valid_element(element) || !cxl__finite_nonneg(phase_deg) ||
         !cxl__finite_pos(design_freq_hz))
@@ -1257,8 +1257,8 @@ cxl_status cxl_array_pair_set_delay_deg(cxl_array_pair *pair, int element,
     return CXL_OK;
 }
 
-cxl_status cxl_array_pair_set_phase_offset(cxl_array_pair *pair,
-                                           int element, double phase_deg)
+cxl_status cxl_duo_set_phase_offset(cxl_duo *pair,
+                                    int element, double phase_deg)
 {
     if (!pair || !valid_element(element) || !isfinite(phase_deg))
         return CXL_EINVAL;
@@ -1266,8 +1266,8 @@ cxl_status cxl_array_pair_set_phase_offset(cxl_array_pair *pair,
     return CXL_OK;
 }
 
-cxl_status cxl_array_pair_set_flip(cxl_array_pair *pair, int element,
-                                   int flipped)
+cxl_status cxl_duo_set_flip(cxl_duo *pair, int element,
+                            int flipped)
 {
     if (!pair || !valid_element(element))
         return CXL_EINVAL;
@@ -1275,8 +1275,8 @@ cxl_status cxl_array_pair_set_flip(cxl_array_pair *pair, int element,
     return CXL_OK;
 }
 
-cxl_status cxl_array_pair_set_imbalance(cxl_array_pair *pair,
-                                        double imbalance_db)
+cxl_status cxl_duo_set_imbalance(cxl_duo *pair,
+                                 double imbalance_db)
 {
     if (!pair || !isfinite(imbalance_db) || fabs(imbalance_db) > 200.0)
         return CXL_EINVAL;
@@ -1284,7 +1284,7 @@ cxl_status cxl_array_pair_set_imbalance(cxl_array_pair *pair,
     return CXL_OK;
 }
 
-cxl_status cxl_array_pair_set_isotropic(cxl_array_pair *pair)
+cxl_status cxl_duo_set_isotropic(cxl_duo *pair)
 {
     if (!pair)
         return CXL_EINVAL;
@@ -1292,8 +1292,8 @@ cxl_status cxl_array_pair_set_isotropic(cxl_array_pair *pair)
     return CXL_OK;
 }
 
-cxl_status cxl_array_pair_set_long_wire(cxl_array_pair *pair,
-                                        double length_m, double wire_vf)
+cxl_status cxl_duo_set_long_wire(cxl_duo *pair,
+                                 double length_m, double wire_vf)
 {
     if (!pair || !cxl__finite_pos(length_m) || !cxl__valid_vf(wire_vf))
         return CXL_EINVAL;
@@ -1306,7 +1306,7 @@ cxl_status cxl_array_pair_set_long_wire(cxl_array_pair *pair,
 /* The pair as a two-element array in buf (no allocation): element 0 at
  * (+stagger/2, -spacing/2), element 1 at (-stagger/2, +spacing/2);
  * extra_phase_rad is added to element 1. */
-static const cxl_array *pair_as_array(const cxl_array_pair *p,
+static const cxl_array *pair_as_array(const cxl_duo *p,
                                       double extra_phase_rad, cxl_array *a,
                                       array_elem buf[2])
 {
@@ -1334,49 +1334,49 @@ static const cxl_array *pair_as_array(const cxl_array_pair *p,
 #define AS_ARRAY(pair) pair_as_array((pair), 0.0, &tmp_, buf_)
 #define PAIR_LOCALS cxl_array tmp_; array_elem buf_[2]
 
-cxl_status cxl_array_field(const cxl_array_pair *pair, double freq_hz,
-                           double azimuth_deg, double elevation_deg,
-                           double *field_re, double *field_im)
+cxl_status cxl_duo_field(const cxl_duo *pair, double freq_hz,
+                         double azimuth_deg, double elevation_deg,
+                         double *field_re, double *field_im)
 {
     PAIR_LOCALS;
     return cxl_array_eval_field(AS_ARRAY(pair), freq_hz, azimuth_deg,
                                 elevation_deg, field_re, field_im);
 }
 
-cxl_status cxl_array_response(const cxl_array_pair *pair, double freq_hz,
-                              double azimuth_deg, double elevation_deg,
-                              double *response_db)
+cxl_status cxl_duo_response(const cxl_duo *pair, double freq_hz,
+                            double azimuth_deg, double elevation_deg,
+                            double *response_db)
 {
     PAIR_LOCALS;
     return cxl_array_eval_response(AS_ARRAY(pair), freq_hz, azimuth_deg,
                                    elevation_deg, response_db);
 }
 
-cxl_status cxl_array_pattern(const cxl_array_pair *pair, double freq_hz,
-                             double elevation_deg, size_t n,
-                             double *gain_dbi)
+cxl_status cxl_duo_pattern(const cxl_duo *pair, double freq_hz,
+                           double elevation_deg, size_t n,
+                           double *gain_dbi)
 {
     PAIR_LOCALS;
     return cxl_array_eval_pattern(AS_ARRAY(pair), freq_hz, elevation_deg, n,
                                   gain_dbi);
 }
 
-cxl_status cxl_array_gain(const cxl_array_pair *pair, double freq_hz,
-                          double azimuth_deg, double elevation_deg,
-                          double *gain_dbi)
+cxl_status cxl_duo_gain(const cxl_duo *pair, double freq_hz,
+                        double azimuth_deg, double elevation_deg,
+                        double *gain_dbi)
 {
     PAIR_LOCALS;
     return cxl_array_eval_gain(AS_ARRAY(pair), freq_hz, azimuth_deg,
                                elevation_deg, gain_dbi);
 }
 
-cxl_status cxl_array_forward_gain(const cxl_array_pair *pair, double freq_hz,
-                                  double elevation_deg, double *gain_dbi)
+cxl_status cxl_duo_forward_gain(const cxl_duo *pair, double freq_hz,
+                                double elevation_deg, double *gain_dbi)
 {
-    return cxl_array_gain(pair, freq_hz, 0.0, elevation_deg, gain_dbi);
+    return cxl_duo_gain(pair, freq_hz, 0.0, elevation_deg, gain_dbi);
 }
 
-cxl_status cxl__array_front_to_back(const cxl_array_pair *pair,
+cxl_status cxl__array_front_to_back(const cxl_duo *pair,
                                     double freq_hz, double elevation_deg,
                                     double extra_phase_rad, double *ratio_db)
 {
@@ -1388,41 +1388,41 @@ cxl_status cxl__array_front_to_back(const cxl_array_pair *pair,
         freq_hz, elevation_deg, ratio_db);
 }
 
-cxl_status cxl_array_front_to_back(const cxl_array_pair *pair,
-                                   double freq_hz, double elevation_deg,
-                                   double *ratio_db)
+cxl_status cxl_duo_front_to_back(const cxl_duo *pair,
+                                 double freq_hz, double elevation_deg,
+                                 double *ratio_db)
 {
     return cxl__array_front_to_back(pair, freq_hz, elevation_deg, 0.0,
                                     ratio_db);
 }
 
-cxl_status cxl_array_rear_null(const cxl_array_pair *pair, double freq_hz,
-                               double elevation_deg, double *azimuth_deg,
-                               double *depth_db)
+cxl_status cxl_duo_rear_null(const cxl_duo *pair, double freq_hz,
+                             double elevation_deg, double *azimuth_deg,
+                             double *depth_db)
 {
     PAIR_LOCALS;
     return cxl_array_eval_rear_null(AS_ARRAY(pair), freq_hz, elevation_deg,
                                     azimuth_deg, depth_db);
 }
 
-cxl_status cxl_array_peak(const cxl_array_pair *pair, double freq_hz,
-                          double *azimuth_deg, double *elevation_deg)
+cxl_status cxl_duo_peak(const cxl_duo *pair, double freq_hz,
+                        double *azimuth_deg, double *elevation_deg)
 {
     PAIR_LOCALS;
     return cxl_array_eval_peak(AS_ARRAY(pair), freq_hz, azimuth_deg,
                                elevation_deg);
 }
 
-cxl_status cxl_array_directivity(const cxl_array_pair *pair, double freq_hz,
-                                 double *directivity_dbi)
+cxl_status cxl_duo_directivity(const cxl_duo *pair, double freq_hz,
+                               double *directivity_dbi)
 {
     PAIR_LOCALS;
     return cxl_array_eval_directivity(AS_ARRAY(pair), freq_hz,
                                       directivity_dbi);
 }
 
-cxl_status cxl_array_rdf(const cxl_array_pair *pair, double freq_hz,
-                         double *rdf_db)
+cxl_status cxl_duo_rdf(const cxl_duo *pair, double freq_hz,
+                       double *rdf_db)
 {
     PAIR_LOCALS;
     double fwd;
@@ -1431,8 +1431,8 @@ cxl_status cxl_array_rdf(const cxl_array_pair *pair, double freq_hz,
     return cxl_array_eval_rdf(AS_ARRAY(pair), freq_hz, 0.0, &fwd, rdf_db);
 }
 
-cxl_status cxl_array_null_depth(double phase_error_deg, double imbalance_db,
-                                double *depth_db)
+cxl_status cxl_duo_null_depth(double phase_error_deg, double imbalance_db,
+                              double *depth_db)
 {
     if (!depth_db || !isfinite(phase_error_deg) || !isfinite(imbalance_db) ||
         fabs(imbalance_db) > 200.0)
@@ -1528,8 +1528,8 @@ cxl_status cxl__array_eval_rear_null(const cxl__array_eval *e, double el_rad,
  * degrees apart there only (Balanis, Antenna Theory, 3rd ed., sec. 6.3:
  * the progressive phase beta = -kd of the ordinary end-fire array, plus the
  * half turn). */
-cxl_status cxl_array_pair_set_feed(cxl_array_pair *pair, cxl_feed feed,
-                                   double design_freq_hz)
+cxl_status cxl_duo_set_feed(cxl_duo *pair, cxl_feed feed,
+                            double design_freq_hz)
 {
     if (!pair || (feed != CXL_FEED_CROSSFIRE && feed != CXL_FEED_ENDFIRE) ||
         !cxl__finite_nonneg(design_freq_hz) || pair->stagger_m == 0.0)
@@ -1551,15 +1551,15 @@ cxl_status cxl_array_pair_set_feed(cxl_array_pair *pair, cxl_feed feed,
     deg = fmod(180.0 - deg, 360.0);
     if (deg < 0.0) deg += 360.0;
     if (!isfinite(deg / (360.0 * design_freq_hz))) return CXL_ERANGE;
-    st = cxl_array_pair_set_delay_deg(pair, front, deg, design_freq_hz);
+    st = cxl_duo_set_delay_deg(pair, front, deg, design_freq_hz);
     if (st != CXL_OK) return st;
     pair->delay_s[rear] = 0.0;
     pair->flip[0] = pair->flip[1] = 0;
     return CXL_OK;
 }
 
-cxl_status cxl_array_pair_feed(const cxl_array_pair *pair, int element,
-                               double *delay_s, int *flipped)
+cxl_status cxl_duo_feed(const cxl_duo *pair, int element,
+                        double *delay_s, int *flipped)
 {
     if (!pair || !valid_element(element) || !delay_s || !flipped) return CXL_EINVAL;
     *delay_s = pair->delay_s[element];
@@ -1567,10 +1567,10 @@ cxl_status cxl_array_pair_feed(const cxl_array_pair *pair, int element,
     return CXL_OK;
 }
 
-cxl_status cxl_array_pair_built_phase(const double *design_delay_s,
-                                      const double *built_delay_s,
-                                      double freq_hz, double extra_phase_deg,
-                                      double *phase_error_deg)
+cxl_status cxl_duo_built_phase(const double *design_delay_s,
+                               const double *built_delay_s,
+                               double extra_phase_deg, double freq_hz,
+                               double *phase_error_deg)
 {
     if (!design_delay_s || !built_delay_s || !phase_error_deg || !cxl__finite_pos(freq_hz) ||
         !isfinite(extra_phase_deg))

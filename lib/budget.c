@@ -30,7 +30,7 @@ cxl_status cxl_budget_phase_for_null(double depth_db, double imbalance_db,
 }
 
 typedef struct {
-    const cxl_array_pair *pair;
+    const cxl_duo *pair;
     double freq_hz, elevation_deg, ratio_db, sign;
     cxl_status status;   /* first failure inside the root finder */
 } fb_params;
@@ -103,17 +103,17 @@ static double fb_shortfall(double d_deg, void *params)
     return fp->ratio_db - fb;
 }
 
-cxl_status cxl_budget_phase_for_front_to_back(const cxl_array_pair *pair,
+cxl_status cxl_budget_phase_for_front_to_back(const cxl_duo *pair,
+                                              double ratio_db,
                                               double freq_hz,
                                               double elevation_deg,
-                                              double ratio_db,
                                               double *phase_error_deg)
 {
     double fb0, limit[2];
     if (!pair || !phase_error_deg || !isfinite(ratio_db) ||
         fabs(ratio_db) >= CXL_DB_LIMIT)
         return CXL_EINVAL;
-    cxl_status st = cxl_array_front_to_back(pair, freq_hz, elevation_deg,
+    cxl_status st = cxl_duo_front_to_back(pair, freq_hz, elevation_deg,
                                             &fb0);
     if (st)
         return st;
@@ -130,13 +130,13 @@ cxl_status cxl_budget_phase_for_front_to_back(const cxl_array_pair *pair,
     return CXL_OK;
 }
 
-/* Rear null (as cxl_array_rear_null measures it) with element 1's fixed
+/* Rear null (as cxl_duo_rear_null measures it) with element 1's fixed
  * phase offset set to -sign * d_deg (B lagging by sign * d_deg, the way
  * pattern applies --phase-error), minus the wanted depth: negative while
  * the null is deep enough, positive once it is not or once the error has
  * cancelled the forward response itself. */
 typedef struct {
-    cxl_array_pair *trial;   /* a copy of the caller's pair */
+    cxl_duo *trial;   /* a copy of the caller's pair */
     double freq_hz, elevation_deg, depth_db, sign;
     cxl_status status;
 } null_params;
@@ -145,10 +145,10 @@ static double null_excess(double d_deg, void *params)
 {
     null_params *np = params;
     double az, depth;
-    cxl_status st = cxl_array_pair_set_phase_offset(np->trial, 1,
+    cxl_status st = cxl_duo_set_phase_offset(np->trial, 1,
                                                     -np->sign * d_deg);
     if (st == CXL_OK)
-        st = cxl_array_rear_null(np->trial, np->freq_hz, np->elevation_deg,
+        st = cxl_duo_rear_null(np->trial, np->freq_hz, np->elevation_deg,
                                  &az, &depth);
     /* no forward response left at this error: nothing to null against */
     if (st == CXL_ERANGE)
@@ -161,23 +161,23 @@ static double null_excess(double d_deg, void *params)
     return depth - np->depth_db;
 }
 
-cxl_status cxl_budget_phase_for_rear_null(const cxl_array_pair *pair,
+cxl_status cxl_budget_phase_for_rear_null(const cxl_duo *pair,
+                                          double depth_db,
                                           double freq_hz,
                                           double elevation_deg,
-                                          double depth_db,
                                           double *phase_error_deg)
 {
     double az, depth0, limit[2];
     if (!pair || !phase_error_deg || !isfinite(depth_db) ||
         !(depth_db < 0.0) || depth_db < -CXL_DB_LIMIT)
         return CXL_EINVAL;
-    cxl_array_pair *trial = NULL;
-    cxl_status st = cxl_array_pair_copy(pair, &trial);
+    cxl_duo *trial = NULL;
+    cxl_status st = cxl_duo_copy(pair, &trial);
     if (st)
         return st;
-    st = cxl_array_pair_set_phase_offset(trial, 1, 0.0);
+    st = cxl_duo_set_phase_offset(trial, 1, 0.0);
     if (st == CXL_OK)
-        st = cxl_array_rear_null(trial, freq_hz, elevation_deg, &az,
+        st = cxl_duo_rear_null(trial, freq_hz, elevation_deg, &az,
                                  &depth0);
     if (st == CXL_OK && depth0 > depth_db)
         st = CXL_ERANGE;   /* even the error-free pair misses the goal */
@@ -186,7 +186,7 @@ cxl_status cxl_budget_phase_for_rear_null(const cxl_array_pair *pair,
                            k ? -1.0 : 1.0, CXL_OK };
         st = first_rise(null_excess, &np, &np.status, &limit[k]);
     }
-    cxl_array_pair_free(trial);
+    cxl_duo_free(trial);
     if (st)
         return st;
     *phase_error_deg = fmin(limit[0], limit[1]);
@@ -194,11 +194,11 @@ cxl_status cxl_budget_phase_for_rear_null(const cxl_array_pair *pair,
 }
 
 cxl_status cxl_budget_length_for_phase(double phase_error_deg,
-                                       double freq_hz, double vf,
+                                       double vf, double freq_hz,
                                        double *length_m)
 {
     if (!length_m || !cxl__finite_nonneg(phase_error_deg))
         return CXL_EINVAL;
-    return cxl_line_length_from_degrees(phase_error_deg, freq_hz, vf,
+    return cxl_line_length_from_degrees(phase_error_deg, vf, freq_hz,
                                         length_m);
 }

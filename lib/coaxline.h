@@ -10,7 +10,21 @@
  *   - no global mutable state, nothing printed, the process-wide GSL error
  *     handler is never changed (host programs should turn it off:
  *     gsl_set_error_handler_off());
- *   - numbers are parsed and formatted without reading the C locale.
+ *   - numbers are parsed and formatted without reading the C locale;
+ *   - one argument order for the same quantities, so that two doubles
+ *     swapped cannot read as a plausible call: the handle; the quantity
+ *     the function converts or judges (lengths, delays, degrees, the goal
+ *     or tolerance); the line (Z0, gamma, vf); the frequency, then the
+ *     direction (azimuth, elevation); what is at the line's ends and how
+ *     well the inputs are known (fixture, allowance, load, tolerances);
+ *     the outputs last.  It reads as said aloud: "this length, on this
+ *     line, at this frequency", e.g.
+ *     cxl_line_degrees_from_length(length_m, vf, freq_hz, &phase_deg) and
+ *     cxl_line_length_from_degrees(phase_deg, vf, freq_hz, &length_m).
+ *     tests/api_order.sh checks it by parameter name;
+ *   - counts are returned as size_t (0 for a NULL handle), never through
+ *     a status and an out-parameter: a count of a valid handle cannot
+ *     fail, and reads in a loop bound.
  *
  * Copyright (C) 2026 the libcoaxline authors.  GPL-3.0-or-later.
  */
@@ -118,8 +132,8 @@ cxl_status cxl_line_length_from_delay(double delay_s, double vf,
 cxl_status cxl_line_degrees_from_length(double length_m, double vf,
                                         double freq_hz, double *phase_deg);
 /* Line length that is phase_deg long at freq_hz. */
-cxl_status cxl_line_length_from_degrees(double phase_deg, double freq_hz,
-                                        double vf, double *length_m);
+cxl_status cxl_line_length_from_degrees(double phase_deg, double vf,
+                                        double freq_hz, double *length_m);
 /* Phase in degrees that a delay makes at a frequency: 360 f t. */
 cxl_status cxl_line_degrees_from_delay(double delay_s, double freq_hz,
                                        double *phase_deg);
@@ -404,9 +418,9 @@ cxl_status cxl_pair_phase_error(double length_m, double reference_m,
 /* The same with the reference given as an electrical length reference_deg
  * at reference_freq_hz on the same cable (CXL_ERANGE when that rounds to no
  * length). */
-cxl_status cxl_pair_phase_error_ref_deg(double length_m, double vf,
-                                        double reference_deg,
+cxl_status cxl_pair_phase_error_ref_deg(double length_m, double reference_deg,
                                         double reference_freq_hz,
+                                        double vf,
                                         double freq_hz,
                                         double *phase_error_deg);
 /* Length mismatch that makes tolerance_deg at freq_hz:
@@ -437,8 +451,8 @@ cxl_status cxl_pair_verdict(double phase_error_deg, double uncertainty_deg,
  * difference (longest minus shortest), its phase error at freq_hz, the
  * uncertainty of that error (each length within length_tol_m, VF within
  * vf_tol) and the verdict against tolerance_deg. */
-cxl_status cxl_pair_check(const double *lengths_m, size_t count, double vf,
-                          double freq_hz, double tolerance_deg,
+cxl_status cxl_pair_check(const double *lengths_m, size_t count, double tolerance_deg,
+                          double vf, double freq_hz,
                           double length_tol_m, double vf_tol,
                           double *delta_m, double *phase_error_deg,
                           double *uncertainty_deg, cxl_verdict *verdict);
@@ -476,8 +490,8 @@ cxl_status cxl_pair_load_transfer(const cxl_pair_load *load, double length_m,
  * the verdict of cxl_pair_verdict. */
 cxl_status cxl_pair_load_check(const cxl_pair_load *load,
                                const double *lengths_m, size_t count,
-                               double vf, double freq_hz,
-                               double tolerance_deg, double length_tol_m,
+                               double tolerance_deg, double vf,
+                               double freq_hz, double length_tol_m,
                                double vf_tol, double *phase_error_deg,
                                double *uncertainty_deg,
                                double *electrical_error_deg,
@@ -490,7 +504,7 @@ cxl_status cxl_pair_load_max_mismatch(const cxl_pair_load *load,
                                       double tolerance_deg, double length_m,
                                       double vf, double freq_hz,
                                       double *delta_m);
-/* ---- cable.c: cable catalog ------------------------------------------- */
+/* ---- catalog.c: cable catalog ----------------------------------------- */
 
 /* A catalog of cables: the built-in rows (compiled in from data/cables.csv
  * and data/cable_loss.csv) plus rows the caller loads from files of the same
@@ -554,8 +568,9 @@ cxl_status cxl_catalog_load_loss(cxl_catalog *catalog, FILE *stream,
                                  const char *file_name, size_t *error_line,
                                  char *error_text, size_t error_size);
 
-/* Number of cables (built-in first, then user rows in load order). */
-cxl_status cxl_catalog_count(const cxl_catalog *catalog, size_t *count);
+/* Number of cables (built-in first, then user rows in load order); 0 for
+ * a NULL catalog. */
+size_t cxl_catalog_count(const cxl_catalog *catalog);
 /* Index of a cable by name, ASCII case ignored; CXL_ENOTFOUND if absent. */
 cxl_status cxl_catalog_find(const cxl_catalog *catalog, const char *name,
                             size_t *index);
@@ -574,9 +589,9 @@ cxl_status cxl_catalog_is_builtin(const cxl_catalog *catalog, size_t index,
  * has no default); CXL_ERANGE for an index past the end. */
 cxl_status cxl_catalog_value(const cxl_catalog *catalog, size_t index,
                              cxl_cable_prop prop, double *value);
-/* Attenuation table of a cable, sorted by frequency. */
-cxl_status cxl_catalog_loss_count(const cxl_catalog *catalog, size_t index,
-                                  size_t *count);
+/* Attenuation table of a cable, sorted by frequency: its number of points
+ * (0 for a NULL catalog or an index past the end), and each point. */
+size_t cxl_catalog_loss_count(const cxl_catalog *catalog, size_t index);
 cxl_status cxl_catalog_loss_point(const cxl_catalog *catalog, size_t index,
                                   size_t point, double *freq_hz,
                                   double *loss_db_per_m, const char **source);
@@ -612,8 +627,8 @@ cxl_status cxl_loss_fit_coefficients(const cxl_loss_fit *fit,
 /* Lowest and highest table frequency. */
 cxl_status cxl_loss_fit_range(const cxl_loss_fit *fit, double *min_freq_hz,
                               double *max_freq_hz);
-/* Table points and residuals (fitted - table). */
-cxl_status cxl_loss_fit_count(const cxl_loss_fit *fit, size_t *count);
+/* Table points (0 for a NULL fit) and residuals (fitted - table). */
+size_t cxl_loss_fit_count(const cxl_loss_fit *fit);
 /* The range evaluation accepts without CXL_LOSS_EXTRAPOLATE. */
 cxl_status cxl_loss_fit_usable_range(const cxl_loss_fit *fit,
                                      double *min_freq_hz, double *max_freq_hz);
@@ -803,7 +818,7 @@ cxl_status cxl_loss_run_db(double loss_db_per_m, double length_m, double swr,
  * cxl_loss_model_gamma for a modelled line (CXL_EEXTRAPOLATE outside its
  * range); CXL_ENOMEM; CXL_ENOCONV.
  *
- * The two-element pair (cxl_array_pair, cxl_array_gain, ...) is the same
+ * The two-element pair (cxl_duo, cxl_duo_gain, ...) is the same
  * model with element 0 at (x, y) = (+stagger/2, -spacing/2) (front left
  * for a positive stagger) and element 1 at (-stagger/2, +spacing/2):
  * spacing is the distance across the forward axis, stagger the offset
@@ -912,36 +927,36 @@ cxl_status cxl_array_eval_rdf(const cxl_array *array, double freq_hz,
                               double elevation_deg, double *rdf_forward_db,
                               double *rdf_peak_db);
 
-/* ---- the two-element pair (evaluated by the code above) ---- */
+/* ---- the duo: the two-element pair (evaluated by the code above) ---- */
 
-typedef struct cxl_array_pair cxl_array_pair;
+typedef struct cxl_duo cxl_duo;
 
 /* A new pair: isotropic elements, spacing and stagger 0, no delays, no
  * phase offsets, no flip, no imbalance. */
-cxl_status cxl_array_pair_new(cxl_array_pair **pair);
-void cxl_array_pair_free(cxl_array_pair *pair);
-cxl_status cxl_array_pair_copy(const cxl_array_pair *pair,
-                               cxl_array_pair **copy);
+cxl_status cxl_duo_new(cxl_duo **duo);
+void cxl_duo_free(cxl_duo *duo);
+cxl_status cxl_duo_copy(const cxl_duo *duo,
+                        cxl_duo **copy);
 
 /* spacing_m >= 0 across the forward axis; stagger_m of either sign along
  * it (negative puts element 1 in front).  Free-space distances. */
-cxl_status cxl_array_pair_set_geometry(cxl_array_pair *pair,
-                                       double spacing_m, double stagger_m);
+cxl_status cxl_duo_set_geometry(cxl_duo *duo,
+                                double spacing_m, double stagger_m);
 /* Feed delay of element 0 or 1 (>= 0), e.g. from a cable through
  * cxl_line_delay_from_length(). */
-cxl_status cxl_array_pair_set_delay(cxl_array_pair *pair, int element,
-                                    double delay_s);
+cxl_status cxl_duo_set_delay(cxl_duo *duo, int element,
+                             double delay_s);
 /* Feed delay given as phase_deg (>= 0) at design_freq_hz: a true time
  * delay of phase_deg / (360 design_freq_hz), so it scales with frequency. */
-cxl_status cxl_array_pair_set_delay_deg(cxl_array_pair *pair, int element,
-                                        double phase_deg,
-                                        double design_freq_hz);
+cxl_status cxl_duo_set_delay_deg(cxl_duo *duo, int element,
+                                 double phase_deg,
+                                 double design_freq_hz);
 /* A fixed phase added to element 0 or 1 at every frequency (any sign). */
-cxl_status cxl_array_pair_set_phase_offset(cxl_array_pair *pair,
-                                           int element, double phase_deg);
+cxl_status cxl_duo_set_phase_offset(cxl_duo *duo,
+                                    int element, double phase_deg);
 /* Invert element 0 or 1 (flipped non-zero) or restore it (0). */
-cxl_status cxl_array_pair_set_flip(cxl_array_pair *pair, int element,
-                                   int flipped);
+cxl_status cxl_duo_set_flip(cxl_duo *duo, int element,
+                            int flipped);
 /* Element 1 weaker than element 0 by imbalance_db (|dB| <= 200). */
 /* The design feed of a staggered pair (the geometry's stagger must not be
  * 0; element A is ahead when it is positive): CXL_FEED_CROSSFIRE delays
@@ -954,67 +969,67 @@ typedef enum cxl_feed {
     CXL_FEED_CROSSFIRE = 0,
     CXL_FEED_ENDFIRE = 1
 } cxl_feed;
-cxl_status cxl_array_pair_set_feed(cxl_array_pair *pair, cxl_feed feed,
-                                   double design_freq_hz);
+cxl_status cxl_duo_set_feed(cxl_duo *duo, cxl_feed feed,
+                            double design_freq_hz);
 /* An element's feed delay (s) and inversion (0 or 1). */
-cxl_status cxl_array_pair_feed(const cxl_array_pair *pair, int element,
-                               double *delay_s, int *flipped);
+cxl_status cxl_duo_feed(const cxl_duo *duo, int element,
+                        double *delay_s, int *flipped);
 /* As-built phase error of element B against A at freq_hz (degrees, B
  * lagging positive, wrapped to +-180): the change of B's delay over A's
  * from the design (design_delay_s[0..1]) to the lines as built
  * (built_delay_s[0..1], all >= 0), plus a fixed extra_phase_deg. */
-cxl_status cxl_array_pair_built_phase(const double *design_delay_s,
-                                      const double *built_delay_s,
-                                      double freq_hz, double extra_phase_deg,
-                                      double *phase_error_deg);
-cxl_status cxl_array_pair_set_imbalance(cxl_array_pair *pair,
-                                        double imbalance_db);
-cxl_status cxl_array_pair_set_isotropic(cxl_array_pair *pair);
+cxl_status cxl_duo_built_phase(const double *design_delay_s,
+                               const double *built_delay_s,
+                               double extra_phase_deg, double freq_hz,
+                               double *phase_error_deg);
+cxl_status cxl_duo_set_imbalance(cxl_duo *duo,
+                                 double imbalance_db);
+cxl_status cxl_duo_set_isotropic(cxl_duo *duo);
 /* Both elements become long wires: length_m > 0, wire_vf in (0, 1]. */
-cxl_status cxl_array_pair_set_long_wire(cxl_array_pair *pair,
-                                        double length_m, double wire_vf);
+cxl_status cxl_duo_set_long_wire(cxl_duo *duo,
+                                 double length_m, double wire_vf);
 
 /* Complex output s_0 + s_1 (relative to one unit isotropic element) for a
  * wave from azimuth_deg (any finite value), elevation_deg in [-90, 90]. */
-cxl_status cxl_array_field(const cxl_array_pair *pair, double freq_hz,
-                           double azimuth_deg, double elevation_deg,
-                           double *field_re, double *field_im);
+cxl_status cxl_duo_field(const cxl_duo *duo, double freq_hz,
+                         double azimuth_deg, double elevation_deg,
+                         double *field_re, double *field_im);
 /* |s_0 + s_1|^2 in dB over one unit isotropic element. */
-cxl_status cxl_array_response(const cxl_array_pair *pair, double freq_hz,
-                              double azimuth_deg, double elevation_deg,
-                              double *response_db);
+cxl_status cxl_duo_response(const cxl_duo *duo, double freq_hz,
+                            double azimuth_deg, double elevation_deg,
+                            double *response_db);
 /* Gain (directivity) in dBi toward (azimuth_deg, elevation_deg). */
-cxl_status cxl_array_gain(const cxl_array_pair *pair, double freq_hz,
-                          double azimuth_deg, double elevation_deg,
-                          double *gain_dbi);
+cxl_status cxl_duo_gain(const cxl_duo *duo, double freq_hz,
+                        double azimuth_deg, double elevation_deg,
+                        double *gain_dbi);
 /* Gain toward the forward axis (azimuth 0) at elevation_deg. */
-cxl_status cxl_array_forward_gain(const cxl_array_pair *pair, double freq_hz,
-                                  double elevation_deg, double *gain_dbi);
+cxl_status cxl_duo_forward_gain(const cxl_duo *duo, double freq_hz,
+                                double elevation_deg, double *gain_dbi);
 /* Gains in dBi at n >= 1 azimuths 360 i / n degrees (i = 0..n-1) at
  * elevation_deg, written to gain_dbi[0..n-1]; one sphere integral. */
-cxl_status cxl_array_pattern(const cxl_array_pair *pair, double freq_hz,
-                             double elevation_deg, size_t n,
-                             double *gain_dbi);
+cxl_status cxl_duo_pattern(const cxl_duo *duo, double freq_hz,
+                           double elevation_deg, size_t n,
+                           double *gain_dbi);
 /* Front-to-back ratio in dB at elevation_deg. */
-cxl_status cxl_array_front_to_back(const cxl_array_pair *pair,
-                                   double freq_hz, double elevation_deg,
-                                   double *ratio_db);
+cxl_status cxl_duo_front_to_back(const cxl_duo *duo,
+                                 double freq_hz, double elevation_deg,
+                                 double *ratio_db);
 /* Deepest response over azimuth 90..270 at elevation_deg: its azimuth
  * (degrees, in [90, 270]) and depth in dB relative to azimuth 0. */
-cxl_status cxl_array_rear_null(const cxl_array_pair *pair, double freq_hz,
-                               double elevation_deg, double *azimuth_deg,
-                               double *depth_db);
+cxl_status cxl_duo_rear_null(const cxl_duo *duo, double freq_hz,
+                             double elevation_deg, double *azimuth_deg,
+                             double *depth_db);
 /* Direction of the largest response over the upper hemisphere (elevation
  * 0..90), found on a grid and refined by a GSL simplex minimizer. */
-cxl_status cxl_array_peak(const cxl_array_pair *pair, double freq_hz,
-                          double *azimuth_deg, double *elevation_deg);
+cxl_status cxl_duo_peak(const cxl_duo *duo, double freq_hz,
+                        double *azimuth_deg, double *elevation_deg);
 /* Directivity in dBi: peak over the mean over the WHOLE SPHERE. */
-cxl_status cxl_array_directivity(const cxl_array_pair *pair, double freq_hz,
-                                 double *directivity_dbi);
+cxl_status cxl_duo_directivity(const cxl_duo *duo, double freq_hz,
+                               double *directivity_dbi);
 /* Receiving directivity factor in dB: peak over the mean over the UPPER
  * HEMISPHERE (the peak-referred RDF of the model comment above). */
-cxl_status cxl_array_rdf(const cxl_array_pair *pair, double freq_hz,
-                         double *rdf_db);
+cxl_status cxl_duo_rdf(const cxl_duo *duo, double freq_hz,
+                       double *rdf_db);
 
 /* Closed form, any pair: the null of an otherwise perfect pair whose
  * second signal has a phase error phase_error_deg and is weaker by
@@ -1022,13 +1037,13 @@ cxl_status cxl_array_rdf(const cxl_array_pair *pair, double freq_hz,
  * 10^(-imbalance_db/20):  10 log10((1 - 2 a cos d + a^2) / (1 + a)^2).
  * With a = 1 this is 20 log10|sin(d/2)|; with d = 0 it is
  * 20 log10|(1 - a)/(1 + a)|.  |imbalance_db| <= 200. */
-cxl_status cxl_array_null_depth(double phase_error_deg, double imbalance_db,
-                                double *depth_db);
+cxl_status cxl_duo_null_depth(double phase_error_deg, double imbalance_db,
+                              double *depth_db);
 
 /* ---- budget.c: what the errors may cost (inverse of array.c) ------------ */
 
 /* Largest phase error (degrees, in [0, 180]) that still keeps the closed-
- * form null (cxl_array_null_depth) at or below depth_db (< 0) with the
+ * form null (cxl_duo_null_depth) at or below depth_db (< 0) with the
  * given amplitude imbalance: with a = 1, d = 2 asin(10^(depth_db/20)).
  * CXL_ERANGE when the imbalance alone already makes the null shallower
  * than depth_db. */
@@ -1040,21 +1055,21 @@ cxl_status cxl_budget_phase_for_null(double depth_db, double imbalance_db,
  * 0.25-degree steps and refined with gsl_root_fsolver_brent.  CXL_ERANGE
  * when the error-free pair already misses ratio_db; 180 when no error up to
  * 180 degrees brings the ratio below ratio_db. */
-cxl_status cxl_budget_phase_for_front_to_back(const cxl_array_pair *pair,
+cxl_status cxl_budget_phase_for_front_to_back(const cxl_duo *duo,
+                                              double ratio_db,
                                               double freq_hz,
                                               double elevation_deg,
-                                              double ratio_db,
                                               double *phase_error_deg);
 /* Largest phase error on element 1 (either sign; the smaller of the two
  * limits is returned, in [0, 180]) for which the pair's rear null at
- * freq_hz and elevation_deg, measured as cxl_array_rear_null measures it
+ * freq_hz and elevation_deg, measured as cxl_duo_rear_null measures it
  * (deepest response over azimuth 90..270 relative to the response at
  * azimuth 0), stays at or below depth_db (-CXL_DB_LIMIT <= depth_db < 0).
  * This is the null relative to the forward response of the geometry
  * given, not to the in-phase sum (cxl_budget_phase_for_null): for a compact
  * pair it allows much less error.  The pair is the design (its imbalance
  * and element type count); each trial error replaces element 1's fixed
- * phase offset on a private copy (cxl_array_pair_set_phase_offset, B
+ * phase offset on a private copy (cxl_duo_set_phase_offset, B
  * lagging positive), the caller's pair is not changed.  The tolerance also
  * ends where an error cancels the forward response (a compact pair whose
  * pattern turns round).  Found by a scan in
@@ -1062,15 +1077,15 @@ cxl_status cxl_budget_phase_for_front_to_back(const cxl_array_pair *pair,
  * when the error-free pair's null is already shallower than depth_db (or
  * the pair has no forward response); 180 when no error up to 180 degrees
  * makes the null shallower than depth_db. */
-cxl_status cxl_budget_phase_for_rear_null(const cxl_array_pair *pair,
+cxl_status cxl_budget_phase_for_rear_null(const cxl_duo *duo,
+                                          double depth_db,
                                           double freq_hz,
                                           double elevation_deg,
-                                          double depth_db,
                                           double *phase_error_deg);
 /* Length mismatch of a line with velocity factor vf that makes
  * phase_error_deg (>= 0) at freq_hz (cxl_line_length_from_degrees). */
 cxl_status cxl_budget_length_for_phase(double phase_error_deg,
-                                       double freq_hz, double vf,
+                                       double vf, double freq_hz,
                                        double *length_m);
 
 /* ---- hybrid.c: 0-degree combiner and transformer values ---------------- */
@@ -1160,9 +1175,9 @@ cxl_status cxl_loss_cable_difference(const cxl_loss_cable *loss,
  * when the line turns a reactive load into a short at its input, or when
  * alpha l exceeds 345 Np.  A very high-impedance load (a probe, an open
  * end) is given as a large resistance, e.g. 1e9 ohm. */
-cxl_status cxl_transfer_ratio(double z0_re_ohm, double z0_im_ohm,
-                              double alpha_np_per_m, double beta_rad_per_m,
-                              double length_m, double load_re_ohm,
+cxl_status cxl_transfer_ratio(double length_m, double z0_re_ohm,
+                              double z0_im_ohm, double alpha_np_per_m,
+                              double beta_rad_per_m, double load_re_ohm,
                               double load_im_ohm, double *ratio_re,
                               double *ratio_im);
 /* A ratio as 20 log10 |ratio| (dB; above 0 where the load sees more
@@ -1179,23 +1194,23 @@ cxl_status cxl_transfer_delay(double ratio_re, double ratio_im,
  * freq_hz: transfer in dB, delay in degrees, and the electrical length
  * 360 f l / (vf c) in degrees (electrical_deg may be NULL; CXL_ERANGE when
  * the phase constant or that length over- or underflows). */
-cxl_status cxl_transfer_lossless(double z0_ohm, double vf, double length_m,
+cxl_status cxl_transfer_lossless(double length_m, double z0_ohm, double vf,
                                  double freq_hz, double load_re_ohm,
                                  double load_im_ohm, double *transfer_db,
                                  double *delay_deg, double *electrical_deg);
 /* The same for a physical cable model (complex gamma and Z0 at freq_hz,
  * flags as for cxl_loss_model_gamma); electrical_deg is beta l. */
-cxl_status cxl_transfer_model(const cxl_loss_model *model, double freq_hz,
-                              unsigned flags, double length_m,
+cxl_status cxl_transfer_model(const cxl_loss_model *model, double length_m,
+                              double freq_hz, unsigned flags,
                               double load_re_ohm, double load_im_ohm,
                               double *transfer_db, double *delay_deg,
                               double *electrical_deg);
 /* Input impedance Z0 (1 + G e^{-2 gamma l}) / (1 - G e^{-2 gamma l}) of the
  * same line and load; CXL_ERANGE when it is an open circuit. */
-cxl_status cxl_transfer_input_impedance(double z0_re_ohm, double z0_im_ohm,
+cxl_status cxl_transfer_input_impedance(double length_m, double z0_re_ohm,
+                                        double z0_im_ohm,
                                         double alpha_np_per_m,
-                                        double beta_rad_per_m,
-                                        double length_m, double load_re_ohm,
+                                        double beta_rad_per_m, double load_re_ohm,
                                         double load_im_ohm, double *zin_re_ohm,
                                         double *zin_im_ohm);
 /* What an analyzer shows on length_m of a modelled cable with its far end
@@ -1245,11 +1260,11 @@ cxl_status cxl_transfer_stub_dip(const cxl_loss_model *model, unsigned flags,
  * does not follow this law. */
 typedef struct cxl_drift cxl_drift;
 
-/* From n readings: frequency, VF and (vf_err may be NULL) its standard
+/* From n readings: frequency, VF and (vf_errs may be NULL) its standard
  * error, used as weight 1/err^2.  CXL_ERANGE unless there are two distinct
  * frequencies; with two points the line goes through both. */
-cxl_status cxl_drift_new(const double *freq_hz, const double *vf,
-                         const double *vf_err, size_t n, cxl_drift **drift);
+cxl_status cxl_drift_new(const double *freqs_hz, const double *vfs,
+                         const double *vf_errs, size_t n, cxl_drift **drift);
 /* From the per-reading VFs of a stub fit; freq_res_hz (>= 0) the analyzer's
  * resolution, which weights each reading by its VF error VF df / f (equal
  * weights when 0; CXL_ERANGE when that error under- or overflows). */

@@ -100,7 +100,7 @@ gsl_complex cxl__bessel_k_ratio_asympt(gsl_complex z);
 /* array.c: a power ratio in dB, clamped to +-CXL_DB_LIMIT. */
 double cxl__power_db(double ratio);
 /* array.c: front-to-back ratio with extra_phase_rad added to element 1. */
-cxl_status cxl__array_front_to_back(const cxl_array_pair *pair,
+cxl_status cxl__array_front_to_back(const cxl_duo *pair,
                                     double freq_hz, double elevation_deg,
                                     double extra_phase_rad, double *ratio_db);
 

@@ -35,8 +35,8 @@ cxl_status cxl_line_degrees_from_length(double length_m, double vf,
     return cxl__put_finite(360.0 * freq_hz * length_m / (vf * CXL_C_M_PER_S), phase_deg);
 }
 
-cxl_status cxl_line_length_from_degrees(double phase_deg, double freq_hz,
-                                        double vf, double *length_m)
+cxl_status cxl_line_length_from_degrees(double phase_deg, double vf,
+                                        double freq_hz, double *length_m)
 {
     if (!length_m || !isfinite(phase_deg) || !cxl__valid_vf(vf) ||
         !cxl__finite_pos(freq_hz))

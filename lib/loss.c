@@ -234,10 +234,11 @@ cxl_status cxl_loss_fit_new(const double *freq_hz, const double *loss_db_per_m,
 cxl_status cxl_loss_fit_new_cable(const cxl_catalog *catalog, size_t index,
                                   cxl_loss_fit **fit)
 {
-    size_t n;
+    const char *name;
     if (!fit) return CXL_EINVAL;
-    cxl_status st = cxl_catalog_loss_count(catalog, index, &n);
+    cxl_status st = cxl_catalog_name(catalog, index, &name);
     if (st != CXL_OK) return st;
+    size_t n = cxl_catalog_loss_count(catalog, index);
     if (n < 2) return CXL_ENOTFOUND;
     double *f = malloc(2 * n * sizeof *f);
     if (!f) return CXL_ENOMEM;
@@ -274,11 +275,9 @@ cxl_status cxl_loss_fit_range(const cxl_loss_fit *fit, double *min_freq_hz,
     return CXL_OK;
 }
 
-cxl_status cxl_loss_fit_count(const cxl_loss_fit *fit, size_t *count)
+size_t cxl_loss_fit_count(const cxl_loss_fit *fit)
 {
-    if (!fit || !count) return CXL_EINVAL;
-    *count = fit->n;
-    return CXL_OK;
+    return fit ? fit->n : 0;
 }
 
 static double fit_value(const cxl_loss_fit *fit, double f)

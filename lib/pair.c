@@ -46,16 +46,16 @@ cxl_status cxl_pair_phase_error(double length_m, double reference_m, double vf,
     return cxl__put_finite(phase_deg(length_m - reference_m, vf, freq_hz), phase_error_deg);
 }
 
-cxl_status cxl_pair_phase_error_ref_deg(double length_m, double vf,
-                                        double reference_deg,
+cxl_status cxl_pair_phase_error_ref_deg(double length_m, double reference_deg,
                                         double reference_freq_hz,
+                                        double vf,
                                         double freq_hz, double *phase_error_deg)
 {
     double reference_m;
     if (!phase_error_deg || !cxl__finite_pos(reference_deg))
         return CXL_EINVAL;
-    cxl_status st = cxl_line_length_from_degrees(reference_deg, reference_freq_hz,
-                                                 vf, &reference_m);
+    cxl_status st = cxl_line_length_from_degrees(reference_deg, vf,
+                                                 reference_freq_hz, &reference_m);
     if (st != CXL_OK) return st;
     /* a reference of a few subnormal degrees rounds to no length at all */
     if (!(reference_m > 0.0)) return CXL_ERANGE;
@@ -128,8 +128,8 @@ static int valid_check(double vf, double freq_hz, double tolerance_deg, double l
            valid_tolerances(length_tol_m, vf, vf_tol);
 }
 
-cxl_status cxl_pair_check(const double *lengths_m, size_t count, double vf,
-                          double freq_hz, double tolerance_deg,
+cxl_status cxl_pair_check(const double *lengths_m, size_t count, double tolerance_deg,
+                          double vf, double freq_hz,
                           double length_tol_m, double vf_tol,
                           double *delta_m, double *phase_error_deg,
                           double *uncertainty_deg, cxl_verdict *verdict)
@@ -217,9 +217,9 @@ cxl_status cxl_pair_load_transfer(const cxl_pair_load *load, double length_m, do
     double db, delay, el;
     if (!load || !transfer_db || !delay_deg || !cxl__valid_vf(vf)) return CXL_EINVAL;
     cxl_status st = load->model
-        ? cxl_transfer_model(load->model, freq_hz, 0, length_m, load->re_ohm, load->im_ohm,
+        ? cxl_transfer_model(load->model, length_m, freq_hz, 0, load->re_ohm, load->im_ohm,
                              &db, &delay, &el)
-        : cxl_transfer_lossless(load->z0_ohm, vf, length_m, freq_hz, load->re_ohm,
+        : cxl_transfer_lossless(length_m, load->z0_ohm, vf, freq_hz, load->re_ohm,
                                 load->im_ohm, &db, &delay, &el);
     if (st != CXL_OK) return st;
     if (!isfinite(db) || !isfinite(delay) || !isfinite(el)) return CXL_ERANGE;
@@ -297,8 +297,8 @@ static cxl_status load_uncertainty(const cxl_pair_load *load, double lo, double 
 }
 
 cxl_status cxl_pair_load_check(const cxl_pair_load *load, const double *lengths_m,
-                               size_t count, double vf, double freq_hz,
-                               double tolerance_deg, double length_tol_m, double vf_tol,
+                               size_t count, double tolerance_deg, double vf,
+                               double freq_hz, double length_tol_m, double vf_tol,
                                double *phase_error_deg, double *uncertainty_deg,
                                double *electrical_error_deg, double *imbalance_db,
                                cxl_verdict *verdict)

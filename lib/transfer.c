@@ -62,9 +62,9 @@ static cxl_status terminate(double z0_re, double z0_im, double alpha, double bet
     return CXL_OK;
 }
 
-cxl_status cxl_transfer_ratio(double z0_re_ohm, double z0_im_ohm,
-                              double alpha_np_per_m, double beta_rad_per_m,
-                              double length_m, double load_re_ohm,
+cxl_status cxl_transfer_ratio(double length_m, double z0_re_ohm,
+                              double z0_im_ohm, double alpha_np_per_m,
+                              double beta_rad_per_m, double load_re_ohm,
                               double load_im_ohm, double *ratio_re,
                               double *ratio_im)
 {
@@ -118,7 +118,7 @@ static cxl_status transfer_all(double z0_re, double z0_im, double alpha, double 
 {
     double rr, ri, db, dl, el = beta * length_m * RAD_TO_DEG;
     if (!transfer_db || !delay_deg) return CXL_EINVAL;
-    cxl_status st = cxl_transfer_ratio(z0_re, z0_im, alpha, beta, length_m, load_re,
+    cxl_status st = cxl_transfer_ratio(length_m, z0_re, z0_im, alpha, beta, load_re,
                                        load_im, &rr, &ri);
     /* a line so long that its length in degrees overflows */
     if (st == CXL_OK && !isfinite(el)) st = CXL_ERANGE;
@@ -130,7 +130,7 @@ static cxl_status transfer_all(double z0_re, double z0_im, double alpha, double 
     return CXL_OK;
 }
 
-cxl_status cxl_transfer_lossless(double z0_ohm, double vf, double length_m,
+cxl_status cxl_transfer_lossless(double length_m, double z0_ohm, double vf,
                                  double freq_hz, double load_re_ohm,
                                  double load_im_ohm, double *transfer_db,
                                  double *delay_deg, double *electrical_deg)
@@ -156,8 +156,8 @@ static cxl_status model_line(const cxl_loss_model *model, double freq_hz,
     return st;
 }
 
-cxl_status cxl_transfer_model(const cxl_loss_model *model, double freq_hz,
-                              unsigned flags, double length_m,
+cxl_status cxl_transfer_model(const cxl_loss_model *model, double length_m,
+                              double freq_hz, unsigned flags,
                               double load_re_ohm, double load_im_ohm,
                               double *transfer_db, double *delay_deg,
                               double *electrical_deg)
@@ -182,9 +182,9 @@ static cxl_status input_impedance(gsl_complex z0, gsl_complex g, gsl_complex e1,
     return CXL_OK;
 }
 
-cxl_status cxl_transfer_input_impedance(double z0_re_ohm, double z0_im_ohm,
-                                        double alpha_np_per_m,
-                                        double beta_rad_per_m, double length_m,
+cxl_status cxl_transfer_input_impedance(double length_m, double z0_re_ohm,
+                                        double z0_im_ohm,
+                                        double alpha_np_per_m, double beta_rad_per_m,
                                         double load_re_ohm, double load_im_ohm,
                                         double *zin_re_ohm, double *zin_im_ohm)
 {

@@ -144,7 +144,7 @@ static const char *const lenient[] = {
     "cxl_pair_phase_uncertainty", /* a tiny VF under vf_tol, a huge vf_tol */
     "cxl_pair_check",             /* the same */
     "cxl_pair_load_check",        /* the same */
-    "cxl_array_pair_set_feed",    /* a frequency of 0 with an end-fire feed */
+    "cxl_duo_set_feed",    /* a frequency of 0 with an end-fire feed */
     "cxl_hybrid_response",        /* |Gamma| of 1 with another one */
     "cxl_trim_add_reading",       /* order 0 among given orders */
     "cxl_sweep_resonances",       /* a length of 0 with a VF guess */
@@ -170,7 +170,7 @@ cxl_stub_result *g_res1;
 cxl_stub_result *g_res2; /* readings on two lengths: fixture fitted */
 cxl_loss_fit *g_fit;
 cxl_loss_model *g_model;
-cxl_array_pair *g_pair;  /* end-fire pair of long wires */
+cxl_duo *g_pair;  /* end-fire pair of long wires */
 cxl_array *g_array;      /* three elements, one fed by a modelled line */
 cxl_loss_model *g_clad;  /* g_model with a copper-clad steel centre */
 cxl_drift *g_drift;      /* VF at three frequencies */
@@ -211,8 +211,8 @@ static api_case cases[] = {
     { "cxl_line_length_from_delay", call_length_from_delay, 2, {33e-9, 0.8}, {&K_NONNEG, &K_VF}, 1, 0, 1, 0, {{0}} },
     { "cxl_line_degrees_from_length", call_degrees_from_length, 3, {10, 0.8, F},
       {&K_FIN, &K_VF, &K_POS}, 1, 0, 1, 0, {{0}} },
-    { "cxl_line_length_from_degrees", call_length_from_degrees, 3, {90, F, 0.66},
-      {&K_FIN, &K_POS, &K_VF}, 1, 0, 1, 0, {{0}} },
+    { "cxl_line_length_from_degrees", call_length_from_degrees, 3, {90, 0.66, F},
+      {&K_FIN, &K_VF, &K_POS}, 1, 0, 1, 0, {{0}} },
     { "cxl_line_degrees_from_delay", call_degrees_from_delay, 2, {33e-9, F}, {&K_FIN, &K_POS}, 1, 0, 1, 0, {{0}} },
     { "cxl_line_delay_from_offset", call_delay_from_offset, 1, {10}, {&K_FIN}, 1, 0, 1, 0, {{0}} },
     { "cxl_line_cut_length", call_cut_length, 4, {33e-9, 0.8, 0.1, 0.7},
@@ -262,17 +262,17 @@ static api_case cases[] = {
     /* pair.c */
     { "cxl_pair_phase_error", call_pair_phase_error, 4, {10.1, 10.0, 0.66, F},
       {&K_POS, &K_POS, &K_VF, &K_POS}, 1, 0, 1, 0, {{0}} },
-    { "cxl_pair_phase_error_ref_deg", call_pair_phase_error_ref_deg, 5, {10.1, 0.66, 90, F, 3.6e6},
-      {&K_POS, &K_VF, &K_POS, &K_POS, &K_POS}, 1, 0, 1, 0, {{0}} },
+    { "cxl_pair_phase_error_ref_deg", call_pair_phase_error_ref_deg, 5, {10.1, 90, F, 0.66, 3.6e6},
+      {&K_POS, &K_POS, &K_POS, &K_VF, &K_POS}, 1, 0, 1, 0, {{0}} },
     { "cxl_pair_max_mismatch", call_pair_max_mismatch, 3, {5, 0.66, F}, {&K_POS, &K_VF, &K_POS}, 1, 0, 1, 0, {{0}} },
     { "cxl_pair_phase_uncertainty", call_pair_phase_uncertainty, 6, {10.1, 10.0, 0.66, F, 0.005, 0.01},
       {&K_POS, &K_POS, &K_VF, &K_POS, &K_NONNEG, &K_NONNEG}, 1, 0, 1,
       1, {{10.1, 10.0, 0.66, F, 0.005, 0.66}} /* vf_tol not below vf */ },
     { "cxl_pair_verdict", call_pair_verdict, 3, {1.5, 0.3, 2}, {&K_FIN, &K_NONNEG, &K_POS}, 1, 0, 1,
       0, {{0}} },
-    { "cxl_pair_check", call_pair_check, 8, {10.0, 10.02, 2, 0.66, F, 5, 0.005, 0.01},
-      {&K_POS, &K_POS, &K_COUNT1, &K_VF, &K_POS, &K_POS, &K_NONNEG, &K_NONNEG}, 5, 0, 4,
-      2, {{10.0, 10.02, 1, 0.66, F, 5, 0.005, 0.01}, {10.0, 10.02, 2, 0.66, F, 5, 0.005, 0.7}} },
+    { "cxl_pair_check", call_pair_check, 8, {10.0, 10.02, 2, 5, 0.66, F, 0.005, 0.01},
+      {&K_POS, &K_POS, &K_COUNT1, &K_POS, &K_VF, &K_POS, &K_NONNEG, &K_NONNEG}, 5, 0, 4,
+      2, {{10.0, 10.02, 1, 5, 0.66, F, 0.005, 0.01}, {10.0, 10.02, 2, 5, 0.66, F, 0.005, 0.7}} },
     { "cxl_pair_load_new_lossless", call_pair_load_new_lossless, 3, {50, 75, 10},
       {&K_POS, &K_NONNEG, &K_FIN}, 1, 0, 1, 1, {{50, 0, 0}} /* a short */ },
     { "cxl_pair_load_new_model", call_pair_load_new_model, 2, {75, -10}, {&K_NONNEG, &K_FIN}, 2, 0,
@@ -281,23 +281,21 @@ static api_case cases[] = {
       {&K_NONNEG, &K_VF, &K_POS}, 4, 0x8, 3, 0, {{0}} },
     { "cxl_pair_load_transfer", call_pair_load_transfer_model, 3, {30, 0.66, 10e6},
       {&K_NONNEG, &K_VF, &K_POS}, 4, 0x8, 3, 1, {{30, 0.66, 1e3}} /* below the model's range */ },
-    { "cxl_pair_load_check", call_pair_load_check, 8, {10.0, 10.02, 2, 0.66, F, 5, 0.005, 0.01},
-      {&K_POS, &K_POS, &K_COUNT1, &K_VF, &K_POS, &K_POS, &K_NONNEG, &K_NONNEG}, 7, 0, 5,
-      2, {{10.0, 10.02, 1, 0.66, F, 5, 0.005, 0.01}, {10.0, 10.02, 2, 0.66, F, 5, 0.005, 0.7}} },
+    { "cxl_pair_load_check", call_pair_load_check, 8, {10.0, 10.02, 2, 5, 0.66, F, 0.005, 0.01},
+      {&K_POS, &K_POS, &K_COUNT1, &K_POS, &K_VF, &K_POS, &K_NONNEG, &K_NONNEG}, 7, 0, 5,
+      2, {{10.0, 10.02, 1, 5, 0.66, F, 0.005, 0.01}, {10.0, 10.02, 2, 5, 0.66, F, 0.005, 0.7}} },
     { "cxl_pair_load_max_mismatch", call_pair_load_max_mismatch, 4, {5, 10.0, 0.66, F},
       {&K_POS, &K_POS, &K_VF, &K_POS}, 2, 0, 1, 0, {{0}} },
-    /* cable.c */
+    /* catalog.c */
     { "cxl_catalog_new", call_catalog_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
     { "cxl_catalog_load_cables", call_catalog_load_cables, 0, {0}, {0}, 5, 0x1C, 1, 0, {{0}} },
     { "cxl_catalog_load_loss", call_catalog_load_loss, 0, {0}, {0}, 5, 0x1C, 1, 0, {{0}} },
-    { "cxl_catalog_count", call_catalog_count, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
     { "cxl_catalog_find", call_catalog_find, 0, {0}, {0}, 3, 0, 1, 0, {{0}} },
     { "cxl_catalog_name", call_catalog_name, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
     { "cxl_catalog_dielectric", call_catalog_dielectric, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
     { "cxl_catalog_source", call_catalog_source, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
     { "cxl_catalog_is_builtin", call_catalog_is_builtin, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
     { "cxl_catalog_value", call_catalog_value, 2, {0, CXL_CABLE_VF}, {&K_INDEX, &K_PROP}, 2, 0, 1, 0, {{0}} },
-    { "cxl_catalog_loss_count", call_catalog_loss_count, 1, {0}, {&K_INDEX}, 2, 0, 1, 0, {{0}} },
     { "cxl_catalog_loss_point", call_catalog_loss_point, 2, {0, 1}, {&K_INDEX, &K_INDEX}, 4, 0x8, 3, 0, {{0}} },
     /* loss.c */
     { "cxl_loss_fit_new", call_loss_fit_new, 5, {1.8e6, 30e6, 0.012, 0.055, 2},
@@ -314,7 +312,6 @@ static api_case cases[] = {
     { "cxl_loss_cable_difference", call_loss_cable_difference, 3, {20, 20.3, 50e6},
       {&K_NONNEG, &K_NONNEG, &K_POS}, 2, 0, 1, 1, {{20, 20.3, 1e6}} /* below the range */ },
     { "cxl_loss_fit_range", call_loss_fit_range, 0, {0}, {0}, 3, 0, 2, 0, {{0}} },
-    { "cxl_loss_fit_count", call_loss_fit_count, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
     { "cxl_loss_fit_point", call_loss_fit_point, 1, {1}, {&K_INDEX}, 4, 0, 3, 0, {{0}} },
     { "cxl_loss_fit_max_relative_residual", call_loss_fit_max_relative_residual, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
     { "cxl_loss_fit_eval", call_loss_fit_eval, 2, {10e6, 0}, {&K_POS, &K_FLAGS}, 2, 0, 1, 0, {{0}} },
@@ -340,35 +337,35 @@ static api_case cases[] = {
     { "cxl_loss_total_db", call_loss_total_db, 2, {1.5, 2.0}, {&K_NONNEG, &K_SWR}, 1, 0, 1, 0, {{0}} },
     { "cxl_loss_run_db", call_loss_run_db, 3, {0.02, 50, 2.0}, {&K_NONNEG, &K_POS, &K_SWR}, 2, 0, 2, 0, {{0}} },
     /* array.c */
-    { "cxl_array_pair_new", call_pair_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_copy", call_pair_copy, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_geometry", call_pair_set_geometry, 2, {10, 40}, {&K_NONNEG, &K_FIN}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_delay", call_pair_set_delay, 2, {1, 100e-9}, {&K_ELEMENT, &K_NONNEG}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_delay_deg", call_pair_set_delay_deg, 3, {1, 90, F},
+    { "cxl_duo_new", call_pair_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_copy", call_pair_copy, 0, {0}, {0}, 2, 0, 1, 0, {{0}} },
+    { "cxl_duo_set_geometry", call_pair_set_geometry, 2, {10, 40}, {&K_NONNEG, &K_FIN}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_set_delay", call_pair_set_delay, 2, {1, 100e-9}, {&K_ELEMENT, &K_NONNEG}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_set_delay_deg", call_pair_set_delay_deg, 3, {1, 90, F},
       {&K_ELEMENT, &K_NONNEG, &K_POS}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_phase_offset", call_pair_set_phase_offset, 2, {1, 5}, {&K_ELEMENT, &K_FIN}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_feed", call_pair_set_feed, 2, {CXL_FEED_CROSSFIRE, 0}, {&K_ENUM2, &K_NONNEG},
+    { "cxl_duo_set_phase_offset", call_pair_set_phase_offset, 2, {1, 5}, {&K_ELEMENT, &K_FIN}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_set_feed", call_pair_set_feed, 2, {CXL_FEED_CROSSFIRE, 0}, {&K_ENUM2, &K_NONNEG},
       1, 0, 4, 0, {{0}} },
-    { "cxl_array_pair_set_feed", call_pair_set_feed, 2, {CXL_FEED_ENDFIRE, F}, {&K_ENUM2, &K_NONNEG},
+    { "cxl_duo_set_feed", call_pair_set_feed, 2, {CXL_FEED_ENDFIRE, F}, {&K_ENUM2, &K_NONNEG},
       1, 0, 4, 1, {{CXL_FEED_ENDFIRE, 0}} /* end-fire needs its frequency */ },
-    { "cxl_array_pair_feed", call_pair_feed, 1, {1}, {&K_ELEMENT}, 3, 0, 2, 0, {{0}} },
-    { "cxl_array_pair_built_phase", call_pair_built_phase, 6, {0, 60e-9, 1e-9, 62e-9, F, 2},
-      {&K_NONNEG, &K_NONNEG, &K_NONNEG, &K_NONNEG, &K_POS, &K_FIN}, 3, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_flip", call_pair_set_flip, 2, {1, 1}, {&K_ELEMENT, &K_ANYINT}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_imbalance", call_pair_set_imbalance, 1, {1}, {&K_IMB}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_isotropic", call_pair_set_isotropic, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_pair_set_long_wire", call_pair_set_long_wire, 2, {80, 0.7}, {&K_POS, &K_VF}, 1, 0, 1, 0, {{0}} },
-    { "cxl_array_field", call_array_field, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 3, 0, 2, 0, {{0}} },
-    { "cxl_array_response", call_array_response, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 2, 0, 1, 0, {{0}} },
-    { "cxl_array_gain", call_array_gain, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 2, 0, 1, 0, {{0}} },
-    { "cxl_array_forward_gain", call_array_forward_gain, 2, {F, 15}, {&K_POS, &K_ELEV}, 2, 0, 1, 0, {{0}} },
-    { "cxl_array_pattern", call_array_pattern, 3, {F, 15, 4}, {&K_POS, &K_ELEV, &K_COUNT1}, 2, 0, 4, 0, {{0}} },
-    { "cxl_array_front_to_back", call_array_front_to_back, 2, {F, 15}, {&K_POS, &K_ELEV}, 2, 0, 1, 0, {{0}} },
-    { "cxl_array_rear_null", call_array_rear_null, 2, {F, 15}, {&K_POS, &K_ELEV}, 3, 0, 2, 0, {{0}} },
-    { "cxl_array_peak", call_array_peak, 1, {F}, {&K_POS}, 3, 0, 2, 0, {{0}} },
-    { "cxl_array_directivity", call_array_directivity, 1, {F}, {&K_POS}, 2, 0, 1, 0, {{0}} },
-    { "cxl_array_rdf", call_array_rdf, 1, {F}, {&K_POS}, 2, 0, 1, 0, {{0}} },
-    { "cxl_array_null_depth", call_array_null_depth, 2, {2, 0.5}, {&K_FIN, &K_IMB}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_feed", call_pair_feed, 1, {1}, {&K_ELEMENT}, 3, 0, 2, 0, {{0}} },
+    { "cxl_duo_built_phase", call_pair_built_phase, 6, {0, 60e-9, 1e-9, 62e-9, 2, F},
+      {&K_NONNEG, &K_NONNEG, &K_NONNEG, &K_NONNEG, &K_FIN, &K_POS}, 3, 0, 1, 0, {{0}} },
+    { "cxl_duo_set_flip", call_pair_set_flip, 2, {1, 1}, {&K_ELEMENT, &K_ANYINT}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_set_imbalance", call_pair_set_imbalance, 1, {1}, {&K_IMB}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_set_isotropic", call_pair_set_isotropic, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_set_long_wire", call_pair_set_long_wire, 2, {80, 0.7}, {&K_POS, &K_VF}, 1, 0, 1, 0, {{0}} },
+    { "cxl_duo_field", call_array_field, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 3, 0, 2, 0, {{0}} },
+    { "cxl_duo_response", call_array_response, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 2, 0, 1, 0, {{0}} },
+    { "cxl_duo_gain", call_array_gain, 3, {F, 30, 15}, {&K_POS, &K_FIN, &K_ELEV}, 2, 0, 1, 0, {{0}} },
+    { "cxl_duo_forward_gain", call_array_forward_gain, 2, {F, 15}, {&K_POS, &K_ELEV}, 2, 0, 1, 0, {{0}} },
+    { "cxl_duo_pattern", call_array_pattern, 3, {F, 15, 4}, {&K_POS, &K_ELEV, &K_COUNT1}, 2, 0, 4, 0, {{0}} },
+    { "cxl_duo_front_to_back", call_array_front_to_back, 2, {F, 15}, {&K_POS, &K_ELEV}, 2, 0, 1, 0, {{0}} },
+    { "cxl_duo_rear_null", call_array_rear_null, 2, {F, 15}, {&K_POS, &K_ELEV}, 3, 0, 2, 0, {{0}} },
+    { "cxl_duo_peak", call_array_peak, 1, {F}, {&K_POS}, 3, 0, 2, 0, {{0}} },
+    { "cxl_duo_directivity", call_array_directivity, 1, {F}, {&K_POS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_duo_rdf", call_array_rdf, 1, {F}, {&K_POS}, 2, 0, 1, 0, {{0}} },
+    { "cxl_duo_null_depth", call_array_null_depth, 2, {2, 0.5}, {&K_FIN, &K_IMB}, 1, 0, 1, 0, {{0}} },
     { "cxl_yield_new", call_yield_new, 0, {0}, {0}, 1, 0, 1, 0, {{0}} },
     { "cxl_yield_set_tolerances", call_yield_set_tolerances, 4, {0.1, 0.01, 0.5, 3},
       {&K_NONNEG, &K_VFTOL, &K_DBTOL, &K_PHTOL}, 1, 0, 1, 0, {{0}} },
@@ -411,12 +408,12 @@ static api_case cases[] = {
     /* budget.c */
     { "cxl_budget_phase_for_null", call_budget_phase_for_null, 2, {-30, 0.2}, {&K_DEPTH, &K_IMB}, 1, 0, 1,
       1, {{-40, 3.0}} /* the imbalance alone misses -40 dB */ },
-    { "cxl_budget_phase_for_front_to_back", call_budget_phase_for_front_to_back, 3, {F, 15, 3},
-      {&K_POS, &K_ELEV, &K_RATIO_DB}, 2, 0, 1, 1, {{F, 15, 299}} /* the pair never reaches it */ },
-    { "cxl_budget_phase_for_rear_null", call_budget_phase_for_rear_null, 3, {F, 15, -3},
-      {&K_POS, &K_ELEV, &K_DEPTH}, 2, 0, 1, 1, {{F, 15, -299}} /* the pair never reaches it */ },
-    { "cxl_budget_length_for_phase", call_budget_length_for_phase, 3, {5, F, 0.66},
-      {&K_NONNEG, &K_POS, &K_VF}, 1, 0, 1, 0, {{0}} },
+    { "cxl_budget_phase_for_front_to_back", call_budget_phase_for_front_to_back, 3, {3, F, 15},
+      {&K_RATIO_DB, &K_POS, &K_ELEV}, 2, 0, 1, 1, {{299, F, 15}} /* the pair never reaches it */ },
+    { "cxl_budget_phase_for_rear_null", call_budget_phase_for_rear_null, 3, {-3, F, 15},
+      {&K_DEPTH, &K_POS, &K_ELEV}, 2, 0, 1, 1, {{-299, F, 15}} /* the pair never reaches it */ },
+    { "cxl_budget_length_for_phase", call_budget_length_for_phase, 3, {5, 0.66, F},
+      {&K_NONNEG, &K_VF, &K_POS}, 1, 0, 1, 0, {{0}} },
     /* hybrid.c */
     { "cxl_hybrid_inphase", call_hybrid_inphase, 1, {75}, {&K_POS}, 2, 0, 2, 0, {{0}} },
     { "cxl_hybrid_turns_ratio", call_hybrid_turns_ratio, 2, {37.5, 75}, {&K_POS, &K_POS}, 1, 0, 1, 0, {{0}} },
@@ -427,23 +424,23 @@ static api_case cases[] = {
       {&K_GAMMA, &K_GAMMA, &K_GAMMA, &K_GAMMA}, 2, 0, 2,
       1, {{0.8, 0.8, 0, 0}} /* |Gamma| above 1 */ },
     /* transfer.c */
-    { "cxl_transfer_ratio", call_transfer_ratio, 7, {50, -2, 0.01, 0.05, 30, 75, 10},
-      {&K_POS, &K_FIN, &K_NONNEG, &K_POS, &K_NONNEG, &K_NONNEG, &K_FIN}, 2, 0, 2,
-      2, {{50, -2, 0.01, 0.05, 30, 0, 0}, /* a shorted load */
-          {50, 0, 0, 1, 0.75 * M_PI, 0, 50}} /* j50 three eighths back: a short at the input */ },
+    { "cxl_transfer_ratio", call_transfer_ratio, 7, {30, 50, -2, 0.01, 0.05, 75, 10},
+      {&K_NONNEG, &K_POS, &K_FIN, &K_NONNEG, &K_POS, &K_NONNEG, &K_FIN}, 2, 0, 2,
+      2, {{30, 50, -2, 0.01, 0.05, 0, 0}, /* a shorted load */
+          {0.75 * M_PI, 50, 0, 0, 1, 0, 50}} /* j50 three eighths back: a short at the input */ },
     { "cxl_transfer_delay", call_transfer_delay, 3, {0.5, -0.5, 45}, {&K_FIN, &K_FIN, &K_FIN}, 2, 0, 2,
       1, {{0, 0, 45}} /* no voltage, no phase */ },
-    { "cxl_transfer_lossless", call_transfer_lossless, 6, {50, 0.66, 30, F, 75, 10},
-      {&K_POS, &K_VF, &K_NONNEG, &K_POS, &K_NONNEG, &K_FIN}, 3, 0x4, 3,
-      1, {{50, 0.66, 30, F, 0, 0}} },
-    { "cxl_transfer_model", call_transfer_model, 5, {10e6, 0, 30, 75, 10},
-      {&K_POS, &K_MFLAGS, &K_NONNEG, &K_NONNEG, &K_FIN}, 4, 0x8, 3,
-      2, {{1e3, 0, 30, 75, 10}, /* below the model's range */ {10e6, 0, 30, 0, 0}} },
-    { "cxl_transfer_model", call_transfer_model, 5, {10e6, CXL_LOSS_EXTRAPOLATE, 30, 75, 10},
-      {&K_POS, &K_MFLAGS, &K_NONNEG, &K_NONNEG, &K_FIN}, 4, 0x8, 3, 0, {{0}} },
-    { "cxl_transfer_input_impedance", call_transfer_input_impedance, 7, {50, -2, 0.01, 0.05, 30, 75, 10},
-      {&K_POS, &K_FIN, &K_NONNEG, &K_POS, &K_NONNEG, &K_NONNEG, &K_FIN}, 2, 0, 2,
-      1, {{50, 0, 0, 1, 0.5 * M_PI, 0, 0}} /* a shorted quarter wave: open at the input */ },
+    { "cxl_transfer_lossless", call_transfer_lossless, 6, {30, 50, 0.66, F, 75, 10},
+      {&K_NONNEG, &K_POS, &K_VF, &K_POS, &K_NONNEG, &K_FIN}, 3, 0x4, 3,
+      1, {{30, 50, 0.66, F, 0, 0}} },
+    { "cxl_transfer_model", call_transfer_model, 5, {30, 10e6, 0, 75, 10},
+      {&K_NONNEG, &K_POS, &K_MFLAGS, &K_NONNEG, &K_FIN}, 4, 0x8, 3,
+      2, {{30, 1e3, 0, 75, 10}, /* below the model's range */ {30, 10e6, 0, 0, 0}} },
+    { "cxl_transfer_model", call_transfer_model, 5, {30, 10e6, CXL_LOSS_EXTRAPOLATE, 75, 10},
+      {&K_NONNEG, &K_POS, &K_MFLAGS, &K_NONNEG, &K_FIN}, 4, 0x8, 3, 0, {{0}} },
+    { "cxl_transfer_input_impedance", call_transfer_input_impedance, 7, {30, 50, -2, 0.01, 0.05, 75, 10},
+      {&K_NONNEG, &K_POS, &K_FIN, &K_NONNEG, &K_POS, &K_NONNEG, &K_FIN}, 2, 0, 2,
+      1, {{0.5 * M_PI, 50, 0, 0, 1, 0, 0}} /* a shorted quarter wave: open at the input */ },
     { "cxl_transfer_stub_resonance", call_transfer_stub_resonance, 4, {0, CXL_STUB_OPEN, 1, 30},
       {&K_MFLAGS, &K_ENUM2, &K_ORDER, &K_POS}, 2, 0, 1,
       1, {{0, CXL_STUB_OPEN, 1, 1e5}} /* resonance below the model's range */ },
@@ -672,7 +669,7 @@ START_TEST(free_and_count_null)
     cxl_catalog_free(NULL);
     cxl_loss_fit_free(NULL);
     cxl_loss_model_free(NULL);
-    cxl_array_pair_free(NULL);
+    cxl_duo_free(NULL);
     cxl_array_free(NULL);
     ck_assert_uint_eq(cxl_array_count(NULL), 0);
     ck_assert_uint_eq(cxl_array_count(g_array), 3);
@@ -706,6 +703,15 @@ START_TEST(free_and_count_null)
     ck_assert_uint_eq(cxl_stub_result_count(NULL), 0);
     ck_assert_uint_gt(cxl_bands_count(g_bands), 0);
     ck_assert_uint_eq(cxl_stub_count(g_stub), 3);
+    /* counts are size_t: 0 for NULL (and for a cable index past the end) */
+    ck_assert_uint_eq(cxl_catalog_count(NULL), 0);
+    ck_assert_uint_gt(cxl_catalog_count(g_cat), g_user);
+    ck_assert_uint_eq(cxl_catalog_loss_count(NULL, 0), 0);
+    ck_assert_uint_ge(cxl_catalog_loss_count(g_cat, g_user), 2);
+    ck_assert_uint_eq(cxl_catalog_loss_count(g_cat, cxl_catalog_count(g_cat)), 0);
+    ck_assert_uint_eq(cxl_catalog_loss_count(g_cat, SIZE_MAX), 0);
+    ck_assert_uint_eq(cxl_loss_fit_count(NULL), 0);
+    ck_assert_uint_eq(cxl_loss_fit_count(g_fit), 2);
     ck_assert_uint_eq(cxl_stub_result_count(g_res1), 3);
 }
 END_TEST
@@ -914,7 +920,7 @@ START_TEST(catalog_bad_files)
     cxl_catalog *cat = NULL;
     size_t before, after;
     ck_assert_int_eq(cxl_catalog_new(&cat), CXL_OK);
-    ck_assert_int_eq(cxl_catalog_count(cat, &before), CXL_OK);
+    before = cxl_catalog_count(cat);
     for (size_t i = 0; i < sizeof bad / sizeof bad[0]; i++) {
         size_t len = bad[i].len ? bad[i].len : strlen(bad[i].text);
         FILE *fp = fmemopen((void *)bad[i].text, len, "r");
@@ -929,14 +935,14 @@ START_TEST(catalog_bad_files)
         ck_assert_msg(line != SIZE_MAX && line >= 1, "cable file %zu: no error line", i);
         ck_assert_msg(strncmp(msg, "bad.csv:", 8) == 0 && !strchr(msg, '\n'),
                       "cable file %zu: message '%s'", i, msg);
-        ck_assert_int_eq(cxl_catalog_count(cat, &after), CXL_OK);
+        after = cxl_catalog_count(cat);
         ck_assert_uint_eq(after, before);
     }
     /* a header without rows adds nothing and is not an error */
     FILE *fp = text_stream("name,vf\n");
     ck_assert_int_eq(cxl_catalog_load_cables(cat, fp, NULL, NULL, NULL, 0), CXL_OK);
     fclose(fp);
-    ck_assert_int_eq(cxl_catalog_count(cat, &after), CXL_OK);
+    after = cxl_catalog_count(cat);
     ck_assert_uint_eq(after, before);
     cxl_catalog_free(cat);
 }
@@ -957,7 +963,7 @@ START_TEST(catalog_bad_loss_files)
         "name,freq_mhz,loss_db_per_100m\nbench-spool,10,nan\n",
     };
     size_t points_before;
-    ck_assert_int_eq(cxl_catalog_loss_count(g_cat, g_user, &points_before), CXL_OK);
+    points_before = cxl_catalog_loss_count(g_cat, g_user);
     for (size_t i = 0; i < sizeof bad / sizeof bad[0]; i++) {
         FILE *fp = text_stream(bad[i]);
         char msg[256] = "";
@@ -966,7 +972,7 @@ START_TEST(catalog_bad_loss_files)
         ck_assert_msg(st != CXL_OK, "loss file %zu accepted", i);
         ck_assert_msg(msg[0] != '\0', "loss file %zu: no message", i);
         size_t n;
-        ck_assert_int_eq(cxl_catalog_loss_count(g_cat, g_user, &n), CXL_OK);
+        n = cxl_catalog_loss_count(g_cat, g_user);
         ck_assert_uint_eq(n, points_before);
     }
     /* names that are not there */
@@ -979,7 +985,7 @@ START_TEST(catalog_bad_loss_files)
     /* the index just past the end, and a cable without points */
     size_t n, idx;
     double v = SENT;
-    ck_assert_int_eq(cxl_catalog_count(g_cat, &n), CXL_OK);
+    n = cxl_catalog_count(g_cat);
     ck_assert_int_eq(cxl_catalog_value(g_cat, n, CXL_CABLE_VF, &v), CXL_ERANGE);
     ck_assert(v == SENT);
     const char *t = sentinel_text;
@@ -1305,10 +1311,10 @@ static void setup_objects(void)
 
     /* end-fire pair of 60 m long wires, 40 m stagger, the front element
      * delayed by the stagger so that arrivals from the front add */
-    NEED(cxl_array_pair_new(&g_pair) == CXL_OK);
-    NEED(cxl_array_pair_set_geometry(g_pair, 5.0, 40.0) == CXL_OK);
-    NEED(cxl_array_pair_set_delay(g_pair, 0, 40.0 / C) == CXL_OK);
-    NEED(cxl_array_pair_set_long_wire(g_pair, 60.0, 0.8) == CXL_OK);
+    NEED(cxl_duo_new(&g_pair) == CXL_OK);
+    NEED(cxl_duo_set_geometry(g_pair, 5.0, 40.0) == CXL_OK);
+    NEED(cxl_duo_set_delay(g_pair, 0, 40.0 / C) == CXL_OK);
+    NEED(cxl_duo_set_long_wire(g_pair, 60.0, 0.8) == CXL_OK);
     NEED(cxl_array_new(&g_array) == CXL_OK);
     NEED(cxl_array_add(g_array, 0.0, 0.0, 0.0, NULL) == CXL_OK);
     NEED(cxl_array_add(g_array, -20.0, 5.0, 0.0, NULL) == CXL_OK);
@@ -1425,7 +1431,7 @@ int main(void)
     cxl_trim_free(g_trim);
     cxl_drift_free(g_drift);
     cxl_loss_model_free(g_clad);
-    cxl_array_pair_free(g_pair);
+    cxl_duo_free(g_pair);
     cxl_yield_free(g_yield);
     cxl_yield_free(NULL);
     cxl_array_free(g_array);

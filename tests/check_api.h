@@ -58,7 +58,7 @@ extern cxl_stub_result *g_res1;
 extern cxl_stub_result *g_res2; /* readings on two lengths: fixture fitted */
 extern cxl_loss_fit *g_fit;
 extern cxl_loss_model *g_model;
-extern cxl_array_pair *g_pair;  /* end-fire pair of long wires */
+extern cxl_duo *g_pair;  /* end-fire pair of long wires */
 extern cxl_array *g_array;      /* three elements, one fed by a modelled line */
 extern cxl_loss_model *g_clad;  /* g_model with a copper-clad steel centre */
 extern cxl_drift *g_drift;      /* VF at three frequencies */
@@ -165,13 +165,11 @@ cxl_status call_budget_length_for_phase(const double *a, double *o, unsigned nul
 cxl_status call_budget_phase_for_front_to_back(const double *a, double *o, unsigned nulls);
 cxl_status call_budget_phase_for_null(const double *a, double *o, unsigned nulls);
 cxl_status call_budget_phase_for_rear_null(const double *a, double *o, unsigned nulls);
-cxl_status call_catalog_count(const double *a, double *o, unsigned nulls);
 cxl_status call_catalog_dielectric(const double *a, double *o, unsigned nulls);
 cxl_status call_catalog_find(const double *a, double *o, unsigned nulls);
 cxl_status call_catalog_is_builtin(const double *a, double *o, unsigned nulls);
 cxl_status call_catalog_load_cables(const double *a, double *o, unsigned nulls);
 cxl_status call_catalog_load_loss(const double *a, double *o, unsigned nulls);
-cxl_status call_catalog_loss_count(const double *a, double *o, unsigned nulls);
 cxl_status call_catalog_loss_point(const double *a, double *o, unsigned nulls);
 cxl_status call_catalog_name(const double *a, double *o, unsigned nulls);
 cxl_status call_catalog_new(const double *a, double *o, unsigned nulls);
@@ -208,7 +206,6 @@ cxl_status call_loss_cable_kind(const double *a, double *o, unsigned nulls);
 cxl_status call_loss_cable_new(const double *a, double *o, unsigned nulls);
 cxl_status call_loss_cable_range(const double *a, double *o, unsigned nulls);
 cxl_status call_loss_fit_coefficients(const double *a, double *o, unsigned nulls);
-cxl_status call_loss_fit_count(const double *a, double *o, unsigned nulls);
 cxl_status call_loss_fit_eval(const double *a, double *o, unsigned nulls);
 cxl_status call_loss_fit_max_relative_residual(const double *a, double *o, unsigned nulls);
 cxl_status call_loss_fit_new(const double *a, double *o, unsigned nulls);

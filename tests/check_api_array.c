@@ -3,99 +3,99 @@
 #include "check_api.h"
 
 /* array.c */
-NEW_ADAPTER(pair_new, cxl_array_pair, cxl_array_pair_new(P(0, &h)), cxl_array_pair_free)
-NEW_ADAPTER(pair_copy, cxl_array_pair, cxl_array_pair_copy(P(0, g_pair), P(1, &h)),
-            cxl_array_pair_free)
+NEW_ADAPTER(pair_new, cxl_duo, cxl_duo_new(P(0, &h)), cxl_duo_free)
+NEW_ADAPTER(pair_copy, cxl_duo, cxl_duo_copy(P(0, g_pair), P(1, &h)),
+            cxl_duo_free)
 /* Setters work on a copy of g_pair; an accepted value must leave a pair
  * whose forward response is finite or refused. */
-static cxl_array_pair *fresh_pair(void)
+static cxl_duo *fresh_pair(void)
 {
-    cxl_array_pair *p = NULL;
-    ck_assert_int_eq(cxl_array_pair_copy(g_pair, &p), CXL_OK);
+    cxl_duo *p = NULL;
+    ck_assert_int_eq(cxl_duo_copy(g_pair, &p), CXL_OK);
     return p;
 }
-static void probe_pair(const cxl_array_pair *p, double *o)
+static void probe_pair(const cxl_duo *p, double *o)
 {
     double r;
-    if (cxl_array_response(p, 1.83e6, 0.0, 15.0, &r) == CXL_OK) o[0] = r;
+    if (cxl_duo_response(p, 1.83e6, 0.0, 15.0, &r) == CXL_OK) o[0] = r;
 }
 #define PAIR_SETTER(name, call)                                              \
     ADAPTER(name)                                                            \
     {                                                                        \
-        cxl_array_pair *p = fresh_pair();                                    \
+        cxl_duo *p = fresh_pair();                                    \
         cxl_status st = call;                                                \
         if (st == CXL_OK) probe_pair(p, o);                                  \
-        cxl_array_pair_free(p);                                              \
+        cxl_duo_free(p);                                              \
         return st;                                                           \
     }
-PAIR_SETTER(pair_set_geometry, cxl_array_pair_set_geometry(P(0, p), a[0], a[1]))
-PAIR_SETTER(pair_set_delay, cxl_array_pair_set_delay(P(0, p), to_int(a[0]), a[1]))
+PAIR_SETTER(pair_set_geometry, cxl_duo_set_geometry(P(0, p), a[0], a[1]))
+PAIR_SETTER(pair_set_delay, cxl_duo_set_delay(P(0, p), to_int(a[0]), a[1]))
 PAIR_SETTER(pair_set_delay_deg,
-            cxl_array_pair_set_delay_deg(P(0, p), to_int(a[0]), a[1], a[2]))
+            cxl_duo_set_delay_deg(P(0, p), to_int(a[0]), a[1], a[2]))
 PAIR_SETTER(pair_set_phase_offset,
-            cxl_array_pair_set_phase_offset(P(0, p), to_int(a[0]), a[1]))
-PAIR_SETTER(pair_set_flip, cxl_array_pair_set_flip(P(0, p), to_int(a[0]), to_int(a[1])))
-PAIR_SETTER(pair_set_imbalance, cxl_array_pair_set_imbalance(P(0, p), a[0]))
-PAIR_SETTER(pair_set_isotropic, ((void)a, cxl_array_pair_set_isotropic(P(0, p))))
-PAIR_SETTER(pair_set_long_wire, cxl_array_pair_set_long_wire(P(0, p), a[0], a[1]))
+            cxl_duo_set_phase_offset(P(0, p), to_int(a[0]), a[1]))
+PAIR_SETTER(pair_set_flip, cxl_duo_set_flip(P(0, p), to_int(a[0]), to_int(a[1])))
+PAIR_SETTER(pair_set_imbalance, cxl_duo_set_imbalance(P(0, p), a[0]))
+PAIR_SETTER(pair_set_isotropic, ((void)a, cxl_duo_set_isotropic(P(0, p))))
+PAIR_SETTER(pair_set_long_wire, cxl_duo_set_long_wire(P(0, p), a[0], a[1]))
 
 /* design feed of a pair staggered 20 m, read back */
 ADAPTER(pair_set_feed)
 {
-    cxl_array_pair *p = fresh_pair();
-    ck_assert_int_eq(cxl_array_pair_set_geometry(p, 0.0, 20.0), CXL_OK);
-    cxl_status st = cxl_array_pair_set_feed(P(0, p), (cxl_feed)to_int(a[0]), a[1]);
+    cxl_duo *p = fresh_pair();
+    ck_assert_int_eq(cxl_duo_set_geometry(p, 0.0, 20.0), CXL_OK);
+    cxl_status st = cxl_duo_set_feed(P(0, p), (cxl_feed)to_int(a[0]), a[1]);
     for (int k = 0; k < 2 && st == CXL_OK; k++) {
         int flip = -1;
-        ck_assert_int_eq(cxl_array_pair_feed(p, k, &o[2 * k], &flip), CXL_OK);
+        ck_assert_int_eq(cxl_duo_feed(p, k, &o[2 * k], &flip), CXL_OK);
         o[2 * k + 1] = flip;
     }
-    cxl_array_pair_free(p);
+    cxl_duo_free(p);
     return st;
 }
 ADAPTER(pair_feed)
 {
     int flip = (int)SENT;
-    cxl_status st = cxl_array_pair_feed(P(0, g_pair), to_int(a[0]), P(1, &o[0]), P(2, &flip));
+    cxl_status st = cxl_duo_feed(P(0, g_pair), to_int(a[0]), P(1, &o[0]), P(2, &flip));
     o[1] = flip;
     return st;
 }
 ADAPTER(pair_built_phase)
 {
     double design[2] = { a[0], a[1] }, built[2] = { a[2], a[3] };
-    return cxl_array_pair_built_phase(P(0, design), P(1, built), a[4], a[5], P(2, &o[0]));
+    return cxl_duo_built_phase(P(0, design), P(1, built), a[4], a[5], P(2, &o[0]));
 }
 
 ADAPTER(array_field)
 {
-    return cxl_array_field(P(0, g_pair), a[0], a[1], a[2], P(1, &o[0]), P(2, &o[1]));
+    return cxl_duo_field(P(0, g_pair), a[0], a[1], a[2], P(1, &o[0]), P(2, &o[1]));
 }
 ADAPTER(array_response)
 {
-    return cxl_array_response(P(0, g_pair), a[0], a[1], a[2], P(1, &o[0]));
+    return cxl_duo_response(P(0, g_pair), a[0], a[1], a[2], P(1, &o[0]));
 }
-ADAPTER(array_gain) { return cxl_array_gain(P(0, g_pair), a[0], a[1], a[2], P(1, &o[0])); }
+ADAPTER(array_gain) { return cxl_duo_gain(P(0, g_pair), a[0], a[1], a[2], P(1, &o[0])); }
 ADAPTER(array_forward_gain)
 {
-    return cxl_array_forward_gain(P(0, g_pair), a[0], a[1], P(1, &o[0]));
+    return cxl_duo_forward_gain(P(0, g_pair), a[0], a[1], P(1, &o[0]));
 }
 ADAPTER(array_pattern)
 {
     /* the output array holds 4; n is only ever 4 or a bad value */
-    return cxl_array_pattern(P(0, g_pair), a[0], a[1], to_size(a[2]), P(1, &o[0]));
+    return cxl_duo_pattern(P(0, g_pair), a[0], a[1], to_size(a[2]), P(1, &o[0]));
 }
 ADAPTER(array_front_to_back)
 {
-    return cxl_array_front_to_back(P(0, g_pair), a[0], a[1], P(1, &o[0]));
+    return cxl_duo_front_to_back(P(0, g_pair), a[0], a[1], P(1, &o[0]));
 }
 ADAPTER(array_rear_null)
 {
-    return cxl_array_rear_null(P(0, g_pair), a[0], a[1], P(1, &o[0]), P(2, &o[1]));
+    return cxl_duo_rear_null(P(0, g_pair), a[0], a[1], P(1, &o[0]), P(2, &o[1]));
 }
-ADAPTER(array_peak) { return cxl_array_peak(P(0, g_pair), a[0], P(1, &o[0]), P(2, &o[1])); }
-ADAPTER(array_directivity) { return cxl_array_directivity(P(0, g_pair), a[0], P(1, &o[0])); }
-ADAPTER(array_rdf) { return cxl_array_rdf(P(0, g_pair), a[0], P(1, &o[0])); }
-ADAPTER(array_null_depth) { return cxl_array_null_depth(a[0], a[1], P(0, &o[0])); }
+ADAPTER(array_peak) { return cxl_duo_peak(P(0, g_pair), a[0], P(1, &o[0]), P(2, &o[1])); }
+ADAPTER(array_directivity) { return cxl_duo_directivity(P(0, g_pair), a[0], P(1, &o[0])); }
+ADAPTER(array_rdf) { return cxl_duo_rdf(P(0, g_pair), a[0], P(1, &o[0])); }
+ADAPTER(array_null_depth) { return cxl_duo_null_depth(a[0], a[1], P(0, &o[0])); }
 
 
 /* array.c: the N-element array */

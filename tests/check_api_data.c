@@ -1,4 +1,4 @@
-/* check_api_data.c - the walk's adapters for csv.c, band.c and cable.c (see check_api.c). */
+/* check_api_data.c - the walk's adapters for csv.c, band.c and catalog.c (see check_api.c). */
 #include <config.h>
 #include "check_api.h"
 
@@ -91,7 +91,7 @@ ADAPTER(bands_edges)
 }
 
 
-/* cable.c */
+/* catalog.c */
 NEW_ADAPTER(catalog_new, cxl_catalog, cxl_catalog_new(P(0, &h)), cxl_catalog_free)
 ADAPTER(catalog_load_cables)
 {
@@ -127,14 +127,6 @@ ADAPTER(catalog_load_loss)
     cxl_catalog_free(c);
     return st;
 }
-ADAPTER(catalog_count)
-{
-    (void)a;
-    size_t n = (size_t)SENT;
-    cxl_status st = cxl_catalog_count(P(0, g_cat), P(1, &n));
-    o[0] = (double)n;
-    return st;
-}
 ADAPTER(catalog_find)
 {
     (void)a;
@@ -165,13 +157,6 @@ ADAPTER(catalog_value)
 {
     return cxl_catalog_value(P(0, g_cat), to_size(a[0]), (cxl_cable_prop)to_int(a[1]),
                              P(1, &o[0]));
-}
-ADAPTER(catalog_loss_count)
-{
-    size_t n = (size_t)SENT;
-    cxl_status st = cxl_catalog_loss_count(P(0, g_cat), to_size(a[0]), P(1, &n));
-    o[0] = (double)n;
-    return st;
 }
 ADAPTER(catalog_loss_point)
 {

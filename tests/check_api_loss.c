@@ -77,14 +77,6 @@ ADAPTER(loss_fit_range)
     (void)a;
     return cxl_loss_fit_range(P(0, g_fit), P(1, &o[0]), P(2, &o[1]));
 }
-ADAPTER(loss_fit_count)
-{
-    (void)a;
-    size_t n = (size_t)SENT;
-    cxl_status st = cxl_loss_fit_count(P(0, g_fit), P(1, &n));
-    o[0] = (double)n;
-    return st;
-}
 ADAPTER(loss_fit_point)
 {
     return cxl_loss_fit_point(P(0, g_fit), to_size(a[0]), P(1, &o[0]), P(2, &o[1]),
@@ -179,7 +171,7 @@ ADAPTER(transfer_lossless)
 }
 ADAPTER(transfer_model)
 {
-    return cxl_transfer_model(P(0, g_model), a[0], to_uint(a[1]), a[2], a[3], a[4],
+    return cxl_transfer_model(P(0, g_model), a[0], a[1], to_uint(a[2]), a[3], a[4],
                               P(1, &o[0]), P(2, &o[1]), P(3, &o[2]));
 }
 ADAPTER(transfer_input_impedance)

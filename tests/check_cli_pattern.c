@@ -69,7 +69,7 @@ START_TEST(as_built_errors)
     ck_assert_double_eq_tol(run_num(args, 1, "phase_error_deg"), 7.2, 1e-6);
     /* imbalance of 1 dB alone: the rear null of the crossfire pair is
      * |1 - a| against a front of |1 - a e^{j 2kd}|; closed form of
-     * cxl_array_null_depth relative to (1 + a), 20 log10((1 - a)/(1 + a))
+     * cxl_duo_null_depth relative to (1 + a), 20 log10((1 - a)/(1 + a))
      * = -24.81 dB, DESIGN.md "about -25 dB"; at 20 m stagger the front is
      * a little below (1 + a), so the null is a little shallower */
     snprintf(args, sizeof args, "%s --imbalance 1", base);

@@ -176,8 +176,8 @@ START_TEST(cable_model_into_load)
     ck_assert_int_eq(cxl_catalog_find(cat, "RG-58", &idx), CXL_OK);
     ck_assert_int_eq(cxl_loss_model_new_cable(cat, idx, &m), CXL_OK);
     double db, delay, el, rdb, rdelay, rel;
-    ck_assert_int_eq(cxl_transfer_model(m, 1.715e6, 0, 20.1, 21.0, 20.0, &db, &delay, &el), CXL_OK);
-    ck_assert_int_eq(cxl_transfer_model(m, 1.715e6, 0, 20.0, 21.0, 20.0, &rdb, &rdelay, &rel), CXL_OK);
+    ck_assert_int_eq(cxl_transfer_model(m, 20.1, 1.715e6, 0, 21.0, 20.0, &db, &delay, &el), CXL_OK);
+    ck_assert_int_eq(cxl_transfer_model(m, 20.0, 1.715e6, 0, 21.0, 20.0, &rdb, &rdelay, &rel), CXL_OK);
     cxl_loss_model_free(m);
     cxl_catalog_free(cat);
     char check[1024];

@@ -157,7 +157,7 @@ START_TEST(allowance_covers_the_catalog)
     cxl_catalog *cat;
     size_t n, checked = 0;
     ck_assert_int_eq(cxl_catalog_new(&cat), CXL_OK);
-    ck_assert_int_eq(cxl_catalog_count(cat, &n), CXL_OK);
+    n = cxl_catalog_count(cat);
     const double f[] = { 0.3e6, 0.5e6, 1.0e6, 1.83e6, 3.6e6, 7.1e6, 14e6, 30e6, 60e6, 150e6 };
     const size_t nf = sizeof f / sizeof f[0];
     for (size_t c = 0; c < n; c++) {

@@ -34,7 +34,7 @@ START_TEST(identities)
                 ck_assert_int_eq(cxl_line_degrees_from_length(lens[j], vfs[i], freqs[k], &deg), CXL_OK);
                 ck_assert_int_eq(cxl_line_degrees_from_delay(d, freqs[k], &deg2), CXL_OK);
                 ck_assert_double_eq_tol(deg, deg2, REL(deg));
-                ck_assert_int_eq(cxl_line_length_from_degrees(deg, freqs[k], vfs[i], &l2), CXL_OK);
+                ck_assert_int_eq(cxl_line_length_from_degrees(deg, vfs[i], freqs[k], &l2), CXL_OK);
                 ck_assert_double_eq_tol(l2, lens[j], REL(lens[j]));
             }
 }
@@ -86,7 +86,7 @@ START_TEST(bad_arguments)
     ck_assert_int_eq(cxl_line_delay_from_length(1.0, 0.8, NULL), CXL_EINVAL);
     ck_assert_int_eq(cxl_line_degrees_from_length(1.0, 0.8, 0.0, &x), CXL_EINVAL);
     ck_assert_int_eq(cxl_line_degrees_from_length(1.0, 0.8, INFINITY, &x), CXL_EINVAL);
-    ck_assert_int_eq(cxl_line_length_from_degrees(90.0, -1.0, 0.8, &x), CXL_EINVAL);
+    ck_assert_int_eq(cxl_line_length_from_degrees(90.0, 0.8, -1.0, &x), CXL_EINVAL);
     ck_assert_int_eq(cxl_line_cut_length(0.0, 0.8, 0.0, 0.8, &x), CXL_EINVAL);
     ck_assert_int_eq(cxl_line_cut_length(1e-8, 0.8, -0.1, 0.8, &x), CXL_EINVAL);
     ck_assert_int_eq(cxl_line_cut_length(1e-8, 0.8, 0.1, 0.0, &x), CXL_EINVAL);

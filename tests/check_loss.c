@@ -345,7 +345,7 @@ END_TEST
 static double table_point_db_100ft(const cxl_catalog *cat, size_t i, double freq_hz)
 {
     size_t np;
-    ck_assert_int_eq(cxl_catalog_loss_count(cat, i, &np), CXL_OK);
+    np = cxl_catalog_loss_count(cat, i);
     for (size_t p = 0; p < np; p++) {
         double f, l;
         ck_assert_int_eq(cxl_catalog_loss_point(cat, i, p, &f, &l, NULL), CXL_OK);
@@ -369,7 +369,7 @@ START_TEST(test_catalog_loss_against_published_table)
     for (size_t k = 0; k < sizeof pub / sizeof pub[0]; k++) {
         size_t i, np;
         ck_assert_int_eq(cxl_catalog_find(cat, pub[k].name, &i), CXL_OK);
-        ck_assert_int_eq(cxl_catalog_loss_count(cat, i, &np), CXL_OK);
+        np = cxl_catalog_loss_count(cat, i);
         /* the table holds the published points themselves */
         ck_assert_double_eq_tol(table_point_db_100ft(cat, i, 30e6), pub[k].l30,
                                 pub[k].l30 < 10 ? 0.006 : 0.06);

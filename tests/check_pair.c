@@ -57,12 +57,12 @@ START_TEST(test_reference_in_degrees)
     double ph;
     double ref = 0.25 * 0.66 * C0 / 1.83e6;
     ck_assert_double_eq_tol(ref, 27.030, 5e-4);
-    ck_assert_int_eq(cxl_pair_phase_error_ref_deg(ref + 0.10, 0.66, 90.0, 1.83e6, 3.6e6, &ph),
+    ck_assert_int_eq(cxl_pair_phase_error_ref_deg(ref + 0.10, 90.0, 1.83e6, 0.66, 3.6e6, &ph),
                      CXL_OK);
     ck_assert_double_eq_tol(ph, 0.655, 5e-4);
-    ck_assert_int_eq(cxl_pair_phase_error_ref_deg(ref, 0.66, 0.0, 1.83e6, 3.6e6, &ph),
+    ck_assert_int_eq(cxl_pair_phase_error_ref_deg(ref, 0.0, 1.83e6, 0.66, 3.6e6, &ph),
                      CXL_EINVAL);
-    ck_assert_int_eq(cxl_pair_phase_error_ref_deg(ref, 0.66, 90.0, NAN, 3.6e6, &ph),
+    ck_assert_int_eq(cxl_pair_phase_error_ref_deg(ref, 90.0, NAN, 0.66, 3.6e6, &ph),
                      CXL_EINVAL);
 }
 END_TEST
@@ -92,7 +92,7 @@ START_TEST(test_pair_160m_passes_40m_fails)
     double d, ph, u;
     cxl_verdict v;
     for (int i = 0; i < 3; i++) {
-        ck_assert_int_eq(cxl_pair_check(len, 2, 0.66, f160[i], 2.0, 0.0, 0.0, &d, &ph, &u, &v),
+        ck_assert_int_eq(cxl_pair_check(len, 2, 2.0, 0.66, f160[i], 0.0, 0.0, &d, &ph, &u, &v),
                          CXL_OK);
         ck_assert_double_eq_tol(d, 0.30, 1e-12);          /* 20.30 - 20.00 */
         ck_assert_double_eq_tol(ph, want160[i], 5e-4);    /* hand values above */
@@ -101,11 +101,11 @@ START_TEST(test_pair_160m_passes_40m_fails)
     }
     const double f40[] = { 7.0e6, 7.2e6 };
     for (int i = 0; i < 2; i++) {
-        ck_assert_int_eq(cxl_pair_check(len, 2, 0.66, f40[i], 2.0, 0.0, 0.0, &d, &ph, &u, &v),
+        ck_assert_int_eq(cxl_pair_check(len, 2, 2.0, 0.66, f40[i], 0.0, 0.0, &d, &ph, &u, &v),
                          CXL_OK);
         ck_assert_int_eq(v, CXL_VERDICT_FAIL);
     }
-    ck_assert_int_eq(cxl_pair_check(len, 2, 0.66, 7.0e6, 2.0, 0.0, 0.0, &d, &ph, &u, &v),
+    ck_assert_int_eq(cxl_pair_check(len, 2, 2.0, 0.66, 7.0e6, 0.0, 0.0, &d, &ph, &u, &v),
                      CXL_OK);
     ck_assert_double_eq_tol(ph, 3.821, 5e-4);
 }
@@ -117,7 +117,7 @@ START_TEST(test_pair_many_lines)
     const double len[] = { 20.05, 19.98, 20.10, 20.01 };
     double d, ph, u;
     cxl_verdict v;
-    ck_assert_int_eq(cxl_pair_check(len, 4, 0.66, 1.83e6, 2.0, 0.0, 0.0, &d, &ph, &u, &v),
+    ck_assert_int_eq(cxl_pair_check(len, 4, 2.0, 0.66, 1.83e6, 0.0, 0.0, &d, &ph, &u, &v),
                      CXL_OK);
     ck_assert_double_eq_tol(d, 0.12, 1e-12);   /* 20.10 - 19.98 */
     /* the identity in the file header comment (Pozar sec. 2.1) */
@@ -154,12 +154,12 @@ START_TEST(test_pass_not_certain)
     const double len[] = { 20.00, 20.30 };
     double d, ph, u;
     cxl_verdict v;
-    ck_assert_int_eq(cxl_pair_check(len, 2, 0.66, 2.0e6, 2.0, 0.25, 0.0, &d, &ph, &u, &v),
+    ck_assert_int_eq(cxl_pair_check(len, 2, 2.0, 0.66, 2.0e6, 0.25, 0.0, &d, &ph, &u, &v),
                      CXL_OK);
     ck_assert_double_eq_tol(ph + u, 2.911, 5e-4);
     ck_assert_int_eq(v, CXL_VERDICT_PASS_UNCERTAIN);
     /* a tight tape makes it certain: 0.31 m worst = 1.128 deg */
-    ck_assert_int_eq(cxl_pair_check(len, 2, 0.66, 2.0e6, 2.0, 0.005, 0.0, &d, &ph, &u, &v),
+    ck_assert_int_eq(cxl_pair_check(len, 2, 2.0, 0.66, 2.0e6, 0.005, 0.0, &d, &ph, &u, &v),
                      CXL_OK);
     ck_assert_int_eq(v, CXL_VERDICT_PASS);
 }
@@ -187,7 +187,7 @@ START_TEST(test_verdict_rule)
     const double len[2] = { 20.0, 20.02 };
     double d, e, u;
     cxl_verdict w;
-    ck_assert_int_eq(cxl_pair_check(len, 2, 0.66, 7.3e6, 0.6, 0.005, 0.01, &d, &e, &u, &w),
+    ck_assert_int_eq(cxl_pair_check(len, 2, 0.6, 0.66, 7.3e6, 0.005, 0.01, &d, &e, &u, &w),
                      CXL_OK);
     ck_assert_int_eq(cxl_pair_verdict(e, u, 0.6, &v), CXL_OK);
     ck_assert_int_eq(v, w);
@@ -221,21 +221,21 @@ START_TEST(test_bad_arguments)
     ck_assert_int_eq(cxl_pair_phase_uncertainty(20, 20, 0.66, 1.8e6, 0.0, 0.0, NULL),
                      CXL_EINVAL);
     ck_assert_double_eq(out, 5.0);
-    ck_assert_int_eq(cxl_pair_check(len, 1, 0.66, 1.8e6, 2.0, 0, 0, &d, &ph, &u, &v),
+    ck_assert_int_eq(cxl_pair_check(len, 1, 2.0, 0.66, 1.8e6, 0, 0, &d, &ph, &u, &v),
                      CXL_EINVAL);
-    ck_assert_int_eq(cxl_pair_check(NULL, 2, 0.66, 1.8e6, 2.0, 0, 0, &d, &ph, &u, &v),
+    ck_assert_int_eq(cxl_pair_check(NULL, 2, 2.0, 0.66, 1.8e6, 0, 0, &d, &ph, &u, &v),
                      CXL_EINVAL);
-    ck_assert_int_eq(cxl_pair_check(bad, 2, 0.66, 1.8e6, 2.0, 0, 0, &d, &ph, &u, &v),
+    ck_assert_int_eq(cxl_pair_check(bad, 2, 2.0, 0.66, 1.8e6, 0, 0, &d, &ph, &u, &v),
                      CXL_EINVAL);
-    ck_assert_int_eq(cxl_pair_check(neg, 2, 0.66, 1.8e6, 2.0, 0, 0, &d, &ph, &u, &v),
+    ck_assert_int_eq(cxl_pair_check(neg, 2, 2.0, 0.66, 1.8e6, 0, 0, &d, &ph, &u, &v),
                      CXL_EINVAL);
-    ck_assert_int_eq(cxl_pair_check(len, 2, 0.66, 1.8e6, 0.0, 0, 0, &d, &ph, &u, &v),
+    ck_assert_int_eq(cxl_pair_check(len, 2, 0.0, 0.66, 1.8e6, 0, 0, &d, &ph, &u, &v),
                      CXL_EINVAL);
-    ck_assert_int_eq(cxl_pair_check(len, 2, 0.66, 1.8e6, NAN, 0, 0, &d, &ph, &u, &v),
+    ck_assert_int_eq(cxl_pair_check(len, 2, NAN, 0.66, 1.8e6, 0, 0, &d, &ph, &u, &v),
                      CXL_EINVAL);
-    ck_assert_int_eq(cxl_pair_check(len, 2, 0.66, 1.8e6, 2.0, 0, 0, NULL, &ph, &u, &v),
+    ck_assert_int_eq(cxl_pair_check(len, 2, 2.0, 0.66, 1.8e6, 0, 0, NULL, &ph, &u, &v),
                      CXL_EINVAL);
-    ck_assert_int_eq(cxl_pair_check(len, 2, 0.66, 1.8e6, 2.0, 0, 0, &d, &ph, &u, NULL),
+    ck_assert_int_eq(cxl_pair_check(len, 2, 2.0, 0.66, 1.8e6, 0, 0, &d, &ph, &u, NULL),
                      CXL_EINVAL);
     ck_assert_double_eq(d, 5.0);
     ck_assert_double_eq(ph, 5.0);
@@ -330,9 +330,9 @@ START_TEST(test_load_check_matched_is_electrical)
     for (size_t i = 0; i < 3; i++) {
         double dm, err, unc, lerr, lunc, elec, imb;
         cxl_verdict v, lv;
-        ck_assert_int_eq(cxl_pair_check(len, 3, 0.66, fs[i], 2.0, 0.005, 0.01, &dm, &err, &unc, &v),
+        ck_assert_int_eq(cxl_pair_check(len, 3, 2.0, 0.66, fs[i], 0.005, 0.01, &dm, &err, &unc, &v),
                          CXL_OK);
-        ck_assert_int_eq(cxl_pair_load_check(l, len, 3, 0.66, fs[i], 2.0, 0.005, 0.01, &lerr, &lunc,
+        ck_assert_int_eq(cxl_pair_load_check(l, len, 3, 2.0, 0.66, fs[i], 0.005, 0.01, &lerr, &lunc,
                                              &elec, &imb, &lv), CXL_OK);
         ck_assert_double_eq_tol(lerr, err, 1e-9);
         ck_assert_double_eq_tol(elec, err, 1e-9);
@@ -366,7 +366,7 @@ START_TEST(test_load_check_mismatched)
     double err, unc, elec, imb;
     cxl_verdict v;
     ck_assert_int_eq(cxl_pair_load_new_lossless(50.0, 21.0, 20.0, &l), CXL_OK);
-    ck_assert_int_eq(cxl_pair_load_check(l, len, 2, vf, f, 5.0, 0.0, 0.0, &err, &unc, &elec, &imb, &v),
+    ck_assert_int_eq(cxl_pair_load_check(l, len, 2, 5.0, vf, f, 0.0, 0.0, &err, &unc, &elec, &imb, &v),
                      CXL_OK);
     ck_assert_double_eq_tol(err, fabs(d[1] - d[0]), 1e-7);
     ck_assert_double_eq_tol(elec, e[1] - e[0], 1e-9);
@@ -375,7 +375,7 @@ START_TEST(test_load_check_mismatched)
     /* the mismatched load makes the error differ from the electrical one */
     ck_assert(fabs(err - elec) > 0.01);
     double mid = 0.5 * (err + elec);
-    ck_assert_int_eq(cxl_pair_load_check(l, len, 2, vf, f, mid, 0.0, 0.0, &err, &unc, &elec, &imb, &v),
+    ck_assert_int_eq(cxl_pair_load_check(l, len, 2, mid, vf, f, 0.0, 0.0, &err, &unc, &elec, &imb, &v),
                      CXL_OK);
     ck_assert_int_eq(v, err > elec ? CXL_VERDICT_FAIL : CXL_VERDICT_PASS);
     /* the allowed mismatch: the delay grows by the tolerance over it */
@@ -403,7 +403,7 @@ START_TEST(test_load_uncertainty_corners)
     double err, unc, elec, imb;
     cxl_verdict v;
     ck_assert_int_eq(cxl_pair_load_new_lossless(50.0, 30.0, -15.0, &l), CXL_OK);
-    ck_assert_int_eq(cxl_pair_load_check(l, len, 2, vf, f, 10.0, tl, tv, &err, &unc, &elec, &imb, &v),
+    ck_assert_int_eq(cxl_pair_load_check(l, len, 2, 10.0, vf, f, tl, tv, &err, &unc, &elec, &imb, &v),
                      CXL_OK);
     ck_assert(unc > 0.0);
     double worst = 0.0;

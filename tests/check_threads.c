@@ -141,7 +141,7 @@ static void catalog_work(int seed, catalog_result *r)
     cxl_loss_model *model = NULL;
     cxl_stub *stub = NULL;
     cxl_stub_result *sres = NULL;
-    cxl_array_pair *pair = NULL;
+    cxl_duo *pair = NULL;
     cxl_trim *trim = NULL;
     cxl_trim_result *tres = NULL;
 
@@ -199,26 +199,26 @@ static void catalog_work(int seed, catalog_result *r)
     /* pair check of three lines */
     double lengths[3] = { 20.0, 20.0 + seed * 1e-3, 19.99 };
     cxl_verdict verdict = CXL_VERDICT_FAIL;
-    r->status[s++] = cxl_pair_check(lengths, 3, vf, f, 5.0, 0.002, 0.005, &r->v[k],
+    r->status[s++] = cxl_pair_check(lengths, 3, 5.0, vf, f, 0.002, 0.005, &r->v[k],
                                     &r->v[k + 1], &r->v[k + 2], &verdict);
     r->v[k + 3] = verdict;
     k += 4;
 
     /* array RDF of a crossfire pair staggered 10 + seed m */
     double stagger = 10.0 + seed;
-    r->status[s++] = cxl_array_pair_new(&pair);
+    r->status[s++] = cxl_duo_new(&pair);
     if (pair) {
-        cxl_array_pair_set_geometry(pair, 0.0, stagger);
-        cxl_array_pair_set_delay(pair, 1, stagger / C);
-        cxl_array_pair_set_flip(pair, 1, 1);
-        r->status[s] = cxl_array_rdf(pair, f, &r->v[k]);
+        cxl_duo_set_geometry(pair, 0.0, stagger);
+        cxl_duo_set_delay(pair, 1, stagger / C);
+        cxl_duo_set_flip(pair, 1, 1);
+        r->status[s] = cxl_duo_rdf(pair, f, &r->v[k]);
     }
     s++;
     k++;
 
     /* transfer of 30 m of the modelled cable into 100 - j20 ohm */
     if (model)
-        r->status[s] = cxl_transfer_model(model, f, CXL_LOSS_EXTRAPOLATE, 30.0, 100.0, -20.0,
+        r->status[s] = cxl_transfer_model(model, 30.0, f, CXL_LOSS_EXTRAPOLATE, 100.0, -20.0,
                                           &r->v[k], &r->v[k + 1], &r->v[k + 2]);
     s++;
     k += 3;
@@ -249,7 +249,7 @@ static void catalog_work(int seed, catalog_result *r)
 done:
     cxl_trim_result_free(tres);
     cxl_trim_free(trim);
-    cxl_array_pair_free(pair);
+    cxl_duo_free(pair);
     cxl_stub_result_free(sres);
     cxl_stub_free(stub);
     cxl_loss_model_free(model);

@@ -35,7 +35,7 @@ START_TEST(half_wave_multiples)
     for (int n = 1; n <= 5; n++) {
         for (size_t k = 0; k < NLOADS; k++) {
             double db, delay, el;
-            ck_assert_int_eq(cxl_transfer_lossless(50.0, vf, len_deg(180.0 * n, vf, f), f,
+            ck_assert_int_eq(cxl_transfer_lossless(len_deg(180.0 * n, vf, f), 50.0, vf, f,
                                                    loads[k][0], loads[k][1], &db, &delay, &el),
                              CXL_OK);
             ck_assert_double_eq_tol(el, 180.0 * n, 1e-9);
@@ -57,16 +57,16 @@ START_TEST(quarter_wave)
     for (size_t k = 0; k < NLOADS; k++) {
         double rr, ri, zr, zi, db, delay;
         const double xl = loads[k][0], yl = loads[k][1];
-        ck_assert_int_eq(cxl_transfer_ratio(z0, 0.0, 0.0, beta, l, xl, yl, &rr, &ri), CXL_OK);
+        ck_assert_int_eq(cxl_transfer_ratio(l, z0, 0.0, 0.0, beta, xl, yl, &rr, &ri), CXL_OK);
         double scale = hypot(xl, yl) / z0;
         ck_assert_double_eq_tol(rr, yl / z0, 1e-7 * scale);   /* -j (x + j y)/Z0 */
         ck_assert_double_eq_tol(ri, -xl / z0, 1e-7 * scale);
-        ck_assert_int_eq(cxl_transfer_lossless(z0, vf, l, f, xl, yl, &db, &delay, NULL), CXL_OK);
+        ck_assert_int_eq(cxl_transfer_lossless(l, z0, vf, f, xl, yl, &db, &delay, NULL), CXL_OK);
         ck_assert_double_eq_tol(delay, 90.0 - atan2(yl, xl) * 180.0 / M_PI, 1e-7);
         if (yl == 0.0) ck_assert_double_eq_tol(delay, 90.0, 1e-7);
         ck_assert_double_eq_tol(db, 20.0 * log10(scale), 1e-7);
         /* quarter-wave transformer: Zin = Z0^2 / ZL */
-        ck_assert_int_eq(cxl_transfer_input_impedance(z0, 0.0, 0.0, beta, l, xl, yl, &zr, &zi),
+        ck_assert_int_eq(cxl_transfer_input_impedance(l, z0, 0.0, 0.0, beta, xl, yl, &zr, &zi),
                          xl == 0.0 && yl == 0.0 ? CXL_ERANGE : CXL_OK);
         double m2 = xl * xl + yl * yl;
         ck_assert_double_eq_tol(zr, z0 * z0 * xl / m2, 1e-7 * z0 * z0 / sqrt(m2));
@@ -75,13 +75,13 @@ START_TEST(quarter_wave)
     /* 21 + j20 ohm on 50 ohm: angle atan(20/21) = 43.603 deg (hand
      * computed), so 46.397 deg of delay on a 90-degree line */
     double db, delay, el;
-    ck_assert_int_eq(cxl_transfer_lossless(z0, vf, l, f, 21.0, 20.0, &db, &delay, &el), CXL_OK);
+    ck_assert_int_eq(cxl_transfer_lossless(l, z0, vf, f, 21.0, 20.0, &db, &delay, &el), CXL_OK);
     ck_assert_double_eq_tol(delay, 46.397, 0.0005);
     ck_assert_double_eq_tol(el, 90.0, 1e-9);
     printf("quarter wave into 21+j20 ohm: delay %.4f deg, %.4f dB\n", delay, db);
     /* 100 ohm at the end of a 50 ohm quarter wave sees twice the input
      * voltage: 20 log10(2) = 6.0206 dB */
-    ck_assert_int_eq(cxl_transfer_lossless(z0, vf, l, f, 100.0, 0.0, &db, &delay, NULL), CXL_OK);
+    ck_assert_int_eq(cxl_transfer_lossless(l, z0, vf, f, 100.0, 0.0, &db, &delay, NULL), CXL_OK);
     ck_assert_double_eq_tol(db, 6.0206, 0.00005);
 }
 END_TEST
@@ -94,7 +94,7 @@ START_TEST(matched_load_is_electrical_length)
     const double degs[4] = { 0.0, 37.3, 359.0, 3690.0 };
     for (int i = 0; i < 4; i++) {
         double db, delay, el;
-        ck_assert_int_eq(cxl_transfer_lossless(50.0, vf, len_deg(degs[i], vf, f), f, 50.0, 0.0,
+        ck_assert_int_eq(cxl_transfer_lossless(len_deg(degs[i], vf, f), 50.0, vf, f, 50.0, 0.0,
                                                &db, &delay, &el), CXL_OK);
         ck_assert_double_eq_tol(delay, degs[i], 1e-7);
         ck_assert_double_eq_tol(el, degs[i], 1e-9);
@@ -113,7 +113,7 @@ START_TEST(matched_load_is_electrical_length)
         ck_assert_int_eq(cxl_loss_model_z0(m, fr[i], 0, &zr, &zi), CXL_OK);
         ck_assert_int_eq(cxl_loss_model_attenuation(m, fr[i], 0, &a_db), CXL_OK);
         ck_assert_int_eq(cxl_loss_model_gamma(m, fr[i], 0, &alpha, &beta), CXL_OK);
-        ck_assert_int_eq(cxl_transfer_model(m, fr[i], 0, len, zr, zi, &db, &delay, &el), CXL_OK);
+        ck_assert_int_eq(cxl_transfer_model(m, len, fr[i], 0, zr, zi, &db, &delay, &el), CXL_OK);
         ck_assert_double_eq_tol(db, -a_db * len, 1e-9 * a_db * len);
         ck_assert_double_eq_tol(el, beta * len * 180.0 / M_PI, 1e-9 * el);
         ck_assert_double_eq_tol(delay, el, 1e-7);
@@ -121,7 +121,7 @@ START_TEST(matched_load_is_electrical_length)
          * electrical length because Z0 is complex at the low bands, but by
          * no more than 2 asin|G|: arg(1 + z) <= asin|z| for |z| < 1, once
          * for (1 + G) and once for (1 + G e^{-2 gamma l}) (hand derived) */
-        ck_assert_int_eq(cxl_transfer_model(m, fr[i], 0, len, 75.0, 0.0, &db, &delay, &el), CXL_OK);
+        ck_assert_int_eq(cxl_transfer_model(m, len, fr[i], 0, 75.0, 0.0, &db, &delay, &el), CXL_OK);
         double g = hypot(75.0 - zr, -zi) / hypot(75.0 + zr, zi);
         printf("RG-6-CCS %.0f m at %.2f MHz into 75 ohm: %.3f dB, delay %.3f deg, "
                "electrical %.3f deg (Z0 %.2f%+.2fj, |G| %.4f)\n", len, fr[i] / 1e6, db, delay,
@@ -139,21 +139,21 @@ START_TEST(input_impedance_identities)
      * Zin = j Z0 tan(45 deg) = j Z0 (Pozar, 4th ed., sec. 2.3) */
     const double z0 = 75.0, beta = 0.1;
     double zr, zi;
-    ck_assert_int_eq(cxl_transfer_input_impedance(z0, 0.0, 0.0, beta, M_PI / beta, 21.0, 20.0,
+    ck_assert_int_eq(cxl_transfer_input_impedance(M_PI / beta, z0, 0.0, 0.0, beta, 21.0, 20.0,
                                                   &zr, &zi), CXL_OK);
     ck_assert_double_eq_tol(zr, 21.0, 1e-9);
     ck_assert_double_eq_tol(zi, 20.0, 1e-9);
-    ck_assert_int_eq(cxl_transfer_input_impedance(z0, 0.0, 0.0, beta, 3.0, 75.0, 0.0, &zr, &zi),
+    ck_assert_int_eq(cxl_transfer_input_impedance(3.0, z0, 0.0, 0.0, beta, 75.0, 0.0, &zr, &zi),
                      CXL_OK);
     ck_assert_double_eq_tol(zr, 75.0, 1e-12);
     ck_assert_double_eq_tol(zi, 0.0, 1e-12);
-    ck_assert_int_eq(cxl_transfer_input_impedance(z0, 0.0, 0.0, beta, M_PI / 4.0 / beta, 0.0,
+    ck_assert_int_eq(cxl_transfer_input_impedance(M_PI / 4.0 / beta, z0, 0.0, 0.0, beta, 0.0,
                                                   0.0, &zr, &zi), CXL_OK);
     ck_assert_double_eq_tol(zr, 0.0, 1e-9);
     ck_assert_double_eq_tol(zi, 75.0, 1e-9);
     /* lossy line, shorted: Zin = Z0 tanh(gamma l) (Pozar sec. 2.7) */
     const double alpha = 0.01, l = 7.0;
-    ck_assert_int_eq(cxl_transfer_input_impedance(z0, -2.0, alpha, beta, l, 0.0, 0.0, &zr, &zi),
+    ck_assert_int_eq(cxl_transfer_input_impedance(l, z0, -2.0, alpha, beta, 0.0, 0.0, &zr, &zi),
                      CXL_OK);
     gsl_complex want = gsl_complex_mul(gsl_complex_rect(z0, -2.0),
                                        gsl_complex_tanh(gsl_complex_rect(alpha * l, beta * l)));
@@ -213,29 +213,29 @@ START_TEST(bad_arguments)
     double a, b, c;
     const double beta = 0.1;
     /* a shorted load: no voltage, no phase */
-    ck_assert_int_eq(cxl_transfer_ratio(50.0, 0.0, 0.0, beta, 3.0, 0.0, 0.0, &a, &b), CXL_ERANGE);
+    ck_assert_int_eq(cxl_transfer_ratio(3.0, 50.0, 0.0, 0.0, beta, 0.0, 0.0, &a, &b), CXL_ERANGE);
     /* -j50 on an eighth wave of 50 ohm line is a short at the input:
      * Zin = Z0 (ZL + j Z0 tan 45)/(Z0 + j ZL tan 45) = 0 (Pozar sec. 2.3) */
-    ck_assert_int_eq(cxl_transfer_ratio(50.0, 0.0, 0.0, beta, M_PI / 4.0 / beta, 0.0, -50.0,
+    ck_assert_int_eq(cxl_transfer_ratio(M_PI / 4.0 / beta, 50.0, 0.0, 0.0, beta, 0.0, -50.0,
                                         &a, &b), CXL_ERANGE);
-    ck_assert_int_eq(cxl_transfer_ratio(50.0, 0.0, 0.0, beta, 3.0, -1.0, 0.0, &a, &b), CXL_EINVAL);
-    ck_assert_int_eq(cxl_transfer_ratio(0.0, 0.0, 0.0, beta, 3.0, 50.0, 0.0, &a, &b), CXL_EINVAL);
-    ck_assert_int_eq(cxl_transfer_ratio(50.0, 0.0, -0.1, beta, 3.0, 50.0, 0.0, &a, &b), CXL_EINVAL);
-    ck_assert_int_eq(cxl_transfer_ratio(50.0, 0.0, 0.0, 0.0, 3.0, 50.0, 0.0, &a, &b), CXL_EINVAL);
-    ck_assert_int_eq(cxl_transfer_ratio(50.0, 0.0, 0.0, beta, -3.0, 50.0, 0.0, &a, &b), CXL_EINVAL);
-    ck_assert_int_eq(cxl_transfer_ratio(50.0, 0.0, 0.0, beta, NAN, 50.0, 0.0, &a, &b), CXL_EINVAL);
-    ck_assert_int_eq(cxl_transfer_ratio(50.0, 0.0, 0.0, beta, 3.0, 50.0, INFINITY, &a, &b), CXL_EINVAL);
-    ck_assert_int_eq(cxl_transfer_ratio(50.0, 0.0, 0.0, beta, 3.0, 50.0, 0.0, NULL, &b), CXL_EINVAL);
-    ck_assert_int_eq(cxl_transfer_ratio(50.0, 0.0, 1.0, beta, 400.0, 50.0, 0.0, &a, &b), CXL_ERANGE);
+    ck_assert_int_eq(cxl_transfer_ratio(3.0, 50.0, 0.0, 0.0, beta, -1.0, 0.0, &a, &b), CXL_EINVAL);
+    ck_assert_int_eq(cxl_transfer_ratio(3.0, 0.0, 0.0, 0.0, beta, 50.0, 0.0, &a, &b), CXL_EINVAL);
+    ck_assert_int_eq(cxl_transfer_ratio(3.0, 50.0, 0.0, -0.1, beta, 50.0, 0.0, &a, &b), CXL_EINVAL);
+    ck_assert_int_eq(cxl_transfer_ratio(3.0, 50.0, 0.0, 0.0, 0.0, 50.0, 0.0, &a, &b), CXL_EINVAL);
+    ck_assert_int_eq(cxl_transfer_ratio(-3.0, 50.0, 0.0, 0.0, beta, 50.0, 0.0, &a, &b), CXL_EINVAL);
+    ck_assert_int_eq(cxl_transfer_ratio(NAN, 50.0, 0.0, 0.0, beta, 50.0, 0.0, &a, &b), CXL_EINVAL);
+    ck_assert_int_eq(cxl_transfer_ratio(3.0, 50.0, 0.0, 0.0, beta, 50.0, INFINITY, &a, &b), CXL_EINVAL);
+    ck_assert_int_eq(cxl_transfer_ratio(3.0, 50.0, 0.0, 0.0, beta, 50.0, 0.0, NULL, &b), CXL_EINVAL);
+    ck_assert_int_eq(cxl_transfer_ratio(400.0, 50.0, 0.0, 1.0, beta, 50.0, 0.0, &a, &b), CXL_ERANGE);
     ck_assert_int_eq(cxl_transfer_delay(0.0, 0.0, 0.0, &a, &b), CXL_ERANGE);
     ck_assert_int_eq(cxl_transfer_delay(1.0, NAN, 0.0, &a, &b), CXL_EINVAL);
-    ck_assert_int_eq(cxl_transfer_lossless(50.0, 1.2, 1.0, 1e6, 50.0, 0.0, &a, &b, &c), CXL_EINVAL);
-    ck_assert_int_eq(cxl_transfer_lossless(50.0, 0.66, 1.0, 0.0, 50.0, 0.0, &a, &b, &c), CXL_EINVAL);
-    ck_assert_int_eq(cxl_transfer_lossless(50.0, 0.66, 1.0, 1e6, 50.0, 0.0, &a, NULL, &c), CXL_EINVAL);
-    ck_assert_int_eq(cxl_transfer_model(NULL, 1e6, 0, 1.0, 50.0, 0.0, &a, &b, &c), CXL_EINVAL);
+    ck_assert_int_eq(cxl_transfer_lossless(1.0, 50.0, 1.2, 1e6, 50.0, 0.0, &a, &b, &c), CXL_EINVAL);
+    ck_assert_int_eq(cxl_transfer_lossless(1.0, 50.0, 0.66, 0.0, 50.0, 0.0, &a, &b, &c), CXL_EINVAL);
+    ck_assert_int_eq(cxl_transfer_lossless(1.0, 50.0, 0.66, 1e6, 50.0, 0.0, &a, NULL, &c), CXL_EINVAL);
+    ck_assert_int_eq(cxl_transfer_model(NULL, 1.0, 1e6, 0, 50.0, 0.0, &a, &b, &c), CXL_EINVAL);
     /* the outputs are untouched on failure */
     a = 12.5;
-    ck_assert_int_eq(cxl_transfer_lossless(-50.0, 0.66, 1.0, 1e6, 50.0, 0.0, &a, &b, &c), CXL_EINVAL);
+    ck_assert_int_eq(cxl_transfer_lossless(1.0, -50.0, 0.66, 1e6, 50.0, 0.0, &a, &b, &c), CXL_EINVAL);
     ck_assert_double_eq(a, 12.5);
 }
 END_TEST

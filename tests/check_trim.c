@@ -48,7 +48,7 @@ START_TEST(ideal_line_inverts_exactly)
         cxl_trim_action act;
         ck_assert_int_eq(cxl_trim_result_cut(r, &cut, &rem, &res, &act), CXL_OK);
         ck_assert_int_eq(cxl_trim_result_vf(r, &vf_fit, &vf_t, &ft), CXL_OK);
-        ck_assert_int_eq(cxl_line_length_from_degrees(135.0, 1.83e6, vf, &want), CXL_OK);
+        ck_assert_int_eq(cxl_line_length_from_degrees(135.0, vf, 1.83e6, &want), CXL_OK);
         ck_assert_double_eq_tol(vf_fit, vf, 1e-12);
         ck_assert_double_eq_tol(vf_t, vf, 1e-9);
         ck_assert_double_eq(ft, 1.83e6);
@@ -118,7 +118,7 @@ START_TEST(targets_and_actions)
     cxl_trim_result_free(r);
 
     /* longer than the piece: it needs lengthening */
-    ck_assert_int_eq(cxl_line_length_from_degrees(200.0, 1.83e6, vf, &want), CXL_OK);
+    ck_assert_int_eq(cxl_line_length_from_degrees(200.0, vf, 1.83e6, &want), CXL_OK);
     ck_assert(want > len);
     ck_assert_int_eq(cxl_trim_target_degrees(t, 200.0, 1.83e6), CXL_OK);
     ck_assert_int_eq(cxl_trim_set_resolution(t, 1e3), CXL_OK);

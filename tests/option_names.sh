@@ -2,7 +2,7 @@
 # option_names.sh - every option name a command file looks up is declared.
 #
 # For each cli/cmd_*.c, the preprocessed source (shared option groups such
-# as CLI_PAIR_OPTDEFS expanded) gives the names of its cli_optdef tables
+# as CLI_DUO_OPTDEFS expanded) gives the names of its cli_optdef tables
 # and the string literals passed to cli_get, cli_count, cli_flag and
 # cli_items.  A literal that no table of the file declares fails the test:
 # at run time such a look-up aborts (cli/common.c), and this finds it on

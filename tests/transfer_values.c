@@ -40,7 +40,7 @@ static int row(double f, double z0r, double z0i, double alpha, double beta, doub
 {
     double rr, ri, db, delay;
     double el = beta * len * 180.0 / M_PI;
-    cxl_status st = cxl_transfer_ratio(z0r, z0i, alpha, beta, len, zlr, zli, &rr, &ri);
+    cxl_status st = cxl_transfer_ratio(len, z0r, z0i, alpha, beta, zlr, zli, &rr, &ri);
     if (st == CXL_OK) st = cxl_transfer_delay(rr, ri, el, &db, &delay);
     if (st != CXL_OK) {
         fprintf(stderr, "transfer_values: %s\n", cxl_strerror(st));

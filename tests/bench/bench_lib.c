@@ -38,7 +38,7 @@ static void check(cxl_status st, const char *what)
 typedef struct fixture {
     cxl_loss_fit *fit;
     cxl_loss_model *model;
-    cxl_array_pair *pair;
+    cxl_duo *pair;
     cxl_array *arr2, *arr8, *arr8v, *arr64;
     cxl_array *arr4;           /* yield: two end-fire pairs fed by lines */
     cxl_yield *yield1, *yield_all, *yield_null;
@@ -84,7 +84,7 @@ BENCH_BODY(loss_fit, "fit eval",
            cxl_loss_fit_eval(fx->fit, 50e6 + WIGGLE(i) * 1e6, 0, &out))
 BENCH_BODY(loss_model, "model attenuation",
            cxl_loss_model_attenuation(fx->model, 1.83e6 + WIGGLE(i) * 1e5, 0, &out))
-BENCH_BODY(array_rdf, "rdf", cxl_array_rdf(fx->pair, 1.83e6 + WIGGLE(i) * 1e4, &out))
+BENCH_BODY(array_rdf, "rdf", cxl_duo_rdf(fx->pair, 1.83e6 + WIGGLE(i) * 1e4, &out))
 static cxl_status rdf_n(const cxl_array *a, long i, double *out)
 {
     double fwd;
@@ -97,17 +97,17 @@ BENCH_BODY(array_rdf64, "rdf 64", rdf_n(fx->arr64, i, &out))
 /* What `coaxline pattern` computes for one row of 3 band points (160 m's
  * low edge, centre, high edge) of one pair: forward gain, front-to-back,
  * rear null and RDF at each. */
-static cxl_status pattern_row(const cxl_array_pair *p, long i, double *out)
+static cxl_status pattern_row(const cxl_duo *p, long i, double *out)
 {
     static const double f_hz[3] = { 1.8e6, 1.9e6, 2.0e6 };
     cxl_status st = CXL_OK;
     *out = 0.0;
     for (int k = 0; k < 3 && st == CXL_OK; k++) {
         double f = f_hz[k] + WIGGLE(i) * 1e3, g, fb, az, nd, rdf;
-        st = cxl_array_forward_gain(p, f, 0.0, &g);
-        if (st == CXL_OK) st = cxl_array_front_to_back(p, f, 0.0, &fb);
-        if (st == CXL_OK) st = cxl_array_rear_null(p, f, 0.0, &az, &nd);
-        if (st == CXL_OK) st = cxl_array_rdf(p, f, &rdf);
+        st = cxl_duo_forward_gain(p, f, 0.0, &g);
+        if (st == CXL_OK) st = cxl_duo_front_to_back(p, f, 0.0, &fb);
+        if (st == CXL_OK) st = cxl_duo_rear_null(p, f, 0.0, &az, &nd);
+        if (st == CXL_OK) st = cxl_duo_rdf(p, f, &rdf);
         *out += g + fb + nd + rdf;
     }
     return st;
@@ -399,10 +399,10 @@ int main(int argc, char **argv)
      * axis, the front element delayed by the stagger's travel time: the
      * textbook cardioid (common practice, no source) */
     double lambda_m = CXL_C_M_PER_S / 1.83e6, delay_s;
-    check(cxl_array_pair_new(&fx.pair), "pair");
-    check(cxl_array_pair_set_geometry(fx.pair, 0.0, 0.25 * lambda_m), "geometry");
+    check(cxl_duo_new(&fx.pair), "pair");
+    check(cxl_duo_set_geometry(fx.pair, 0.0, 0.25 * lambda_m), "geometry");
     check(cxl_line_delay_from_offset(0.25 * lambda_m, &delay_s), "delay");
-    check(cxl_array_pair_set_delay(fx.pair, 0, delay_s), "set delay");
+    check(cxl_duo_set_delay(fx.pair, 0, delay_s), "set delay");
 
     /* N-element arrays at 1.83 MHz: the same end-fire pair; 8 elements as
      * four such pairs side by side, half a wavelength apart (isotropic,
@@ -454,7 +454,7 @@ int main(int argc, char **argv)
     measure("cxl_loss_fit_eval", "RG-213 table fit, 50 MHz", loss_fit, &fx);
     measure("cxl_loss_model_attenuation", "RG-213 geometry, 1.83 MHz", loss_model, &fx);
     measure("cxl_stub_fit (3 readings)", "new, 3 readings, fit, vf, free", stub_fit, &fx);
-    measure("cxl_array_rdf", "end-fire cardioid pair, 1.83 MHz", array_rdf, &fx);
+    measure("cxl_duo_rdf", "end-fire cardioid pair, 1.83 MHz", array_rdf, &fx);
     measure("pattern row (3 band points)", "gain, F/B, rear null, RDF of that pair (target 0.5 ms)",
             array_pattern_row, &fx);
     measure("cxl_array_eval_rdf (2 elements)", "the same pair as a cxl_array (target 0.3 ms)",
@@ -490,7 +490,7 @@ int main(int argc, char **argv)
     cpu_time("  CPU: fault profile", sweep_fault, &fx, cpu_calls);
     cpu_time("  CPU: whole-sweep fit", sweep_fit, &fx, cpu_calls);
 
-    cxl_array_pair_free(fx.pair);
+    cxl_duo_free(fx.pair);
     for (int a = 0; a < 4; a++) cxl_array_free(*arrs[a]);
     cxl_array_free(fx.arr4);
     for (int k = 0; k < 3; k++) cxl_yield_free(*ys[k]);

@@ -16,7 +16,7 @@
  * parsing real input.
  *
  * - "budget" (the closed-form --null-vs-inphase goal) and "hybrid": the
- *   arithmetic is the library's own calls (cxl_array_null_depth,
+ *   arithmetic is the library's own calls (cxl_duo_null_depth,
  *   cxl_budget_phase_for_null, cxl_budget_length_for_phase; the cxl_hybrid_
  *   functions), made in the same order as coaxline makes them, so the
  *   floor's time holds exactly the same numerics and the difference is the
@@ -305,9 +305,9 @@ static int budget_point(double goal, double imb, double vf, double f, double *fr
                         double *tol, double *len_m)
 {
     *len_m = NAN;
-    if (cxl_array_null_depth(0.0, imb, free_db) != CXL_OK) exit(2);
+    if (cxl_duo_null_depth(0.0, imb, free_db) != CXL_OK) exit(2);
     if (cxl_budget_phase_for_null(goal, imb, tol) != CXL_OK) return 1;
-    if (cxl_budget_length_for_phase(*tol, f, vf, len_m) != CXL_OK) *len_m = NAN;
+    if (cxl_budget_length_for_phase(*tol, vf, f, len_m) != CXL_OK) *len_m = NAN;
     return 0;
 }
 

@@ -1,4 +1,4 @@
-/* pairspec.c - the two-element receive pair that pattern and budget
+/* duospec.c - the two-element receive pair (the duo) that pattern and budget
  * describe: geometry, element type, the design feed (explicit delays or a
  * crossfire/end-fire feed worked out from the stagger), and the as-built
  * errors (measured lines, the spool's real VF, a fixed phase error, an
@@ -11,7 +11,7 @@
 static const char *const elem_name[2] = { "a", "b" };
 
 /* --line-X, --delay-X or --degrees-X for element k: at most one. */
-static int parse_manual_delay(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s, int k,
+static int parse_manual_delay(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s, int k,
                               double design_hz)
 {
     char line_opt[16], delay_opt[16], deg_opt[16];
@@ -50,7 +50,7 @@ static int parse_manual_delay(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s,
 
 /* The design feed from --feed: the element that must wait is the front
  * one (end-fire) or the rear one (crossfire). */
-static int parse_preset(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s, double design_hz)
+static int parse_preset(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s, double design_hz)
 {
     const char *feed = cli_get(a, "feed", 0);
     static const char *const manual[] = { "line-a", "line-b", "delay-a", "delay-b",
@@ -74,13 +74,13 @@ static int parse_preset(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s, doubl
         return cli_error(ctx, "feed", "crossfire or endfire", "unknown feed '%s'", feed);
     }
     /* the library's design feed, read back element by element */
-    cxl_array_pair *p = NULL;
-    cxl_status st = cxl_array_pair_new(&p);
-    if (st == CXL_OK) st = cxl_array_pair_set_geometry(p, s->spacing_m, s->stagger_m);
-    if (st == CXL_OK) st = cxl_array_pair_set_feed(p, kind, design_hz);
+    cxl_duo *p = NULL;
+    cxl_status st = cxl_duo_new(&p);
+    if (st == CXL_OK) st = cxl_duo_set_geometry(p, s->spacing_m, s->stagger_m);
+    if (st == CXL_OK) st = cxl_duo_set_feed(p, kind, design_hz);
     for (int k = 0; k < 2 && st == CXL_OK; k++)
-        st = cxl_array_pair_feed(p, k, &s->delay_s[k], &s->flip[k]);
-    cxl_array_pair_free(p);
+        st = cxl_duo_feed(p, k, &s->delay_s[k], &s->flip[k]);
+    cxl_duo_free(p);
     if (st != CXL_OK)
         return cli_error(ctx, "stagger", "smaller values", "the feed cannot be designed: %s",
                          cxl_strerror(st));
@@ -94,7 +94,7 @@ static int parse_preset(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s, doubl
     return 0;
 }
 
-static int parse_element(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
+static int parse_element(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
 {
     const char *el = cli_get(a, "element", 0);
     if (el && strcmp(el, "wire") == 0) s->wire = 1;
@@ -124,7 +124,7 @@ int cli_wire_parse(cli_ctx *ctx, const cli_args *a, int wire, const char *kind,
     return 0;
 }
 
-static int parse_as_built(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
+static int parse_as_built(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
 {
     s->actual_vf = s->vf;
     if (cli_count_if(a, "actual-vf")) {
@@ -191,7 +191,7 @@ static int parse_as_built(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
     return 0;
 }
 
-int cli_pair_spec_parse(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
+int cli_duo_spec_parse(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
 {
     memset(s, 0, sizeof *s);
     s->feed = "manual";
@@ -234,26 +234,26 @@ int cli_pair_spec_parse(cli_ctx *ctx, const cli_args *a, cli_pair_spec *s)
         if (inv) s->flip[inv[0] == 'a' || inv[0] == 'A' ? 0 : 1] = 1;
     }
     if (parse_as_built(ctx, a, s)) {
-        cli_pair_spec_free(s);
+        cli_duo_spec_free(s);
         return CLI_EXIT_USAGE;
     }
     return 0;
 }
 
-void cli_pair_spec_free(cli_pair_spec *s)
+void cli_duo_spec_free(cli_duo_spec *s)
 {
     cxl_loss_cable_free(s->loss);
     s->loss = NULL;
 }
 
-int cli_pair_spec_build(cli_ctx *ctx, const cli_pair_spec *s, int as_built, double freq_hz,
-                        cxl_array_pair **pair, double *phase_error_deg, double *imbalance_db)
+int cli_duo_spec_build(cli_ctx *ctx, const cli_duo_spec *s, int as_built, double freq_hz,
+                        cxl_duo **pair, double *phase_error_deg, double *imbalance_db)
 {
     const double *delay = as_built ? s->built_delay_s : s->delay_s;
     double phase = 0.0, imbalance = 0.0;
     if (as_built) {
         /* extra lag of B over A against the design, in degrees */
-        if (cxl_array_pair_built_phase(s->delay_s, delay, freq_hz, s->phase_error_deg,
+        if (cxl_duo_built_phase(s->delay_s, delay, s->phase_error_deg, freq_hz,
                                        &phase) != CXL_OK)
             return cli_error(ctx, "phase-error", "smaller values",
                              "the as-built phase error cannot be worked out");
@@ -273,18 +273,18 @@ int cli_pair_spec_build(cli_ctx *ctx, const cli_pair_spec *s, int as_built, doub
             imbalance += loss_db;
         }
     }
-    cxl_array_pair *p = NULL;
-    cxl_status st = cxl_array_pair_new(&p);
-    if (st == CXL_OK) st = cxl_array_pair_set_geometry(p, s->spacing_m, s->stagger_m);
+    cxl_duo *p = NULL;
+    cxl_status st = cxl_duo_new(&p);
+    if (st == CXL_OK) st = cxl_duo_set_geometry(p, s->spacing_m, s->stagger_m);
     for (int k = 0; k < 2 && st == CXL_OK; k++) {
-        st = cxl_array_pair_set_delay(p, k, delay[k]);
-        if (st == CXL_OK) st = cxl_array_pair_set_flip(p, k, s->flip[k]);
+        st = cxl_duo_set_delay(p, k, delay[k]);
+        if (st == CXL_OK) st = cxl_duo_set_flip(p, k, s->flip[k]);
     }
-    if (st == CXL_OK) st = cxl_array_pair_set_phase_offset(p, 1, -s->phase_error_deg * as_built);
-    if (st == CXL_OK) st = cxl_array_pair_set_imbalance(p, imbalance);
-    if (st == CXL_OK && s->wire) st = cxl_array_pair_set_long_wire(p, s->wire_length_m, s->wire_vf);
+    if (st == CXL_OK) st = cxl_duo_set_phase_offset(p, 1, -s->phase_error_deg * as_built);
+    if (st == CXL_OK) st = cxl_duo_set_imbalance(p, imbalance);
+    if (st == CXL_OK && s->wire) st = cxl_duo_set_long_wire(p, s->wire_length_m, s->wire_vf);
     if (st != CXL_OK) {
-        cxl_array_pair_free(p);
+        cxl_duo_free(p);
         return cli_error(ctx, as_built ? "imbalance" : "spacing", "smaller values",
                          "the pair cannot be modelled: %s", cxl_strerror(st));
     }

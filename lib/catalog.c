@@ -1,4 +1,4 @@
-/* cable.c - the cable catalog: built-in rows parsed at run time from the
+/* catalog.c - the cable catalog: built-in rows parsed at run time from the
  * compiled-in data/cables.csv and data/cable_loss.csv, plus user rows read
  * from files of the same formats by the same code.
  *
@@ -595,11 +595,9 @@ cxl_status cxl_catalog_load_loss(cxl_catalog *catalog, FILE *stream,
                        error_size, 0);
 }
 
-cxl_status cxl_catalog_count(const cxl_catalog *catalog, size_t *count)
+size_t cxl_catalog_count(const cxl_catalog *catalog)
 {
-    if (!catalog || !count) return CXL_EINVAL;
-    *count = catalog->n;
-    return CXL_OK;
+    return catalog ? catalog->n : 0;
 }
 
 cxl_status cxl_catalog_find(const cxl_catalog *catalog, const char *name,
@@ -677,14 +675,12 @@ cxl_status cxl_catalog_value(const cxl_catalog *catalog, size_t index,
     return CXL_OK;
 }
 
-cxl_status cxl_catalog_loss_count(const cxl_catalog *catalog, size_t index,
-                                  size_t *count)
+size_t cxl_catalog_loss_count(const cxl_catalog *catalog, size_t index)
 {
+    size_t count = 0;
     const struct cable *c;
-    cxl_status st = row_at(catalog, index, count, &c);
-    if (st != CXL_OK) return st;
-    *count = c->npoints;
-    return CXL_OK;
+    if (row_at(catalog, index, &count, &c) != CXL_OK) return 0;
+    return c->npoints;
 }
 
 cxl_status cxl_catalog_loss_point(const cxl_catalog *catalog, size_t index,
