@@ -55,8 +55,7 @@ static cli_cable_cache *cache_for(cli_cable_cache **cache, const cxl_catalog *ca
 {
     cli_cable_cache *c = *cache;
     if (!c) {
-        size_t n = 0;
-        cxl_catalog_count(cat, &n);
+        size_t n = cxl_catalog_count(cat);
         c = calloc(1, sizeof *c);
         if (!c) return NULL;
         c->n = n;
