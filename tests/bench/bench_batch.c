@@ -679,6 +679,9 @@ static void bench_row_paths(void)
                per_row > 0.0 ? 1.0 / per_row : 0.0, allocs);
         unlink(big);
         unlink(small);
+    }
+}
+
 /* ---- --jobs 2 -------------------------------------------------------- */
 
 /* phase on cfg.rows generated rows with --jobs 1 and --jobs 2, in
