@@ -24,7 +24,7 @@ const cli_optdef cli_common_opts[] = {
 };
 
 /* Common options only a command that takes --input shows. */
-static int batch_only(const char *name)
+int cli_batch_only(const char *name)
 {
     return strcmp(name, "input") == 0 || strcmp(name, "jobs") == 0;
 }
@@ -36,7 +36,7 @@ void cli_print_command_help(const cli_command *cmd, FILE *fp)
     for (int pass = 0; pass < 2; pass++) {
         const cli_optdef *o = pass ? cli_common_opts : cmd->opts;
         for (; o->name; o++) {
-            if (pass && !cmd->batch && batch_only(o->name)) continue;
+            if (pass && !cmd->batch && cli_batch_only(o->name)) continue;
             char left[64];
             snprintf(left, sizeof left, "--%s%s%s", o->name, o->arg ? " " : "",
                      o->arg ? o->arg : "");
@@ -547,7 +547,7 @@ static int unknown_option(const cli_ctx *ctx, const char *arg, const char *name,
     size_t best_d = (size_t)-1;
     for (int pass = 0; pass < 2; pass++)
         for (const cli_optdef *o = pass ? cli_common_opts : cmd->opts; o->name; o++) {
-            if (pass && !cmd->batch && batch_only(o->name)) continue;
+            if (pass && !cmd->batch && cli_batch_only(o->name)) continue;
             size_t d = edit_distance(name, len, o->name);
             /* a typed beginning of a longer name is near it */
             if (len > 0 && strncmp(o->name, name, len) == 0 && d > 1) d = 1;

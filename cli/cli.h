@@ -352,6 +352,8 @@ int cli_batch_run_rows(cli_batch *b, cli_ctx *ctx, cli_args *args);
  * as cli_batch_run_rows() writes them (jobs.c); the exit status. */
 int cli_jobs_run(cli_batch *b, cli_ctx *ctx, cli_args *args);
 void cli_print_command_help(const cli_command *cmd, FILE *fp);
+/* Non-zero for a common option only commands with batches take (--input, --jobs). */
+int cli_batch_only(const char *name);
 /* The options every command takes besides its own (batch.c). */
 extern const cli_optdef cli_common_opts[];
 

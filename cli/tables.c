@@ -101,7 +101,7 @@ static void put_option_names(FILE *fp, const cli_command *cmd)
 {
     for (const cli_optdef *o = cmd->opts; o->name; o++) fprintf(fp, " --%s", o->name);
     for (const cli_optdef *o = cli_common_opts; o->name; o++)
-        if (cmd->batch || strcmp(o->name, "input") != 0) fprintf(fp, " --%s", o->name);
+        if (cmd->batch || !cli_batch_only(o->name)) fprintf(fp, " --%s", o->name);
 }
 
 static void completion(FILE *fp, const cli_command *const *cmds, size_t ncmds,
@@ -126,7 +126,7 @@ static void completion(FILE *fp, const cli_command *const *cmds, size_t ncmds,
         fprintf(fp, "    %s)\n        case \"$prev\" in\n", cmds[c]->name);
         for (const cli_optdef *o = cmds[c]->opts; o->name; o++) put_values(fp, o, bands, cat);
         for (const cli_optdef *o = cli_common_opts; o->name; o++)
-            if (cmds[c]->batch || strcmp(o->name, "input") != 0) put_values(fp, o, bands, cat);
+            if (cmds[c]->batch || !cli_batch_only(o->name)) put_values(fp, o, bands, cat);
         fputs("        esac\n        _coaxline_words '", fp);
         put_option_names(fp, cmds[c]);
         fputs("'\n        ;;\n", fp);
