@@ -148,11 +148,7 @@ cxl_status cxl_stub_new(cxl_stub_end end, cxl_stub **stub)
     if (!stub || !valid_end(end)) return CXL_EINVAL;
     cxl_stub *s = calloc(1, sizeof *s);
     if (!s) return CXL_ENOMEM;
-    s->end = end;
-    s->vf_min = DEFAULT_VF_MIN;
-    s->vf_max = DEFAULT_VF_MAX;
-    s->consistency = DEFAULT_CONSISTENCY;
-    s->rule = CXL_STUB_ORDERS_CONSECUTIVE;
+    cxl_stub_reset(s, end); /* the defaults, in one place */
     *stub = s;
     return CXL_OK;
 }

@@ -78,10 +78,7 @@ cxl_status cxl_trim_new(cxl_stub_end end, double length_m, cxl_trim **trim)
         return CXL_EINVAL;
     cxl_trim *t = calloc(1, sizeof *t);
     if (!t) return CXL_ENOMEM;
-    t->end = end;
-    t->length_m = length_m;
-    t->kind = CXL_DIP_ZERO_X;
-    t->ref_ohm = 50.0;
+    cxl_trim_reset(t, end, length_m); /* the defaults, in one place */
     *trim = t;
     return CXL_OK;
 }
