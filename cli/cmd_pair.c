@@ -413,6 +413,8 @@ static int pair_run(cli_ctx *ctx, const cli_args *a)
     if (cli_line_freq_items(ctx, a)) return CLI_EXIT_USAGE;
     int np = cli_freq_points(ctx, a, pts, MAX_POINTS, NULL);
     s.has_goal = 0;
+    /* a tolerance refused before the load is read must not free stack garbage */
+    memset(&s.load, 0, sizeof s.load);
     if (np < 0) return CLI_EXIT_USAGE;
     int code = resolve_tolerance(ctx, a, &s, pts, np), failed = 0;
     if (!code) code = cli_load_parse(ctx, a, s.vf, &s.load);
