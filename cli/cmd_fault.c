@@ -78,70 +78,92 @@ static int plot(const cli_ctx *ctx, const cli_args *a, const cxl_fault *f)
     return rc;
 }
 
-static int fault_run(cli_ctx *ctx, const cli_args *a)
+/* What the options ask of the transform. */
+typedef struct {
+    double vf, ref, beta, loss_100m;
+    const char *cable;
+    cxl_fault_window window;
+} fault_setup;
+
+/* What the output rows and the text share: the setup, the sweep and the
+ * transform's grid. */
+typedef struct {
+    const fault_setup *set;
+    const char *path, *label, *mode;
+    int lowpass;
+    double start, stop, res, range, step;
+} fault_view;
+
+/* --window and --beta: only the Kaiser window takes a beta. */
+static int parse_window(cli_ctx *ctx, const cli_args *a, fault_setup *set)
 {
-    double vf = 0.0, ref = 0.0, beta = 6.0, loss_100m = 0.0;
-    const char *cable = "";
-    if (cli_vf_or_cable(ctx, a, &vf, &cable)) return CLI_EXIT_USAGE;
-    if (cli_count(a, "reference") &&
-        cli_bounded(ctx, "reference", cli_get(a, "reference", 0), CLI_BOUND_IMPEDANCE,
-                   "a reference impedance in ohm, such as 50", &ref))
-        return CLI_EXIT_USAGE;
-    cxl_fault_window window = CXL_FAULT_HANN;
     const char *w = cli_get(a, "window", 0);
     if (w) {
-        if (strcmp(w, "none") == 0) window = CXL_FAULT_RECT;
-        else if (strcmp(w, "hann") == 0) window = CXL_FAULT_HANN;
-        else if (strcmp(w, "kaiser") == 0) window = CXL_FAULT_KAISER;
+        if (strcmp(w, "none") == 0) set->window = CXL_FAULT_RECT;
+        else if (strcmp(w, "hann") == 0) set->window = CXL_FAULT_HANN;
+        else if (strcmp(w, "kaiser") == 0) set->window = CXL_FAULT_KAISER;
         else return cli_error(ctx, "window", "none, hann or kaiser", "unknown window '%s'", w);
     }
-    if (cli_count(a, "beta")) {
-        if (window != CXL_FAULT_KAISER)
-            return cli_error(ctx, "beta", "--window kaiser --beta 6", "only the Kaiser window has a beta");
-        if (cli_number(ctx, "beta", cli_get(a, "beta", 0), 0.0, CXL_FAULT_MAX_BETA,
-                       "a Kaiser beta from 0 to 50, such as 6", &beta))
-            return CLI_EXIT_USAGE;
-    }
+    if (!cli_count(a, "beta")) return CLI_EXIT_OK;
+    if (set->window != CXL_FAULT_KAISER)
+        return cli_error(ctx, "beta", "--window kaiser --beta 6", "only the Kaiser window has a beta");
+    if (cli_number(ctx, "beta", cli_get(a, "beta", 0), 0.0, CXL_FAULT_MAX_BETA,
+                   "a Kaiser beta from 0 to 50, such as 6", &set->beta))
+        return CLI_EXIT_USAGE;
+    return CLI_EXIT_OK;
+}
+
+/* --loss and --compensate: one source of the loss, not both. */
+static int parse_loss(cli_ctx *ctx, const cli_args *a, fault_setup *set)
+{
     if (cli_count(a, "loss") && cli_flag(a, "compensate"))
         return cli_error(ctx, "loss", "--loss 5 or --cable NAME --compensate, not both",
                          "both --loss and --compensate are given");
     if (cli_count(a, "loss") &&
         cli_number(ctx, "loss", cli_get(a, "loss", 0), 0.0, 1e4,
-                   "a matched loss in dB per 100 m, such as 4.5", &loss_100m))
+                   "a matched loss in dB per 100 m, such as 4.5", &set->loss_100m))
         return CLI_EXIT_USAGE;
-    if (cli_flag(a, "compensate") && !cable[0])
+    if (cli_flag(a, "compensate") && !set->cable[0])
         return cli_error(ctx, "compensate", "--cable RG-213 --compensate",
                          "the loss to compensate comes from a --cable");
+    return CLI_EXIT_OK;
+}
 
-    cxl_sweep *s = NULL;
-    const char *path;
-    if (cli_sweep_load(ctx, a, &s, &path)) return CLI_EXIT_USAGE;
-    double start, stop, file_ref;
-    cxl_sweep_info(s, &start, &stop, &file_ref, NULL, NULL);
-    if (ref == 0.0) ref = file_ref;
-    int code = CLI_EXIT_OK;
-    if (cli_flag(a, "compensate")) {
-        size_t idx;
-        cxl_loss_fit *fit = NULL;
-        double per_m;
-        if (cli_cable_index(ctx, cable, &idx)) {
-            cxl_sweep_free(s);
-            return CLI_EXIT_USAGE;
-        }
-        fit = cli_cable_fit(cli_catalog(ctx), idx);
-        if (!fit || cxl_loss_fit_eval(fit, 0.5 * (start + stop), CXL_LOSS_EXTRAPOLATE, &per_m)) {
-            cxl_loss_fit_free(fit);
-            cxl_sweep_free(s);
-            return cli_error(ctx, "compensate", "a cable with loss points, or --loss",
-                             "cable %s has no loss table", cable);
-        }
-        cxl_loss_fit_free(fit);
-        loss_100m = per_m * 100.0;
-    }
-    cxl_fault *f = NULL;
+static int parse_setup(cli_ctx *ctx, const cli_args *a, fault_setup *set)
+{
+    *set = (fault_setup){ .beta = 6.0, .cable = "", .window = CXL_FAULT_HANN };
+    if (cli_vf_or_cable(ctx, a, &set->vf, &set->cable)) return CLI_EXIT_USAGE;
+    if (cli_count(a, "reference") &&
+        cli_bounded(ctx, "reference", cli_get(a, "reference", 0), CLI_BOUND_IMPEDANCE,
+                   "a reference impedance in ohm, such as 50", &set->ref))
+        return CLI_EXIT_USAGE;
+    if (parse_window(ctx, a, set)) return CLI_EXIT_USAGE;
+    return parse_loss(ctx, a, set);
+}
+
+/* --compensate: the catalog cable's loss at mid-band of the sweep. */
+static int cable_loss(cli_ctx *ctx, fault_setup *set, double start, double stop)
+{
+    size_t idx;
+    double per_m;
+    if (cli_cable_index(ctx, set->cable, &idx)) return CLI_EXIT_USAGE;
+    cxl_loss_fit *fit = cli_cable_fit(cli_catalog(ctx), idx);
+    int bad = !fit || cxl_loss_fit_eval(fit, 0.5 * (start + stop), CXL_LOSS_EXTRAPOLATE, &per_m);
+    cxl_loss_fit_free(fit);
+    if (bad)
+        return cli_error(ctx, "compensate", "a cable with loss points, or --loss",
+                         "cable %s has no loss table", set->cable);
+    set->loss_100m = per_m * 100.0;
+    return CLI_EXIT_OK;
+}
+
+/* The transform of the sweep, its refusals said in terms of the file. */
+static int transform(cli_ctx *ctx, const cli_args *a, const fault_setup *set,
+                     const cxl_sweep *s, const char *path, cxl_fault **f)
+{
     unsigned flags = cli_flag(a, "bandpass") ? CXL_FAULT_BANDPASS : 0u;
-    cxl_status st = cxl_fault_new(s, ref, vf, NULL, window, beta, loss_100m / 100.0, flags, &f);
-    cxl_sweep_free(s);
+    cxl_status st = cxl_fault_new(s, set->ref, set->vf, NULL, set->window, set->beta,
+                                  set->loss_100m / 100.0, flags, f);
     if (st == CXL_ENOTFOUND)
         return cli_error(ctx, "file", "a sweep with phase (S, Z or Y; not an swr column)",
                          "%s holds no phase", path);
@@ -151,76 +173,111 @@ static int fault_run(cli_ctx *ctx, const cli_args *a)
     if (st != CXL_OK)
         return cli_error(ctx, "file", "a sweep of two or more evenly spaced points",
                          "%s: %s", path, cxl_strerror(st));
-    int lowpass;
-    double res, range, step;
-    cxl_fault_info(f, &lowpass, NULL, &res, &range, &step);
-    if (cli_count(a, "plot")) code = plot(ctx, a, f);
-    if (code != CLI_EXIT_OK) goto done;
+    return CLI_EXIT_OK;
+}
 
-    const char *label = cli_label(a), *mode = lowpass ? "low-pass" : "band-pass";
-    size_t np = cxl_fault_peak_count(f);
-    FILE *o = ctx->out;
-    char b1[64], b2[64], b3[64], b4[64];
-    if (ctx->format != CLI_TEXT) {
-        for (int pass = 0; pass < 2; pass++) {
-            size_t n = pass ? (cli_flag(a, "profile") ? cxl_fault_count(f) : 0) : np;
-            for (size_t i = 0; i < n; i++) {
-                double d, refl, rl = NAN, sr = 0.0, stp = 0.0;
-                int change = 0;
-                if (pass) cxl_fault_point(f, i, &d, &refl, &sr, &stp);
-                else cxl_fault_peak(f, i, &d, &refl, &rl, &change);
-                if (pass && refl > 0.0) rl = -20.0 * log10(refl);
-                cli_cell cells[NCOLS] = {
-                    CLI_TXT(label), CLI_TXT(path), CLI_TXT(mode), CLI_NUM(vf), CLI_NUM(res),
-                    CLI_NUM(range), CLI_TXT(pass ? "profile" : "peak"), CLI_NUM(d),
-                    CLI_NUM(d / M_PER_FT), CLI_NUM(pass && lowpass ? sr : refl),
-                    isfinite(rl) ? CLI_NUM(rl) : CLI_NONE, CLI_TXT(change_name(change)),
-                    pass && lowpass ? CLI_NUM(stp) : CLI_NONE,
-                };
-                cli_table_row(ctx, fault_cols, NCOLS, cells);
-            }
+/* Table, CSV or JSON: the peaks, then with --profile every point. */
+static void print_rows(cli_ctx *ctx, const cli_args *a, const cxl_fault *f, const fault_view *v)
+{
+    for (int pass = 0; pass < 2; pass++) {
+        size_t n = pass ? (cli_flag(a, "profile") ? cxl_fault_count(f) : 0)
+                        : cxl_fault_peak_count(f);
+        for (size_t i = 0; i < n; i++) {
+            double d, refl, rl = NAN, sr = 0.0, stp = 0.0;
+            int change = 0;
+            if (pass) cxl_fault_point(f, i, &d, &refl, &sr, &stp);
+            else cxl_fault_peak(f, i, &d, &refl, &rl, &change);
+            if (pass && refl > 0.0) rl = -20.0 * log10(refl);
+            int signed_step = pass && v->lowpass;
+            cli_cell cells[NCOLS] = {
+                CLI_TXT(v->label), CLI_TXT(v->path), CLI_TXT(v->mode), CLI_NUM(v->set->vf),
+                CLI_NUM(v->res), CLI_NUM(v->range), CLI_TXT(pass ? "profile" : "peak"),
+                CLI_NUM(d), CLI_NUM(d / M_PER_FT), CLI_NUM(signed_step ? sr : refl),
+                isfinite(rl) ? CLI_NUM(rl) : CLI_NONE, CLI_TXT(change_name(change)),
+                signed_step ? CLI_NUM(stp) : CLI_NONE,
+            };
+            cli_table_row(ctx, fault_cols, NCOLS, cells);
         }
-        goto done;
     }
+}
+
+/* Text: the head lines saying how the transform was made. */
+static void print_head(cli_ctx *ctx, const fault_view *v)
+{
+    const fault_setup *set = v->set;
+    FILE *o = ctx->out;
+    char b1[64], b2[64], b3[64];
     if (ctx->rows_out++) putc('\n', o);
-    fprintf(o, "fault: %s%s%s\n", path, label[0] ? ", " : "", label);
-    fprintf(o, "  mode        %s (%s to %s MHz in %s kHz steps)\n", mode,
-            cli_fmt(b1, sizeof b1, start / 1e6, 6), cli_fmt(b2, sizeof b2, stop / 1e6, 6),
-            cli_fmt(b3, sizeof b3, step / 1e3, 3));
-    fprintf(o, "  VF          %s%s%s\n", cli_fmt(b1, sizeof b1, vf, 5), cable[0] ? ", cable " : "",
-            cable);
+    fprintf(o, "fault: %s%s%s\n", v->path, v->label[0] ? ", " : "", v->label);
+    fprintf(o, "  mode        %s (%s to %s MHz in %s kHz steps)\n", v->mode,
+            cli_fmt(b1, sizeof b1, v->start / 1e6, 6), cli_fmt(b2, sizeof b2, v->stop / 1e6, 6),
+            cli_fmt(b3, sizeof b3, v->step / 1e3, 3));
+    fprintf(o, "  VF          %s%s%s\n", cli_fmt(b1, sizeof b1, set->vf, 5),
+            set->cable[0] ? ", cable " : "", set->cable);
     fprintf(o, "  resolution  %s (VF c / 2 span; the window widens peaks)\n",
-            cli_fmt_length(ctx, b1, sizeof b1, res));
+            cli_fmt_length(ctx, b1, sizeof b1, v->res));
     fprintf(o, "  range       %s (VF c / 2 step; a longer line folds back)\n",
-            cli_fmt_length(ctx, b1, sizeof b1, range));
+            cli_fmt_length(ctx, b1, sizeof b1, v->range));
     fprintf(o, "  window      %s%s%s, loss compensated %s dB/100 m\n",
-            window == CXL_FAULT_RECT ? "none" : window == CXL_FAULT_HANN ? "hann" : "kaiser, beta ",
-            window == CXL_FAULT_KAISER ? cli_fmt(b2, sizeof b2, beta, 2) : "", "",
-            cli_fmt(b3, sizeof b3, loss_100m, 3));
+            set->window == CXL_FAULT_RECT ? "none"
+            : set->window == CXL_FAULT_HANN ? "hann" : "kaiser, beta ",
+            set->window == CXL_FAULT_KAISER ? cli_fmt(b2, sizeof b2, set->beta, 2) : "", "",
+            cli_fmt(b3, sizeof b3, set->loss_100m, 3));
+}
+
+/* Text: the peaks, then with --profile every point. */
+static void print_text(cli_ctx *ctx, const cli_args *a, const cxl_fault *f, const fault_view *v)
+{
+    FILE *o = ctx->out;
+    char b1[64], b2[64], b3[64];
+    size_t np = cxl_fault_peak_count(f);
+    print_head(ctx, v);
     fprintf(o, "\n  %-36s %10s %14s  %s\n", "distance", "reflection", "return loss dB",
-            lowpass ? "impedance beyond" : "");
+            v->lowpass ? "impedance beyond" : "");
     for (size_t i = 0; i < np; i++) {
         double d, refl, rl;
         int change;
         cxl_fault_peak(f, i, &d, &refl, &rl, &change);
         fprintf(o, "  %-36s %10s %14s  %s\n", cli_fmt_length(ctx, b1, sizeof b1, d),
-                cli_fmt(b2, sizeof b2, refl, 4), cli_fmt(b4, sizeof b4, rl, 2),
+                cli_fmt(b2, sizeof b2, refl, 4), cli_fmt(b3, sizeof b3, rl, 2),
                 change ? change_name(change) : "");
     }
     if (!np) fprintf(o, "  (no peak above -60 dB)\n");
-    if (cli_flag(a, "profile")) {
-        fprintf(o, "\n  profile: distance m, reflection%s\n", lowpass ? " (signed), step" : "");
-        for (size_t i = 0; i < cxl_fault_count(f); i++) {
-            double d, refl, sr, stp;
-            cxl_fault_point(f, i, &d, &refl, &sr, &stp);
-            if (lowpass)
-                fprintf(o, "  %s %s %s\n", cli_fmt(b1, sizeof b1, d, 4),
-                        cli_fmt(b2, sizeof b2, sr, 6), cli_fmt(b3, sizeof b3, stp, 6));
-            else
-                fprintf(o, "  %s %s\n", cli_fmt(b1, sizeof b1, d, 4), cli_fmt(b2, sizeof b2, refl, 6));
-        }
+    if (!cli_flag(a, "profile")) return;
+    fprintf(o, "\n  profile: distance m, reflection%s\n", v->lowpass ? " (signed), step" : "");
+    for (size_t i = 0; i < cxl_fault_count(f); i++) {
+        double d, refl, sr, stp;
+        cxl_fault_point(f, i, &d, &refl, &sr, &stp);
+        if (v->lowpass)
+            fprintf(o, "  %s %s %s\n", cli_fmt(b1, sizeof b1, d, 4),
+                    cli_fmt(b2, sizeof b2, sr, 6), cli_fmt(b3, sizeof b3, stp, 6));
+        else
+            fprintf(o, "  %s %s\n", cli_fmt(b1, sizeof b1, d, 4), cli_fmt(b2, sizeof b2, refl, 6));
     }
-done:
+}
+
+static int fault_run(cli_ctx *ctx, const cli_args *a)
+{
+    fault_setup set;
+    if (parse_setup(ctx, a, &set)) return CLI_EXIT_USAGE;
+    cxl_sweep *s = NULL;
+    fault_view v = { .set = &set, .label = cli_label(a) };
+    if (cli_sweep_load(ctx, a, &s, &v.path)) return CLI_EXIT_USAGE;
+    double file_ref;
+    cxl_sweep_info(s, &v.start, &v.stop, &file_ref, NULL, NULL);
+    if (set.ref == 0.0) set.ref = file_ref;
+    cxl_fault *f = NULL;
+    int code = cli_flag(a, "compensate") ? cable_loss(ctx, &set, v.start, v.stop) : CLI_EXIT_OK;
+    if (code == CLI_EXIT_OK) code = transform(ctx, a, &set, s, v.path, &f);
+    cxl_sweep_free(s);
+    if (code != CLI_EXIT_OK) return code;
+    cxl_fault_info(f, &v.lowpass, NULL, &v.res, &v.range, &v.step);
+    v.mode = v.lowpass ? "low-pass" : "band-pass";
+    if (cli_count(a, "plot")) code = plot(ctx, a, f);
+    if (code == CLI_EXIT_OK) {
+        if (ctx->format != CLI_TEXT) print_rows(ctx, a, f, &v);
+        else print_text(ctx, a, f, &v);
+    }
     cxl_fault_free(f);
     return code;
 }

@@ -131,15 +131,10 @@ static int read_readings(cli_ctx *ctx, const cli_args *a, trim_in *in)
     return 0;
 }
 
-static int read_piece(cli_ctx *ctx, const cli_args *a, trim_in *in)
+/* --fixture, --fixture-vf and --fixture-tol. */
+static int read_fixture(cli_ctx *ctx, const cli_args *a, trim_in *in)
 {
     const char *t;
-    memset(in, 0, sizeof *in);
-    if (!(t = cli_get(a, "length", 0)))
-        return cli_error(ctx, "length", "--length 30m, the piece's length now", "the piece's length is needed");
-    if (cli_length(ctx, "length", t, CLI_POSITIVE, &in->length_m)) return CLI_EXIT_USAGE;
-    in->end = CXL_STUB_OPEN;
-    if ((t = cli_get(a, "end", 0)) && parse_end(ctx, "end", t, &in->end)) return CLI_EXIT_USAGE;
     if ((t = cli_get(a, "fixture", 0)) &&
         cli_length(ctx, "fixture", t, CLI_NONNEG, &in->fixture_m))
         return CLI_EXIT_USAGE;
@@ -152,15 +147,86 @@ static int read_piece(cli_ctx *ctx, const cli_args *a, trim_in *in)
     if ((t = cli_get(a, "fixture-tol", 0)) &&
         cli_length(ctx, "fixture-tol", t, CLI_NONNEG, &in->fixture_tol_m))
         return CLI_EXIT_USAGE;
-    if ((t = cli_get(a, "resolution", 0))) {
-        static const char expected[] = "a frequency step such as 1kHz or 100Hz, or 0";
-        size_t pos = 0;
-        if (cxl_units_parse_freq(t, &in->res_hz, &pos) != CXL_OK || !(in->res_hz >= 0.0))
-            return cli_error(ctx, "resolution", expected, "'%s' is not a frequency step", t);
-        if (in->res_hz > CLI_MAX_FREQ_HZ)
-            return cli_error(ctx, "resolution", expected, "'%s' is above 1 THz", t);
-    }
+    return 0;
+}
+
+/* --resolution: a step of 0 is allowed (an exact analyzer). */
+static int read_resolution(cli_ctx *ctx, const char *t, double *res_hz)
+{
+    static const char expected[] = "a frequency step such as 1kHz or 100Hz, or 0";
+    size_t pos = 0;
+    if (cxl_units_parse_freq(t, res_hz, &pos) != CXL_OK || !(*res_hz >= 0.0))
+        return cli_error(ctx, "resolution", expected, "'%s' is not a frequency step", t);
+    if (*res_hz > CLI_MAX_FREQ_HZ)
+        return cli_error(ctx, "resolution", expected, "'%s' is above 1 THz", t);
+    return 0;
+}
+
+static int read_piece(cli_ctx *ctx, const cli_args *a, trim_in *in)
+{
+    const char *t;
+    memset(in, 0, sizeof *in);
+    if (!(t = cli_get(a, "length", 0)))
+        return cli_error(ctx, "length", "--length 30m, the piece's length now", "the piece's length is needed");
+    if (cli_length(ctx, "length", t, CLI_POSITIVE, &in->length_m)) return CLI_EXIT_USAGE;
+    in->end = CXL_STUB_OPEN;
+    if ((t = cli_get(a, "end", 0)) && parse_end(ctx, "end", t, &in->end)) return CLI_EXIT_USAGE;
+    if (read_fixture(ctx, a, in)) return CLI_EXIT_USAGE;
+    if ((t = cli_get(a, "resolution", 0)) && read_resolution(ctx, t, &in->res_hz))
+        return CLI_EXIT_USAGE;
     return read_readings(ctx, a, in);
+}
+
+/* --degrees DEG at --freq F. */
+static int target_degrees(cli_ctx *ctx, const char *deg, const char *ft, double f,
+                          cxl_trim *trim, char *what, size_t size)
+{
+    static const char expected[] = "electrical degrees above 0, such as 90";
+    double v;
+    char b1[64], b2[64];
+    if (cli_number(ctx, "degrees", deg, 0.0, 1e6, expected, &v)) return CLI_EXIT_USAGE;
+    if (!(v > 0.0))
+        return cli_error(ctx, "degrees", expected, "'%s' must be greater than zero", deg);
+    if (!ft)
+        return cli_error(ctx, "freq", "--degrees 90 --freq 1.83MHz",
+                         "--degrees needs the frequency it holds at");
+    cxl_trim_target_degrees(trim, v, f);
+    snprintf(what, size, "%s deg at %s MHz", cli_fmt(b1, sizeof b1, v, 3),
+             cli_fmt(b2, sizeof b2, f / 1e6, 6));
+    return 0;
+}
+
+/* --delay TIME, at --freq F when given. */
+static int target_delay(cli_ctx *ctx, const char *dl, const char *ft, double f,
+                        cxl_trim *trim, char *what, size_t size)
+{
+    double v;
+    char b1[64], b2[64];
+    if (cli_time(ctx, "delay", dl, CLI_POSITIVE, &v)) return CLI_EXIT_USAGE;
+    cxl_trim_target_delay(trim, v, f);
+    snprintf(what, size, "%s ns%s%s%s", cli_fmt(b1, sizeof b1, v * 1e9, 3),
+             ft ? " at " : "", ft ? cli_fmt(b2, sizeof b2, f / 1e6, 6) : "", ft ? " MHz" : "");
+    return 0;
+}
+
+/* --match-resonance F: a reference piece read through the same fixture,
+ * its far end and order defaulting to this piece's end and 1. */
+static int target_match(cli_ctx *ctx, const cli_args *a, const char *mr, cxl_stub_end end,
+                        cxl_trim *trim, char *what, size_t size)
+{
+    int order = 1;
+    double f;
+    char b1[64];
+    const char *t;
+    if (cli_freq(ctx, "match-resonance", mr, &f)) return CLI_EXIT_USAGE;
+    if ((t = cli_get(a, "match-end", 0)) && parse_end(ctx, "match-end", t, &end))
+        return CLI_EXIT_USAGE;
+    if ((t = cli_get(a, "match-order", 0)) && parse_order(ctx, "match-order", t, &order))
+        return CLI_EXIT_USAGE;
+    cxl_trim_target_resonance(trim, end, order, f);
+    snprintf(what, size, "the reference piece: order %d at %s MHz, far end %s", order,
+             cli_fmt(b1, sizeof b1, f / 1e6, 6), end == CXL_STUB_OPEN ? "open" : "short");
+    return 0;
 }
 
 /* The one target of this invocation, set on the trim. */
@@ -175,8 +241,7 @@ static int set_target(cli_ctx *ctx, const cli_args *a, const trim_in *in, cxl_tr
     if (kinds != 1)
         return cli_error(ctx, "degrees/delay/match-resonance", kinds_expected,
                          kinds ? "give only one target" : "a target is needed");
-    double f = 0.0, v;
-    char b1[64], b2[64];
+    double f = 0.0;
     static const char *const match_opts[] = { "match-end", "match-order" };
     for (int i = 0; i < 2; i++)
         if (!mr && cli_count(a, match_opts[i]))
@@ -186,36 +251,9 @@ static int set_target(cli_ctx *ctx, const cli_args *a, const trim_in *in, cxl_tr
     if (ft && mr)
         return cli_error(ctx, "freq", "--freq with --degrees or --delay",
                          "--match-resonance holds at its own frequency");
-    if (deg) {
-        static const char expected[] = "electrical degrees above 0, such as 90";
-        if (cli_number(ctx, "degrees", deg, 0.0, 1e6, expected, &v)) return CLI_EXIT_USAGE;
-        if (!(v > 0.0))
-            return cli_error(ctx, "degrees", expected, "'%s' must be greater than zero", deg);
-        if (!ft)
-            return cli_error(ctx, "freq", "--degrees 90 --freq 1.83MHz",
-                             "--degrees needs the frequency it holds at");
-        cxl_trim_target_degrees(trim, v, f);
-        snprintf(what, size, "%s deg at %s MHz", cli_fmt(b1, sizeof b1, v, 3),
-                 cli_fmt(b2, sizeof b2, f / 1e6, 6));
-    } else if (dl) {
-        if (cli_time(ctx, "delay", dl, CLI_POSITIVE, &v)) return CLI_EXIT_USAGE;
-        cxl_trim_target_delay(trim, v, f);
-        snprintf(what, size, "%s ns%s%s%s", cli_fmt(b1, sizeof b1, v * 1e9, 3),
-                 ft ? " at " : "", ft ? cli_fmt(b2, sizeof b2, f / 1e6, 6) : "", ft ? " MHz" : "");
-    } else {
-        cxl_stub_end end = in->end;
-        int order = 1;
-        const char *t;
-        if (cli_freq(ctx, "match-resonance", mr, &f)) return CLI_EXIT_USAGE;
-        if ((t = cli_get(a, "match-end", 0)) && parse_end(ctx, "match-end", t, &end))
-            return CLI_EXIT_USAGE;
-        if ((t = cli_get(a, "match-order", 0)) && parse_order(ctx, "match-order", t, &order))
-            return CLI_EXIT_USAGE;
-        cxl_trim_target_resonance(trim, end, order, f);
-        snprintf(what, size, "the reference piece: order %d at %s MHz, far end %s", order,
-                 cli_fmt(b1, sizeof b1, f / 1e6, 6), end == CXL_STUB_OPEN ? "open" : "short");
-    }
-    return 0;
+    if (deg) return target_degrees(ctx, deg, ft, f, trim, what, size);
+    if (dl) return target_delay(ctx, dl, ft, f, trim, what, size);
+    return target_match(ctx, a, mr, in->end, trim, what, size);
 }
 
 /* "12.3 mm" style: a fixed-decimal number and its unit. */
@@ -232,30 +270,15 @@ static const char *action_word(cxl_trim_action act)
     return act == CXL_TRIM_CUT ? "cut" : act == CXL_TRIM_WITHIN ? "within" : "short";
 }
 
-static void print_text(cli_ctx *ctx, const cli_args *a, const trim_in *in,
-                       const cxl_trim_result *r, const char *what, const char *cable)
+/* Text: the readings, one line each, and where they and their orders
+ * came from. */
+static void print_readings(cli_ctx *ctx, const cli_args *a, const trim_in *in,
+                           const cxl_trim_result *r, unsigned flags, const char *cable)
 {
     FILE *o = ctx->out;
-    char b1[96], b2[96], b3[96], b4[96];
-    double cut, keep, res, vf_fit, vf_t, ft;
-    cxl_trim_action act;
-    unsigned flags;
-    const char *label = cli_label(a);
-    cxl_trim_result_cut(r, &cut, &keep, &res, &act);
-    cxl_trim_result_vf(r, &vf_fit, &vf_t, &ft);
-    cxl_trim_result_flags(r, &flags);
-    size_t n = cxl_trim_result_count(r);
-
-    if (ctx->rows_out++) putc('\n', o);
-    fprintf(o, "trim%s%s\n", label[0] ? ": " : "", label);
-    fprintf(o, "  piece               %s, far end %s\n",
-            cli_fmt_length(ctx, b1, sizeof b1, in->length_m),
-            in->end == CXL_STUB_OPEN ? "open" : "shorted");
-    if (in->fixture_m > 0.0)
-        fprintf(o, "  fixture             %s, %s\n", cli_fmt_length(ctx, b1, sizeof b1, in->fixture_m),
-                in->fixture_vf > 0.0 ? cli_fmt(b2, sizeof b2, in->fixture_vf, 4) : "same cable");
+    char b1[96], b2[96], b3[96];
     fprintf(o, "  readings            order  MHz          VF       one step resolves\n");
-    for (size_t i = 0; i < n; i++) {
+    for (size_t i = 0; i < cxl_trim_result_count(r); i++) {
         double f, v, rm;
         int order;
         cxl_trim_result_reading(r, i, &f, &order, &v, NULL, &rm);
@@ -274,28 +297,53 @@ static void print_text(cli_ctx *ctx, const cli_args *a, const trim_in *in,
             flags & CXL_TRIM_FLAG_MODEL ? "; each reading corrected for the lossy-line offset" : "");
     if (flags & CXL_TRIM_FLAG_MODEL)
         fprintf(o, "                      (model of cable %s)\n", cable);
+}
+
+/* How the VF at the target frequency was found. */
+static const char *vf_source(unsigned flags)
+{
+    if (flags & CXL_TRIM_FLAG_DRIFT)
+        return flags & CXL_TRIM_FLAG_EXTRAPOLATED
+                   ? "trend a - b/sqrt(f) over the readings, extrapolated"
+                   : "trend a - b/sqrt(f) over the readings";
+    if (flags & CXL_TRIM_FLAG_ALLOWANCE)
+        return "nearest reading; trend unknown, +- widened by the drift allowance";
+    return "from the one reading";
+}
+
+/* Text: the VF the target uses, the target, and the allowance counted in
+ * it (its options were checked when the trim was set up). */
+static void print_target(cli_ctx *ctx, const cli_args *a, const cxl_trim_result *r,
+                         unsigned flags, const char *what)
+{
+    FILE *o = ctx->out;
+    char b1[96], b2[96];
+    double vf_t, ft;
+    cxl_trim_result_vf(r, NULL, &vf_t, &ft);
     if (ft > 0.0)
         fprintf(o, "  VF at %-13s %s  %s\n", with_unit(b1, sizeof b1, ft / 1e6, 3, "MHz"),
-                cli_fmt(b2, sizeof b2, vf_t, 5),
-                flags & CXL_TRIM_FLAG_DRIFT
-                    ? (flags & CXL_TRIM_FLAG_EXTRAPOLATED
-                           ? "trend a - b/sqrt(f) over the readings, extrapolated"
-                           : "trend a - b/sqrt(f) over the readings")
-                    : flags & CXL_TRIM_FLAG_ALLOWANCE
-                          ? "nearest reading; trend unknown, +- widened by the drift allowance"
-                          : "from the one reading");
+                cli_fmt(b2, sizeof b2, vf_t, 5), vf_source(flags));
     else
         fprintf(o, "  VF                  %s  fitted over the readings\n",
                 cli_fmt(b2, sizeof b2, vf_t, 5));
     fprintf(o, "  target              %s\n", what);
-    if (cli_count(a, "allowance")) {
-        double am = 0.0, av = 0.0;
-        cli_length(ctx, "allowance", cli_get(a, "allowance", 0), CLI_NONNEG, &am);
-        if (cli_count(a, "allowance-vf")) cli_vf(ctx, "allowance-vf", cli_get(a, "allowance-vf", 0), &av);
-        fprintf(o, "  allowance           %s at VF %s, counted in the target\n",
-                cli_fmt_length(ctx, b1, sizeof b1, am),
-                av > 0.0 ? cli_fmt(b2, sizeof b2, av, 4) : "of the piece");
-    }
+    if (!cli_count(a, "allowance")) return;
+    double am = 0.0, av = 0.0;
+    cli_length(ctx, "allowance", cli_get(a, "allowance", 0), CLI_NONNEG, &am);
+    if (cli_count(a, "allowance-vf")) cli_vf(ctx, "allowance-vf", cli_get(a, "allowance-vf", 0), &av);
+    fprintf(o, "  allowance           %s at VF %s, counted in the target\n",
+            cli_fmt_length(ctx, b1, sizeof b1, am),
+            av > 0.0 ? cli_fmt(b2, sizeof b2, av, 4) : "of the piece");
+}
+
+/* Text: what to keep, what to cut, and what the analyzer reads after. */
+static void print_cut(cli_ctx *ctx, const cxl_trim_result *r)
+{
+    FILE *o = ctx->out;
+    char b1[96], b2[96];
+    double cut, keep, res;
+    cxl_trim_action act;
+    cxl_trim_result_cut(r, &cut, &keep, &res, &act);
     fprintf(o, "  keep                %s", cli_fmt_length(ctx, b1, sizeof b1, keep));
     if (res > 0.0) fprintf(o, "  +- %s mm", cli_fmt(b2, sizeof b2, res * 1e3, 1));
     putc('\n', o);
@@ -309,13 +357,34 @@ static void print_text(cli_ctx *ctx, const cli_args *a, const trim_in *in,
     if (act == CXL_TRIM_WITHIN)
         fprintf(o, "                      within the resolution: stop, or read a higher order\n");
     fprintf(o, "  analyzer after cut  ");
-    for (size_t i = 0; i < n; i++) {
+    for (size_t i = 0; i < cxl_trim_result_count(r); i++) {
         double e;
         int order;
         cxl_trim_result_reading(r, i, NULL, &order, NULL, &e, NULL);
-        fprintf(o, "%s%s MHz (order %d)", i ? ", " : "", cli_fmt(b4, sizeof b4, e / 1e6, 6), order);
+        fprintf(o, "%s%s MHz (order %d)", i ? ", " : "", cli_fmt(b1, sizeof b1, e / 1e6, 6), order);
     }
     putc('\n', o);
+}
+
+static void print_text(cli_ctx *ctx, const cli_args *a, const trim_in *in,
+                       const cxl_trim_result *r, const char *what, const char *cable)
+{
+    FILE *o = ctx->out;
+    char b1[96], b2[96];
+    unsigned flags;
+    const char *label = cli_label(a);
+    cxl_trim_result_flags(r, &flags);
+    if (ctx->rows_out++) putc('\n', o);
+    fprintf(o, "trim%s%s\n", label[0] ? ": " : "", label);
+    fprintf(o, "  piece               %s, far end %s\n",
+            cli_fmt_length(ctx, b1, sizeof b1, in->length_m),
+            in->end == CXL_STUB_OPEN ? "open" : "shorted");
+    if (in->fixture_m > 0.0)
+        fprintf(o, "  fixture             %s, %s\n", cli_fmt_length(ctx, b1, sizeof b1, in->fixture_m),
+                in->fixture_vf > 0.0 ? cli_fmt(b2, sizeof b2, in->fixture_vf, 4) : "same cable");
+    print_readings(ctx, a, in, r, flags, cable);
+    print_target(ctx, a, r, flags, what);
+    print_cut(ctx, r);
 }
 
 static void print_rows(cli_ctx *ctx, const cli_args *a, const trim_in *in,

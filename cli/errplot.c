@@ -10,49 +10,75 @@
 #include <string.h>
 #include "cli.h"
 
-int cli_errplot_save(cli_ctx *ctx, const char *field, const char *path,
-                     const cli_freq_point *pts, int n, cli_err_fn fn, void *user,
-                     const cli_errplot *plot)
-{
-    /* per band: the samples and a break; per --freq point: one and a break */
-    size_t cap = (size_t)n * (CLI_ERRPLOT_SAMPLES + 2) + 2;
-    double *buf = malloc(6 * cap * sizeof *buf);
-    if (!buf) return cli_error(ctx, field, NULL, "out of memory");
-    double *bx = buf, *by = buf + cap, *b2 = buf + 2 * cap;
-    double *fx = buf + 3 * cap, *fy = buf + 4 * cap, *f2 = buf + 5 * cap;
-    size_t nb = 0, nf = 0, nspans = 0;
+/* One sampled curve and its second value (plot->second), NAN rows as
+ * breaks. */
+typedef struct err_series {
+    double *x_mhz, *y, *y2;
+    size_t n;
+} err_series;
+
+/* What the plot draws: the bands sampled densely, the --freq points as
+ * markers, and the bands' shading. */
+typedef struct errplot_data {
+    err_series band, mark;
     cli_svg_span spans[CLI_MAX_ITEMS];
+    size_t nspans;
+} errplot_data;
+
+/* A row of NANs: no line across it. */
+static void series_break(err_series *s)
+{
+    s->x_mhz[s->n] = s->y[s->n] = s->y2[s->n] = NAN;
+    s->n++;
+}
+
+/* CLI_ERRPLOT_SAMPLES from lo_hz to hi_hz, then a break. */
+static int sample_band(cli_ctx *ctx, cli_err_fn fn, void *user, double lo_hz, double hi_hz,
+                       err_series *s)
+{
+    int code = 0;
+    for (int k = 0; k < CLI_ERRPLOT_SAMPLES && !code; k++, s->n++) {
+        double f = lo_hz + (hi_hz - lo_hz) * k / (CLI_ERRPLOT_SAMPLES - 1);
+        s->x_mhz[s->n] = f / 1e6;
+        code = fn(ctx, user, f, &s->y[s->n], &s->y2[s->n]);
+    }
+    series_break(s);
+    return code;
+}
+
+/* Every band (its low, centre and high edge in a row) and --freq point. */
+static int sample(cli_ctx *ctx, const cli_freq_point *pts, int n, cli_err_fn fn, void *user,
+                  errplot_data *d)
+{
     int code = 0;
     for (int i = 0; i < n && !code; i++) {
         if (!pts[i].band[0]) {
-            fx[nf] = pts[i].freq_hz / 1e6;
-            code = fn(ctx, user, pts[i].freq_hz, &fy[nf], &f2[nf]);
-            nf++;
-            fx[nf] = fy[nf] = f2[nf] = NAN;   /* a marker, not a line */
-            nf++;
+            err_series *m = &d->mark;
+            m->x_mhz[m->n] = pts[i].freq_hz / 1e6;
+            code = fn(ctx, user, pts[i].freq_hz, &m->y[m->n], &m->y2[m->n]);
+            m->n++;
+            series_break(m);   /* a marker, not a line */
             continue;
         }
-        /* a band: low, centre and high edge in a row */
-        if (strcmp(pts[i].edge, "low") != 0 || i + 2 >= n || nspans == CLI_MAX_ITEMS) continue;
+        if (strcmp(pts[i].edge, "low") != 0 || i + 2 >= n || d->nspans == CLI_MAX_ITEMS) continue;
         double lo = pts[i].freq_hz, hi = pts[i + 2].freq_hz;
-        spans[nspans++] = (cli_svg_span){ lo / 1e6, hi / 1e6, pts[i].band };
-        for (int k = 0; k < CLI_ERRPLOT_SAMPLES && !code; k++, nb++) {
-            double f = lo + (hi - lo) * k / (CLI_ERRPLOT_SAMPLES - 1);
-            bx[nb] = f / 1e6;
-            code = fn(ctx, user, f, &by[nb], &b2[nb]);
-        }
-        bx[nb] = by[nb] = b2[nb] = NAN;       /* no line across to the next band */
-        nb++;
+        d->spans[d->nspans++] = (cli_svg_span){ lo / 1e6, hi / 1e6, pts[i].band };
+        code = sample_band(ctx, fn, user, lo, hi, &d->band);
     }
-    if (code) {
-        free(buf);
-        return code;
-    }
+    return code;
+}
+
+/* The sampled curves, the tolerance either side of zero, into the SVG. */
+static int draw(cli_ctx *ctx, const char *field, const char *path, const cli_errplot *plot,
+                const errplot_data *d)
+{
+    const err_series *b = &d->band, *m = &d->mark;
     cli_svg_curve curves[4];
     size_t nc = 0;
-    if (nb) curves[nc++] = (cli_svg_curve){ plot->name, bx, by, nb, 0, 0 };
-    if (nb && plot->second) curves[nc++] = (cli_svg_curve){ plot->second, bx, b2, nb, 1, 0 };
-    if (nf) curves[nc++] = (cli_svg_curve){ "at --freq", fx, fy, nf, 0, 1 };
+    if (b->n) curves[nc++] = (cli_svg_curve){ plot->name, b->x_mhz, b->y, b->n, 0, 0 };
+    if (b->n && plot->second)
+        curves[nc++] = (cli_svg_curve){ plot->second, b->x_mhz, b->y2, b->n, 1, 0 };
+    if (m->n) curves[nc++] = (cli_svg_curve){ "at --freq", m->x_mhz, m->y, m->n, 0, 1 };
     char plus[64], minus[64], t[48];
     cli_svg_hline lines[2];
     if (plot->has_tolerance) {
@@ -68,12 +94,28 @@ int cli_errplot_save(cli_ctx *ctx, const char *field, const char *path,
         .y_label = "phase error (deg)",
         .curves = curves,
         .ncurves = nc,
-        .spans = spans,
-        .nspans = nspans,
+        .spans = d->spans,
+        .nspans = d->nspans,
         .hlines = lines,
         .nhlines = plot->has_tolerance ? 2 : 0,
     };
-    code = cli_svg_save(ctx, field, path, NULL, &xy);
+    return cli_svg_save(ctx, field, path, NULL, &xy);
+}
+
+int cli_errplot_save(cli_ctx *ctx, const char *field, const char *path,
+                     const cli_freq_point *pts, int n, cli_err_fn fn, void *user,
+                     const cli_errplot *plot)
+{
+    /* per band: the samples and a break; per --freq point: one and a break */
+    size_t cap = (size_t)n * (CLI_ERRPLOT_SAMPLES + 2) + 2;
+    double *buf = malloc(6 * cap * sizeof *buf);
+    if (!buf) return cli_error(ctx, field, NULL, "out of memory");
+    errplot_data d = {
+        .band = { buf, buf + cap, buf + 2 * cap, 0 },
+        .mark = { buf + 3 * cap, buf + 4 * cap, buf + 5 * cap, 0 },
+    };
+    int code = sample(ctx, pts, n, fn, user, &d);
+    if (!code) code = draw(ctx, field, path, plot, &d);
     free(buf);
     return code;
 }

@@ -74,128 +74,156 @@ static int column(const cxl_csv_reader *rd, const char *name)
     return -1;
 }
 
+/* One read of a vf CSV: its reader, the columns its header names, and the
+ * file's first reading, which stands for the fit when it is the only one. */
+typedef struct vf_load {
+    const cli_ctx *ctx;
+    vf_file *f;
+    cxl_csv_reader *rd;
+    const char *name;   /* the file as messages name it */
+    int col_label, col_res, col_vf, col_at, col_vf_at;
+    int readings;
+    char single_label[256];
+    double single_vf;
+    size_t single_line;
+} vf_load;
+
+/* The cell of column col in the current record, "" when it is missing. */
+static const char *cell(const vf_load *ld, int col)
+{
+    return col >= 0 && (size_t)col < cxl_csv_reader_nfields(ld->rd)
+               ? cxl_csv_reader_field(ld->rd, (size_t)col) : "";
+}
+
+static int keep_row(const vf_load *ld, const char *label, double vf, double at_hz)
+{
+    if (add_row(ld->f, label, vf, at_hz))
+        return cli_error(ld->ctx, "vf-from", NULL, "out of memory");
+    return 0;
+}
+
+/* An 'at' row, the VF at a frequency: both cells must hold numbers. */
+static int at_row(const vf_load *ld, const char *label)
+{
+    double at_mhz = 0.0, vf;
+    if (number(ld->rd, cell(ld, ld->col_at), &at_mhz) != 0 || !(at_mhz > 0.0) ||
+        !(at_mhz * 1e6 <= CLI_MAX_FREQ_HZ) ||
+        number(ld->rd, cell(ld, ld->col_vf_at), &vf) != 0 || !(vf > 0.0 && vf <= 1.0))
+        return cli_error(ld->ctx, "vf-from", VF_FROM_EXPECTED,
+                         "%s line %zu: an 'at' row needs at_freq_mhz and vf_at numbers",
+                         ld->name, cxl_csv_reader_line(ld->rd));
+    return keep_row(ld, label, vf, at_mhz * 1e6);
+}
+
+/* One record after the header: a fit, an 'at' row or a reading. */
+static int data_row(vf_load *ld)
+{
+    size_t nf = cxl_csv_reader_nfields(ld->rd);
+    if ((size_t)ld->col_res >= nf || (size_t)ld->col_vf >= nf) return 0;
+    const char *res = cell(ld, ld->col_res), *text = cell(ld, ld->col_vf);
+    const char *label = cell(ld, ld->col_label);
+    if (strcmp(res, "at") == 0) return at_row(ld, label);
+    double vf;
+    int valid = number(ld->rd, text, &vf) == 0 && vf > 0.0 && vf <= 1.0;
+    if (strcmp(res, "fit") != 0) {
+        /* a reading's own VF may lie outside (0, 1] (vf flags it); it
+         * matters only when it is the file's one reading */
+        if (ld->readings++ == 0) {
+            snprintf(ld->single_label, sizeof ld->single_label, "%s", label);
+            ld->single_vf = valid ? vf : 0.0;
+            ld->single_line = cxl_csv_reader_line(ld->rd);
+        }
+        return 0;
+    }
+    if (!valid)
+        return cli_error(ld->ctx, "vf-from", VF_FROM_EXPECTED,
+                         "%s line %zu: vf '%s' is not a velocity factor", ld->name,
+                         cxl_csv_reader_line(ld->rd), text);
+    return keep_row(ld, label, vf, 0.0);
+}
+
+/* The reader stopped on a bad record: any bad record ends the file, as a
+ * VF must not come from half of it. */
+static int unreadable(const vf_load *ld, int err)
+{
+    cxl_status why = cxl_csv_reader_stopped(ld->rd);
+    char what[160];
+    if (why == CXL_EIO)
+        snprintf(what, sizeof what, "read error (%s)", err ? strerror(err) : "input/output error");
+    else if (why == CXL_ETOOLONG)
+        snprintf(what, sizeof what, "no line end for over %d bytes; reading stopped",
+                 CXL_CSV_MAX_SKIP);
+    else
+        snprintf(what, sizeof what, "malformed CSV");
+    return cli_error(ld->ctx, "vf-from", VF_FROM_EXPECTED, "%s line %zu: %s",
+                     ld->name, cxl_csv_reader_line(ld->rd), what);
+}
+
+static size_t count_fits(const vf_file *f)
+{
+    size_t fits = 0;
+    for (size_t i = 0; i < f->n; i++) fits += f->rows[i].at_hz == 0.0;
+    return fits;
+}
+
+/* The whole file read: a file of one reading and no fit stands for its
+ * reading's VF; otherwise it needs a fit. */
+static int finish(const vf_load *ld)
+{
+    if (count_fits(ld->f) == 0 && ld->readings == 1) {
+        if (!(ld->single_vf > 0.0))
+            return cli_error(ld->ctx, "vf-from", VF_FROM_EXPECTED,
+                             "%s line %zu: the vf of its one reading is not a velocity factor",
+                             ld->name, ld->single_line);
+        if (keep_row(ld, ld->single_label, ld->single_vf, 0.0)) return CLI_EXIT_USAGE;
+    }
+    if (count_fits(ld->f) == 0)
+        return cli_error(ld->ctx, "vf-from", VF_FROM_EXPECTED,
+                         "%s holds no fitted row (resonance 'fit')", ld->name);
+    return 0;
+}
+
+/* The header's columns; resonance and vf must be there. */
+static int header(vf_load *ld, int has_row)
+{
+    if (has_row) {
+        ld->col_label = column(ld->rd, "label");
+        ld->col_res = column(ld->rd, "resonance");
+        ld->col_vf = column(ld->rd, "vf");
+        ld->col_at = column(ld->rd, "at_freq_mhz");
+        ld->col_vf_at = column(ld->rd, "vf_at");
+    }
+    if (ld->col_res < 0 || ld->col_vf < 0)
+        return cli_error(ld->ctx, "vf-from", VF_FROM_EXPECTED,
+                         "%s has no resonance and vf columns", ld->name);
+    return 0;
+}
+
 /* Read the fitted rows (or the single reading) of a vf CSV.  Problems are
  * reported against the file, not against a batch line. */
 static int load(const cli_ctx *row_ctx, vf_file *f, FILE *fp)
 {
     cli_ctx top = *row_ctx;
     top.input_name = NULL;
-    const cli_ctx *ctx = &top;
-    cxl_csv_reader *rd;
-    if (cxl_csv_reader_new_stream(fp, &rd) != CXL_OK)
-        return cli_error(ctx, "vf-from", NULL, "out of memory");
-    cxl_csv_reader_set_separator(rd, 0); /* ',' ';' or TAB, from the header */
-    int has_row = 0, code = 0, readings = 0;
-    int col_label = -1, col_res = -1, col_vf = -1, col_at = -1, col_vf_at = -1;
-    char single_label[256] = "", name[300];
-    double single_vf = 0.0;
-    size_t single_line = 0;
+    char name[300];
+    vf_load ld = { .ctx = &top, .f = f, .name = name, .col_label = -1, .col_res = -1,
+                   .col_vf = -1, .col_at = -1, .col_vf_at = -1 };
+    if (cxl_csv_reader_new_stream(fp, &ld.rd) != CXL_OK)
+        return cli_error(&top, "vf-from", NULL, "out of memory");
+    cxl_csv_reader_set_separator(ld.rd, 0); /* ',' ';' or TAB, from the header */
     if (strcmp(f->path, "-") == 0) snprintf(name, sizeof name, "standard input");
     else snprintf(name, sizeof name, "'%s'", f->path);
+    int has_row = 0, code = 0;
     errno = 0;
-    cxl_status st = cxl_csv_reader_next(rd, &has_row);
-    int err = errno;
-    if (st != CXL_OK) goto unreadable;
-    if (has_row) {
-        col_label = column(rd, "label");
-        col_res = column(rd, "resonance");
-        col_vf = column(rd, "vf");
-        col_at = column(rd, "at_freq_mhz");
-        col_vf_at = column(rd, "vf_at");
+    cxl_status st = cxl_csv_reader_next(ld.rd, &has_row);
+    if (st == CXL_OK) {
+        code = header(&ld, has_row);
+        while (!code && (errno = 0, st = cxl_csv_reader_next(ld.rd, &has_row)) == CXL_OK &&
+               has_row)
+            code = data_row(&ld);
     }
-    if (col_res < 0 || col_vf < 0) {
-        code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED,
-                         "%s has no resonance and vf columns", name);
-        goto done;
-    }
-    while ((errno = 0, st = cxl_csv_reader_next(rd, &has_row)) == CXL_OK && has_row) {
-        size_t nf = cxl_csv_reader_nfields(rd);
-        if ((size_t)col_res >= nf || (size_t)col_vf >= nf) continue;
-        const char *res = cxl_csv_reader_field(rd, (size_t)col_res);
-        const char *text = cxl_csv_reader_field(rd, (size_t)col_vf);
-        const char *label = col_label >= 0 && (size_t)col_label < nf
-                                ? cxl_csv_reader_field(rd, (size_t)col_label) : "";
-        double vf;
-        int valid = number(rd, text, &vf) == 0 && vf > 0.0 && vf <= 1.0;
-        if (strcmp(res, "at") == 0) {
-            /* the VF at a frequency: both cells must hold numbers */
-            double at_mhz = 0.0;
-            const char *tf = col_at >= 0 && (size_t)col_at < nf
-                                 ? cxl_csv_reader_field(rd, (size_t)col_at) : "";
-            const char *tv = col_vf_at >= 0 && (size_t)col_vf_at < nf
-                                 ? cxl_csv_reader_field(rd, (size_t)col_vf_at) : "";
-            if (number(rd, tf, &at_mhz) != 0 || !(at_mhz > 0.0) ||
-                !(at_mhz * 1e6 <= CLI_MAX_FREQ_HZ) ||
-                number(rd, tv, &vf) != 0 || !(vf > 0.0 && vf <= 1.0)) {
-                code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED,
-                                 "%s line %zu: an 'at' row needs at_freq_mhz and vf_at numbers",
-                                 name, cxl_csv_reader_line(rd));
-                goto done;
-            }
-            if (add_row(f, label, vf, at_mhz * 1e6)) {
-                code = cli_error(ctx, "vf-from", NULL, "out of memory");
-                goto done;
-            }
-            continue;
-        }
-        if (strcmp(res, "fit") != 0) {
-            /* a reading's own VF may lie outside (0, 1] (vf flags it); it
-             * matters only when it is the file's one reading */
-            if (readings++ == 0) {
-                snprintf(single_label, sizeof single_label, "%s", label);
-                single_vf = valid ? vf : 0.0;
-                single_line = cxl_csv_reader_line(rd);
-            }
-            continue;
-        }
-        if (!valid) {
-            code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED,
-                             "%s line %zu: vf '%s' is not a velocity factor", name,
-                             cxl_csv_reader_line(rd), text);
-            goto done;
-        }
-        if (add_row(f, label, vf, 0.0)) {
-            code = cli_error(ctx, "vf-from", NULL, "out of memory");
-            goto done;
-        }
-    }
-    err = errno;
-unreadable:
-    if (st != CXL_OK) {
-        /* any bad record ends the file: a VF must not come from half of it */
-        cxl_status why = cxl_csv_reader_stopped(rd);
-        char what[160];
-        if (why == CXL_EIO)
-            snprintf(what, sizeof what, "read error (%s)", err ? strerror(err) : "input/output error");
-        else if (why == CXL_ETOOLONG)
-            snprintf(what, sizeof what, "no line end for over %d bytes; reading stopped",
-                     CXL_CSV_MAX_SKIP);
-        else
-            snprintf(what, sizeof what, "malformed CSV");
-        code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED, "%s line %zu: %s",
-                         name, cxl_csv_reader_line(rd), what);
-        goto done;
-    }
-    size_t fits = 0;
-    for (size_t i = 0; i < f->n; i++) fits += f->rows[i].at_hz == 0.0;
-    if (fits == 0 && readings == 1) {
-        if (!(single_vf > 0.0)) {
-            code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED,
-                             "%s line %zu: the vf of its one reading is not a velocity factor",
-                             name, single_line);
-            goto done;
-        }
-        if (add_row(f, single_label, single_vf, 0.0)) {
-            code = cli_error(ctx, "vf-from", NULL, "out of memory");
-            goto done;
-        }
-    }
-    for (size_t i = 0; i < f->n; i++) fits += f->rows[i].at_hz == 0.0;
-    if (fits == 0)
-        code = cli_error(ctx, "vf-from", VF_FROM_EXPECTED,
-                         "%s holds no fitted row (resonance 'fit')", name);
-done:
-    cxl_csv_reader_free(rd);
+    if (!code) code = st != CXL_OK ? unreadable(&ld, errno) : finish(&ld);
+    cxl_csv_reader_free(ld.rd);
     return code;
 }
 
@@ -272,24 +300,32 @@ static int pick_fit(cli_ctx *ctx, const cli_args *a, const vf_file *f, const cha
  * frequency is far below any VF's uncertainty). */
 #define AT_MATCH 0.01
 
+/* The 'at' rows of the same label as the fit: how many, the first, and in
+ * *at the one nearest freq_hz within AT_MATCH (the only one when freq_hz
+ * is 0), or NULL. */
+static size_t pick_at(const vf_file *f, const vf_row *fit, double freq_hz, const vf_row **at,
+                      const vf_row **first)
+{
+    size_t nat = 0;
+    for (size_t i = 0; i < f->n; i++) {
+        const vf_row *r = &f->rows[i];
+        if (r->at_hz == 0.0 || strcmp(r->label, fit->label) != 0) continue;
+        if (!nat++) *first = r;
+        if (freq_hz > 0.0 && fabs(r->at_hz / freq_hz - 1.0) <= AT_MATCH &&
+            (!*at || fabs(r->at_hz - freq_hz) < fabs((*at)->at_hz - freq_hz)))
+            *at = r;
+    }
+    if (freq_hz == 0.0 && nat == 1) *at = *first;
+    return nat;
+}
+
 static int vf_from_file(cli_ctx *ctx, const cli_args *a, const char *path, double freq_hz,
                         double *vf, double *at_hz)
 {
     vf_file *f = open_cached(ctx, path);
-    const vf_row *fit = NULL, *at = NULL;
+    const vf_row *fit = NULL, *at = NULL, *first = NULL;
     if (!f || pick_fit(ctx, a, f, path, &fit)) return CLI_EXIT_USAGE;
-    /* 'at' rows of the same label as the fit */
-    size_t nat = 0;
-    const vf_row *first = NULL;
-    for (size_t i = 0; i < f->n; i++) {
-        const vf_row *r = &f->rows[i];
-        if (r->at_hz == 0.0 || strcmp(r->label, fit->label) != 0) continue;
-        if (!nat++) first = r;
-        if (freq_hz > 0.0 && fabs(r->at_hz / freq_hz - 1.0) <= AT_MATCH &&
-            (!at || fabs(r->at_hz - freq_hz) < fabs(at->at_hz - freq_hz)))
-            at = r;
-    }
-    if (freq_hz == 0.0 && nat == 1) at = first;
+    size_t nat = pick_at(f, fit, freq_hz, &at, &first);
     if (nat && !at) {
         char b1[48], b2[48];
         return cli_error(ctx, "vf-from", "a file from coaxline vf --at at this command's frequency",
