@@ -38,6 +38,34 @@ static void attr(FILE *fp, const char *name, double v)
     putc('"', fp);
 }
 
+/* The XML entity for one of the five characters markup reserves, or NULL. */
+static const char *xml_entity(unsigned char c)
+{
+    switch (c) {
+    case '&': return "&amp;";
+    case '<': return "&lt;";
+    case '>': return "&gt;";
+    case '"': return "&quot;";
+    case '\'': return "&#39;";
+    default: return NULL;
+    }
+}
+
+/* Write the multi-byte UTF-8 character at p, or U+FFFD when it is none
+ * or not an XML character; return the bytes taken. */
+static size_t utf8_char(FILE *fp, const unsigned char *p)
+{
+    size_t n = cli_utf8_len((const char *)p);
+    /* XML 1.0 (section 2.2, Char) forbids U+FFFE and U+FFFF too */
+    if (n == 3 && p[0] == 0xEF && p[1] == 0xBF && p[2] >= 0xBE) n = 0;
+    if (!n) {
+        fputs("\xEF\xBF\xBD", fp);
+        return 1;
+    }
+    fwrite(p, 1, n, fp);
+    return n;
+}
+
 /* Text content or attribute value: XML escapes; control bytes, bytes
  * that are not UTF-8 (cli_utf8_len) and U+FFFE/U+FFFF become U+FFFD,
  * which XML always accepts. */
@@ -46,20 +74,15 @@ static void text(FILE *fp, const char *s)
     const unsigned char *p = (const unsigned char *)(s ? s : "");
     while (*p) {
         unsigned char c = *p;
-        const char *esc = c == '&' ? "&amp;" : c == '<' ? "&lt;" : c == '>' ? "&gt;"
-                        : c == '"' ? "&quot;" : c == '\'' ? "&#39;" : NULL;
-        if (esc) { fputs(esc, fp); p++; continue; }
-        if (c < 0x80) {
-            if (c < 0x20 && c != '\t') fputs("\xEF\xBF\xBD", fp);
-            else putc(c, fp);
-            p++;
+        const char *esc = xml_entity(c);
+        if (c >= 0x80) {
+            p += utf8_char(fp, p);
             continue;
         }
-        size_t n = cli_utf8_len((const char *)p);
-        /* XML 1.0 (section 2.2, Char) forbids U+FFFE and U+FFFF too */
-        if (n == 3 && c == 0xEF && p[1] == 0xBF && p[2] >= 0xBE) n = 0;
-        if (n) { fwrite(p, 1, n, fp); p += n; }
-        else { fputs("\xEF\xBF\xBD", fp); p++; }
+        if (esc) fputs(esc, fp);
+        else if (c < 0x20 && c != '\t') fputs("\xEF\xBF\xBD", fp);
+        else putc(c, fp);
+        p++;
     }
 }
 
@@ -146,24 +169,27 @@ static size_t count_notes(const char *const note[3])
 
 /* ---- polar plot ------------------------------------------------------- */
 
-int cli_svg_polar_write(FILE *fp, const cli_svg_polar *p)
+/* The outer ring: the highest finite value rounded up to half a ring
+ * step (0 when there is none). */
+static double polar_top(const cli_svg_polar *p, double step)
 {
-    const double cx = 320.0, cy = 300.0, radius = 230.0;
-    double range = p->range_db > 0.0 ? p->range_db : 40.0;
-    double step = p->ring_step_db > 0.0 ? p->ring_step_db : 10.0;
     double top = -INFINITY;
     for (size_t c = 0; c < p->ncurves; c++)
         for (size_t i = 0; i < p->curves[c].n; i++)
             if (isfinite(p->curves[c].y[i]) && p->curves[c].y[i] > top) top = p->curves[c].y[i];
-    /* outer ring: the peak rounded up to half a ring step */
-    top = isfinite(top) ? ceil(top / (0.5 * step) - 1e-9) * 0.5 * step : 0.0;
-    double floor_db = top - range;
-    int height = (int)(cy + radius + 60.0 + 20.0 * p->ncurves + 16.0 * count_notes(p->note) + 16.0);
+    return isfinite(top) ? ceil(top / (0.5 * step) - 1e-9) * 0.5 * step : 0.0;
+}
 
-    open_svg(fp, 640, height, p->title);
-    /* rings, labelled in dB along the lower right diagonal */
+#define POLAR_CX 320.0
+#define POLAR_CY 300.0
+#define POLAR_RADIUS 230.0
+
+/* Rings, labelled in dB along the lower right diagonal. */
+static void polar_rings(FILE *fp, const cli_svg_polar *p, double top, double range, double step)
+{
+    const double cx = POLAR_CX, cy = POLAR_CY, floor_db = top - range;
     for (double v = top; v > floor_db + 1e-9; v -= step) {
-        double r = radius * (v - floor_db) / range;
+        double r = POLAR_RADIUS * (v - floor_db) / range;
         fputs("<circle", fp);
         attr(fp, "cx", cx);
         attr(fp, "cy", cy);
@@ -174,7 +200,12 @@ int cli_svg_polar_write(FILE *fp, const cli_svg_polar *p)
                  p->unit ? p->unit : "dB");
         label_at(fp, cx + 0.7071 * r + 3.0, cy + 0.7071 * r - 3.0, "start", 10, 1, t);
     }
-    /* spokes and azimuth labels: 0 at the top, clockwise (a compass) */
+}
+
+/* Spokes and azimuth labels: 0 at the top, clockwise (a compass). */
+static void polar_spokes(FILE *fp)
+{
+    const double cx = POLAR_CX, cy = POLAR_CY, radius = POLAR_RADIUS;
     for (int az = 0; az < 360; az += 30) {
         double s = sin(az * DEG), c = cos(az * DEG);
         line(fp, cx, cy, cx + radius * s, cy - radius * c, "#d0d0d0", 1.0, NULL);
@@ -182,23 +213,42 @@ int cli_svg_polar_write(FILE *fp, const cli_svg_polar *p)
         snprintf(t, sizeof t, "%d\xC2\xB0", az);
         label(fp, cx + (radius + 16.0) * s, cy - (radius + 16.0) * c + 4.0, "middle", 12, t);
     }
-    for (size_t k = 0; k < p->ncurves; k++) {
-        const cli_svg_curve *cv = &p->curves[k];
-        fputs("<path d=\"", fp);
-        int started = 0;
-        for (size_t i = 0; i < cv->n; i++) {
-            if (!isfinite(cv->x[i])) continue;
-            double v = isfinite(cv->y[i]) ? cv->y[i] : floor_db;
-            double r = radius * fmin(fmax((v - floor_db) / range, 0.0), 1.0);
-            double a = cv->x[i] * DEG;
-            fputs(started ? " L" : "M", fp);
-            xy(fp, cx + r * sin(a), cy - r * cos(a));
-            started = 1;
-        }
-        if (started) fputs(" Z", fp);
-        end_curve(fp, palette[k % NPALETTE], cv->dashed);
+}
+
+/* One closed curve; a value below the centre (or missing) sits on it. */
+static void polar_curve(FILE *fp, const cli_svg_curve *cv, const char *colour,
+                        double floor_db, double range)
+{
+    const double cx = POLAR_CX, cy = POLAR_CY;
+    fputs("<path d=\"", fp);
+    int started = 0;
+    for (size_t i = 0; i < cv->n; i++) {
+        if (!isfinite(cv->x[i])) continue;
+        double v = isfinite(cv->y[i]) ? cv->y[i] : floor_db;
+        double r = POLAR_RADIUS * fmin(fmax((v - floor_db) / range, 0.0), 1.0);
+        double a = cv->x[i] * DEG;
+        fputs(started ? " L" : "M", fp);
+        xy(fp, cx + r * sin(a), cy - r * cos(a));
+        started = 1;
     }
-    legend_and_notes(fp, 40.0, cy + radius + 56.0, p->curves, p->ncurves, p->note);
+    if (started) fputs(" Z", fp);
+    end_curve(fp, colour, cv->dashed);
+}
+
+int cli_svg_polar_write(FILE *fp, const cli_svg_polar *p)
+{
+    double range = p->range_db > 0.0 ? p->range_db : 40.0;
+    double step = p->ring_step_db > 0.0 ? p->ring_step_db : 10.0;
+    double top = polar_top(p, step);
+    int height = (int)(POLAR_CY + POLAR_RADIUS + 60.0 + 20.0 * p->ncurves +
+                       16.0 * count_notes(p->note) + 16.0);
+
+    open_svg(fp, 640, height, p->title);
+    polar_rings(fp, p, top, range, step);
+    polar_spokes(fp);
+    for (size_t k = 0; k < p->ncurves; k++)
+        polar_curve(fp, &p->curves[k], palette[k % NPALETTE], top - range, range);
+    legend_and_notes(fp, 40.0, POLAR_CY + POLAR_RADIUS + 56.0, p->curves, p->ncurves, p->note);
     return close_svg(fp);
 }
 
@@ -230,17 +280,50 @@ static int tick_decimals(double step)
     return d < 0 ? 0 : d > 6 ? 6 : d;
 }
 
-int cli_svg_xy_write(FILE *fp, const cli_svg_xy *p)
+/* The x-y frame in pixels. */
+#define XY_LEFT 80.0
+#define XY_RIGHT 690.0
+#define XY_TOP 50.0
+#define XY_BOTTOM 400.0
+
+/* An axis fitted to the data: its ends and tick step. */
+typedef struct axis {
+    double lo, hi, step;
+} axis;
+
+static double sx(const axis *ax, double v)
 {
-    const double left = 80.0, right = 690.0, top = 50.0, bottom = 400.0;
-    double xlo = INFINITY, xhi = -INFINITY, ylo = INFINITY, yhi = -INFINITY;
-    for (size_t c = 0; c < p->ncurves; c++)
-        for (size_t i = 0; i < p->curves[c].n; i++) {
-            double x = p->curves[c].x[i], y = p->curves[c].y[i];
+    return XY_LEFT + (v - ax->lo) / (ax->hi - ax->lo) * (XY_RIGHT - XY_LEFT);
+}
+
+static double sy(const axis *ax, double v)
+{
+    return XY_BOTTOM - (v - ax->lo) / (ax->hi - ax->lo) * (XY_BOTTOM - XY_TOP);
+}
+
+/* Widen [*lo, *hi] to the finite points of the curves: x too when xlo is
+ * given, y always. */
+static void curves_extent(const cli_svg_curve *curves, size_t ncurves, double *xlo,
+                          double *xhi, double *ylo, double *yhi)
+{
+    for (size_t c = 0; c < ncurves; c++)
+        for (size_t i = 0; i < curves[c].n; i++) {
+            double x = curves[c].x[i], y = curves[c].y[i];
             if (!isfinite(x) || !isfinite(y)) continue;
-            xlo = fmin(xlo, x); xhi = fmax(xhi, x);
-            ylo = fmin(ylo, y); yhi = fmax(yhi, y);
+            if (xlo) {
+                *xlo = fmin(*xlo, x);
+                *xhi = fmax(*xhi, x);
+            }
+            *ylo = fmin(*ylo, y);
+            *yhi = fmax(*yhi, y);
         }
+}
+
+/* The axes take in the curves, the spans (x) and the lines (y). */
+static void xy_axes(const cli_svg_xy *p, axis *xa, axis *ya)
+{
+    double xlo = INFINITY, xhi = -INFINITY, ylo = INFINITY, yhi = -INFINITY;
+    curves_extent(p->curves, p->ncurves, &xlo, &xhi, &ylo, &yhi);
     for (size_t i = 0; i < p->nspans; i++) {
         xlo = fmin(xlo, p->spans[i].x0);
         xhi = fmax(xhi, p->spans[i].x1);
@@ -249,104 +332,117 @@ int cli_svg_xy_write(FILE *fp, const cli_svg_xy *p)
         ylo = fmin(ylo, p->hlines[i].y);
         yhi = fmax(yhi, p->hlines[i].y);
     }
-    double x0, x1, xs, y0, y1, ys;
-    fit_axis(xlo, xhi, &x0, &x1, &xs);
-    fit_axis(ylo, yhi, &y0, &y1, &ys);
-#define SX(v) (left + ((v) - x0) / (x1 - x0) * (right - left))
-#define SY(v) (bottom - ((v) - y0) / (y1 - y0) * (bottom - top))
-    int height = (int)(bottom + 70.0 + 20.0 * p->ncurves + 16.0 * count_notes(p->note) + 16.0);
+    fit_axis(xlo, xhi, &xa->lo, &xa->hi, &xa->step);
+    fit_axis(ylo, yhi, &ya->lo, &ya->hi, &ya->step);
+}
 
-    open_svg(fp, 720, height, p->title);
+/* Shaded spans, named above the frame. */
+static void xy_spans(FILE *fp, const cli_svg_xy *p, const axis *xa)
+{
     for (size_t i = 0; i < p->nspans; i++) {
-        double a = SX(fmax(p->spans[i].x0, x0)), b = SX(fmin(p->spans[i].x1, x1));
+        double a = sx(xa, fmax(p->spans[i].x0, xa->lo)), b = sx(xa, fmin(p->spans[i].x1, xa->hi));
         fputs("<rect", fp);
         attr(fp, "x", a);
-        fprintf(fp, " y=\"%d\"", (int)top);
+        fprintf(fp, " y=\"%d\"", (int)XY_TOP);
         attr(fp, "width", fmax(b - a, 1.0));
-        fprintf(fp, " height=\"%d\" fill=\"#e6e6e6\"/>\n", (int)(bottom - top));
-        label(fp, 0.5 * (a + b), top - 5.0, "middle", 11, p->spans[i].name);
+        fprintf(fp, " height=\"%d\" fill=\"#e6e6e6\"/>\n", (int)(XY_BOTTOM - XY_TOP));
+        label(fp, 0.5 * (a + b), XY_TOP - 5.0, "middle", 11, p->spans[i].name);
     }
-    int xd = tick_decimals(xs), yd = tick_decimals(ys);
+}
+
+/* Grid lines with their tick labels, then the frame. */
+static void xy_grid(FILE *fp, const axis *xa, const axis *ya)
+{
+    int xd = tick_decimals(xa->step), yd = tick_decimals(ya->step);
     char t[64];
-    for (double v = x0; v <= x1 + 0.5 * xs; v += xs) {
-        line(fp, SX(v), top, SX(v), bottom, "#d8d8d8", 1.0, NULL);
-        label(fp, SX(v), bottom + 18.0, "middle", 11, cli_fmt(t, sizeof t, v, xd));
+    for (double v = xa->lo; v <= xa->hi + 0.5 * xa->step; v += xa->step) {
+        line(fp, sx(xa, v), XY_TOP, sx(xa, v), XY_BOTTOM, "#d8d8d8", 1.0, NULL);
+        label(fp, sx(xa, v), XY_BOTTOM + 18.0, "middle", 11, cli_fmt(t, sizeof t, v, xd));
     }
-    for (double v = y0; v <= y1 + 0.5 * ys; v += ys) {
-        line(fp, left, SY(v), right, SY(v), "#d8d8d8", 1.0, NULL);
-        label(fp, left - 6.0, SY(v) + 4.0, "end", 11, cli_fmt(t, sizeof t, v, yd));
+    for (double v = ya->lo; v <= ya->hi + 0.5 * ya->step; v += ya->step) {
+        line(fp, XY_LEFT, sy(ya, v), XY_RIGHT, sy(ya, v), "#d8d8d8", 1.0, NULL);
+        label(fp, XY_LEFT - 6.0, sy(ya, v) + 4.0, "end", 11, cli_fmt(t, sizeof t, v, yd));
     }
     fprintf(fp, "<rect x=\"%d\" y=\"%d\" width=\"%d\" height=\"%d\" fill=\"none\" "
                 "stroke=\"#404040\" stroke-width=\"1\"/>\n",
-            (int)left, (int)top, (int)(right - left), (int)(bottom - top));
-    for (size_t i = 0; i < p->nhlines; i++) {
-        double y = SY(p->hlines[i].y);
-        line(fp, left, y, right, y, "#7a7a7a", 1.5, "4 3");
-        label(fp, right - 4.0, y - 4.0, "end", 11, p->hlines[i].name);
+            (int)XY_LEFT, (int)XY_TOP, (int)(XY_RIGHT - XY_LEFT), (int)(XY_BOTTOM - XY_TOP));
+}
+
+/* One curve against the y axis ya, broken where a value is missing; the
+ * dots when it has markers. */
+static void xy_curve(FILE *fp, const cli_svg_curve *cv, const axis *xa, const axis *ya,
+                     const char *colour, int dashed)
+{
+    int pen = 0;
+    fputs("<path d=\"", fp);
+    for (size_t i = 0; i < cv->n; i++) {
+        if (!isfinite(cv->x[i]) || !isfinite(cv->y[i])) { pen = 0; continue; }
+        fputs(pen ? " L" : (i ? " M" : "M"), fp);
+        xy(fp, sx(xa, cv->x[i]), sy(ya, cv->y[i]));
+        pen = 1;
     }
-    for (size_t k = 0; k < p->ncurves; k++) {
-        const cli_svg_curve *cv = &p->curves[k];
-        const char *colour = palette[k % NPALETTE];
-        int pen = 0;
-        fputs("<path d=\"", fp);
-        for (size_t i = 0; i < cv->n; i++) {
-            if (!isfinite(cv->x[i]) || !isfinite(cv->y[i])) { pen = 0; continue; }
-            fputs(pen ? " L" : (i ? " M" : "M"), fp);
-            xy(fp, SX(cv->x[i]), SY(cv->y[i]));
-            pen = 1;
-        }
-        end_curve(fp, colour, cv->dashed);
-        for (size_t i = 0; cv->markers && i < cv->n; i++) {
-            if (!isfinite(cv->x[i]) || !isfinite(cv->y[i])) continue;
-            fputs("<circle", fp);
-            attr(fp, "cx", SX(cv->x[i]));
-            attr(fp, "cy", SY(cv->y[i]));
-            fprintf(fp, " r=\"3\" fill=\"%s\"/>\n", colour);
-        }
+    end_curve(fp, colour, dashed);
+    for (size_t i = 0; cv->markers && i < cv->n; i++) {
+        if (!isfinite(cv->x[i]) || !isfinite(cv->y[i])) continue;
+        fputs("<circle", fp);
+        attr(fp, "cx", sx(xa, cv->x[i]));
+        attr(fp, "cy", sy(ya, cv->y[i]));
+        fprintf(fp, " r=\"3\" fill=\"%s\"/>\n", colour);
     }
-    if (p->ncurves2) {
-        double vlo = INFINITY, vhi = -INFINITY, v0, v1, vs;
-        for (size_t c = 0; c < p->ncurves2; c++)
-            for (size_t i = 0; i < p->curves2[c].n; i++) {
-                double v = p->curves2[c].y[i];
-                if (isfinite(v) && isfinite(p->curves2[c].x[i])) {
-                    vlo = fmin(vlo, v);
-                    vhi = fmax(vhi, v);
-                }
-            }
-        fit_axis(vlo, vhi, &v0, &v1, &vs);
-#define SY2(v) (bottom - ((v) - v0) / (v1 - v0) * (bottom - top))
-        int vd = tick_decimals(vs);
-        for (double v = v0; v <= v1 + 0.5 * vs; v += vs)
-            label(fp, right + 6.0, SY2(v) + 4.0, "start", 11, cli_fmt(t, sizeof t, v, vd));
-        for (size_t k = 0; k < p->ncurves2; k++) {
-            const cli_svg_curve *cv = &p->curves2[k];
-            int pen = 0;
-            fputs("<path d=\"", fp);
-            for (size_t i = 0; i < cv->n; i++) {
-                if (!isfinite(cv->x[i]) || !isfinite(cv->y[i])) { pen = 0; continue; }
-                fputs(pen ? " L" : (i ? " M" : "M"), fp);
-                xy(fp, SX(cv->x[i]), SY2(cv->y[i]));
-                pen = 1;
-            }
-            end_curve(fp, palette[(p->ncurves + k) % NPALETTE], 1);
-        }
-#undef SY2
-        fputs("<text x=\"0\" y=\"0\" font-size=\"13\" text-anchor=\"middle\" transform=\"translate(712,", fp);
-        num(fp, 0.5 * (top + bottom), 2);
-        fputs(") rotate(90)\">", fp);
-        text(fp, p->y2_label ? p->y2_label : "");
-        fputs("</text>\n", fp);
-    }
-    label(fp, 0.5 * (left + right), bottom + 40.0, "middle", 13, p->x_label);
-    fputs("<text x=\"0\" y=\"0\" font-size=\"13\" text-anchor=\"middle\" transform=\"translate(22,", fp);
-    num(fp, 0.5 * (top + bottom), 2);
-    fputs(") rotate(-90)\">", fp);
-    text(fp, p->y_label);
+}
+
+/* An axis title turned along the frame's side at x_px. */
+static void side_title(FILE *fp, int x_px, int degrees, const char *s)
+{
+    fprintf(fp, "<text x=\"0\" y=\"0\" font-size=\"13\" text-anchor=\"middle\" "
+                "transform=\"translate(%d,", x_px);
+    num(fp, 0.5 * (XY_TOP + XY_BOTTOM), 2);
+    fprintf(fp, ") rotate(%d)\">", degrees);
+    text(fp, s);
     fputs("</text>\n", fp);
-#undef SX
-#undef SY
-    legend_and_notes(fp, left, bottom + 70.0, p->curves, p->ncurves, p->note);
+}
+
+/* The second y axis on the right: its own ticks and its curves, dashed,
+ * coloured after the first axis's. */
+static void xy_right_axis(FILE *fp, const cli_svg_xy *p, const axis *xa)
+{
+    double vlo = INFINITY, vhi = -INFINITY;
+    axis va;
+    curves_extent(p->curves2, p->ncurves2, NULL, NULL, &vlo, &vhi);
+    fit_axis(vlo, vhi, &va.lo, &va.hi, &va.step);
+    int vd = tick_decimals(va.step);
+    char t[64];
+    for (double v = va.lo; v <= va.hi + 0.5 * va.step; v += va.step)
+        label(fp, XY_RIGHT + 6.0, sy(&va, v) + 4.0, "start", 11, cli_fmt(t, sizeof t, v, vd));
+    for (size_t k = 0; k < p->ncurves2; k++) {
+        /* the marker dots are for the first axis's curves only */
+        cli_svg_curve cv = p->curves2[k];
+        cv.markers = 0;
+        xy_curve(fp, &cv, xa, &va, palette[(p->ncurves + k) % NPALETTE], 1);
+    }
+    side_title(fp, 712, 90, p->y2_label ? p->y2_label : "");
+}
+
+int cli_svg_xy_write(FILE *fp, const cli_svg_xy *p)
+{
+    axis xa, ya;
+    xy_axes(p, &xa, &ya);
+    int height = (int)(XY_BOTTOM + 70.0 + 20.0 * p->ncurves + 16.0 * count_notes(p->note) + 16.0);
+
+    open_svg(fp, 720, height, p->title);
+    xy_spans(fp, p, &xa);
+    xy_grid(fp, &xa, &ya);
+    for (size_t i = 0; i < p->nhlines; i++) {
+        double y = sy(&ya, p->hlines[i].y);
+        line(fp, XY_LEFT, y, XY_RIGHT, y, "#7a7a7a", 1.5, "4 3");
+        label(fp, XY_RIGHT - 4.0, y - 4.0, "end", 11, p->hlines[i].name);
+    }
+    for (size_t k = 0; k < p->ncurves; k++)
+        xy_curve(fp, &p->curves[k], &xa, &ya, palette[k % NPALETTE], p->curves[k].dashed);
+    if (p->ncurves2) xy_right_axis(fp, p, &xa);
+    label(fp, 0.5 * (XY_LEFT + XY_RIGHT), XY_BOTTOM + 40.0, "middle", 13, p->x_label);
+    side_title(fp, 22, -90, p->y_label);
+    legend_and_notes(fp, XY_LEFT, XY_BOTTOM + 70.0, p->curves, p->ncurves, p->note);
     return close_svg(fp);
 }
 
