@@ -53,98 +53,139 @@ static void response(double gamma_common, double gamma_idle, double *loss_db, do
     *loss_db = -common_db;
 }
 
-static int hybrid_run(cli_ctx *ctx, const cli_args *a)
+static const char z_expected[] = "an impedance in ohms, such as 75 or 50";
+
+/* What the options ask for. */
+typedef struct hybrid_spec {
+    double z_ohm, line_ohm, ratio, load_swr;
+    unsigned max_turns, npairs;
+} hybrid_spec;
+
+/* The combiner and its best turns pairs, best first. */
+typedef struct hybrid_values {
+    double iso_r_ohm, common_ohm, turns;
+    unsigned p[MAX_PAIRS], q[MAX_PAIRS];
+    size_t count;
+    double zx_ohm[MAX_PAIRS], swr[MAX_PAIRS], rl_db[MAX_PAIRS], loss_db[MAX_PAIRS],
+        iso_db[MAX_PAIRS];
+} hybrid_values;
+
+/* --impedance, and --to or --ratio for the line side. */
+static int parse_impedances(cli_ctx *ctx, const cli_args *a, hybrid_spec *h)
 {
-    static const char z_expected[] = "an impedance in ohms, such as 75 or 50";
-    double z, line_z, ratio = 2.0, load_swr = 1.0;
-    unsigned max_turns = 10, npairs = 5;
     if (!cli_count(a, "impedance"))
         return cli_error(ctx, "impedance", "--impedance 75", "the port impedance is needed");
-    if (cli_bounded(ctx, "impedance", cli_get(a, "impedance", 0), CLI_BOUND_IMPEDANCE, z_expected, &z))
+    if (cli_bounded(ctx, "impedance", cli_get(a, "impedance", 0), CLI_BOUND_IMPEDANCE, z_expected,
+                    &h->z_ohm))
         return CLI_EXIT_USAGE;
     if (cli_count(a, "to") && cli_count(a, "ratio"))
         return cli_error(ctx, "ratio", "--ratio 2 or --to 75, not both", "both --ratio and --to are given");
-    line_z = z;
+    h->line_ohm = h->z_ohm;
     if (cli_count(a, "to") &&
-        cli_bounded(ctx, "to", cli_get(a, "to", 0), CLI_BOUND_IMPEDANCE, z_expected, &line_z))
+        cli_bounded(ctx, "to", cli_get(a, "to", 0), CLI_BOUND_IMPEDANCE, z_expected, &h->line_ohm))
         return CLI_EXIT_USAGE;
     if (cli_count(a, "ratio") &&
         cli_bounded(ctx, "ratio", cli_get(a, "ratio", 0), CLI_BOUND_RATIO,
-                   "an impedance ratio such as 2 (for Z/2 up to Z)", &ratio))
+                   "an impedance ratio such as 2 (for Z/2 up to Z)", &h->ratio))
         return CLI_EXIT_USAGE;
+    return 0;
+}
+
+static int parse_spec(cli_ctx *ctx, const cli_args *a, hybrid_spec *h)
+{
+    *h = (hybrid_spec){ .ratio = 2.0, .load_swr = 1.0, .max_turns = 10, .npairs = 5 };
+    if (parse_impedances(ctx, a, h)) return CLI_EXIT_USAGE;
     if (cli_count(a, "max-turns") &&
-        whole(ctx, "max-turns", a, 1.0, 256.0, "a whole number of turns, 1 to 256", &max_turns))
+        whole(ctx, "max-turns", a, 1.0, 256.0, "a whole number of turns, 1 to 256", &h->max_turns))
         return CLI_EXIT_USAGE;
     if (cli_count(a, "pairs") &&
-        whole(ctx, "pairs", a, 1.0, MAX_PAIRS, "a whole number, 1 to 20", &npairs))
+        whole(ctx, "pairs", a, 1.0, MAX_PAIRS, "a whole number, 1 to 20", &h->npairs))
         return CLI_EXIT_USAGE;
     if (cli_count(a, "load-swr") &&
         cli_bounded(ctx, "load-swr", cli_get(a, "load-swr", 0), CLI_BOUND_SWR,
-                   "an SWR of 1 or more, such as 1.5", &load_swr))
+                   "an SWR of 1 or more, such as 1.5", &h->load_swr))
         return CLI_EXIT_USAGE;
+    return 0;
+}
 
-    double iso_r, common_z, turns;
-    cxl_status st = cxl_hybrid_inphase(z, &iso_r, &common_z);
-    if (st == CXL_OK && cli_count(a, "ratio")) line_z = ratio * common_z;
-    if (st == CXL_OK) st = cxl_hybrid_turns_ratio(common_z, line_z, &turns);
-    unsigned p[MAX_PAIRS], q[MAX_PAIRS];
-    size_t count = 0;
+/* The combiner's values, and each turns pair's match and response; with
+ * --ratio the line side follows from the common port. */
+static int compute(cli_ctx *ctx, int has_ratio, hybrid_spec *h, hybrid_values *v)
+{
+    cxl_status st = cxl_hybrid_inphase(h->z_ohm, &v->iso_r_ohm, &v->common_ohm);
+    if (st == CXL_OK && has_ratio) h->line_ohm = h->ratio * v->common_ohm;
+    if (st == CXL_OK) st = cxl_hybrid_turns_ratio(v->common_ohm, h->line_ohm, &v->turns);
+    v->count = 0;
     if (st == CXL_OK)
-        st = cxl_hybrid_turns_search(common_z, line_z, max_turns, npairs, p, q, &count);
-    double zx[MAX_PAIRS], swr[MAX_PAIRS], rl[MAX_PAIRS], loss[MAX_PAIRS], iso[MAX_PAIRS];
-    for (size_t i = 0; st == CXL_OK && i < count; i++) {
-        st = cxl_hybrid_match(common_z, line_z, p[i], q[i], &zx[i], &swr[i], &rl[i]);
+        st = cxl_hybrid_turns_search(v->common_ohm, h->line_ohm, h->max_turns, h->npairs, v->p,
+                                     v->q, &v->count);
+    for (size_t i = 0; st == CXL_OK && i < v->count; i++) {
+        st = cxl_hybrid_match(v->common_ohm, h->line_ohm, v->p[i], v->q[i], &v->zx_ohm[i],
+                              &v->swr[i], &v->rl_db[i]);
+        if (st != CXL_OK) break;
+        double zx = v->zx_ohm[i], line = h->line_ohm;
         /* the combiner's common port sees the line through the transformer:
          * the same mismatch, opposite sign */
-        if (st == CXL_OK) response(-(zx[i] - line_z) / (zx[i] + line_z), 0.0, &loss[i], &iso[i]);
+        response(-(zx - line) / (zx + line), 0.0, &v->loss_db[i], &v->iso_db[i]);
     }
     if (st != CXL_OK)
         return cli_error(ctx, "impedance", z_expected, "no combiner for these values: %s",
                          cxl_strerror(st));
+    return 0;
+}
 
-    const char *label = cli_label(a);
-    if (ctx->format != CLI_TEXT) {
-        for (size_t i = 0; i < count; i++) {
-            cli_cell cells[NCOLS] = {
-                CLI_TXT(label), CLI_NUM(z), CLI_NUM(iso_r), CLI_NUM(common_z), CLI_NUM(line_z),
-                CLI_NUM(turns), CLI_NUM((double)(i + 1)), CLI_NUM(p[i]), CLI_NUM(q[i]),
-                CLI_NUM(zx[i]), CLI_NUM(swr[i]), CLI_NUM(rl[i]), CLI_NUM(loss[i]),
-                CLI_NUM(iso[i]),
-            };
-            cli_table_row(ctx, hybrid_cols, NCOLS, cells);
-        }
-        return CLI_EXIT_OK;
+static void table_output(cli_ctx *ctx, const char *label, const hybrid_spec *h,
+                         const hybrid_values *v)
+{
+    for (size_t i = 0; i < v->count; i++) {
+        cli_cell cells[NCOLS] = {
+            CLI_TXT(label), CLI_NUM(h->z_ohm), CLI_NUM(v->iso_r_ohm), CLI_NUM(v->common_ohm),
+            CLI_NUM(h->line_ohm), CLI_NUM(v->turns), CLI_NUM((double)(i + 1)), CLI_NUM(v->p[i]),
+            CLI_NUM(v->q[i]), CLI_NUM(v->zx_ohm[i]), CLI_NUM(v->swr[i]), CLI_NUM(v->rl_db[i]),
+            CLI_NUM(v->loss_db[i]), CLI_NUM(v->iso_db[i]),
+        };
+        cli_table_row(ctx, hybrid_cols, NCOLS, cells);
     }
+}
 
+/* The combiner's values and the turns pairs, best first. */
+static void values_text(cli_ctx *ctx, const char *label, const hybrid_spec *h,
+                        const hybrid_values *v)
+{
     FILE *o = ctx->out;
     char b1[64], b2[64], b3[64], b4[64], b5[64];
-    if (ctx->rows_out++) putc('\n', o);
     fprintf(o, "hybrid%s%s\n", label[0] ? ": " : "", label);
-    fprintf(o, "  ports               %s ohm each\n", cli_fmt(b1, sizeof b1, z, 2));
+    fprintf(o, "  ports               %s ohm each\n", cli_fmt(b1, sizeof b1, h->z_ohm, 2));
     fprintf(o, "  isolation resistor  %s ohm (2 Z, across the two inputs)\n",
-            cli_fmt(b1, sizeof b1, iso_r, 2));
+            cli_fmt(b1, sizeof b1, v->iso_r_ohm, 2));
     fprintf(o, "  common port         %s ohm (Z/2, before the transformer)\n",
-            cli_fmt(b1, sizeof b1, common_z, 2));
+            cli_fmt(b1, sizeof b1, v->common_ohm, 2));
     fprintf(o, "  transformer         %s ohm to %s ohm: impedance ratio %s, turns ratio %s\n",
-            cli_fmt(b1, sizeof b1, common_z, 2), cli_fmt(b2, sizeof b2, line_z, 2),
-            cli_fmt(b3, sizeof b3, line_z / common_z, 4), cli_fmt(b4, sizeof b4, turns, 4));
+            cli_fmt(b1, sizeof b1, v->common_ohm, 2), cli_fmt(b2, sizeof b2, h->line_ohm, 2),
+            cli_fmt(b3, sizeof b3, h->line_ohm / v->common_ohm, 4),
+            cli_fmt(b4, sizeof b4, v->turns, 4));
     char head[48];
-    snprintf(head, sizeof head, "turns (common:line, up to %u)", max_turns);
+    snprintf(head, sizeof head, "turns (common:line, up to %u)", h->max_turns);
     fprintf(o, "\n  %-31s %11s %7s %11s %10s %11s\n", head, "presents", "SWR", "return loss",
             "one input", "isolation");
-    for (size_t i = 0; i < count; i++) {
+    for (size_t i = 0; i < v->count; i++) {
         char t[32];
-        snprintf(t, sizeof t, "%u:%u", p[i], q[i]);
+        snprintf(t, sizeof t, "%u:%u", v->p[i], v->q[i]);
         fprintf(o, "  %-31s %7s ohm %7s %8s dB %7s dB %8s dB\n", t,
-                cli_fmt(b1, sizeof b1, zx[i], 2), cli_fmt(b2, sizeof b2, swr[i], 3),
-                cli_fmt(b3, sizeof b3, rl[i], 2), cli_fmt(b4, sizeof b4, loss[i], 3),
-                iso[i] >= CXL_DB_LIMIT ? ">300" : cli_fmt(b5, sizeof b5, iso[i], 2));
+                cli_fmt(b1, sizeof b1, v->zx_ohm[i], 2), cli_fmt(b2, sizeof b2, v->swr[i], 3),
+                cli_fmt(b3, sizeof b3, v->rl_db[i], 2), cli_fmt(b4, sizeof b4, v->loss_db[i], 3),
+                v->iso_db[i] >= CXL_DB_LIMIT ? ">300" : cli_fmt(b5, sizeof b5, v->iso_db[i], 2));
     }
     fprintf(o, "  (one input: loss from one active input to the line; isolation: between the\n"
                "   inputs with that transformer's mismatch; ideal lossless parts)\n");
+}
 
-    /* what a bad port costs; |Gamma| from the SWR, the phase does not
-     * matter while the idle input is matched */
+/* What a bad port costs; |Gamma| from the SWR, the phase does not matter
+ * while the idle input is matched.  The --load-swr row only when given. */
+static void bad_port_text(cli_ctx *ctx, int has_load_swr, double load_swr)
+{
+    FILE *o = ctx->out;
+    char b1[64], b2[64], b3[64], b4[64];
     double g_load = (load_swr - 1.0) / (load_swr + 1.0);
     struct { const char *what; double gc, gi; } cases[] = {
         { "all ports matched", 0.0, 0.0 },
@@ -154,7 +195,7 @@ static int hybrid_run(cli_ctx *ctx, const cli_args *a)
         { "common and idle input both open", 1.0, 1.0 },
         { "common port load at --load-swr", g_load, 0.0 },
     };
-    size_t ncases = sizeof cases / sizeof cases[0] - !cli_count(a, "load-swr");
+    size_t ncases = sizeof cases / sizeof cases[0] - !has_load_swr;
     fprintf(o, "\n  with a bad port (ideal combiner)      one input to line  isolation between inputs\n");
     for (size_t i = 0; i < ncases; i++) {
         double l, s;
@@ -170,6 +211,22 @@ static int hybrid_run(cli_ctx *ctx, const cli_args *a)
         else snprintf(b2, sizeof b2, "%s dB", cli_fmt(b4, sizeof b4, s, 2));
         fprintf(o, "  %-35s %11s        %s\n", what, b1, b2);
     }
+}
+
+static int hybrid_run(cli_ctx *ctx, const cli_args *a)
+{
+    hybrid_spec h;
+    hybrid_values v;
+    if (parse_spec(ctx, a, &h) || compute(ctx, cli_count(a, "ratio") > 0, &h, &v))
+        return CLI_EXIT_USAGE;
+    const char *label = cli_label(a);
+    if (ctx->format != CLI_TEXT) {
+        table_output(ctx, label, &h, &v);
+        return CLI_EXIT_OK;
+    }
+    if (ctx->rows_out++) putc('\n', ctx->out);
+    values_text(ctx, label, &h, &v);
+    bad_port_text(ctx, cli_count(a, "load-swr") > 0, h.load_swr);
     return CLI_EXIT_OK;
 }
 

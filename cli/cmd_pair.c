@@ -308,13 +308,72 @@ static void load_text(cli_ctx *ctx, const pair_set *s, const cli_freq_point *pts
     }
 }
 
-static void text_output(cli_ctx *ctx, const cli_args *a, pair_set *s, const char *from,
-                        const cli_freq_point *pts, const check *c, int np)
+/* The bands of the text table: a band's edges form one group, each
+ * --freq point its own; worst[g] is the group's worst point. */
+typedef struct band_groups {
+    int n;
+    int worst[MAX_POINTS];
+    char name[MAX_POINTS][32];
+    const char *names[MAX_POINTS];
+} band_groups;
+
+/* One past the last point of the group that starts at point i. */
+static int group_end(const cli_freq_point *pts, int i, int np)
 {
-    char b1[200], b2[96], b3[96], b4[96];
+    int k = i + 1;
+    while (k < np && pts[i].band[0] && strcmp(pts[k].band, pts[i].band) == 0) k++;
+    return k;
+}
+
+/* The worst point of points [i, k), and the smallest allowed mismatch
+ * among them (*has_allowed 0 when one of them has none). */
+static int group_worst(const check *c, int i, int k, int *has_allowed, double *allowed_m)
+{
+    int w = i;
+    *has_allowed = c[i].has_allowed;
+    *allowed_m = c[i].allowed_m;
+    for (int j = i + 1; j < k; j++) {
+        if (worse_check(&c[w], &c[j])) w = j;
+        if (!c[j].has_allowed) *has_allowed = 0;
+        else if (c[j].allowed_m < *allowed_m) *allowed_m = c[j].allowed_m;
+    }
+    return w;
+}
+
+/* One row per band (or --freq point) at its worst point; the worst point
+ * of all. */
+static int band_rows(cli_ctx *ctx, const cli_freq_point *pts, const check *c, int np,
+                     band_groups *g)
+{
+    char b1[96], b2[96], b3[96], b4[96];
+    int worst = -1;
+    g->n = 0;
+    for (int i = 0; i < np;) {
+        int k = group_end(pts, i, np), has_allowed;
+        double allowed;
+        int w = group_worst(c, i, k, &has_allowed, &allowed);
+        if (worst < 0 || worse_check(&c[worst], &c[w])) worst = w;
+        snprintf(g->name[g->n], sizeof g->name[0], "%s", pts[i].band[0] ? pts[i].band : "freq");
+        g->names[g->n] = g->name[g->n];
+        g->worst[g->n] = w;
+        fprintf(ctx->out, "  %-6s %12s MHz  %9s  %11s  %-27s  %s\n", g->name[g->n],
+                cli_fmt(b1, sizeof b1, pts[w].freq_hz / 1e6, 6),
+                cli_fmt(b2, sizeof b2, c[w].err_deg, 3), cli_fmt(b3, sizeof b3, c[w].unc_deg, 3),
+                has_allowed ? cli_fmt_length(ctx, b4, sizeof b4, allowed) : "-",
+                verdict_text[c[w].verdict]);
+        g->n++;
+        i = k;
+    }
+    return worst;
+}
+
+/* The set: its lines, VF, load and tolerance. */
+static void set_text(cli_ctx *ctx, const cli_args *a, const pair_set *s, const char *from,
+                     const check *c, int np)
+{
+    char b1[200];
     FILE *o = ctx->out;
     const char *label = cli_label(a);
-    if (ctx->rows_out++) putc('\n', o);
     fprintf(o, "pair%s%s\n", label[0] ? ": " : "", label);
     fprintf(o, "  lines            ");
     for (int i = 0; i < s->nlen; i++)
@@ -326,36 +385,14 @@ static void text_output(cli_ctx *ctx, const cli_args *a, pair_set *s, const char
                    "                    error = largest delay into it - smallest\n",
                 cli_fmt_load(b1, sizeof b1, &s->load));
     tolerance_text(ctx, s, np);
-    fprintf(o, "  %-6s %16s  %9s  %11s  %-27s  %s\n", "band", "worst at", "error deg",
-            "uncert. deg", "allowed mismatch", "verdict");
-    int worst = -1, ngroups = 0;
-    int group_worst[MAX_POINTS];
-    char group_name[MAX_POINTS][32];
-    const char *names[MAX_POINTS];
-    for (int i = 0; i < np;) {
-        /* a band's edges form one group; each --freq point its own */
-        int k = i + 1;
-        while (k < np && pts[i].band[0] && strcmp(pts[k].band, pts[i].band) == 0) k++;
-        int w = i, has_allowed = c[i].has_allowed;
-        double allowed = c[i].allowed_m;
-        for (int j = i + 1; j < k; j++) {
-            if (worse_check(&c[w], &c[j])) w = j;
-            if (!c[j].has_allowed) has_allowed = 0;
-            else if (c[j].allowed_m < allowed) allowed = c[j].allowed_m;
-        }
-        if (worst < 0 || worse_check(&c[worst], &c[w])) worst = w;
-        snprintf(group_name[ngroups], sizeof group_name[0], "%s", pts[i].band[0] ? pts[i].band : "freq");
-        names[ngroups] = group_name[ngroups];
-        group_worst[ngroups] = w;
-        fprintf(o, "  %-6s %12s MHz  %9s  %11s  %-27s  %s\n", group_name[ngroups],
-                cli_fmt(b1, sizeof b1, pts[w].freq_hz / 1e6, 6),
-                cli_fmt(b2, sizeof b2, c[w].err_deg, 3), cli_fmt(b3, sizeof b3, c[w].unc_deg, 3),
-                has_allowed ? cli_fmt_length(ctx, b4, sizeof b4, allowed) : "-",
-                verdict_text[c[w].verdict]);
-        ngroups++;
-        i = k;
-    }
-    if (s->load.given) load_text(ctx, s, pts, group_worst, names, ngroups);
+}
+
+/* The worst point of all against its tolerance. */
+static void worst_text(cli_ctx *ctx, pair_set *s, const cli_freq_point *pts, const check *c,
+                       int worst)
+{
+    char b1[96], b2[96], b3[96], b4[96];
+    FILE *o = ctx->out;
     const check *wc = &c[worst];
     at_point(s, worst);
     if (pts[worst].band[0])
@@ -373,86 +410,127 @@ static void text_output(cli_ctx *ctx, const cli_args *a, pair_set *s, const char
                 cli_fmt(b1, sizeof b1, wc->err_deg + wc->unc_deg, 3));
 }
 
-static int pair_run(cli_ctx *ctx, const cli_args *a)
+static void text_output(cli_ctx *ctx, const cli_args *a, pair_set *s, const char *from,
+                        const cli_freq_point *pts, const check *c, int np)
+{
+    band_groups g;
+    if (ctx->rows_out++) putc('\n', ctx->out);
+    set_text(ctx, a, s, from, c, np);
+    fprintf(ctx->out, "  %-6s %16s  %9s  %11s  %-27s  %s\n", "band", "worst at", "error deg",
+            "uncert. deg", "allowed mismatch", "verdict");
+    int worst = band_rows(ctx, pts, c, np, &g);
+    if (s->load.given) load_text(ctx, s, pts, g.worst, g.names, g.n);
+    worst_text(ctx, s, pts, c, worst);
+}
+
+static void table_output(cli_ctx *ctx, const cli_args *a, const pair_set *s,
+                         const cli_freq_point *pts, const check *c, int np)
+{
+    const char *label = cli_label(a);
+    for (int i = 0; i < np; i++) {
+        cli_cell cells[NCOLS] = {
+            CLI_TXT(label), CLI_TXT(pts[i].band), CLI_TXT(pts[i].edge),
+            CLI_NUM(pts[i].freq_hz / 1e6), CLI_NUM(c[i].delta_m), CLI_NUM(c[i].err_deg),
+            s->reach_pt[i] ? CLI_NUM(s->tol_pt[i]) : CLI_NONE, CLI_TXT(verdict_name[c[i].verdict]),
+            c[i].has_allowed ? CLI_NUM(c[i].allowed_m) : CLI_NONE, CLI_NUM(c[i].unc_deg),
+            CLI_NUM(c[i].elec_deg), s->load.given ? CLI_NUM(c[i].imbalance_db) : CLI_NONE,
+        };
+        cli_table_row(ctx, pair_cols, NCOLS, cells);
+    }
+}
+
+/* --length, given two or more times (or as a list in a batch cell). */
+static int parse_lines(cli_ctx *ctx, const cli_args *a, pair_set *s)
 {
     char buf[1024];
     const char *items[CLI_MAX_ITEMS];
-    pair_set s;
-    s.nlen = cli_items(ctx, a, "length", buf, sizeof buf, items, CLI_MAX_ITEMS);
-    if (s.nlen < 0) return CLI_EXIT_USAGE;
-    if (s.nlen < 2)
+    s->nlen = cli_items(ctx, a, "length", buf, sizeof buf, items, CLI_MAX_ITEMS);
+    if (s->nlen < 0) return CLI_EXIT_USAGE;
+    if (s->nlen < 2)
         return cli_error(ctx, "length", "--length 20.00m --length 20.30m, or 20.00m;20.30m in a batch cell",
-                         "at least two lengths are needed, %d given", s.nlen);
-    for (int i = 0; i < s.nlen; i++) {
-        if (cli_line_length(ctx, "length", items[i], &s.len[i])) return CLI_EXIT_USAGE;
-        s.lo_m = i ? fmin(s.lo_m, s.len[i]) : s.len[i];
-        s.hi_m = i ? fmax(s.hi_m, s.len[i]) : s.len[i];
+                         "at least two lengths are needed, %d given", s->nlen);
+    for (int i = 0; i < s->nlen; i++) {
+        if (cli_line_length(ctx, "length", items[i], &s->len[i])) return CLI_EXIT_USAGE;
+        s->lo_m = i ? fmin(s->lo_m, s->len[i]) : s->len[i];
+        s->hi_m = i ? fmax(s->hi_m, s->len[i]) : s->len[i];
     }
+    return 0;
+}
 
-    char from[256];
-    s.length_tol_m = s.vf_tol = 0.0;
-    int rc = cli_vf_source(ctx, a, &s.vf, ctx->format == CLI_TEXT ? from : NULL, sizeof from);
-    if (rc || cli_line_vf_check(ctx, a, s.vf)) return CLI_EXIT_USAGE;
+/* --length-tol and --vf-tol: how far the measurements may be off. */
+static int parse_measuring(cli_ctx *ctx, const cli_args *a, pair_set *s)
+{
     if (cli_count(a, "length-tol")) {
         const char *t = cli_get(a, "length-tol", 0);
-        if (cli_length(ctx, "length-tol", t, CLI_NONNEG, &s.length_tol_m)) return CLI_EXIT_USAGE;
-        if (s.length_tol_m > CLI_LINE_MAX_M)
+        if (cli_length(ctx, "length-tol", t, CLI_NONNEG, &s->length_tol_m)) return CLI_EXIT_USAGE;
+        if (s->length_tol_m > CLI_LINE_MAX_M)
             return cli_error(ctx, "length-tol", "a length tolerance up to 1000 km, such as 5mm",
                              "'%s' is above 1000 km", t);
     }
     if (cli_count(a, "vf-tol")) {
         const char *t = cli_get(a, "vf-tol", 0);
         static const char expected[] = "a VF tolerance that leaves the VF at least 0.01, such as 0.01";
-        if (cli_number(ctx, "vf-tol", t, 0.0, 1.0, expected, &s.vf_tol)) return CLI_EXIT_USAGE;
-        if (!(s.vf - s.vf_tol >= CLI_LINE_MIN_VF))
+        if (cli_number(ctx, "vf-tol", t, 0.0, 1.0, expected, &s->vf_tol)) return CLI_EXIT_USAGE;
+        if (!(s->vf - s->vf_tol >= CLI_LINE_MIN_VF))
             return cli_error(ctx, "vf-tol", expected, "'%s' leaves the VF below 0.01", t);
     }
+    return 0;
+}
+
+/* Tolerance, load, the check of every point and the plot; *failed when a
+ * point fails. */
+static int check_points(cli_ctx *ctx, const cli_args *a, pair_set *s, const cli_freq_point *pts,
+                        check *c, int np, int *failed)
+{
+    int code = resolve_tolerance(ctx, a, s, pts, np);
+    if (!code) code = cli_load_parse(ctx, a, s->vf, &s->load);
+    for (int i = 0; !code && i < np; i++) {
+        at_point(s, i);
+        code = check_point(ctx, s, pts[i].freq_hz, 1, &c[i]);
+        if (!code && c[i].verdict == CXL_VERDICT_FAIL) *failed = 1;
+    }
+    if (!code && cli_count(a, "plot")) {
+        /* one line on the plot: the tightest tolerance of the points */
+        at_point(s, 0);
+        for (int i = 1; i < np; i++)
+            if (!s->reach_pt[i] || s->tol_pt[i] < s->tol) at_point(s, i);
+        code = plot(ctx, a, s, pts, np);
+    }
+    return code;
+}
+
+static void pair_set_free(pair_set *s)
+{
+    cli_load_free(&s->load);
+    if (s->has_goal) cli_goal_free(&s->goal);
+}
+
+static int pair_run(cli_ctx *ctx, const cli_args *a)
+{
+    pair_set s;
+    /* the load (and has_goal) zeroed first: every way out frees them, also
+     * a row refused before --load is read */
+    memset(&s, 0, sizeof s);
+    if (parse_lines(ctx, a, &s)) return CLI_EXIT_USAGE;
+    char from[256];
+    int rc = cli_vf_source(ctx, a, &s.vf, ctx->format == CLI_TEXT ? from : NULL, sizeof from);
+    if (rc || cli_line_vf_check(ctx, a, s.vf) || parse_measuring(ctx, a, &s))
+        return CLI_EXIT_USAGE;
 
     cli_freq_point pts[MAX_POINTS];
     check c[MAX_POINTS];
     if (cli_line_freq_items(ctx, a)) return CLI_EXIT_USAGE;
-    int np = cli_freq_points(ctx, a, pts, MAX_POINTS, NULL);
-    s.has_goal = 0;
-    /* a tolerance refused before the load is read must not free stack garbage */
-    memset(&s.load, 0, sizeof s.load);
+    int np = cli_freq_points(ctx, a, pts, MAX_POINTS, NULL), failed = 0;
     if (np < 0) return CLI_EXIT_USAGE;
-    int code = resolve_tolerance(ctx, a, &s, pts, np), failed = 0;
-    if (!code) code = cli_load_parse(ctx, a, s.vf, &s.load);
-    for (int i = 0; !code && i < np; i++) {
-        at_point(&s, i);
-        code = check_point(ctx, &s, pts[i].freq_hz, 1, &c[i]);
-        if (!code && c[i].verdict == CXL_VERDICT_FAIL) failed = 1;
+    int code = check_points(ctx, a, &s, pts, c, np, &failed);
+    if (!code) {
+        if (ctx->format == CLI_TEXT)
+            text_output(ctx, a, &s, from, pts, c, np);
+        else
+            table_output(ctx, a, &s, pts, c, np);
     }
-    if (!code && cli_count(a, "plot")) {
-        /* one line on the plot: the tightest tolerance of the points */
-        at_point(&s, 0);
-        for (int i = 1; i < np; i++)
-            if (!s.reach_pt[i] || s.tol_pt[i] < s.tol) at_point(&s, i);
-        code = plot(ctx, a, &s, pts, np);
-    }
-    if (code) {
-        cli_load_free(&s.load);
-        if (s.has_goal) cli_goal_free(&s.goal);
-        return code;
-    }
-
-    if (ctx->format == CLI_TEXT) {
-        text_output(ctx, a, &s, from, pts, c, np);
-    } else {
-        const char *label = cli_label(a);
-        for (int i = 0; i < np; i++) {
-            cli_cell cells[NCOLS] = {
-                CLI_TXT(label), CLI_TXT(pts[i].band), CLI_TXT(pts[i].edge),
-                CLI_NUM(pts[i].freq_hz / 1e6), CLI_NUM(c[i].delta_m), CLI_NUM(c[i].err_deg),
-                s.reach_pt[i] ? CLI_NUM(s.tol_pt[i]) : CLI_NONE, CLI_TXT(verdict_name[c[i].verdict]),
-                c[i].has_allowed ? CLI_NUM(c[i].allowed_m) : CLI_NONE, CLI_NUM(c[i].unc_deg),
-                CLI_NUM(c[i].elec_deg), s.load.given ? CLI_NUM(c[i].imbalance_db) : CLI_NONE,
-            };
-            cli_table_row(ctx, pair_cols, NCOLS, cells);
-        }
-    }
-    cli_load_free(&s.load);
-    if (s.has_goal) cli_goal_free(&s.goal);
+    pair_set_free(&s);
+    if (code) return code;
     return failed ? CLI_EXIT_TOLERANCE : CLI_EXIT_OK;
 }
 

@@ -48,31 +48,57 @@ static int parse_manual_delay(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s, 
     return 0;
 }
 
-/* The design feed from --feed: the element that must wait is the front
- * one (end-fire) or the rear one (crossfire). */
-static int parse_preset(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s, double design_hz)
+/* --feed excludes the options that give the feed element by element. */
+static int feed_alone(cli_ctx *ctx, const cli_args *a)
 {
-    const char *feed = cli_get(a, "feed", 0);
     static const char *const manual[] = { "line-a", "line-b", "delay-a", "delay-b",
                                           "degrees-a", "degrees-b", "invert" };
     for (size_t i = 0; i < sizeof manual / sizeof manual[0]; i++)
         if (cli_count_if(a, manual[i]))
             return cli_error(ctx, "feed", "--feed alone, or the feed given element by element",
                              "--feed and --%s both describe the feed", manual[i]);
+    return 0;
+}
+
+/* The kind of --feed; an end-fire feed also needs its design frequency. */
+static int feed_kind(cli_ctx *ctx, const char *feed, double design_hz, cxl_feed *kind)
+{
+    if (strcmp(feed, "crossfire") == 0) {
+        *kind = CXL_FEED_CROSSFIRE;
+        return 0;
+    }
+    if (strcmp(feed, "endfire") != 0)
+        return cli_error(ctx, "feed", "crossfire or endfire", "unknown feed '%s'", feed);
+    if (!(design_hz > 0.0))
+        return cli_error(ctx, "design-freq", "--feed endfire --design-freq 1.83MHz",
+                         "an end-fire feed is cut for one frequency");
+    *kind = CXL_FEED_ENDFIRE;
+    return 0;
+}
+
+/* The line lengths that give the preset's delays, when the VF is known. */
+static int preset_lines(cli_ctx *ctx, cli_duo_spec *s)
+{
+    for (int k = 0; k < 2; k++)
+        if (s->has_vf && s->delay_s[k] > 0.0) {
+            if (cxl_line_length_from_delay(s->delay_s[k], s->vf, &s->line_m[k]) != CXL_OK)
+                return cli_error(ctx, "stagger", "smaller values", "gives no line length");
+            s->has_line[k] = 1;
+        }
+    return 0;
+}
+
+/* The design feed from --feed: the element that must wait is the front
+ * one (end-fire) or the rear one (crossfire). */
+static int parse_preset(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s, double design_hz)
+{
+    const char *feed = cli_get(a, "feed", 0);
+    if (feed_alone(ctx, a)) return CLI_EXIT_USAGE;
     if (s->stagger_m == 0.0)
         return cli_error(ctx, "stagger", "a stagger such as --stagger 20m with --feed",
                          "--feed %s needs the elements staggered along the forward axis", feed);
-    cxl_feed kind;
-    if (strcmp(feed, "crossfire") == 0) {
-        kind = CXL_FEED_CROSSFIRE;
-    } else if (strcmp(feed, "endfire") == 0) {
-        if (!(design_hz > 0.0))
-            return cli_error(ctx, "design-freq", "--feed endfire --design-freq 1.83MHz",
-                             "an end-fire feed is cut for one frequency");
-        kind = CXL_FEED_ENDFIRE;
-    } else {
-        return cli_error(ctx, "feed", "crossfire or endfire", "unknown feed '%s'", feed);
-    }
+    cxl_feed kind = CXL_FEED_CROSSFIRE;
+    if (feed_kind(ctx, feed, design_hz, &kind)) return CLI_EXIT_USAGE;
     /* the library's design feed, read back element by element */
     cxl_duo *p = NULL;
     cxl_status st = cxl_duo_new(&p);
@@ -85,13 +111,7 @@ static int parse_preset(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s, double
         return cli_error(ctx, "stagger", "smaller values", "the feed cannot be designed: %s",
                          cxl_strerror(st));
     s->feed = kind == CXL_FEED_CROSSFIRE ? "crossfire" : "endfire";
-    for (int k = 0; k < 2; k++)
-        if (s->has_vf && s->delay_s[k] > 0.0) {
-            if (cxl_line_length_from_delay(s->delay_s[k], s->vf, &s->line_m[k]) != CXL_OK)
-                return cli_error(ctx, "stagger", "smaller values", "gives no line length");
-            s->has_line[k] = 1;
-        }
-    return 0;
+    return preset_lines(ctx, s);
 }
 
 static int parse_element(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
@@ -124,40 +144,54 @@ int cli_wire_parse(cli_ctx *ctx, const cli_args *a, int wire, const char *kind,
     return 0;
 }
 
-static int parse_as_built(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
+/* Whether any line is there for an as-built error to act on: a design
+ * line, or a measured one. */
+static int has_lines(const cli_args *a, const cli_duo_spec *s)
+{
+    return s->has_line[0] || s->has_line[1] || cli_count_if(a, "measured-a") ||
+           cli_count_if(a, "measured-b");
+}
+
+/* --actual-vf: the spool's real VF against the one the lines were cut for. */
+static int parse_actual_vf(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
 {
     s->actual_vf = s->vf;
-    if (cli_count_if(a, "actual-vf")) {
+    if (!cli_count_if(a, "actual-vf")) return 0;
+    if (!s->has_vf)
+        return cli_error(ctx, "actual-vf", "--actual-vf 0.81 with the design --vf or --cable",
+                         "the spool's VF needs the VF the lines were cut for");
+    if (cli_vf(ctx, "actual-vf", cli_get(a, "actual-vf", 0), &s->actual_vf))
+        return CLI_EXIT_USAGE;
+    s->has_errors = 1;
+    return 0;
+}
+
+/* --measured-X for element k, and the delay of the line as built. */
+static int parse_measured(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s, int k)
+{
+    char opt[16];
+    snprintf(opt, sizeof opt, "measured-%s", elem_name[k]);
+    s->built_line_m[k] = s->line_m[k];
+    s->built_delay_s[k] = s->delay_s[k];
+    if (cli_count_if(a, opt)) {
         if (!s->has_vf)
-            return cli_error(ctx, "actual-vf", "--actual-vf 0.81 with the design --vf or --cable",
-                             "the spool's VF needs the VF the lines were cut for");
-        if (cli_vf(ctx, "actual-vf", cli_get(a, "actual-vf", 0), &s->actual_vf))
+            return cli_error(ctx, "vf", "--vf 0.66 or --cable NAME with --measured-a/--measured-b",
+                             "a measured length needs the cable's velocity factor");
+        if (cli_length(ctx, opt, cli_get(a, opt, 0), CLI_NONNEG, &s->built_line_m[k]))
             return CLI_EXIT_USAGE;
         s->has_errors = 1;
+    } else if (!s->has_line[k]) {
+        return 0;   /* a delay given as time or degrees: no line to re-measure */
     }
-    for (int k = 0; k < 2; k++) {
-        char opt[16];
-        snprintf(opt, sizeof opt, "measured-%s", elem_name[k]);
-        s->built_line_m[k] = s->line_m[k];
-        s->built_delay_s[k] = s->delay_s[k];
-        if (cli_count_if(a, opt)) {
-            if (!s->has_vf)
-                return cli_error(ctx, "vf", "--vf 0.66 or --cable NAME with --measured-a/--measured-b",
-                                 "a measured length needs the cable's velocity factor");
-            if (cli_length(ctx, opt, cli_get(a, opt, 0), CLI_NONNEG, &s->built_line_m[k]))
-                return CLI_EXIT_USAGE;
-            s->has_errors = 1;
-        } else if (!s->has_line[k]) {
-            continue;   /* a delay given as time or degrees: no line to re-measure */
-        }
-        if (cxl_line_delay_from_length(s->built_line_m[k], s->actual_vf,
-                                       &s->built_delay_s[k]) != CXL_OK)
-            return cli_error(ctx, opt, "a shorter line", "gives no delay");
-    }
-    if (cli_count_if(a, "actual-vf") && !s->has_line[0] && !s->has_line[1] &&
-        !cli_count_if(a, "measured-a") && !cli_count_if(a, "measured-b"))
-        return cli_error(ctx, "actual-vf", "--line-a/--line-b, --measured-a/-b or --feed with --vf",
-                         "no line lengths for the spool's VF to act on");
+    if (cxl_line_delay_from_length(s->built_line_m[k], s->actual_vf,
+                                   &s->built_delay_s[k]) != CXL_OK)
+        return cli_error(ctx, opt, "a shorter line", "gives no delay");
+    return 0;
+}
+
+/* --phase-error and --imbalance: errors given as plain numbers. */
+static int parse_fixed_errors(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
+{
     if (cli_count_if(a, "phase-error")) {
         if (cli_bounded(ctx, "phase-error", cli_get(a, "phase-error", 0), CLI_BOUND_PHASE_DEG,
                        "degrees B lags A beyond the design, such as 5 or -3", &s->phase_error_deg))
@@ -170,32 +204,47 @@ static int parse_as_built(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
             return CLI_EXIT_USAGE;
         s->has_errors = 1;
     }
-    if (cli_flag_if(a, "line-loss")) {
-        size_t idx;
-        if (!s->cable[0])
-            return cli_error(ctx, "line-loss", "--line-loss with --cable NAME (a catalog cable)",
-                             "the loss of the lines needs a cable from the catalog");
-        if (cli_cable_index(ctx, s->cable, &idx)) return CLI_EXIT_USAGE;
-        const cxl_catalog *cat = cli_catalog(ctx);
-        /* the table where the cable has one, else its physical model */
-        if (cxl_loss_cable_new(cat, idx, &s->loss) != CXL_OK)
-            return cli_error(ctx, "line-loss", "a cable with diameters or attenuation points",
-                             "cable '%s' has no loss data", s->cable);
-        if (!s->has_line[0] && !s->has_line[1] && !cli_count_if(a, "measured-a") &&
-            !cli_count_if(a, "measured-b"))
-            return cli_error(ctx, "line-loss", "--line-a/--line-b, --measured-a/-b or --feed with --cable",
-                             "no line lengths to take the loss of");
-        s->line_loss = 1;
-        s->has_errors = 1;
-    }
     return 0;
 }
 
-int cli_duo_spec_parse(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
+/* --line-loss: the loss difference of the two lines, from the catalog. */
+static int parse_line_loss(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
 {
-    memset(s, 0, sizeof *s);
-    s->feed = "manual";
-    s->cable = "";
+    size_t idx;
+    if (!cli_flag_if(a, "line-loss")) return 0;
+    if (!s->cable[0])
+        return cli_error(ctx, "line-loss", "--line-loss with --cable NAME (a catalog cable)",
+                         "the loss of the lines needs a cable from the catalog");
+    if (cli_cable_index(ctx, s->cable, &idx)) return CLI_EXIT_USAGE;
+    const cxl_catalog *cat = cli_catalog(ctx);
+    /* the table where the cable has one, else its physical model */
+    if (cxl_loss_cable_new(cat, idx, &s->loss) != CXL_OK)
+        return cli_error(ctx, "line-loss", "a cable with diameters or attenuation points",
+                         "cable '%s' has no loss data", s->cable);
+    if (!has_lines(a, s))
+        return cli_error(ctx, "line-loss", "--line-a/--line-b, --measured-a/-b or --feed with --cable",
+                         "no line lengths to take the loss of");
+    s->line_loss = 1;
+    s->has_errors = 1;
+    return 0;
+}
+
+static int parse_as_built(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
+{
+    if (parse_actual_vf(ctx, a, s)) return CLI_EXIT_USAGE;
+    for (int k = 0; k < 2; k++)
+        if (parse_measured(ctx, a, s, k)) return CLI_EXIT_USAGE;
+    if (cli_count_if(a, "actual-vf") && !has_lines(a, s))
+        return cli_error(ctx, "actual-vf", "--line-a/--line-b, --measured-a/-b or --feed with --vf",
+                         "no line lengths for the spool's VF to act on");
+    if (parse_fixed_errors(ctx, a, s)) return CLI_EXIT_USAGE;
+    return parse_line_loss(ctx, a, s);
+}
+
+/* Where the elements stand, what they are, and the elevation they are
+ * seen from: wires default to 20 degrees, having nothing along their axis. */
+static int parse_geometry(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
+{
     if (cli_count(a, "spacing") &&
         cli_length(ctx, "spacing", cli_get(a, "spacing", 0), CLI_NONNEG, &s->spacing_m))
         return CLI_EXIT_USAGE;
@@ -212,6 +261,29 @@ int cli_duo_spec_parse(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
     if (s->wire && s->elevation_deg == 0.0)
         return cli_error(ctx, "elevation", "an elevation above 0 for wires, such as 20",
                          "a long wire has no response along its own axis at elevation 0");
+    return 0;
+}
+
+/* The feed given element by element: delays, and --invert. */
+static int parse_manual_feed(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s, double design_hz)
+{
+    for (int k = 0; k < 2; k++)
+        if (parse_manual_delay(ctx, a, s, k, design_hz)) return CLI_EXIT_USAGE;
+    const char *inv = cli_get(a, "invert", 0);
+    if (!inv) return 0;
+    if (strcmp(inv, "a") != 0 && strcmp(inv, "b") != 0 && strcmp(inv, "A") != 0 &&
+        strcmp(inv, "B") != 0)
+        return cli_error(ctx, "invert", "a or b", "unknown element '%s'", inv);
+    s->flip[inv[0] == 'a' || inv[0] == 'A' ? 0 : 1] = 1;
+    return 0;
+}
+
+int cli_duo_spec_parse(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
+{
+    memset(s, 0, sizeof *s);
+    s->feed = "manual";
+    s->cable = "";
+    if (parse_geometry(ctx, a, s)) return CLI_EXIT_USAGE;
     double design_hz = 0.0;
     if (cli_count(a, "design-freq") &&
         cli_freq(ctx, "design-freq", cli_get(a, "design-freq", 0), &design_hz))
@@ -222,17 +294,9 @@ int cli_duo_spec_parse(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
         s->cable = cli_count(a, "cable") ? cli_get(a, "cable", 0) : "";
         s->has_vf = 1;
     }
-    if (cli_count(a, "feed")) {
-        if (parse_preset(ctx, a, s, design_hz)) return CLI_EXIT_USAGE;
-    } else {
-        for (int k = 0; k < 2; k++)
-            if (parse_manual_delay(ctx, a, s, k, design_hz)) return CLI_EXIT_USAGE;
-        const char *inv = cli_get(a, "invert", 0);
-        if (inv && strcmp(inv, "a") != 0 && strcmp(inv, "b") != 0 &&
-            strcmp(inv, "A") != 0 && strcmp(inv, "B") != 0)
-            return cli_error(ctx, "invert", "a or b", "unknown element '%s'", inv);
-        if (inv) s->flip[inv[0] == 'a' || inv[0] == 'A' ? 0 : 1] = 1;
-    }
+    int bad = cli_count(a, "feed") ? parse_preset(ctx, a, s, design_hz)
+                                   : parse_manual_feed(ctx, a, s, design_hz);
+    if (bad) return CLI_EXIT_USAGE;
     if (parse_as_built(ctx, a, s)) {
         cli_duo_spec_free(s);
         return CLI_EXIT_USAGE;
@@ -246,33 +310,36 @@ void cli_duo_spec_free(cli_duo_spec *s)
     s->loss = NULL;
 }
 
-int cli_duo_spec_build(cli_ctx *ctx, const cli_duo_spec *s, int as_built, double freq_hz,
-                        cxl_duo **pair, double *phase_error_deg, double *imbalance_db)
+/* The as-built errors at freq_hz: B's extra lag against the design, in
+ * degrees, and its imbalance, the lines' loss difference included. */
+static int built_errors(cli_ctx *ctx, const cli_duo_spec *s, double freq_hz, double *phase_deg,
+                        double *imbalance_db)
 {
-    const double *delay = as_built ? s->built_delay_s : s->delay_s;
-    double phase = 0.0, imbalance = 0.0;
-    if (as_built) {
-        /* extra lag of B over A against the design, in degrees */
-        if (cxl_duo_built_phase(s->delay_s, delay, s->phase_error_deg, freq_hz,
-                                       &phase) != CXL_OK)
-            return cli_error(ctx, "phase-error", "smaller values",
-                             "the as-built phase error cannot be worked out");
-        imbalance = s->imbalance_db;
-        if (s->line_loss) {
-            double loss_db, lo, hi;
-            char f[32], range[96], expected[160];
-            if (cxl_loss_cable_difference(s->loss, s->built_line_m[0], s->built_line_m[1],
-                                          freq_hz, &loss_db) != CXL_OK) {
-                cxl_loss_cable_range(s->loss, &lo, &hi);
-                snprintf(expected, sizeof expected, "a frequency within %s, or --imbalance DB instead",
-                         cli_fmt_range_mhz(range, sizeof range, lo, hi));
-                return cli_error(ctx, "line-loss", expected,
-                                 "%s MHz is outside the loss data of cable '%s'",
-                                 cli_fmt(f, sizeof f, freq_hz / 1e6, 6), s->cable);
-            }
-            imbalance += loss_db;
-        }
+    if (cxl_duo_built_phase(s->delay_s, s->built_delay_s, s->phase_error_deg, freq_hz,
+                            phase_deg) != CXL_OK)
+        return cli_error(ctx, "phase-error", "smaller values",
+                         "the as-built phase error cannot be worked out");
+    *imbalance_db = s->imbalance_db;
+    if (!s->line_loss) return 0;
+    double loss_db, lo, hi;
+    char f[32], range[96], expected[160];
+    if (cxl_loss_cable_difference(s->loss, s->built_line_m[0], s->built_line_m[1], freq_hz,
+                                  &loss_db) != CXL_OK) {
+        cxl_loss_cable_range(s->loss, &lo, &hi);
+        snprintf(expected, sizeof expected, "a frequency within %s, or --imbalance DB instead",
+                 cli_fmt_range_mhz(range, sizeof range, lo, hi));
+        return cli_error(ctx, "line-loss", expected,
+                         "%s MHz is outside the loss data of cable '%s'",
+                         cli_fmt(f, sizeof f, freq_hz / 1e6, 6), s->cable);
     }
+    *imbalance_db += loss_db;
+    return 0;
+}
+
+/* The library's pair with these delays and errors. */
+static cxl_status model_duo(const cli_duo_spec *s, const double *delay, double phase_offset_deg,
+                            double imbalance_db, cxl_duo **pair)
+{
     cxl_duo *p = NULL;
     cxl_status st = cxl_duo_new(&p);
     if (st == CXL_OK) st = cxl_duo_set_geometry(p, s->spacing_m, s->stagger_m);
@@ -280,15 +347,27 @@ int cli_duo_spec_build(cli_ctx *ctx, const cli_duo_spec *s, int as_built, double
         st = cxl_duo_set_delay(p, k, delay[k]);
         if (st == CXL_OK) st = cxl_duo_set_flip(p, k, s->flip[k]);
     }
-    if (st == CXL_OK) st = cxl_duo_set_phase_offset(p, 1, -s->phase_error_deg * as_built);
-    if (st == CXL_OK) st = cxl_duo_set_imbalance(p, imbalance);
+    if (st == CXL_OK) st = cxl_duo_set_phase_offset(p, 1, phase_offset_deg);
+    if (st == CXL_OK) st = cxl_duo_set_imbalance(p, imbalance_db);
     if (st == CXL_OK && s->wire) st = cxl_duo_set_long_wire(p, s->wire_length_m, s->wire_vf);
     if (st != CXL_OK) {
         cxl_duo_free(p);
-        return cli_error(ctx, as_built ? "imbalance" : "spacing", "smaller values",
-                         "the pair cannot be modelled: %s", cxl_strerror(st));
+        return st;
     }
     *pair = p;
+    return CXL_OK;
+}
+
+int cli_duo_spec_build(cli_ctx *ctx, const cli_duo_spec *s, int as_built, double freq_hz,
+                        cxl_duo **pair, double *phase_error_deg, double *imbalance_db)
+{
+    const double *delay = as_built ? s->built_delay_s : s->delay_s;
+    double phase = 0.0, imbalance = 0.0;
+    if (as_built && built_errors(ctx, s, freq_hz, &phase, &imbalance)) return CLI_EXIT_USAGE;
+    cxl_status st = model_duo(s, delay, -s->phase_error_deg * as_built, imbalance, pair);
+    if (st != CXL_OK)
+        return cli_error(ctx, as_built ? "imbalance" : "spacing", "smaller values",
+                         "the pair cannot be modelled: %s", cxl_strerror(st));
     if (phase_error_deg) *phase_error_deg = phase;
     if (imbalance_db) *imbalance_db = imbalance;
     return 0;

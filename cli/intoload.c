@@ -29,6 +29,16 @@ static int load_number(const char *start, size_t len, double *v)
     return cxl_units_parse_number(part, v, NULL) == CXL_OK ? 0 : -1;
 }
 
+/* The sign before the j of "R + jX": a pointer to it, or NULL when the
+ * j stands alone or first. */
+static const char *reactance_sign(const char *text, const char *j)
+{
+    const char *s = j;
+    while (s > text && (s[-1] == ' ' || s[-1] == '\t')) s--;
+    if (s == text || (s[-1] != '+' && s[-1] != '-')) return NULL;
+    return s - 1;
+}
+
 /* R, R+jX or R-jX; 0 or -1 (malformed). */
 static int split_load(const char *text, double *re, double *im)
 {
@@ -40,10 +50,8 @@ static int split_load(const char *text, double *re, double *im)
     while (*x == ' ' || *x == '\t') x++;
     /* the reactance is unsigned: the sign before j gives it */
     if (!(isdigit((unsigned char)*x) || *x == '.')) return -1;
-    const char *s = j;
-    while (s > text && (s[-1] == ' ' || s[-1] == '\t')) s--;
-    if (s == text || (s[-1] != '+' && s[-1] != '-')) return -1;
-    s--;
+    const char *s = reactance_sign(text, j);
+    if (!s) return -1;
     if (load_number(text, (size_t)(s - text), re) || load_number(x, strlen(x), im)) return -1;
     if (*s == '-') *im = -*im;
     return 0;

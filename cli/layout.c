@@ -60,13 +60,11 @@ static int parse_yes_no(const cli_ctx *ctx, const char *field, const char *text,
     return cli_error(ctx, field, "yes or no", "'%s' is neither yes nor no", text);
 }
 
-static int row(cli_ctx *rc, const cxl_csv_reader *rd, const int *map, size_t index,
-               double vf, double design_hz, cli_layout_elem *e)
+/* The element's label (E1, E2, ... when the cell is empty) and position. */
+static int row_place(cli_ctx *rc, const cxl_csv_reader *rd, const int *map, size_t index,
+                     cli_layout_elem *e)
 {
-    const char *t;
-    memset(e, 0, sizeof *e);
-    e->file_line = cxl_csv_reader_line(rd);
-    t = cell(rd, map, COL_LABEL);
+    const char *t = cell(rd, map, COL_LABEL);
     if (strlen(t) >= sizeof e->label)
         return cli_error(rc, "label", "a label of at most 63 bytes", "label is too long");
     if (t[0]) snprintf(e->label, sizeof e->label, "%s", t);
@@ -80,57 +78,94 @@ static int row(cli_ctx *rc, const cxl_csv_reader *rd, const int *map, size_t ind
         return CLI_EXIT_USAGE;
     if (cell(rd, map, COL_Z)[0] && cli_length(rc, "z", cell(rd, map, COL_Z), CLI_ANY, &e->z_m))
         return CLI_EXIT_USAGE;
-    /* the feed delay: any of delay, line, degrees; those given must agree */
-    int have_delay = 0;
+    return 0;
+}
+
+/* Two ways of giving the feed delay disagree beyond rounding. */
+static int delays_differ(double d_s, double delay_s)
+{
+    return fabs(d_s - delay_s) > fmax(DELAY_MATCH_REL * delay_s, DELAY_MATCH_ABS_S);
+}
+
+/* The delay of the line column at vf; it must agree with a delay column
+ * (*have_delay). */
+static int line_delay(cli_ctx *rc, const char *text, double vf, cli_layout_elem *e,
+                      int have_delay, double *delay_s)
+{
+    if (!(vf > 0.0))
+        return cli_error(rc, "line", "--vf 0.66 or --cable NAME with a line column",
+                         "element '%s': a line length needs the cable's velocity factor",
+                         e->label);
+    if (cli_length(rc, "line", text, CLI_NONNEG, &e->line_m)) return CLI_EXIT_USAGE;
+    e->has_line = 1;
+    double d = e->line_m / (vf * CXL_C_M_PER_S);
+    if (have_delay && delays_differ(d, *delay_s)) {
+        char b1[32], b2[32], b3[32], b4[32];
+        return cli_error(rc, "delay", "a delay the line makes at its VF, or only one of them",
+                         "element '%s': delay %s ns but line %s m at VF %s makes %s ns",
+                         e->label, cli_fmt(b1, sizeof b1, *delay_s * 1e9, 3),
+                         cli_fmt(b2, sizeof b2, e->line_m, 3), cli_fmt(b3, sizeof b3, vf, 4),
+                         cli_fmt(b4, sizeof b4, d * 1e9, 3));
+    }
+    *delay_s = d;
+    return 0;
+}
+
+/* The delay of the degrees column at design_hz; it must agree with the
+ * delay the element has from its column `from` (NULL: none). */
+static int degrees_delay(cli_ctx *rc, const char *text, double design_hz,
+                         const cli_layout_elem *e, const char *from, double *delay_s)
+{
+    double deg;
+    if (cli_bounded(rc, "degrees", text, CLI_BOUND_DEGREES,
+                   "electrical degrees, 0 or more, such as 90", &deg))
+        return CLI_EXIT_USAGE;
+    if (!(design_hz > 0.0))
+        return cli_error(rc, "degrees", "--design-freq 1.83MHz with a degrees column",
+                         "element '%s': electrical degrees need the frequency they hold at",
+                         e->label);
+    double d = deg / (360.0 * design_hz);
+    if (from && delays_differ(d, *delay_s))
+        return cli_error(rc, "degrees", "the degrees the delay makes at --design-freq, or one of them",
+                         "element '%s': %s deg at the design frequency disagrees with its %s",
+                         e->label, text, from);
+    *delay_s = d;
+    return 0;
+}
+
+/* The feed delay: any of delay, line, degrees; those given must agree. */
+static int row_delay(cli_ctx *rc, const cxl_csv_reader *rd, const int *map, double vf,
+                     double design_hz, cli_layout_elem *e)
+{
     double delay = 0.0;
     const char *from = NULL;
     if (cell(rd, map, COL_DELAY)[0]) {
         if (cli_time(rc, "delay", cell(rd, map, COL_DELAY), CLI_NONNEG, &delay))
             return CLI_EXIT_USAGE;
-        have_delay = 1;
         from = "delay";
     }
     if (cell(rd, map, COL_LINE)[0]) {
-        if (!(vf > 0.0))
-            return cli_error(rc, "line", "--vf 0.66 or --cable NAME with a line column",
-                             "element '%s': a line length needs the cable's velocity factor",
-                             e->label);
-        if (cli_length(rc, "line", cell(rd, map, COL_LINE), CLI_NONNEG, &e->line_m))
+        if (line_delay(rc, cell(rd, map, COL_LINE), vf, e, from != NULL, &delay))
             return CLI_EXIT_USAGE;
-        e->has_line = 1;
-        double d = e->line_m / (vf * CXL_C_M_PER_S);
-        if (have_delay && fabs(d - delay) > fmax(DELAY_MATCH_REL * delay, DELAY_MATCH_ABS_S)) {
-            char b1[32], b2[32], b3[32], b4[32];
-            return cli_error(rc, "delay", "a delay the line makes at its VF, or only one of them",
-                             "element '%s': delay %s ns but line %s m at VF %s makes %s ns",
-                             e->label, cli_fmt(b1, sizeof b1, delay * 1e9, 3),
-                             cli_fmt(b2, sizeof b2, e->line_m, 3), cli_fmt(b3, sizeof b3, vf, 4),
-                             cli_fmt(b4, sizeof b4, d * 1e9, 3));
-        }
-        delay = d;
-        have_delay = 1;
         from = "line";
     }
-    if (cell(rd, map, COL_DEGREES)[0]) {
-        double deg;
-        if (cli_bounded(rc, "degrees", cell(rd, map, COL_DEGREES), CLI_BOUND_DEGREES,
-                       "electrical degrees, 0 or more, such as 90", &deg))
-            return CLI_EXIT_USAGE;
-        if (!(design_hz > 0.0))
-            return cli_error(rc, "degrees", "--design-freq 1.83MHz with a degrees column",
-                             "element '%s': electrical degrees need the frequency they hold at",
-                             e->label);
-        double d = deg / (360.0 * design_hz);
-        if (have_delay && fabs(d - delay) > fmax(DELAY_MATCH_REL * delay, DELAY_MATCH_ABS_S))
-            return cli_error(rc, "degrees", "the degrees the delay makes at --design-freq, or one of them",
-                             "element '%s': %s deg at the design frequency disagrees with its %s",
-                             e->label, cell(rd, map, COL_DEGREES), from);
-        delay = d;
-    }
+    if (cell(rd, map, COL_DEGREES)[0] &&
+        degrees_delay(rc, cell(rd, map, COL_DEGREES), design_hz, e, from, &delay))
+        return CLI_EXIT_USAGE;
     if (!(delay <= CLI_MAX_TIME_S))
         return cli_error(rc, "delay", "a feed delay up to 1 s", "element '%s': delay too long",
                          e->label);
     e->delay_s = delay;
+    return 0;
+}
+
+static int row(cli_ctx *rc, const cxl_csv_reader *rd, const int *map, size_t index,
+               double vf, double design_hz, cli_layout_elem *e)
+{
+    memset(e, 0, sizeof *e);
+    e->file_line = cxl_csv_reader_line(rd);
+    if (row_place(rc, rd, map, index, e) || row_delay(rc, rd, map, vf, design_hz, e))
+        return CLI_EXIT_USAGE;
     if (parse_yes_no(rc, "invert", cell(rd, map, COL_INVERT), &e->invert)) return CLI_EXIT_USAGE;
     if (cell(rd, map, COL_WEIGHT)[0] &&
         cli_bounded(rc, "weight", cell(rd, map, COL_WEIGHT), CLI_BOUND_LEVEL_DB,
@@ -211,6 +246,38 @@ static int csv_close(csv_in *in, const char *field, cxl_status st, int code)
     return code;
 }
 
+/* Room for one more element: 0, or CLI_EXIT_USAGE after cli_error(). */
+static int make_room(cli_ctx *ctx, cli_ctx *rc, const char *field, cli_layout *out, size_t *cap)
+{
+    if (out->n >= CXL_ARRAY_MAX_ELEMENTS)
+        return cli_error(rc, "label", "at most 256 elements", "more than %d elements",
+                         CXL_ARRAY_MAX_ELEMENTS);
+    if (out->n < *cap) return 0;
+    size_t ncap = *cap ? 2 * *cap : 8;
+    cli_layout_elem *p = realloc(out->el, ncap * sizeof *p);
+    if (!p) return cli_error(ctx, field, NULL, "out of memory");
+    out->el = p;
+    *cap = ncap;
+    return 0;
+}
+
+/* Element e against those before it: no label twice, no two at one place. */
+static int distinct(cli_ctx *rc, const cli_layout *out, const cli_layout_elem *e)
+{
+    for (size_t j = 0; j < out->n; j++) {
+        const cli_layout_elem *o = &out->el[j];
+        if (strcmp(o->label, e->label) == 0)
+            return cli_error(rc, "label", "a label no other element has",
+                             "label '%s' is already used on line %zu", e->label, o->file_line);
+        if (fabs(o->x_m - e->x_m) < SAME_PLACE_M && fabs(o->y_m - e->y_m) < SAME_PLACE_M &&
+            fabs(o->z_m - e->z_m) < SAME_PLACE_M)
+            return cli_error(rc, "x", "elements at least 1 mm apart",
+                             "element '%s' is at the same place as '%s' (line %zu)", e->label,
+                             o->label, o->file_line);
+    }
+    return 0;
+}
+
 int cli_layout_load(cli_ctx *ctx, const char *field, const char *path, double vf,
                     double design_hz, cli_layout *out)
 {
@@ -227,34 +294,11 @@ int cli_layout_load(cli_ctx *ctx, const char *field, const char *path, double vf
     size_t cap = 0;
     cxl_status st = CXL_OK;
     while (!code && csv_next(&in, &st)) {
-        if (out->n >= CXL_ARRAY_MAX_ELEMENTS) {
-            code = cli_error(&in.rc, "label", "at most 256 elements",
-                             "more than %d elements", CXL_ARRAY_MAX_ELEMENTS);
-            break;
-        }
-        if (out->n == cap) {
-            size_t ncap = cap ? 2 * cap : 8;
-            cli_layout_elem *p = realloc(out->el, ncap * sizeof *p);
-            if (!p) {
-                code = cli_error(ctx, field, NULL, "out of memory");
-                break;
-            }
-            out->el = p;
-            cap = ncap;
-        }
+        code = make_room(ctx, &in.rc, field, out, &cap);
+        if (code) break;
         cli_layout_elem *e = &out->el[out->n];
         code = row(&in.rc, in.rd, map, out->n, vf, design_hz, e);
-        for (size_t j = 0; !code && j < out->n; j++) {
-            const cli_layout_elem *o = &out->el[j];
-            if (strcmp(o->label, e->label) == 0)
-                code = cli_error(&in.rc, "label", "a label no other element has",
-                                 "label '%s' is already used on line %zu", e->label, o->file_line);
-            else if (fabs(o->x_m - e->x_m) < SAME_PLACE_M && fabs(o->y_m - e->y_m) < SAME_PLACE_M &&
-                     fabs(o->z_m - e->z_m) < SAME_PLACE_M)
-                code = cli_error(&in.rc, "x", "elements at least 1 mm apart",
-                                 "element '%s' is at the same place as '%s' (line %zu)", e->label,
-                                 o->label, o->file_line);
-        }
+        if (!code) code = distinct(&in.rc, out, e);
         if (!code) out->n++;
     }
     code = csv_close(&in, field, st, code);
@@ -278,6 +322,35 @@ enum { AB_LABEL, AB_LINE, AB_PHASE, AB_IMBALANCE, NAB };
 static const char *const ab_name[NAB] = { "label", "line", "phase_error", "imbalance" };
 #define AB_EXAMPLE "a header such as label,line,phase_error,imbalance"
 
+/* One row of the as-built file onto its element of the layout. */
+static int as_built_row(cli_ctx *rc, const cxl_csv_reader *rd, const int *map,
+                        cli_layout *layout)
+{
+    const char *label = cell(rd, map, AB_LABEL);
+    cli_layout_elem *e = NULL;
+    for (size_t i = 0; i < layout->n; i++)
+        if (strcmp(layout->el[i].label, label) == 0) e = &layout->el[i];
+    if (!e)
+        return cli_error(rc, "label", "a label of the layout", "no element '%s' in the layout",
+                         label);
+    if (cell(rd, map, AB_LINE)[0]) {
+        if (!e->has_line)
+            return cli_error(rc, "line", "a measured line for an element the layout gives a line",
+                             "element '%s' has no line in the layout", label);
+        if (cli_length(rc, "line", cell(rd, map, AB_LINE), CLI_NONNEG, &e->built_line_m))
+            return CLI_EXIT_USAGE;
+    }
+    if (cell(rd, map, AB_PHASE)[0] &&
+        cli_bounded(rc, "phase_error", cell(rd, map, AB_PHASE), CLI_BOUND_PHASE_DEG,
+                   "degrees the element lags by, -180 to 180", &e->phase_error_deg))
+        return CLI_EXIT_USAGE;
+    if (cell(rd, map, AB_IMBALANCE)[0] &&
+        cli_bounded(rc, "imbalance", cell(rd, map, AB_IMBALANCE), CLI_BOUND_LEVEL_DB,
+                   "dB the element is weaker by, -60 to 60", &e->imbalance_db))
+        return CLI_EXIT_USAGE;
+    return 0;
+}
+
 int cli_layout_as_built(cli_ctx *ctx, const char *field, const char *path, cli_layout *layout)
 {
     for (size_t i = 0; i < layout->n; i++) {
@@ -293,41 +366,7 @@ int cli_layout_as_built(cli_ctx *ctx, const char *field, const char *path, cli_l
     if (map[AB_LABEL] < 0)
         code = cli_error(&in.rc, "label", AB_EXAMPLE, "the as-built file has no label column");
     cxl_status st = CXL_OK;
-    while (!code && csv_next(&in, &st)) {
-        cli_ctx *rc = &in.rc;
-        const cxl_csv_reader *rd = in.rd;
-        const char *label = cell(rd, map, AB_LABEL);
-        cli_layout_elem *e = NULL;
-        for (size_t i = 0; i < layout->n; i++)
-            if (strcmp(layout->el[i].label, label) == 0) e = &layout->el[i];
-        if (!e) {
-            code = cli_error(rc, "label", "a label of the layout", "no element '%s' in the layout",
-                             label);
-            break;
-        }
-        if (cell(rd, map, AB_LINE)[0]) {
-            if (!e->has_line) {
-                code = cli_error(rc, "line", "a measured line for an element the layout gives a line",
-                                 "element '%s' has no line in the layout", label);
-                break;
-            }
-            if (cli_length(rc, "line", cell(rd, map, AB_LINE), CLI_NONNEG, &e->built_line_m)) {
-                code = CLI_EXIT_USAGE;
-                break;
-            }
-        }
-        if (cell(rd, map, AB_PHASE)[0] &&
-            cli_bounded(rc, "phase_error", cell(rd, map, AB_PHASE), CLI_BOUND_PHASE_DEG,
-                       "degrees the element lags by, -180 to 180", &e->phase_error_deg)) {
-            code = CLI_EXIT_USAGE;
-            break;
-        }
-        if (cell(rd, map, AB_IMBALANCE)[0] &&
-            cli_bounded(rc, "imbalance", cell(rd, map, AB_IMBALANCE), CLI_BOUND_LEVEL_DB,
-                       "dB the element is weaker by, -60 to 60", &e->imbalance_db)) {
-            code = CLI_EXIT_USAGE;
-            break;
-        }
-    }
+    while (!code && csv_next(&in, &st))
+        code = as_built_row(&in.rc, in.rd, map, layout);
     return csv_close(&in, field, st, code);
 }
