@@ -52,16 +52,21 @@ void cli_capture_close(struct cli_capture *c)
 void cli_span_begin(struct cli_capture *c, cli_span *s)
 {
     c->whole_run = 0;
-    s->o0 = c->out ? (size_t)ftell(c->out) : 0;
-    s->e0 = c->err ? (size_t)ftell(c->err) : 0;
+    s->o0 = c->end_o;
+    s->e0 = c->end_e;
     s->m0 = c->nmark;
 }
 
-void cli_span_end(const struct cli_capture *c, cli_span *s)
+/* Messages reach c->err only through cli_report_stream, which marks
+ * each: no new mark (and no failed mark) means no new message bytes. */
+void cli_span_end(struct cli_capture *c, cli_span *s)
 {
     s->o1 = c->out ? (size_t)ftell(c->out) : 0;
-    s->e1 = c->err ? (size_t)ftell(c->err) : 0;
+    s->e1 = s->e0;
+    if (c->nmark != s->m0 || c->failed) s->e1 = c->err ? (size_t)ftell(c->err) : 0;
     s->m1 = c->nmark;
+    c->end_o = s->o1;
+    c->end_e = s->e1;
 }
 
 /* Write a span as one thread would have: stdout flushed before each
@@ -91,4 +96,5 @@ void cli_capture_rewind(struct cli_capture *c)
     if (fseek(c->out, 0, SEEK_SET) || fseek(c->err, 0, SEEK_SET)) c->failed = 1;
     c->nmark = 0;
     c->whole_run = 0;
+    c->end_o = c->end_e = 0;
 }

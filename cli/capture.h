@@ -14,6 +14,7 @@ struct cli_capture {
     size_t osize, esize;
     size_t (*mark)[2];       /* stdout and message offsets where a message began */
     size_t nmark, cap;
+    size_t end_o, end_e;     /* stdout and message offsets where the last span ended */
     int whole_run;           /* a message without a batch line since reset */
     int failed;              /* out of memory: its rows run again */
 };
@@ -28,9 +29,11 @@ int cli_capture_open(struct cli_capture *c);
 void cli_capture_close(struct cli_capture *c);
 /* Empty again for the next block, the memory kept. */
 void cli_capture_rewind(struct cli_capture *c);
-/* The capture's position before and after one row (whole_run reset). */
+/* The capture's position before and after one row (whole_run reset).
+ * Every byte written to a capture lies in a span: a span begins where
+ * the last one ended, so ftell (a lock and a seek) runs once a row. */
 void cli_span_begin(struct cli_capture *c, cli_span *s);
-void cli_span_end(const struct cli_capture *c, cli_span *s);
+void cli_span_end(struct cli_capture *c, cli_span *s);
 /* The span to ctx->out and stderr as one thread writes them: stdout
  * flushed before each message.  The capture's streams flushed first. */
 void cli_replay(const cli_ctx *ctx, const struct cli_capture *c, const cli_span *s);

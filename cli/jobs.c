@@ -37,7 +37,12 @@
 #include "capture.h"
 #include "cli.h"
 
-enum { BLOCK_ROWS = 2048, CHUNK_ROWS = 128, NCHUNKS = BLOCK_ROWS / CHUNK_ROWS };
+/* A block holds at most BLOCK_ROWS rows and, going by the rows before,
+ * about BLOCK_BYTES of captured output (a sweep row prints ~18 KB): the
+ * first block is FIRST_ROWS long, later ones grow as the output allows.
+ * A block is cut into NCHUNKS chunks, the workers' unit of work. */
+enum { BLOCK_ROWS = 2048, FIRST_ROWS = 256, NCHUNKS = 16 };
+#define BLOCK_BYTES ((size_t)8 << 20)
 #define NO_CELL SIZE_MAX
 
 typedef struct slot {
@@ -55,13 +60,22 @@ typedef struct slot {
 
 typedef struct block {
     slot slots[BLOCK_ROWS];
-    size_t n;
+    size_t n, chunk_rows;
     char *arena;
     size_t used, size;
     struct cli_capture reader;
     struct cli_capture chunk[NCHUNKS];
     size_t pending;          /* chunks not yet run */
+    size_t nchunks;          /* chunks handed to the workers */
 } block;
+
+/* The FILE options of the command (a row reads standard input when one
+ * is "-"), found once rather than on every row; stdin_always when the
+ * command line already gives "-" to one of them. */
+typedef struct file_opts {
+    int nopts, n, idx[CLI_MAX_OPTS];
+    int from_args[CLI_MAX_OPTS];
+} file_opts;
 
 typedef struct pool {
     pthread_mutex_t mu;
@@ -72,6 +86,8 @@ typedef struct pool {
     cli_ctx proto;           /* the main ctx past the header, as it was */
     cli_args args;           /* the command line's values, as they were */
     int spec_header;         /* the header state a worker assumes */
+    file_opts files;
+    size_t block_rows;       /* rows read into the next block */
     int serial;              /* every row from here on, on the main thread */
 } pool;
 
@@ -93,45 +109,52 @@ static size_t keep(block *bk, const char *text)
     return bk->used - len;
 }
 
-/* 1 when the row reads standard input: a FILE option of "-". */
-static int reads_stdin(const cli_command *cmd, const cli_args *args, const char *const *row)
+static void find_file_opts(file_opts *f, const cli_command *cmd, const cli_args *args)
 {
-    for (int i = 0; cmd->opts[i].name; i++) {
+    memset(f, 0, sizeof *f);
+    for (int i = 0; cmd->opts[i].name; i++, f->nopts++) {
         if (!cmd->opts[i].arg || !strstr(cmd->opts[i].arg, "FILE")) continue;
-        if (row[i] && strcmp(row[i], "-") == 0) return 1;
-        for (size_t k = 0; !row[i] && k < args->nval[i]; k++)
-            if (strcmp(args->val[i][k], "-") == 0) return 1;
+        for (size_t k = 0; k < args->nval[i]; k++)
+            if (strcmp(args->val[i][k], "-") == 0) f->from_args[f->n] = 1;
+        f->idx[f->n++] = i;
+    }
+}
+
+/* 1 when the row reads standard input: a FILE option of "-". */
+static int reads_stdin(const file_opts *f, const char *const *row)
+{
+    for (int k = 0; k < f->n; k++) {
+        const char *cell = row[f->idx[k]];
+        if (cell ? strcmp(cell, "-") == 0 : f->from_args[k]) return 1;
     }
     return 0;
 }
 
 /* Keep the row just read in slot s: cells and plot names into the arena. */
-static void keep_row(block *bk, slot *s, const cli_batch *b, const cli_command *cmd,
-                     const cli_args *args)
+static void keep_row(block *bk, slot *s, const cli_batch *b, const file_opts *f)
 {
     const char *const *row = cli_batch_row(b), *const *plot = cli_batch_plots(b);
-    s->main_only = reads_stdin(cmd, args, row);
-    for (int i = 0; i < CLI_MAX_OPTS; i++) {
+    s->main_only = reads_stdin(f, row);
+    for (int i = 0; i < f->nopts; i++) {
         s->cell[i] = keep(bk, row[i]);
-        s->plot[i] = NO_CELL;
-        if (row[i] && s->cell[i] == NO_CELL) s->main_only = 1; /* out of memory */
-    }
-    for (int i = 0; cmd->opts[i].name; i++) {
         s->plot[i] = keep(bk, plot[i]);
-        if (plot[i] && s->plot[i] == NO_CELL) s->main_only = 1;
+        if ((row[i] && s->cell[i] == NO_CELL) || (plot[i] && s->plot[i] == NO_CELL))
+            s->main_only = 1; /* out of memory */
     }
 }
 
 /* Read up to BLOCK_ROWS rows into bk, messages into its reader capture.
  * Returns 1 at the end of the input. */
-static int fill(block *bk, cli_batch *b, const cli_ctx *main_ctx, cli_args *args)
+static int fill(block *bk, cli_batch *b, const cli_ctx *main_ctx, cli_args *args,
+                const file_opts *f, size_t max_rows)
 {
     cli_ctx rctx = *main_ctx;
     rctx.capture = &bk->reader;
     rctx.out = bk->reader.out;
     bk->n = 0;
     bk->used = 0;
-    while (bk->n < BLOCK_ROWS) {
+    bk->chunk_rows = (max_rows + NCHUNKS - 1) / NCHUNKS;
+    while (bk->n < max_rows) {
         slot *s = &bk->slots[bk->n];
         int rc = CLI_EXIT_OK;
         cli_span_begin(&bk->reader, &s->sp);
@@ -143,16 +166,18 @@ static int fill(block *bk, cli_batch *b, const cli_ctx *main_ctx, cli_args *args
         s->rc = rc;
         s->ran = 0;
         s->cap = &bk->reader;
-        if (kind == CLI_ROW_RUN) keep_row(bk, s, b, main_ctx->cmd, args);
+        if (kind == CLI_ROW_RUN) keep_row(bk, s, b, f);
         bk->n++;
     }
     return 0;
 }
 
-/* The row's cells and plot names as pointers into the arena. */
-static void row_pointers(const block *bk, const slot *s, const char **row, const char **plot)
+/* The row's cells and plot names as pointers into the arena (the
+ * entries past the command's options are left as they are: NULL). */
+static void row_pointers(const block *bk, const slot *s, int nopts, const char **row,
+                         const char **plot)
 {
-    for (int i = 0; i < CLI_MAX_OPTS; i++) {
+    for (int i = 0; i < nopts; i++) {
         row[i] = s->cell[i] == NO_CELL ? NULL : bk->arena + s->cell[i];
         plot[i] = s->plot[i] == NO_CELL ? NULL : bk->arena + s->plot[i];
     }
@@ -167,12 +192,15 @@ static void run_chunk(const pool *p, cli_ctx *ctx, cli_args *args, block *bk, si
     if (cap->failed) return;
     ctx->out = cap->out;
     ctx->capture = cap;
-    size_t end = (c + 1) * CHUNK_ROWS < bk->n ? (c + 1) * CHUNK_ROWS : bk->n;
-    for (size_t i = c * CHUNK_ROWS; i < end; i++) {
+    /* Held for the chunk: each write then takes the lock without an
+     * atomic instruction. */
+    flockfile(cap->out);
+    const char *row[CLI_MAX_OPTS] = { 0 }, *plot[CLI_MAX_OPTS] = { 0 };
+    size_t end = (c + 1) * bk->chunk_rows < bk->n ? (c + 1) * bk->chunk_rows : bk->n;
+    for (size_t i = c * bk->chunk_rows; i < end; i++) {
         slot *s = &bk->slots[i];
         if (s->kind != CLI_ROW_RUN || s->main_only) continue;
-        const char *row[CLI_MAX_OPTS], *plot[CLI_MAX_OPTS];
-        row_pointers(bk, s, row, plot);
+        row_pointers(bk, s, p->files.nopts, row, plot);
         cli_batch_apply(ctx->cmd, args, row, plot);
         ctx->line = s->line;
         ctx->header_done = p->spec_header;
@@ -186,6 +214,7 @@ static void run_chunk(const pool *p, cli_ctx *ctx, cli_args *args, block *bk, si
         s->rows_out = ctx->rows_out;
         s->ran = 1;
     }
+    funlockfile(cap->out);
     if (fflush(cap->out) || fflush(cap->err)) cap->failed = 1;
 }
 
@@ -248,9 +277,10 @@ static void *worker(void *arg)
 /* Queue the chunks of bk for the workers (none once p->serial is set). */
 static void submit(pool *p, block *bk)
 {
-    size_t n = p->serial ? 0 : (bk->n + CHUNK_ROWS - 1) / CHUNK_ROWS;
+    size_t n = p->serial ? 0 : (bk->n + bk->chunk_rows - 1) / bk->chunk_rows;
     pthread_mutex_lock(&p->mu);
     bk->pending = n;
+    bk->nchunks = n;
     for (size_t c = 0; c < n; c++) {
         p->queue[(p->head + p->count) % (2 * NCHUNKS)].b = bk;
         p->queue[(p->head + p->count) % (2 * NCHUNKS)].c = c;
@@ -283,11 +313,23 @@ static int write_slot(pool *p, cli_ctx *ctx, cli_args *args, const block *bk, co
         ctx->rows_out += s->rows_out - 1;
         return s->rc;
     }
-    const char *row[CLI_MAX_OPTS], *plot[CLI_MAX_OPTS];
-    row_pointers(bk, s, row, plot);
+    const char *row[CLI_MAX_OPTS] = { 0 }, *plot[CLI_MAX_OPTS] = { 0 };
+    row_pointers(bk, s, p->files.nopts, row, plot);
     cli_batch_apply(ctx->cmd, args, row, plot);
     ctx->line = s->line;
     return ctx->cmd->run(ctx, args);
+}
+
+/* The rows of the next block: as many as fit BLOCK_BYTES of output at
+ * this block's bytes a row, at most twice this block's limit. */
+static void next_block_rows(pool *p, const block *bk)
+{
+    size_t bytes = bk->reader.end_o + bk->reader.end_e, rows = BLOCK_ROWS;
+    for (size_t c = 0; c < bk->nchunks; c++) bytes += bk->chunk[c].end_o + bk->chunk[c].end_e;
+    if (bk->n > 0 && bytes / bk->n > 0) rows = BLOCK_BYTES / (bytes / bk->n);
+    if (rows > 2 * p->block_rows) rows = 2 * p->block_rows;
+    if (rows > BLOCK_ROWS) rows = BLOCK_ROWS;
+    p->block_rows = rows < NCHUNKS ? NCHUNKS : rows;
 }
 
 static int write_block(pool *p, cli_ctx *ctx, cli_args *args, block *bk)
@@ -295,8 +337,11 @@ static int write_block(pool *p, cli_ctx *ctx, cli_args *args, block *bk)
     int code = CLI_EXIT_OK;
     fflush(bk->reader.out);
     fflush(bk->reader.err);
+    flockfile(ctx->out); /* this thread alone writes it: no atomic a write */
     for (size_t i = 0; i < bk->n; i++)
         code = cli_batch_worse(code, write_slot(p, ctx, args, bk, &bk->slots[i]));
+    funlockfile(ctx->out);
+    next_block_rows(p, bk);
     cli_capture_rewind(&bk->reader);
     return code;
 }
@@ -307,13 +352,13 @@ static int pipeline(pool *p, cli_batch *b, cli_ctx *ctx, cli_args *args, block *
 {
     if (cli_capture_open(&bk[0].reader) || cli_capture_open(&bk[1].reader))
         return cli_batch_run_rows(b, ctx, args);
-    int code = CLI_EXIT_OK, cur = 0, ended = fill(&bk[0], b, ctx, args), rest = 0;
+    int code = CLI_EXIT_OK, cur = 0, ended = fill(&bk[0], b, ctx, args, &p->files, p->block_rows), rest = 0;
     submit(p, &bk[0]);
     for (;;) {
         int nxt = 1 - cur;
         bk[nxt].n = 0;
         if (!ended && !bk[nxt].reader.failed) {
-            ended = fill(&bk[nxt], b, ctx, args);
+            ended = fill(&bk[nxt], b, ctx, args, &p->files, p->block_rows);
             submit(p, &bk[nxt]);
         } else if (!ended) {
             rest = 1; /* out of memory: the rest in turn, here */
@@ -344,6 +389,8 @@ int cli_jobs_run(cli_batch *b, cli_ctx *ctx, cli_args *args)
     p->proto = *ctx;
     p->args = *args;
     p->spec_header = ctx->format != CLI_TEXT;
+    find_file_opts(&p->files, ctx->cmd, args);
+    p->block_rows = FIRST_ROWS;
     for (int i = 0; i < ctx->jobs && i < CLI_MAX_JOBS; i++)
         if (pthread_create(&tid[nthreads], NULL, worker, p) == 0) nthreads++;
     int code = nthreads ? pipeline(p, b, ctx, args, bk) : cli_batch_run_rows(b, ctx, args);

@@ -54,12 +54,8 @@ static int finish(int code)
 
 int main(int argc, char **argv)
 {
-    /* The user's locale may use a comma decimal mark: the library's
-     * number I/O ignores it, so output is the same bytes everywhere. */
-    setlocale(LC_ALL, "");
-    /* This process owns GSL's error handler: statuses, never abort(). */
-    gsl_set_error_handler_off();
-
+    /* Usage and version first: their bytes need no locale, and loading
+     * one (a file a category) is most of a short run's system calls. */
     if (argc < 2) {
         usage(stderr);
         return CLI_EXIT_USAGE;
@@ -73,6 +69,11 @@ int main(int argc, char **argv)
         printf("coaxline %s (libcoaxline %s)\n", PACKAGE_VERSION, cxl_version());
         return finish(CLI_EXIT_OK);
     }
+    /* The user's locale may use a comma decimal mark: the library's
+     * number I/O ignores it, so output is the same bytes everywhere. */
+    setlocale(LC_ALL, "");
+    /* This process owns GSL's error handler: statuses, never abort(). */
+    gsl_set_error_handler_off();
     if (strcmp(argv[1], "--generate") == 0 && argc == 3) /* build and test tool */
         return finish(cli_generate(argv[2], commands, NCOMMANDS, stdout));
     for (size_t i = 0; i < NCOMMANDS; i++)
