@@ -735,7 +735,7 @@ cxl_status cxl_loss_total_db(double matched_loss_db, double swr,
 /* The same for a run: length_m (> 0) of line losing loss_db_per_m (>= 0). */
 cxl_status cxl_loss_run_db(double loss_db_per_m, double length_m, double swr,
                            double *matched_loss_db, double *total_loss_db);
-/* ---- array.c: pattern of a receive array (N elements; a pair is N = 2) -- */
+/* ---- array.c: pattern of a receive array (N elements; the duo is N = 2) - */
 
 /* Model (stated here so every caller sees it): identical elements, no
  * mutual coupling between them, an ideal combiner that adds the element
@@ -818,7 +818,7 @@ cxl_status cxl_loss_run_db(double loss_db_per_m, double length_m, double swr,
  * cxl_loss_model_gamma for a modelled line (CXL_EEXTRAPOLATE outside its
  * range); CXL_ENOMEM; CXL_ENOCONV.
  *
- * The two-element pair (cxl_duo, cxl_duo_gain, ...) is the same
+ * The duo, the two-element model (cxl_duo, cxl_duo_gain, ...) is the same
  * model with element 0 at (x, y) = (+stagger/2, -spacing/2) (front left
  * for a positive stagger) and element 1 at (-stagger/2, +spacing/2):
  * spacing is the distance across the forward axis, stagger the offset
@@ -927,11 +927,11 @@ cxl_status cxl_array_eval_rdf(const cxl_array *array, double freq_hz,
                               double elevation_deg, double *rdf_forward_db,
                               double *rdf_peak_db);
 
-/* ---- the duo: the two-element pair (evaluated by the code above) ---- */
+/* ---- the duo: the two-element model (evaluated by the code above) ---- */
 
 typedef struct cxl_duo cxl_duo;
 
-/* A new pair: isotropic elements, spacing and stagger 0, no delays, no
+/* A new duo: isotropic elements, spacing and stagger 0, no delays, no
  * phase offsets, no flip, no imbalance. */
 cxl_status cxl_duo_new(cxl_duo **duo);
 void cxl_duo_free(cxl_duo *duo);
@@ -958,7 +958,7 @@ cxl_status cxl_duo_set_phase_offset(cxl_duo *duo,
 cxl_status cxl_duo_set_flip(cxl_duo *duo, int element,
                             int flipped);
 /* Element 1 weaker than element 0 by imbalance_db (|dB| <= 200). */
-/* The design feed of a staggered pair (the geometry's stagger must not be
+/* The design feed of a staggered duo (the geometry's stagger must not be
  * 0; element A is ahead when it is positive): CXL_FEED_CROSSFIRE delays
  * the rear element by the stagger's free-space delay and inverts it
  * (broadband; design_freq_hz may be 0); CXL_FEED_ENDFIRE delays the front
@@ -1031,7 +1031,7 @@ cxl_status cxl_duo_directivity(const cxl_duo *duo, double freq_hz,
 cxl_status cxl_duo_rdf(const cxl_duo *duo, double freq_hz,
                        double *rdf_db);
 
-/* Closed form, any pair: the null of an otherwise perfect pair whose
+/* Closed form, any duo: the null of an otherwise perfect duo whose
  * second signal has a phase error phase_error_deg and is weaker by
  * imbalance_db, relative to the coherent maximum (1 + a)^2, a =
  * 10^(-imbalance_db/20):  10 log10((1 - 2 a cos d + a^2) / (1 + a)^2).
@@ -1050,7 +1050,7 @@ cxl_status cxl_duo_null_depth(double phase_error_deg, double imbalance_db,
 cxl_status cxl_budget_phase_for_null(double depth_db, double imbalance_db,
                                      double *phase_error_deg);
 /* Largest phase error added to element 1 (either sign; the smaller of the
- * two limits is returned) for which the pair's front-to-back ratio at
+ * two limits is returned) for which the duo's front-to-back ratio at
  * freq_hz and elevation_deg stays at or above ratio_db.  Found by a scan in
  * 0.25-degree steps and refined with gsl_root_fsolver_brent.  CXL_ERANGE
  * when the error-free pair already misses ratio_db; 180 when no error up to
@@ -1061,21 +1061,21 @@ cxl_status cxl_budget_phase_for_front_to_back(const cxl_duo *duo,
                                               double elevation_deg,
                                               double *phase_error_deg);
 /* Largest phase error on element 1 (either sign; the smaller of the two
- * limits is returned, in [0, 180]) for which the pair's rear null at
+ * limits is returned, in [0, 180]) for which the duo's rear null at
  * freq_hz and elevation_deg, measured as cxl_duo_rear_null measures it
  * (deepest response over azimuth 90..270 relative to the response at
  * azimuth 0), stays at or below depth_db (-CXL_DB_LIMIT <= depth_db < 0).
  * This is the null relative to the forward response of the geometry
  * given, not to the in-phase sum (cxl_budget_phase_for_null): for a compact
- * pair it allows much less error.  The pair is the design (its imbalance
+ * duo it allows much less error.  The duo is the design (its imbalance
  * and element type count); each trial error replaces element 1's fixed
  * phase offset on a private copy (cxl_duo_set_phase_offset, B
- * lagging positive), the caller's pair is not changed.  The tolerance also
- * ends where an error cancels the forward response (a compact pair whose
+ * lagging positive), the caller's duo is not changed.  The tolerance also
+ * ends where an error cancels the forward response (a compact duo whose
  * pattern turns round).  Found by a scan in
  * 0.25-degree steps and refined with gsl_root_fsolver_brent.  CXL_ERANGE
- * when the error-free pair's null is already shallower than depth_db (or
- * the pair has no forward response); 180 when no error up to 180 degrees
+ * when the error-free duo's null is already shallower than depth_db (or
+ * the duo has no forward response); 180 when no error up to 180 degrees
  * makes the null shallower than depth_db. */
 cxl_status cxl_budget_phase_for_rear_null(const cxl_duo *duo,
                                           double depth_db,

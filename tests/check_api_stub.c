@@ -2,6 +2,31 @@
 #include <config.h>
 #include "check_api.h"
 
+/* A result's flags getter (call reads into flags): the flags into o[0]. */
+#define FLAGS_ADAPTER(name, call)                                            \
+    ADAPTER(name)                                                            \
+    {                                                                        \
+        (void)a;                                                             \
+        unsigned flags = (unsigned)SENT;                                     \
+        cxl_status st = call;                                                \
+        o[0] = flags;                                                        \
+        return st;                                                           \
+    }
+
+/* A *_into call: a fresh result of type (type##_new) filled by call, one
+ * value read back by read on success, the result freed. */
+#define INTO_ADAPTER(name, type, call, read)                                 \
+    ADAPTER(name)                                                            \
+    {                                                                        \
+        (void)a;                                                             \
+        type *r = NULL;                                                      \
+        ck_assert_int_eq(type##_new(&r), CXL_OK);                            \
+        cxl_status st = call;                                                \
+        if (st == CXL_OK) ck_assert_int_eq(read, CXL_OK);                    \
+        type##_free(r);                                                      \
+        return st;                                                           \
+    }
+
 /* stub.c */
 ADAPTER(stub_wavelengths)
 {
@@ -63,14 +88,7 @@ ADAPTER(stub_result_fixture)
     (void)a;
     return cxl_stub_result_fixture(P(0, g_res2), P(1, &o[0]), P(2, &o[1]), P(3, &o[2]));
 }
-ADAPTER(stub_result_flags)
-{
-    (void)a;
-    unsigned flags = (unsigned)SENT;
-    cxl_status st = cxl_stub_result_flags(P(0, g_res1), P(1, &flags));
-    o[0] = flags;
-    return st;
-}
+FLAGS_ADAPTER(stub_result_flags, cxl_stub_result_flags(P(0, g_res1), P(1, &flags)))
 ADAPTER(stub_result_vf_at)
 {
     unsigned how = (unsigned)SENT;
@@ -238,14 +256,7 @@ ADAPTER(trim_result_vf)
     (void)a;
     return cxl_trim_result_vf(P(0, g_trim_res), P(1, &o[0]), P(2, &o[1]), P(3, &o[2]));
 }
-ADAPTER(trim_result_flags)
-{
-    (void)a;
-    unsigned flags = (unsigned)SENT;
-    cxl_status st = cxl_trim_result_flags(P(0, g_trim_res), P(1, &flags));
-    o[0] = flags;
-    return st;
-}
+FLAGS_ADAPTER(trim_result_flags, cxl_trim_result_flags(P(0, g_trim_res), P(1, &flags)))
 ADAPTER(trim_result_reading)
 {
     int order = (int)SENT;
@@ -259,25 +270,9 @@ ADAPTER(trim_result_reading)
 /* handles reused row after row: reset, an empty result, a refit into it */
 STUB_SETTER(stub_reset, cxl_stub_reset(P(0, s), (cxl_stub_end)to_int(a[0])))
 NEW_ADAPTER(stub_result_new, cxl_stub_result, cxl_stub_result_new(P(0, &h)), cxl_stub_result_free)
-ADAPTER(stub_fit_into)
-{
-    (void)a;
-    cxl_stub_result *r = NULL;
-    ck_assert_int_eq(cxl_stub_result_new(&r), CXL_OK);
-    cxl_status st = cxl_stub_fit_into(P(0, g_stub), P(1, r));
-    if (st == CXL_OK) ck_assert_int_eq(cxl_stub_result_vf(r, &o[0], NULL), CXL_OK);
-    cxl_stub_result_free(r);
-    return st;
-}
+INTO_ADAPTER(stub_fit_into, cxl_stub_result, cxl_stub_fit_into(P(0, g_stub), P(1, r)),
+             cxl_stub_result_vf(r, &o[0], NULL))
 TRIM_SETTER(trim_reset, 3, 1, cxl_trim_reset(P(0, t), (cxl_stub_end)to_int(a[0]), a[1]))
 NEW_ADAPTER(trim_result_new, cxl_trim_result, cxl_trim_result_new(P(0, &h)), cxl_trim_result_free)
-ADAPTER(trim_solve_into)
-{
-    (void)a;
-    cxl_trim_result *r = NULL;
-    ck_assert_int_eq(cxl_trim_result_new(&r), CXL_OK);
-    cxl_status st = cxl_trim_solve_into(P(0, g_trim), P(1, r));
-    if (st == CXL_OK) ck_assert_int_eq(cxl_trim_result_cut(r, &o[0], NULL, NULL, NULL), CXL_OK);
-    cxl_trim_result_free(r);
-    return st;
-}
+INTO_ADAPTER(trim_solve_into, cxl_trim_result, cxl_trim_solve_into(P(0, g_trim), P(1, r)),
+             cxl_trim_result_cut(r, &o[0], NULL, NULL, NULL))

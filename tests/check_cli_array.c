@@ -115,9 +115,7 @@ END_TEST
 
 static void bad_layout(const char *layout, const char *opts, const char *field, const char *also)
 {
-    char args[512];
-    snprintf(args, sizeof args, "array --layout %%s %s", opts);
-    bad_with_file(args, layout, strlen(layout), field, also);
+    bad_file_opts("array --layout", layout, opts, field, also);
 }
 
 START_TEST(bad_layouts)

@@ -69,12 +69,8 @@ END_TEST
  * kinds of piece in order. */
 START_TEST(text_and_csv)
 {
-    char *path = temp_file(SITE, strlen(SITE));
-    char args[1024];
-    snprintf(args, sizeof args,
-             "harness --layout %s --vf 0.83 --combiner 0,0 --slack 2m --drum 120m --freq 1.83MHz "
-             "--format csv", path);
-    cli_result r = run_cli(NULL, args, NULL);
+    cli_result r = run_cli_with_file("harness --layout %s --vf 0.83 --combiner 0,0 --slack 2m "
+                                     "--drum 120m --freq 1.83MHz --format csv", SITE, strlen(SITE));
     ck_assert_int_eq(r.rc, 0);
     has(r.out, "label,element,piece,length_m,length_ft,tape,check_mhz,electrical_deg,drum,drum_used_m\n");
     has(r.out, ",NW,feed,17.305,56.7757,56 ft 9 5/16 in,");
@@ -89,6 +85,8 @@ START_TEST(text_and_csv)
         if (row != 3 && row != 5)
             ck_assert_double_eq_tol(site_num("--combiner 0,0 --slack 2m --freq 1.83MHz", row,
                                              "electrical_deg"), deg, 1e-9);
+    char *path = temp_file(SITE, strlen(SITE));
+    char args[1024];
     snprintf(args, sizeof args, "harness --layout %s --cable RG-6-CCS --combiner 0,0 --slack 2m "
              "--drum 120m --label 'site A'", path);
     r = run_cli(NULL, args, NULL);
@@ -112,12 +110,8 @@ END_TEST
  * printed, the pieces no drum holds without a drum. */
 START_TEST(drums_too_short)
 {
-    char *path = temp_file(SITE, strlen(SITE));
-    char args[1024];
-    snprintf(args, sizeof args,
-             "harness --layout %s --vf 0.83 --combiner 0,0 --slack 2m --drum 40m --drum 30m "
-             "--format csv", path);
-    cli_result r = run_cli(NULL, args, NULL);
+    cli_result r = run_cli_with_file("harness --layout %s --vf 0.83 --combiner 0,0 --slack 2m "
+                                     "--drum 40m --drum 30m --format csv", SITE, strlen(SITE));
     ck_assert_int_eq(r.rc, 1);
     ck_assert_int_eq(count_lines(r.err), 1);
     has(r.err, "drum");
@@ -131,21 +125,19 @@ START_TEST(drums_too_short)
                                      "drum_used_m"), 2 * 17.305228, 1e-5);
     ck_assert_double_eq_tol(site_num("--combiner 0,0 --slack 2m --drum 40m,30m", 7,
                                      "drum_used_m"), 17.305228, 1e-5);
-    unlink(path);
-    free(path);
 }
 END_TEST
 
 static void bad_layout_h(const char *layout, const char *opts, const char *field, const char *also)
 {
-    char args[512];
-    snprintf(args, sizeof args, "harness --layout %%s %s", opts);
-    bad_with_file(args, layout, strlen(layout), field, also);
+    bad_file_opts("harness --layout", layout, opts, field, also);
 }
+
+/* options every bad_input case but the one under test gets right */
+#define OK_OPTS "--vf 0.83 --combiner 0,0"
 
 START_TEST(bad_input)
 {
-    const char *ok = "--vf 0.83 --combiner 0,0";
     bad("harness --vf 0.83 --combiner 0,0", "layout");
     bad_layout_h(SITE, "--vf 0.83", "combiner", NULL);
     bad_layout_h(SITE, "--vf 0.83 --combiner 3m", "combiner", NULL);
@@ -154,22 +146,17 @@ START_TEST(bad_input)
     bad_layout_h(SITE, "--vf 0.83 --combiner 0,nan", "combiner", NULL);
     bad_layout_h(SITE, "--combiner 0,0", "vf", NULL);
     bad_layout_h(SITE, "--vf 1.5 --combiner 0,0", "vf", NULL);
-    char o[256];
-    snprintf(o, sizeof o, "%s --drum -5m", ok);
-    bad_layout_h(SITE, o, "drum", NULL);
-    snprintf(o, sizeof o, "%s --drum 0", ok);
-    bad_layout_h(SITE, o, "drum", NULL);
-    snprintf(o, sizeof o, "%s --kerf nan", ok);
-    bad_layout_h(SITE, o, "kerf", NULL);
-    snprintf(o, sizeof o, "%s --slack -1m", ok);
-    bad_layout_h(SITE, o, "slack", NULL);
+    bad_layout_h(SITE, OK_OPTS " --drum -5m", "drum", NULL);
+    bad_layout_h(SITE, OK_OPTS " --drum 0", "drum", NULL);
+    bad_layout_h(SITE, OK_OPTS " --kerf nan", "kerf", NULL);
+    bad_layout_h(SITE, OK_OPTS " --slack -1m", "slack", NULL);
     /* the allowance takes a whole 0.3 m delay line */
-    snprintf(o, sizeof o, "%s --allowance 0.5m", ok);
-    bad_layout_h("label,x,y,line\nA,5m,0,\nB,-5m,0,0.3m\n", o, "allowance", NULL);
+    bad_layout_h("label,x,y,line\nA,5m,0,\nB,-5m,0,0.3m\n", OK_OPTS " --allowance 0.5m",
+                 "allowance", NULL);
     /* the layout's own errors name the file line */
-    bad_layout_h("label,x,y\nA,0,0\nA,5m,0\n", ok, "label", "line 3");
-    bad_layout_h("label,x,y\nA,0,0\nB,,3m\n", ok, "x", "line 3");
-    bad_layout_h("label,x,y,degrees\nA,0,0,90\n", ok, "degrees", "line 2");
+    bad_layout_h("label,x,y\nA,0,0\nA,5m,0\n", OK_OPTS, "label", "line 3");
+    bad_layout_h("label,x,y\nA,0,0\nB,,3m\n", OK_OPTS, "x", "line 3");
+    bad_layout_h("label,x,y,degrees\nA,0,0,90\n", OK_OPTS, "degrees", "line 2");
 }
 END_TEST
 

@@ -25,8 +25,7 @@ static const char *in_dir(const char *fmt, const char *file)
 
 START_TEST(text_summary_and_resonances)
 {
-    cli_result r = run_cli(NULL, in_dir("sweep %s --length 7.3m --label stub", "s_ri_hz.s1p"), NULL);
-    ck_assert_int_eq(r.rc, 0);
+    cli_result r = run_expect(in_dir("sweep %s --length 7.3m --label stub", "s_ri_hz.s1p"), 0);
     has(r.out, "points      121, 1.000000 to 61.000000 MHz (mean step 500.000 kHz)");
     has(r.out, "Touchstone 1.0, reference 50.00 ohm");
     has(r.out, "far end open");
@@ -36,9 +35,8 @@ START_TEST(text_summary_and_resonances)
     ck_assert_str_eq(r.err, "");
     cli_result_free(&r);
     /* --file and the bare argument are the same */
-    cli_result a = run_cli(NULL, in_dir("sweep %s --format csv", "s_db_mhz.s1p"), NULL);
+    cli_result a = run_expect(in_dir("sweep %s --format csv", "s_db_mhz.s1p"), 0);
     cli_result b = run_cli(NULL, in_dir("sweep --file %s --format csv", "s_db_mhz.s1p"), NULL);
-    ck_assert_int_eq(a.rc, 0);
     ck_assert_str_eq(a.out, b.out);
     cli_result_free(&a);
     cli_result_free(&b);
@@ -50,9 +48,8 @@ END_TEST
  * model; VF = 4 L f / ((2n - 1) c), DESIGN.md). */
 START_TEST(csv_vf_within_a_tenth_of_a_percent)
 {
-    cli_result r = run_cli(NULL, in_dir("sweep %s --length 7.3m --kind reactance-zero "
-                                        "--format csv", "z_ri.s1p"), NULL);
-    ck_assert_int_eq(r.rc, 0);
+    cli_result r = run_expect(in_dir("sweep %s --length 7.3m --kind reactance-zero --format csv",
+                                     "z_ri.s1p"), 0);
     static const char header[] = "label,file,points,start_mhz,stop_mhz,reference_ohm,kind,"
                                  "resonance,order,freq_mhz,uncertainty_khz,r_ohm,z_ohm,swr,vf,"
                                  "vf_err,loss_db_per_100m,loss_err_db_per_100m,z0_ohm,z0_err_ohm,"
@@ -79,9 +76,8 @@ END_TEST
  * Z0 within 0.1 % (common practice, no source). */
 START_TEST(fitted_line_matches_the_generated_one)
 {
-    cli_result r = run_cli(NULL, in_dir("sweep %s --length 7.3m --at 5MHz,20MHz,55MHz "
-                                        "--format csv", "s_ri_hz.s1p"), NULL);
-    ck_assert_int_eq(r.rc, 0);
+    cli_result r = run_expect(in_dir("sweep %s --length 7.3m --at 5MHz,20MHz,55MHz --format csv",
+                                     "s_ri_hz.s1p"), 0);
     ck_assert_str_eq(r.err, "");
     python_holds_text("import csv,sys,math\n"
                       "rows=[r for r in csv.DictReader(open(sys.argv[1])) if r[\"kind\"]==\"fitted-line\"]\n"
@@ -96,8 +92,7 @@ START_TEST(fitted_line_matches_the_generated_one)
                       "  assert float(r[\"max_residual\"])<1e-4, r\n", r.out);
     cli_result_free(&r);
     /* text: the block and its numbers */
-    r = run_cli(NULL, in_dir("sweep %s --length 7.3m --at 10MHz", "s_ri_hz.s1p"), NULL);
-    ck_assert_int_eq(r.rc, 0);
+    r = run_expect(in_dir("sweep %s --length 7.3m --at 10MHz", "s_ri_hz.s1p"), 0);
     has(r.out, "fitted line  every point, far end open, against 50.00 ohm");
     has(r.out, "    Z0          52.00 +/- ");
     has(r.out, "     10.000000   0.69051 "); /* 0.70 - 30/sqrt(1e7) = 0.690513 */
@@ -112,8 +107,7 @@ START_TEST(fitted_line_on_a_load_and_its_limit)
     char args[1200];
     snprintf(args, sizeof args, "sweep %s/g/fit_load.s1p --length 9m --end load --load 12-j30 "
              "--at 30MHz --format json", g_dir);
-    cli_result r = run_cli(NULL, args, NULL);
-    ck_assert_int_eq(r.rc, 0);
+    cli_result r = run_expect(args, 0);
     /* the truth: VF 0.70 - 20/sqrt(f), Z0 52 (sweep_gen.py fit) */
     json_holds(r.out, "[x for x in d if x[\"kind\"]==\"fitted-line\"][0][\"vf\"] - "
                       "(0.70-20/math.sqrt(30e6)) < 1e-3*0.7 and "
@@ -123,13 +117,11 @@ START_TEST(fitted_line_on_a_load_and_its_limit)
     snprintf(args, sizeof args, "head -n 14 %s/f/rx.csv > %s/short.csv", g_dir, g_dir);
     ck_assert_int_eq(system(args), 0);
     snprintf(args, sizeof args, "sweep %s/short.csv --length 7.3m", g_dir);
-    r = run_cli(NULL, args, NULL);
-    ck_assert_int_eq(r.rc, 0);
+    r = run_expect(args, 0);
     has(r.out, "fitted line  none: fewer than two series resonances of one kind");
     cli_result_free(&r);
     snprintf(args, sizeof args, "sweep %s/short.csv --length 7.3m --format csv", g_dir);
-    r = run_cli(NULL, args, NULL);
-    ck_assert_int_eq(r.rc, 0);
+    r = run_expect(args, 0);
     has(r.err, "warning: ");
     has(r.err, "no line fitted: fewer than two series resonances");
     lacks(r.out, "fitted-line");
@@ -142,63 +134,52 @@ END_TEST
  * degrees at 10 MHz is VF c / (4 f) = 5.1753 m, DESIGN.md). */
 START_TEST(vf_and_trim_take_the_sweep)
 {
-    cli_result r = run_cli(NULL, in_dir("vf --sweep %s --length 7.3m --end open --at 10MHz "
-                                        "--format csv", "s_ri_hz.s1p"), NULL);
-    ck_assert_int_eq(r.rc, 0);
-    python_holds_text("import csv,sys,math\n"
-                      "rows=list(csv.DictReader(open(sys.argv[1])))\n"
-                      "rd=[r for r in rows if r[\"resonance\"] not in (\"fit\",\"at\")]\n"
-                      "assert len(rd)==4 and all(r[\"reading\"]==\"zero-x\" for r in rd), rd\n"
-                      "assert [int(r[\"resonance\"]) for r in rd]==[1,2,3,4]\n"
-                      "at=[r for r in rows if r[\"resonance\"]==\"at\"][0]\n"
-                      "vf=0.70-30/math.sqrt(10e6)\n"
-                      "assert abs(float(at[\"vf_at\"])-vf)<=float(at[\"vf_at_err\"]), at\n"
-                      "assert abs(float(at[\"vf_at\"])/vf-1)<1e-3, at\n", r.out);
-    cli_result_free(&r);
-    r = run_cli(NULL, in_dir("trim --sweep %s --length 7.3m --degrees 90 --freq 10MHz "
-                             "--format csv", "s_ri_hz.s1p"), NULL);
-    ck_assert_int_eq(r.rc, 0);
-    python_holds_text("import csv,sys\n"
-                      "rows=list(csv.DictReader(open(sys.argv[1])))\n"
-                      "assert len(rows)==4 and all(r[\"order_source\"]==\"sweep\" for r in rows)\n"
-                      "keep=float(rows[0][\"remaining_m\"])\n"
-                      "res=float(rows[0][\"remaining_res_mm\"])/1e3\n"
-                      "assert abs(keep-5.1753)<=max(res,0.005), (keep,res)\n", r.out);
-    cli_result_free(&r);
+    output_holds(in_dir("vf --sweep %s --length 7.3m --end open --at 10MHz --format csv",
+                        "s_ri_hz.s1p"),
+                 "import csv,sys,math\n"
+                 "rows=list(csv.DictReader(open(sys.argv[1])))\n"
+                 "rd=[r for r in rows if r[\"resonance\"] not in (\"fit\",\"at\")]\n"
+                 "assert len(rd)==4 and all(r[\"reading\"]==\"zero-x\" for r in rd), rd\n"
+                 "assert [int(r[\"resonance\"]) for r in rd]==[1,2,3,4]\n"
+                 "at=[r for r in rows if r[\"resonance\"]==\"at\"][0]\n"
+                 "vf=0.70-30/math.sqrt(10e6)\n"
+                 "assert abs(float(at[\"vf_at\"])-vf)<=float(at[\"vf_at_err\"]), at\n"
+                 "assert abs(float(at[\"vf_at\"])/vf-1)<1e-3, at\n");
+    output_holds(in_dir("trim --sweep %s --length 7.3m --degrees 90 --freq 10MHz --format csv",
+                        "s_ri_hz.s1p"),
+                 "import csv,sys\n"
+                 "rows=list(csv.DictReader(open(sys.argv[1])))\n"
+                 "assert len(rows)==4 and all(r[\"order_source\"]==\"sweep\" for r in rows)\n"
+                 "keep=float(rows[0][\"remaining_m\"])\n"
+                 "res=float(rows[0][\"remaining_res_mm\"])/1e3\n"
+                 "assert abs(keep-5.1753)<=max(res,0.005), (keep,res)\n");
     /* text says where the readings came from */
-    r = run_cli(NULL, in_dir("vf --sweep %s --length 7.3m --end open", "s_ri_hz.s1p"), NULL);
-    ck_assert_int_eq(r.rc, 0);
+    cli_result r = run_expect(in_dir("vf --sweep %s --length 7.3m --end open", "s_ri_hz.s1p"), 0);
     has(r.out, "s_ri_hz.s1p: its series resonances of this kind are the readings");
     has(r.out, "orders            from the spacing of the sweep's resonances");
     cli_result_free(&r);
 }
 END_TEST
 
+/* bad() on args where %s stands for the formats' s_ri_hz.s1p */
+static void bad_on_sweep(const char *args, const char *field)
+{
+    bad(in_dir(args, "s_ri_hz.s1p"), field);
+}
+
 START_TEST(sweep_options_refused)
 {
-    char args[1200];
-    snprintf(args, sizeof args, "%s/f/s_ri_hz.s1p", g_dir);
-    char c[1400];
-    snprintf(c, sizeof c, "vf --sweep %s --resonance 5MHz --length 7.3m --end open", args);
-    bad(c, "sweep");
-    snprintf(c, sizeof c, "vf --sweep %s --end open", args);
-    bad(c, "length");
-    snprintf(c, sizeof c, "trim --sweep %s --order 1 --length 7.3m --degrees 90 --freq 10MHz", args);
-    bad(c, "sweep");
-    snprintf(c, sizeof c, "vf --sweep %s/f/swr.csv --length 7.3m --end open", g_dir);
-    bad_also(c, "sweep", "holds no reactance");
-    snprintf(c, sizeof c, "sweep %s --end load --length 7.3m", args);
-    bad(c, "load");
-    snprintf(c, sizeof c, "sweep %s --load 12-j30 --length 7.3m", args);
-    bad(c, "load");
-    snprintf(c, sizeof c, "sweep %s --end load --load 12-j30", args);
-    bad(c, "length");
-    snprintf(c, sizeof c, "sweep %s --at 10MHz", args);
-    bad(c, "at");
-    snprintf(c, sizeof c, "sweep %s --fixture-vf 0.7", args);
-    bad(c, "fixture-vf");
-    snprintf(c, sizeof c, "sweep %s --length 7.3m --end load --load -5", args);
-    bad(c, "load");
+    bad_on_sweep("vf --sweep %s --resonance 5MHz --length 7.3m --end open", "sweep");
+    bad_on_sweep("vf --sweep %s --end open", "length");
+    bad_on_sweep("trim --sweep %s --order 1 --length 7.3m --degrees 90 --freq 10MHz", "sweep");
+    bad_also(in_dir("vf --sweep %s --length 7.3m --end open", "swr.csv"), "sweep",
+             "holds no reactance");
+    bad_on_sweep("sweep %s --end load --length 7.3m", "load");
+    bad_on_sweep("sweep %s --load 12-j30 --length 7.3m", "load");
+    bad_on_sweep("sweep %s --end load --load 12-j30", "length");
+    bad_on_sweep("sweep %s --at 10MHz", "at");
+    bad_on_sweep("sweep %s --fixture-vf 0.7", "fixture-vf");
+    bad_on_sweep("sweep %s --length 7.3m --end load --load -5", "load");
     /* a bad file through vf and trim: file and line */
     cli_result r = run_cli_with_file("vf --sweep %s --length 7m --end open",
                                      "# MHz S RI R 50\n1 0.1 0.2\n2 0.1\n", 32);
@@ -212,8 +193,7 @@ END_TEST
 
 START_TEST(json_parses)
 {
-    cli_result r = run_cli(NULL, in_dir("sweep %s --format json --label 'a \"b\"'", "v2_s.ts"), NULL);
-    ck_assert_int_eq(r.rc, 0);
+    cli_result r = run_expect(in_dir("sweep %s --format json --label 'a \"b\"'", "v2_s.ts"), 0);
     json_holds(r.out, "len(d) >= 8 and d[0][\"label\"] == \"a \\\"b\\\"\" and "
                       "d[0][\"reference_ohm\"] == 75 and d[0][\"points\"] == 121");
     cli_result_free(&r);
@@ -222,8 +202,7 @@ END_TEST
 
 START_TEST(swr_column_says_what_it_cannot_give)
 {
-    cli_result r = run_cli(NULL, in_dir("sweep %s", "swr.csv"), NULL);
-    ck_assert_int_eq(r.rc, 0);
+    cli_result r = run_expect(in_dir("sweep %s", "swr.csv"), 0);
     has(r.out, "an swr column gives the size of the mismatch only");
     lacks(r.out, "reactance-zero");
     lacks(r.out, "impedance-min");
@@ -237,19 +216,13 @@ START_TEST(plot_marks_resonances)
     snprintf(svg, sizeof svg, "%s/p.svg", g_dir);
     snprintf(g_args, sizeof g_args, "sweep %s/f/s_ma_khz.s1p --plot %s --kind reactance-zero",
              g_dir, svg);
-    cli_result r = run_cli(NULL, g_args, NULL);
-    ck_assert_int_eq(r.rc, 0);
-    cli_result_free(&r);
     /* four series reactance zeros marked 1-4, |Z| and the phase drawn */
-    svg_holds(svg, "assert len(rects) == 4, len(rects)\n"
+    plot_holds(g_args, svg, "assert len(rects) == 4, len(rects)\n"
                    "assert len(paths) == 2\n"
                    "assert all(str(k) in texts for k in (1, 2, 3, 4))\n"
                    "assert \"phase (deg)\" in texts");
     snprintf(g_args, sizeof g_args, "sweep %s/f/swr.csv --plot %s", g_dir, svg);
-    r = run_cli(NULL, g_args, NULL);
-    ck_assert_int_eq(r.rc, 0);
-    svg_holds(svg, "assert len(paths) == 1\nassert \"SWR\" in texts");
-    cli_result_free(&r);
+    plot_holds(g_args, svg, "assert len(paths) == 1\nassert \"SWR\" in texts");
 }
 END_TEST
 

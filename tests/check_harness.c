@@ -41,6 +41,13 @@ static void add_drums(cxl_harness *h, size_t n, const double *len)
     for (size_t d = 0; d < n; d++) ck_assert_int_eq(cxl_harness_add_drum(h, len[d], NULL), CXL_OK);
 }
 
+/* add_drums, then a plan that must succeed */
+static void plan_on_drums(cxl_harness *h, size_t n, const double *len)
+{
+    add_drums(h, n, len);
+    ck_assert_int_eq(cxl_harness_plan(h), CXL_OK);
+}
+
 typedef struct {
     size_t element, drum;
     cxl_piece_kind kind;
@@ -179,8 +186,7 @@ START_TEST(pack_decreasing_not_optimal)
     const double el[4][3] = { { 3, 0, 4 }, { -3, 0, 4 }, { 0, 3, 0 }, { 0, -3, 0 } };
     const double drums[3] = { 10, 10, 10 };
     cxl_harness *h = make(4, el, 0.0, 0.0, 0.0);
-    add_drums(h, 3, drums);
-    ck_assert_int_eq(cxl_harness_plan(h), CXL_OK);
+    plan_on_drums(h, 3, drums);
     ck_assert_uint_eq(drums_used(h, 3), 3);
     double used, left;
     ck_assert_int_eq(cxl_harness_drum(h, 0, &used, &left), CXL_OK);
@@ -201,13 +207,11 @@ START_TEST(pack_kerf_counted)
     const double el[2][3] = { { 5, 0, 0 }, { -5, 0, 0 } };
     const double drums[2] = { 10, 10 };
     cxl_harness *h = make(2, el, 0.0, 0.0, 0.0);
-    add_drums(h, 2, drums);
-    ck_assert_int_eq(cxl_harness_plan(h), CXL_OK);
+    plan_on_drums(h, 2, drums);
     ck_assert_uint_eq(drums_used(h, 2), 1);
     cxl_harness_free(h);
     h = make(2, el, 0.0, 0.0, 0.01);
-    add_drums(h, 2, drums);
-    ck_assert_int_eq(cxl_harness_plan(h), CXL_OK);
+    plan_on_drums(h, 2, drums);
     ck_assert_uint_eq(drums_used(h, 2), 2);
     double used, left;
     ck_assert_int_eq(cxl_harness_drum(h, 0, &used, &left), CXL_OK);
@@ -225,8 +229,7 @@ START_TEST(pack_best_fit_kept)
     const double el[2][3] = { { 3, 0, 4 }, { -3, 0, 0 } };
     const double drums[2] = { 6, 4 };
     cxl_harness *h = make(2, el, 0.0, 0.0, 0.0);
-    add_drums(h, 2, drums);
-    ck_assert_int_eq(cxl_harness_plan(h), CXL_OK);
+    plan_on_drums(h, 2, drums);
     ck_assert_uint_eq(get(h, 0).drum, 0);   /* feed of element 0 */
     ck_assert_uint_eq(get(h, 1).drum, 1);   /* its 4 m delay line */
     ck_assert_uint_eq(get(h, 2).drum, 0);   /* feed of element 1 */

@@ -99,6 +99,14 @@ cli_result run_cli_with_file(const char *args, const char *text, size_t size)
     return r;
 }
 
+cli_result run_expect(const char *args, int rc)
+{
+    cli_result r = run_cli(NULL, args, NULL);
+    ck_assert_msg(r.rc == rc, "coaxline %s: exit %d, not %d; stderr:\n%s", args, r.rc, rc,
+                  r.err);
+    return r;
+}
+
 void has(const char *text, const char *want)
 {
     ck_assert_msg(strstr(text, want) != NULL, "missing '%s' in:\n%s", want, text);
@@ -148,6 +156,14 @@ void bad_with_file(const char *args, const char *text, size_t size, const char *
     unlink(path);
     free(path);
     free(full);
+}
+
+void bad_file_opts(const char *command, const char *text, const char *opts, const char *field,
+                   const char *also)
+{
+    char args[1024];
+    snprintf(args, sizeof args, "%s %%s %s", command, opts);
+    bad_with_file(args, text, strlen(text), field, also);
 }
 
 int have_comma_locale(void)
@@ -243,6 +259,20 @@ void svg_holds(const char *path, const char *asserts)
     snprintf(code, len, "%s%s", prelude, asserts);
     python_holds(code, path);
     free(code);
+}
+
+void output_holds(const char *args, const char *code)
+{
+    cli_result r = run_expect(args, 0);
+    python_holds_text(code, r.out);
+    cli_result_free(&r);
+}
+
+void plot_holds(const char *args, const char *svg, const char *asserts)
+{
+    cli_result r = run_expect(args, 0);
+    cli_result_free(&r);
+    svg_holds(svg, asserts);
 }
 
 int run_suite(Suite *s)

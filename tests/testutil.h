@@ -22,6 +22,9 @@ cli_result run_cli(const char *env, const char *args, const char *stdin_text);
 cli_result run_cli_bytes(const char *env, const char *args, const char *stdin_bytes,
                          size_t n);
 void cli_result_free(cli_result *r);
+/* run_cli(NULL, args, NULL), which must exit with rc (the test fails
+ * otherwise, showing stderr); the result is the caller's to free. */
+cli_result run_expect(const char *args, int rc);
 /* Number of lines in text. */
 int count_lines(const char *text);
 /* Write text to a new temporary file; returns its path (owned). */
@@ -56,6 +59,10 @@ void bad_also(const char *args, const char *field, const char *also);
  * file holding size bytes of text (as run_cli_with_file). */
 void bad_with_file(const char *args, const char *text, size_t size, const char *field,
                    const char *also);
+/* bad_with_file on "coaxline COMMAND FILE OPTS" where FILE holds text, e.g.
+ * bad_file_opts("array --layout", layout, "--vf 0.66", "label", "line 3"). */
+void bad_file_opts(const char *command, const char *text, const char *opts, const char *field,
+                   const char *also);
 
 /* ---- the comma locale ---------------------------------------------------- */
 
@@ -89,6 +96,11 @@ void json_holds(const char *json, const char *check);
  * texts (every <text>'s content), dashed (the <line>s with a dash pattern),
  * rects (the shaded band rectangles, fill #e6e6e6). */
 void svg_holds(const char *path, const char *asserts);
+/* "coaxline ARGS" exits 0 and python_holds_text(code, its stdout). */
+void output_holds(const char *args, const char *code);
+/* "coaxline ARGS" (which writes the SVG file svg) exits 0 and
+ * svg_holds(svg, asserts). */
+void plot_holds(const char *args, const char *svg, const char *asserts);
 
 /* The number after "key": in the row-th object of a JSON array. */
 double json_number(const char *json, int row, const char *key);
