@@ -3,6 +3,7 @@
 #include <config.h>
 #include <math.h>
 #include <stdio.h>
+#include <stdlib.h>
 #include <string.h>
 #include "cli.h"
 
@@ -46,12 +47,58 @@ typedef struct loss_setup {
     const cxl_loss_model *model;
 } loss_setup;
 
-/* The batch's cable cache (cli_cable_cache), in ctx->state. */
+/* Physical attenuations already computed in this batch: rows mostly ask
+ * the same few cables at the same band edges, and the model is costly. */
+#define ATT_MEMO 16
+typedef struct att_memo {
+    const cxl_loss_model *model;
+    double freq_hz, db_per_m;
+    unsigned flags;
+    cxl_status st;
+} att_memo;
+
+/* The batch's state (ctx->state): the cable cache and the memo. */
+typedef struct loss_state {
+    cli_cable_cache *cables;
+    att_memo memo[ATT_MEMO];
+    int memo_n, memo_next;
+} loss_state;
+
 static int loss_end(cli_ctx *ctx)
 {
-    cli_cable_cache_free(ctx->state);
+    loss_state *ls = ctx->state;
+    if (ls) cli_cable_cache_free(ls->cables);
+    free(ls);
     ctx->state = NULL;
     return CLI_EXIT_OK;
+}
+
+/* The batch's state, made on the first row; NULL when out of memory. */
+static loss_state *loss_state_of(cli_ctx *ctx)
+{
+    if (!ctx->state) ctx->state = calloc(1, sizeof(loss_state));
+    return ctx->state;
+}
+
+/* cxl_loss_model_attenuation through the memo (ls may be NULL). */
+static cxl_status attenuation(loss_state *ls, const cxl_loss_model *model, double freq_hz,
+                              unsigned flags, double *db_per_m)
+{
+    for (int i = 0; ls && i < ls->memo_n; i++) {
+        const att_memo *m = &ls->memo[i];
+        if (m->model == model && m->freq_hz == freq_hz && m->flags == flags) {
+            *db_per_m = m->db_per_m;
+            return m->st;
+        }
+    }
+    *db_per_m = NAN; /* kept in the memo even when st says it is not set */
+    cxl_status st = cxl_loss_model_attenuation(model, freq_hz, flags, db_per_m);
+    if (ls) {
+        ls->memo[ls->memo_next] = (att_memo){ model, freq_hz, *db_per_m, flags, st };
+        ls->memo_next = (ls->memo_next + 1) % ATT_MEMO;
+        if (ls->memo_n < ATT_MEMO) ls->memo_n++;
+    }
+    return st;
 }
 
 /* Choose and build the model for cable index i; 0 or CLI_EXIT_USAGE. */
@@ -82,10 +129,10 @@ static int setup_model(cli_ctx *ctx, const cli_args *a, const cxl_catalog *cat, 
                              "the physical model has no table to extrapolate");
         s->flags |= CXL_LOSS_EXTRAPOLATE;
     }
+    loss_state *ls = loss_state_of(ctx);
+    if (!ls) return cli_error(ctx, "cable", NULL, "%s", cxl_strerror(CXL_ENOMEM));
     if (!s->physical) {
-        cli_cable_cache *cache = ctx->state;
-        s->fit = cli_cable_cache_fit(&cache, cat, i);
-        ctx->state = cache;
+        s->fit = cli_cable_cache_fit(&ls->cables, cat, i);
         if (!s->fit)
             return cli_error(ctx, "model",
                              "--model physical, or two or more points in a --cable-loss file",
@@ -93,9 +140,7 @@ static int setup_model(cli_ctx *ctx, const cli_args *a, const cxl_catalog *cat, 
                              s->npoints, s->npoints == 1 ? "" : "s");
         return 0;
     }
-    cli_cable_cache *cache = ctx->state;
-    cxl_status st = cli_cable_cache_model(&cache, cat, i, &s->model);
-    ctx->state = cache;
+    cxl_status st = cli_cable_cache_model(&ls->cables, cat, i, &s->model);
     if (st == CXL_ENOTFOUND)
         return cli_error(ctx, "cable",
                          "loss points in a --cable-loss file, or inner_diameter_mm and "
@@ -119,68 +164,78 @@ static void model_range(const loss_setup *s, double *lo, double *hi)
     }
 }
 
+/* The point's frequency and, for a band point, where it sits, for an
+ * error message: built only when there is one. */
+static void point_text(const cli_freq_point *p, char *f, size_t fsize, char *where, size_t wsize)
+{
+    cli_fmt(f, fsize, p->freq_hz / 1e6, 6);
+    where[0] = '\0';
+    if (p->band[0])
+        snprintf(where, wsize, " (%.15s %.8s%s)", p->band, p->edge,
+                 strcmp(p->edge, "centre") == 0 ? "" : " edge");
+}
+
+/* A point outside the model's range (st == CXL_EEXTRAPOLATE). */
+static int range_error(cli_ctx *ctx, const loss_setup *s, const char *name,
+                       const cli_freq_point *p, double lo, double hi, double use_lo,
+                       double use_hi)
+{
+    char f[48], where[64], range[96], usable[96];
+    const char *field = p->band[0] ? "band" : "freq";
+    if (s->physical && !(lo < hi))
+        return cli_error(ctx, "cable", "conductor data that leave the model a frequency range "
+                                       "(conductivity_s_per_m, diameters)",
+                         "the physical model of '%s' holds at no frequency: 3 skin depths "
+                         "lie above the first higher-order mode", name);
+    point_text(p, f, sizeof f, where, sizeof where);
+    cli_fmt_range_mhz(range, sizeof range, lo, hi);
+    if (s->physical)
+        return cli_error(ctx, field,
+                         "a frequency in that range: from one skin depth in the centre "
+                         "conductor's radius (three for a copper-clad centre) up to the "
+                         "first higher-order mode",
+                         "%s MHz%s is outside the range of the physical model of '%s', %s",
+                         f, where, name, range);
+    cli_fmt_range_mhz(usable, sizeof usable, use_lo, use_hi);
+    return cli_error(ctx, field,
+                     "a frequency the table covers, --model physical, or --extrapolate",
+                     "%s MHz%s is outside the loss table of '%s', %s (usable %s)", f,
+                     where, name, range, usable);
+}
+
 /* Loss per metre at one point; 0 or CLI_EXIT_USAGE naming the point. */
 static int eval_point(cli_ctx *ctx, const loss_setup *s, const char *name,
                       const cli_freq_point *p, double *db_per_m, int *extrapolated)
 {
     cxl_status st = s->physical
-        ? cxl_loss_model_attenuation(s->model, p->freq_hz, s->flags, db_per_m)
+        ? attenuation(ctx->state, s->model, p->freq_hz, s->flags, db_per_m)
         : cxl_loss_fit_eval(s->fit, p->freq_hz, s->flags, db_per_m);
     double lo, hi;
     model_range(s, &lo, &hi);
     double use_lo = lo, use_hi = hi;
     if (!s->physical) cxl_loss_fit_usable_range(s->fit, &use_lo, &use_hi);
     *extrapolated = p->freq_hz < use_lo || p->freq_hz > use_hi;
-    char f[48], where[64], range[96], usable[96];
-    cli_fmt(f, sizeof f, p->freq_hz / 1e6, 6);
-    where[0] = '\0';
-    if (p->band[0])
-        snprintf(where, sizeof where, " (%.15s %.8s%s)", p->band, p->edge,
-                 strcmp(p->edge, "centre") == 0 ? "" : " edge");
-    const char *field = p->band[0] ? "band" : "freq";
-    if (st == CXL_EEXTRAPOLATE && s->physical && !(lo < hi))
-        return cli_error(ctx, "cable", "conductor data that leave the model a frequency range "
-                                       "(conductivity_s_per_m, diameters)",
-                         "the physical model of '%s' holds at no frequency: 3 skin depths "
-                         "lie above the first higher-order mode", name);
-    if (st == CXL_EEXTRAPOLATE) {
-        cli_fmt_range_mhz(range, sizeof range, lo, hi);
-        if (s->physical)
-            return cli_error(ctx, field,
-                             "a frequency in that range: from one skin depth in the centre "
-                             "conductor's radius (three for a copper-clad centre) up to the "
-                             "first higher-order mode",
-                             "%s MHz%s is outside the range of the physical model of '%s', %s",
-                             f, where, name, range);
-        cli_fmt_range_mhz(usable, sizeof usable, use_lo, use_hi);
-        return cli_error(ctx, field,
-                         "a frequency the table covers, --model physical, or --extrapolate",
-                         "%s MHz%s is outside the loss table of '%s', %s (usable %s)", f,
-                         where, name, range, usable);
-    }
-    if (st != CXL_OK || !isfinite(*db_per_m))
-        return cli_error(ctx, field, "a frequency nearer the loss table",
+    if (st == CXL_EEXTRAPOLATE) return range_error(ctx, s, name, p, lo, hi, use_lo, use_hi);
+    int bad = st != CXL_OK || !isfinite(*db_per_m);
+    if (!bad && !(*db_per_m > LOSS_MAX_DB_PER_M)) return 0;
+    char f[48], where[64];
+    point_text(p, f, sizeof f, where, sizeof where);
+    if (bad)
+        return cli_error(ctx, p->band[0] ? "band" : "freq", "a frequency nearer the loss table",
                          "%s MHz%s: no loss value for '%s' there (%s)", f, where, name,
                          cxl_strerror(st));
-    if (*db_per_m > LOSS_MAX_DB_PER_M)
-        return cli_error(ctx, "cable", "cable data giving at most 1000 dB per m (conductivity_s_per_m, "
-                                       "conductor_loss_factor, loss_tangent, loss table)",
-                         "'%s' would lose more than 1000 dB per m at %s MHz%s", name, f, where);
-    return 0;
+    return cli_error(ctx, "cable", "cable data giving at most 1000 dB per m (conductivity_s_per_m, "
+                                   "conductor_loss_factor, loss_tangent, loss table)",
+                     "'%s' would lose more than 1000 dB per m at %s MHz%s", name, f, where);
 }
 
-/* Text: the run in one line (length, then the cable), the model, what the
- * far end does, then one line per point: where, frequency, attenuation,
- * matched-line loss and the loss with the far end's SWR (the CSV's
- * matched_loss_db, swr and total_loss_db). */
-static void text_output(cli_ctx *ctx, const cli_args *a, const char *name, size_t idx,
-                        const loss_setup *s, double length_m, double swr,
-                        const cli_freq_point *pts, int n, const double *per_m,
-                        const double *ml, const double *tl, const int *extra)
+/* Text, first lines: the run (length, then the cable) and the model. */
+static void text_head(cli_ctx *ctx, const cli_args *a, const char *name, size_t idx,
+                      const loss_setup *s, double length_m)
 {
     const cxl_catalog *cat = cli_catalog(ctx);
     FILE *o = ctx->out;
-    char b1[256], b2[96], b3[96], b4[96], b5[96];
+    char b1[256], b2[96];
     double z0, vf, lo, hi;
     const char *label = cli_label(a);
     if (ctx->rows_out++) putc('\n', o);
@@ -209,6 +264,20 @@ static void text_output(cli_ctx *ctx, const cli_args *a, const char *name, size_
     } else {
         fprintf(o, "  fitted model: %s\n", cli_fmt_fit(b1, sizeof b1, s->fit));
     }
+}
+
+/* Text: the run in one line (length, then the cable), the model, what the
+ * far end does, then one line per point: where, frequency, attenuation,
+ * matched-line loss and the loss with the far end's SWR (the CSV's
+ * matched_loss_db, swr and total_loss_db). */
+static void text_output(cli_ctx *ctx, const cli_args *a, const char *name, size_t idx,
+                        const loss_setup *s, double length_m, double swr,
+                        const cli_freq_point *pts, int n, const double *per_m,
+                        const double *ml, const double *tl, const int *extra)
+{
+    FILE *o = ctx->out;
+    char b1[96], b2[96], b3[96], b4[96], b5[96];
+    text_head(ctx, a, name, idx, s, length_m);
     cli_fmt(b1, sizeof b1, swr, 3);
     if (swr > 1.0)
         fprintf(o, "  far end at SWR %s: the last column adds its standing-wave loss "
@@ -234,6 +303,39 @@ static void text_output(cli_ctx *ctx, const cli_args *a, const char *name, size_
         fprintf(o, "  * outside the loss table: extrapolated, treat as an estimate\n");
 }
 
+/* --swr into *swr (left at 1 when not given). */
+static int read_swr(cli_ctx *ctx, const cli_args *a, double *swr)
+{
+    static const char expected[] = "a standing-wave ratio of 1 or more, such as 1.5";
+    const char *t = cli_get(a, "swr", 0);
+    if (!t) return 0;
+    if (cli_number(ctx, "swr", t, -1e300, 1e300, expected, swr)) return CLI_EXIT_USAGE;
+    if (*swr < 1.0)
+        return cli_error(ctx, "swr", expected, "'%s' is below 1, which no load can give", t);
+    if (*swr > 1e6)
+        return cli_error(ctx, "swr", expected, "'%s' is beyond any measurable SWR", t);
+    return 0;
+}
+
+/* CSV or table rows, one per point. */
+static void table_output(cli_ctx *ctx, const cli_args *a, const char *name, const loss_setup *s,
+                         double length_m, double swr, const cli_freq_point *pts, int n,
+                         const double *per_m, const double *ml, const double *tl,
+                         const int *extra)
+{
+    const char *model = s->physical ? "physical" : "fitted";
+    const char *label = cli_label(a);
+    for (int k = 0; k < n; k++) {
+        cli_cell cells[NCOLS] = {
+            CLI_TXT(label), CLI_TXT(name), CLI_TXT(pts[k].band),
+            CLI_NUM(pts[k].freq_hz / 1e6), CLI_NUM(length_m), CLI_NUM(ml[k]), CLI_NUM(swr),
+            CLI_NUM(tl[k]), CLI_TXT(pts[k].edge), CLI_TXT(model), CLI_NUM(per_m[k] * 100.0),
+            CLI_TXT(extra[k] ? "yes" : "no"),
+        };
+        cli_table_row(ctx, loss_cols, NCOLS, cells);
+    }
+}
+
 static int loss_run(cli_ctx *ctx, const cli_args *a)
 {
     const char *cable = cli_get(a, "cable", 0);
@@ -252,15 +354,7 @@ static int loss_run(cli_ctx *ctx, const cli_args *a)
         return cli_error(ctx, "length", "--length 100m", "the length of the run is needed");
     /* a run is a line: 1 mm to 1000 km, as phase and pair take */
     if (cli_line_length(ctx, "length", len_text, &length_m)) return CLI_EXIT_USAGE;
-    if (cli_count(a, "swr")) {
-        static const char expected[] = "a standing-wave ratio of 1 or more, such as 1.5";
-        const char *t = cli_get(a, "swr", 0);
-        if (cli_number(ctx, "swr", t, -1e300, 1e300, expected, &swr)) return CLI_EXIT_USAGE;
-        if (swr < 1.0)
-            return cli_error(ctx, "swr", expected, "'%s' is below 1, which no load can give", t);
-        if (swr > 1e6)
-            return cli_error(ctx, "swr", expected, "'%s' is beyond any measurable SWR", t);
-    }
+    if (read_swr(ctx, a, &swr)) return CLI_EXIT_USAGE;
 
     cli_freq_point pts[MAX_POINTS];
     int n = cli_freq_points(ctx, a, pts, MAX_POINTS, NULL);
@@ -279,20 +373,10 @@ static int loss_run(cli_ctx *ctx, const cli_args *a)
     }
     if (code) return code;
 
-    if (ctx->format == CLI_TEXT) {
+    if (ctx->format == CLI_TEXT)
         text_output(ctx, a, name, idx, &s, length_m, swr, pts, n, per_m, ml, tl, extra);
-    } else {
-        const char *model = s.physical ? "physical" : "fitted";
-        for (int k = 0; k < n; k++) {
-            cli_cell cells[NCOLS] = {
-                CLI_TXT(cli_label(a)), CLI_TXT(name), CLI_TXT(pts[k].band),
-                CLI_NUM(pts[k].freq_hz / 1e6), CLI_NUM(length_m), CLI_NUM(ml[k]), CLI_NUM(swr),
-                CLI_NUM(tl[k]), CLI_TXT(pts[k].edge), CLI_TXT(model), CLI_NUM(per_m[k] * 100.0),
-                CLI_TXT(extra[k] ? "yes" : "no"),
-            };
-            cli_table_row(ctx, loss_cols, NCOLS, cells);
-        }
-    }
+    else
+        table_output(ctx, a, name, &s, length_m, swr, pts, n, per_m, ml, tl, extra);
     return CLI_EXIT_OK;
 }
 

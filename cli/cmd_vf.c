@@ -219,33 +219,11 @@ static void write_table(cli_ctx *ctx, const summary *sm, const cxl_stub_result *
     }
 }
 
-static void write_text(cli_ctx *ctx, const summary *sm, const cxl_stub_result *res)
+/* Text, after the readings: how they were taken and the fit. */
+static void write_text_fit(cli_ctx *ctx, const summary *sm)
 {
-    char b1[96], b2[96], b3[48], b4[48], b5[48];
+    char b1[96], b2[96], b3[48];
     FILE *o = ctx->out;
-    const char *end = sm->end == CXL_STUB_OPEN ? "open" : "shorted";
-    if (ctx->rows_out++) putc('\n', o);
-    fprintf(o, "vf%s%s\n", sm->label[0] ? ": " : "", sm->label);
-    if (sm->one_length)
-        fprintf(o, "  cable             %s, far end %s\n",
-                cli_fmt_length(ctx, b1, sizeof b1, sm->length_m), end);
-    else
-        fprintf(o, "  cable             read on several lengths, far end %s\n", end);
-    if (sm->fixture_m > 0.0)
-        fprintf(o, "  known fixture     %s at VF %s\n",
-                cli_fmt_length(ctx, b1, sizeof b1, sm->fixture_m),
-                cli_fmt(b2, sizeof b2, sm->fixture_vf, 4));
-    fprintf(o, "  %-5s %16s %11s  %-6s   %s\n", "order", "resonance", "length", "VF", "residual");
-    for (size_t i = 0; i < cxl_stub_result_count(res); i++) {
-        double len, f, vi, rhz, rm;
-        int order;
-        cxl_stub_result_reading(res, i, &len, &f, &order, &vi, &rhz, &rm);
-        f = sm->shown_hz[i];
-        fprintf(o, "  %-5d %12s MHz %9s m  %s   %s Hz  %s mm\n", order,
-                cli_fmt(b1, sizeof b1, f / 1e6, 6), cli_fmt(b2, sizeof b2, len, 3),
-                cli_fmt(b3, sizeof b3, vi, 4), cli_fmt_signed(b4, sizeof b4, rhz, 0),
-                cli_fmt_signed(b5, sizeof b5, rm * 1e3, 1));
-    }
     if (sm->flags & CXL_STUB_FLAG_ORDERS_ASSUMED)
         fprintf(o, "  orders            inferred: those that best fit one fundamental on each length\n");
     else if (sm->sweep)
@@ -281,6 +259,36 @@ static void write_text(cli_ctx *ctx, const summary *sm, const cxl_stub_result *r
         fprintf(o, "  extra fixture     not fitted: all readings are on one length, where the VF\n"
                    "                    cannot be told from an unknown fixture; trim a known\n"
                    "                    length, read again and give those readings as F@LEN\n");
+}
+
+static void write_text(cli_ctx *ctx, const summary *sm, const cxl_stub_result *res)
+{
+    char b1[96], b2[96], b3[48], b4[48], b5[48];
+    FILE *o = ctx->out;
+    const char *end = sm->end == CXL_STUB_OPEN ? "open" : "shorted";
+    if (ctx->rows_out++) putc('\n', o);
+    fprintf(o, "vf%s%s\n", sm->label[0] ? ": " : "", sm->label);
+    if (sm->one_length)
+        fprintf(o, "  cable             %s, far end %s\n",
+                cli_fmt_length(ctx, b1, sizeof b1, sm->length_m), end);
+    else
+        fprintf(o, "  cable             read on several lengths, far end %s\n", end);
+    if (sm->fixture_m > 0.0)
+        fprintf(o, "  known fixture     %s at VF %s\n",
+                cli_fmt_length(ctx, b1, sizeof b1, sm->fixture_m),
+                cli_fmt(b2, sizeof b2, sm->fixture_vf, 4));
+    fprintf(o, "  %-5s %16s %11s  %-6s   %s\n", "order", "resonance", "length", "VF", "residual");
+    for (size_t i = 0; i < cxl_stub_result_count(res); i++) {
+        double len, f, vi, rhz, rm;
+        int order;
+        cxl_stub_result_reading(res, i, &len, &f, &order, &vi, &rhz, &rm);
+        f = sm->shown_hz[i];
+        fprintf(o, "  %-5d %12s MHz %9s m  %s   %s Hz  %s mm\n", order,
+                cli_fmt(b1, sizeof b1, f / 1e6, 6), cli_fmt(b2, sizeof b2, len, 3),
+                cli_fmt(b3, sizeof b3, vi, 4), cli_fmt_signed(b4, sizeof b4, rhz, 0),
+                cli_fmt_signed(b5, sizeof b5, rm * 1e3, 1));
+    }
+    write_text_fit(ctx, sm);
 }
 
 /* What the rows of a batch reuse (ctx->state): the stub and its result,
@@ -379,43 +387,206 @@ static int correct(const cli_ctx *ctx, const cxl_loss_model *model, cxl_stub_end
     return 0;
 }
 
+/* The options of one invocation, apart from the readings and --at. */
+typedef struct vf_setup {
+    const char *end_text, *cable, *kind_name;
+    cxl_stub_end end;
+    double length_m, fixture_m, fixture_vf, length_tol_m, step_hz, ref_ohm;
+    cxl_dip_kind kind;
+} vf_setup;
+
+static int read_end(cli_ctx *ctx, const cli_args *a, vf_setup *v)
+{
+    v->end_text = cli_get(a, "end", 0);
+    if (!v->end_text)
+        return cli_error(ctx, "end", "open or short", "the far end of the cable is needed");
+    if (strcmp(v->end_text, "open") == 0) v->end = CXL_STUB_OPEN;
+    else if (strcmp(v->end_text, "short") == 0) v->end = CXL_STUB_SHORT;
+    else return cli_error(ctx, "end", "open or short", "unknown end '%s'", v->end_text);
+    return 0;
+}
+
+static int read_fixture(cli_ctx *ctx, const cli_args *a, vf_setup *v)
+{
+    const char *fixture = cli_get(a, "fixture", 0), *fvf = cli_get(a, "fixture-vf", 0);
+    if (!fixture) {
+        if (fvf)
+            return cli_error(ctx, "fixture-vf", "--fixture 0.15m --fixture-vf 0.66",
+                             "given without --fixture");
+        return 0;
+    }
+    if (cli_length(ctx, "fixture", fixture, CLI_NONNEG, &v->fixture_m)) return CLI_EXIT_USAGE;
+    if (!fvf)
+        return cli_error(ctx, "fixture-vf", "--fixture 0.15m --fixture-vf 0.66",
+                         "the fixture's velocity factor is needed");
+    return cli_vf(ctx, "fixture-vf", fvf, &v->fixture_vf) ? CLI_EXIT_USAGE : 0;
+}
+
+/* Everything but the readings and --at into v. */
+static int read_setup(cli_ctx *ctx, const cli_args *a, vf_setup *v)
+{
+    *v = (vf_setup){ .fixture_vf = 1.0, .length_tol_m = DEFAULT_LENGTH_TOL_M,
+                     .step_hz = DEFAULT_FREQ_STEP_HZ };
+    if (read_end(ctx, a, v)) return CLI_EXIT_USAGE;
+    const char *t = cli_get(a, "length", 0);
+    if (t && cli_length(ctx, "length", t, CLI_POSITIVE, &v->length_m)) return CLI_EXIT_USAGE;
+    if (read_fixture(ctx, a, v)) return CLI_EXIT_USAGE;
+    t = cli_get(a, "length-tol", 0);
+    if (t && cli_length(ctx, "length-tol", t, CLI_NONNEG, &v->length_tol_m)) return CLI_EXIT_USAGE;
+    t = cli_get(a, "freq-step", 0);
+    if (t && cli_freq(ctx, "freq-step", t, &v->step_hz)) return CLI_EXIT_USAGE;
+    v->cable = cli_get(a, "cable", 0);
+    return cli_reading_kind(ctx, a, v->cable != NULL, &v->kind, &v->ref_ohm, &v->kind_name)
+               ? CLI_EXIT_USAGE : 0;
+}
+
+/* The readings of one invocation, as typed or from a sweep file. */
+typedef struct vf_readings {
+    char buf[1024];
+    reading r[CLI_MAX_ITEMS];
+    double shown[CLI_MAX_ITEMS], corr[CLI_MAX_ITEMS];
+    int orders[CLI_MAX_ITEMS];
+    char sweep_text[CLI_MAX_ITEMS][48];
+    const char *sweep;
+    int n;
+} vf_readings;
+
+/* --sweep: the file's resonances, numbered from their spacing when it
+ * shows two or more (else by the fit, as typed readings). */
+static int sweep_readings(cli_ctx *ctx, const cli_args *a, vf_setup *v, vf_readings *rd)
+{
+    if (cli_count(a, "resonance"))
+        return cli_error(ctx, "sweep", "--sweep FILE or --resonance F, not both",
+                         "given with --resonance");
+    if (v->length_m <= 0.0)
+        return cli_error(ctx, "length", "--length 10m --sweep stub.s1p",
+                         "the length of the cable is needed");
+    double spacing;
+    if (cli_sweep_readings(ctx, rd->sweep, v->kind, v->ref_ohm, v->end, rd->shown, rd->orders,
+                           CLI_MAX_ITEMS, &rd->n, &spacing))
+        return CLI_EXIT_USAGE;
+    int numbered = 1;
+    for (int i = 0; i < rd->n; i++) numbered = numbered && rd->orders[i] > 0;
+    for (int i = 0; i < rd->n; i++) {
+        char b1[40];
+        snprintf(rd->sweep_text[i], sizeof rd->sweep_text[i], "%sMHz",
+                 cli_fmt(b1, sizeof b1, rd->shown[i] / 1e6, 6));
+        rd->r[i] = (reading){ rd->sweep_text[i], numbered ? rd->orders[i] : 0, rd->shown[i],
+                              v->length_m };
+    }
+    /* the file's point spacing is the analyzer's step */
+    if (!cli_count(a, "freq-step")) v->step_hz = spacing;
+    return 0;
+}
+
+static int read_readings(cli_ctx *ctx, const cli_args *a, vf_setup *v, vf_readings *rd)
+{
+    rd->sweep = cli_get(a, "sweep", 0);
+    if (rd->sweep) return sweep_readings(ctx, a, v, rd);
+    const char *items[CLI_MAX_ITEMS];
+    rd->n = cli_items(ctx, a, "resonance", rd->buf, sizeof rd->buf, items, CLI_MAX_ITEMS);
+    if (rd->n < 0) return CLI_EXIT_USAGE;
+    if (rd->n == 0)
+        return cli_error(ctx, "resonance", res_expected, "at least one reading is needed");
+    for (int i = 0; i < rd->n; i++) {
+        if (parse_reading(ctx, (char *)items[i], v->length_m, &rd->r[i])) return CLI_EXIT_USAGE;
+        rd->shown[i] = rd->r[i].freq_hz;
+    }
+    return 0;
+}
+
+/* The fit of the readings into vs->res; with --cable, a second fit of
+ * the corrected readings.  *first_flags: the first fit's flags. */
+static int fit_all(cli_ctx *ctx, const vf_setup *v, vf_readings *rd, vf_state *vs,
+                   unsigned *first_flags)
+{
+    const cxl_loss_model *model = NULL;
+    if (v->cable) {
+        size_t idx;
+        if (cli_cable_index(ctx, v->cable, &idx)) return CLI_EXIT_USAGE;
+        if (cli_cable_cache_model(&vs->cables, cli_catalog(ctx), idx, &model) != CXL_OK)
+            return cli_error(ctx, "cable", "a cable with inner and dielectric diameters (coaxline cables)",
+                             "cable '%s' has no geometry to model", v->cable);
+    }
+    int rc = fit_readings(ctx, v->end, rd->r, rd->n, rd->shown, NULL, v->fixture_m,
+                          v->fixture_vf, v->length_tol_m, v->step_hz, vs->stub, vs->res);
+    *first_flags = 0;
+    if (!rc && model) {
+        /* orders from the readings as read; then fit the corrected ones */
+        cxl_stub_result_flags(vs->res, first_flags);
+        rc = correct(ctx, model, v->end, rd->r, rd->n, vs->res, v->kind, v->ref_ohm,
+                     v->kind_name, rd->corr, rd->orders);
+        if (!rc)
+            rc = fit_readings(ctx, v->end, rd->r, rd->n, rd->corr, rd->orders, v->fixture_m,
+                              v->fixture_vf, v->length_tol_m, v->step_hz, vs->stub, vs->res);
+    }
+    return rc;
+}
+
+/* The fit's figures into sm; 1 when all of them are finite. */
+static int summarize(const cxl_stub_result *res, unsigned first_flags, const vf_readings *rd,
+                     summary *sm)
+{
+    double x_free;
+    cxl_stub_result_vf(res, &sm->vf, &sm->vf_err);
+    cxl_stub_result_vf_budget(res, &sm->err_fit, &sm->err_length, &sm->err_freq);
+    cxl_stub_result_flags(res, &sm->flags);
+    /* orders the corrected fit was given came from the first one */
+    sm->flags |= first_flags & CXL_STUB_FLAG_ORDERS_ASSUMED;
+    sm->fixture_fitted =
+        cxl_stub_result_fixture(res, &x_free, &sm->extra_err_m, &sm->extra_m) == CXL_OK;
+    sm->extra_err_m *= sm->vf; /* free-space metres to metres of this cable */
+    for (int i = 1; i < rd->n; i++)
+        if (rd->r[i].length_m != rd->r[0].length_m) sm->one_length = 0;
+    int finite = isfinite(sm->vf) && isfinite(sm->vf_err) && isfinite(sm->extra_m) &&
+                 isfinite(sm->extra_err_m);
+    for (size_t i = 0; i < cxl_stub_result_count(res); i++) {
+        double vi, rhz, rm;
+        cxl_stub_result_reading(res, i, NULL, NULL, NULL, &vi, &rhz, &rm);
+        finite = finite && isfinite(vi) && isfinite(rhz) && isfinite(rm);
+    }
+    return finite;
+}
+
+/* The VF at each --at frequency into at[]. */
+static int vf_at_all(cli_ctx *ctx, const cxl_stub_result *res, vf_at *at, int nat)
+{
+    for (int i = 0; i < nat; i++) {
+        char b1[48];
+        cxl_status st = cxl_stub_result_vf_at(res, at[i].freq_hz, &at[i].vf, &at[i].err, &at[i].how);
+        if (st != CXL_OK)
+            return cli_error(ctx, "at", "a frequency near the readings, 100 kHz or more",
+                             "no VF at %s MHz from these readings (%s)",
+                             cli_fmt(b1, sizeof b1, at[i].freq_hz / 1e6, 6), cxl_strerror(st));
+    }
+    return 0;
+}
+
+/* Refusals and warnings on the fit, then the output. */
+static int vf_report(cli_ctx *ctx, const summary *sm, const vf_readings *rd, const vf_state *vs,
+                     int finite)
+{
+    if (!finite)
+        return cli_error(ctx, "resonance", res_expected, "the readings give no finite result");
+    if ((sm->flags & CXL_STUB_FLAG_INCONSISTENT) &&
+        inconsistent(ctx, vs->stub, rd->r, (size_t)rd->n,
+                     (sm->flags & CXL_STUB_FLAG_ORDERS_ASSUMED) != 0))
+        return CLI_EXIT_USAGE;
+    if (sm->flags & CXL_STUB_FLAG_VF_RANGE)
+        cli_warn(ctx, "a velocity factor outside 0.50 to 1: check the readings, --length and --end");
+    if ((sm->flags & CXL_STUB_FLAG_TREND) && sm->nat == 0)
+        cli_warn(ctx, "the readings' VF changes with frequency beyond their uncertainty, so the "
+                      "fitted VF is an average over them: ask for the VF where the line works, "
+                      "e.g. --at 1.83MHz");
+    if (ctx->format == CLI_TEXT) write_text(ctx, sm, vs->res);
+    else write_table(ctx, sm, vs->res);
+    return 0;
+}
+
 static int vf_run(cli_ctx *ctx, const cli_args *a)
 {
-    const char *end_text = cli_get(a, "end", 0);
-    cxl_stub_end end;
-    if (!end_text)
-        return cli_error(ctx, "end", "open or short", "the far end of the cable is needed");
-    if (strcmp(end_text, "open") == 0) end = CXL_STUB_OPEN;
-    else if (strcmp(end_text, "short") == 0) end = CXL_STUB_SHORT;
-    else return cli_error(ctx, "end", "open or short", "unknown end '%s'", end_text);
-
-    double length_m = 0.0, fixture_m = 0.0, fixture_vf = 1.0;
-    double length_tol_m = DEFAULT_LENGTH_TOL_M, step_hz = DEFAULT_FREQ_STEP_HZ;
-    if (cli_count(a, "length") &&
-        cli_length(ctx, "length", cli_get(a, "length", 0), CLI_POSITIVE, &length_m))
-        return CLI_EXIT_USAGE;
-    if (cli_count(a, "fixture")) {
-        if (cli_length(ctx, "fixture", cli_get(a, "fixture", 0), CLI_NONNEG, &fixture_m))
-            return CLI_EXIT_USAGE;
-        if (!cli_count(a, "fixture-vf"))
-            return cli_error(ctx, "fixture-vf", "--fixture 0.15m --fixture-vf 0.66",
-                             "the fixture's velocity factor is needed");
-        if (cli_vf(ctx, "fixture-vf", cli_get(a, "fixture-vf", 0), &fixture_vf)) return CLI_EXIT_USAGE;
-    } else if (cli_count(a, "fixture-vf")) {
-        return cli_error(ctx, "fixture-vf", "--fixture 0.15m --fixture-vf 0.66",
-                         "given without --fixture");
-    }
-    if (cli_count(a, "length-tol") &&
-        cli_length(ctx, "length-tol", cli_get(a, "length-tol", 0), CLI_NONNEG, &length_tol_m))
-        return CLI_EXIT_USAGE;
-    if (cli_count(a, "freq-step")) {
-        if (cli_freq(ctx, "freq-step", cli_get(a, "freq-step", 0), &step_hz)) return CLI_EXIT_USAGE;
-    }
-    const char *cable = cli_get(a, "cable", 0), *kind_name;
-    cxl_dip_kind kind;
-    double ref_ohm;
-    if (cli_reading_kind(ctx, a, cable != NULL, &kind, &ref_ohm, &kind_name)) return CLI_EXIT_USAGE;
-
+    vf_setup v;
+    if (read_setup(ctx, a, &v)) return CLI_EXIT_USAGE;
     char abuf[1024];
     const char *aitems[CLI_MAX_ITEMS];
     vf_at at[CLI_MAX_ITEMS];
@@ -423,118 +594,20 @@ static int vf_run(cli_ctx *ctx, const cli_args *a)
     if (nat < 0) return CLI_EXIT_USAGE;
     for (int i = 0; i < nat; i++)
         if (cli_freq(ctx, "at", aitems[i], &at[i].freq_hz)) return CLI_EXIT_USAGE;
-
-    char buf[1024];
-    const char *items[CLI_MAX_ITEMS];
-    reading r[CLI_MAX_ITEMS];
-    double shown[CLI_MAX_ITEMS], corr[CLI_MAX_ITEMS];
-    int orders[CLI_MAX_ITEMS];
-    char sweep_text[CLI_MAX_ITEMS][48];
-    const char *sweep = cli_get(a, "sweep", 0);
-    int n;
-    if (sweep) {
-        /* the file's resonances, numbered from their spacing when it
-         * shows two or more (else by the fit, as typed readings) */
-        if (cli_count(a, "resonance"))
-            return cli_error(ctx, "sweep", "--sweep FILE or --resonance F, not both",
-                             "given with --resonance");
-        if (length_m <= 0.0)
-            return cli_error(ctx, "length", "--length 10m --sweep stub.s1p",
-                             "the length of the cable is needed");
-        double spacing;
-        if (cli_sweep_readings(ctx, sweep, kind, ref_ohm, end, shown, orders, CLI_MAX_ITEMS, &n,
-                               &spacing))
-            return CLI_EXIT_USAGE;
-        int numbered = 1;
-        for (int i = 0; i < n; i++) numbered = numbered && orders[i] > 0;
-        for (int i = 0; i < n; i++) {
-            char b1[40];
-            snprintf(sweep_text[i], sizeof sweep_text[i], "%sMHz",
-                     cli_fmt(b1, sizeof b1, shown[i] / 1e6, 6));
-            r[i] = (reading){ sweep_text[i], numbered ? orders[i] : 0, shown[i], length_m };
-        }
-        /* the file's point spacing is the analyzer's step */
-        if (!cli_count(a, "freq-step")) step_hz = spacing;
-    } else {
-        n = cli_items(ctx, a, "resonance", buf, sizeof buf, items, CLI_MAX_ITEMS);
-        if (n < 0) return CLI_EXIT_USAGE;
-        if (n == 0)
-            return cli_error(ctx, "resonance", res_expected, "at least one reading is needed");
-        for (int i = 0; i < n; i++) {
-            if (parse_reading(ctx, (char *)items[i], length_m, &r[i])) return CLI_EXIT_USAGE;
-            shown[i] = r[i].freq_hz;
-        }
-    }
-
+    vf_readings rd;
+    if (read_readings(ctx, a, &v, &rd)) return CLI_EXIT_USAGE;
     vf_state *vs = vf_state_of(ctx);
-    if (!vs) return CLI_EXIT_USAGE;
-    const cxl_loss_model *model = NULL;
-    if (cable) {
-        size_t idx;
-        if (cli_cable_index(ctx, cable, &idx)) return CLI_EXIT_USAGE;
-        if (cli_cable_cache_model(&vs->cables, cli_catalog(ctx), idx, &model) != CXL_OK)
-            return cli_error(ctx, "cable", "a cable with inner and dielectric diameters (coaxline cables)",
-                             "cable '%s' has no geometry to model", cable);
-    }
-    cxl_stub *stub = vs->stub;
-    cxl_stub_result *res = vs->res;
-    int rc = fit_readings(ctx, end, r, n, shown, NULL, fixture_m, fixture_vf, length_tol_m,
-                          step_hz, stub, res);
-    unsigned first_flags = 0;
-    if (!rc && model) {
-        /* orders from the readings as read; then fit the corrected ones */
-        cxl_stub_result_flags(res, &first_flags);
-        rc = correct(ctx, model, end, r, n, res, kind, ref_ohm, kind_name, corr, orders);
-        if (!rc)
-            rc = fit_readings(ctx, end, r, n, corr, orders, fixture_m, fixture_vf, length_tol_m,
-                              step_hz, stub, res);
-    }
-    if (rc) return CLI_EXIT_USAGE;
-
-    summary sm = { .label = cli_label(a), .end_text = end_text, .end = end, .one_length = 1,
-                   .length_m = r[0].length_m, .fixture_m = fixture_m, .fixture_vf = fixture_vf,
-                   .shown_hz = shown, .kind_name = kind_name, .corrected = cable != NULL,
-                   .cable = cable ? cable : "", .sweep = sweep, .at = at, .nat = nat };
-    double x_free;
-    cxl_stub_result_vf(res, &sm.vf, &sm.vf_err);
-    cxl_stub_result_vf_budget(res, &sm.err_fit, &sm.err_length, &sm.err_freq);
-    cxl_stub_result_flags(res, &sm.flags);
-    /* orders the corrected fit was given came from the first one */
-    sm.flags |= first_flags & CXL_STUB_FLAG_ORDERS_ASSUMED;
-    sm.fixture_fitted = cxl_stub_result_fixture(res, &x_free, &sm.extra_err_m, &sm.extra_m) == CXL_OK;
-    sm.extra_err_m *= sm.vf; /* free-space metres to metres of this cable */
-    for (int i = 1; i < n; i++)
-        if (r[i].length_m != r[0].length_m) sm.one_length = 0;
-    int finite = isfinite(sm.vf) && isfinite(sm.vf_err) && isfinite(sm.extra_m) &&
-                 isfinite(sm.extra_err_m);
-    for (size_t i = 0; i < cxl_stub_result_count(res); i++) {
-        double vi, rhz, rm;
-        cxl_stub_result_reading(res, i, NULL, NULL, NULL, &vi, &rhz, &rm);
-        finite = finite && isfinite(vi) && isfinite(rhz) && isfinite(rm);
-    }
-    for (int i = 0; i < nat && !rc; i++) {
-        char b1[48];
-        cxl_status st = cxl_stub_result_vf_at(res, at[i].freq_hz, &at[i].vf, &at[i].err, &at[i].how);
-        if (st != CXL_OK)
-            rc = cli_error(ctx, "at", "a frequency near the readings, 100 kHz or more",
-                           "no VF at %s MHz from these readings (%s)",
-                           cli_fmt(b1, sizeof b1, at[i].freq_hz / 1e6, 6), cxl_strerror(st));
-    }
-    if (!rc && !finite)
-        rc = cli_error(ctx, "resonance", res_expected, "the readings give no finite result");
-    if (!rc && (sm.flags & CXL_STUB_FLAG_INCONSISTENT))
-        rc = inconsistent(ctx, stub, r, (size_t)n, (sm.flags & CXL_STUB_FLAG_ORDERS_ASSUMED) != 0);
-    if (!rc) {
-        if (sm.flags & CXL_STUB_FLAG_VF_RANGE)
-            cli_warn(ctx, "a velocity factor outside 0.50 to 1: check the readings, --length and --end");
-        if ((sm.flags & CXL_STUB_FLAG_TREND) && nat == 0)
-            cli_warn(ctx, "the readings' VF changes with frequency beyond their uncertainty, so the "
-                          "fitted VF is an average over them: ask for the VF where the line works, "
-                          "e.g. --at 1.83MHz");
-        if (ctx->format == CLI_TEXT) write_text(ctx, &sm, res);
-        else write_table(ctx, &sm, res);
-    }
-    return rc ? CLI_EXIT_USAGE : CLI_EXIT_OK;
+    unsigned first_flags;
+    if (!vs || fit_all(ctx, &v, &rd, vs, &first_flags)) return CLI_EXIT_USAGE;
+    summary sm = { .label = cli_label(a), .end_text = v.end_text, .end = v.end, .one_length = 1,
+                   .length_m = rd.r[0].length_m, .fixture_m = v.fixture_m,
+                   .fixture_vf = v.fixture_vf, .shown_hz = rd.shown, .kind_name = v.kind_name,
+                   .corrected = v.cable != NULL, .cable = v.cable ? v.cable : "",
+                   .sweep = rd.sweep, .at = at, .nat = nat };
+    int finite = summarize(vs->res, first_flags, &rd, &sm);
+    if (vf_at_all(ctx, vs->res, at, nat) || vf_report(ctx, &sm, &rd, vs, finite))
+        return CLI_EXIT_USAGE;
+    return CLI_EXIT_OK;
 }
 
 const cli_command cli_cmd_vf = {

@@ -217,21 +217,28 @@ cxl_status cxl_stub_set_orders(cxl_stub *stub, cxl_stub_orders rule)
     return CXL_OK;
 }
 
+/* Does a reading at (length_m, freq_hz, order) follow those before it:
+ * orders on all or none, and on one length ascending frequency (and
+ * order)? */
+static int follows_readings(const cxl_stub *stub, double length_m, double freq_hz, int order)
+{
+    if (stub->n > 0 && (stub->r[0].order == 0) != (order == 0)) return 0;
+    for (size_t i = 0; i < stub->n; i++) {
+        const reading *p = &stub->r[i];
+        if (p->length_m != length_m) continue;
+        if (!(freq_hz > p->freq_hz)) return 0;
+        if (order != 0 && order <= p->order) return 0;
+    }
+    return 1;
+}
+
 cxl_status cxl_stub_add_reading(cxl_stub *stub, double length_m, double freq_hz,
                                 int order)
 {
     if (!stub || !cxl__finite_pos(length_m) || !cxl__finite_pos(freq_hz) || order < 0)
         return CXL_EINVAL;
     if (order > CXL_STUB_MAX_ORDER) return CXL_ERANGE;
-    /* all orders given, or none */
-    if (stub->n > 0 && (stub->r[0].order == 0) != (order == 0)) return CXL_EINVAL;
-    /* on one length, readings come in ascending frequency (and order) */
-    for (size_t i = 0; i < stub->n; i++) {
-        const reading *p = &stub->r[i];
-        if (p->length_m != length_m) continue;
-        if (!(freq_hz > p->freq_hz)) return CXL_EINVAL;
-        if (order != 0 && order <= p->order) return CXL_EINVAL;
-    }
+    if (!follows_readings(stub, length_m, freq_hz, order)) return CXL_EINVAL;
     if (stub->n == stub->cap) {
         size_t cap = stub->cap ? stub->cap * 2 : 8;
         reading *q = realloc(stub->r, cap * sizeof *q);
@@ -314,20 +321,11 @@ static cxl_status best_fit_group(const cxl_stub *s, const size_t *idx, size_t m,
     return isfinite(best_score) ? CXL_OK : CXL_ERANGE;
 }
 
-/* Orders for every reading under a rule, after checking that each reading
- * is plausible for some allowed order.  *assumed is set when the orders
- * were not given. */
-static cxl_status assign_orders(const cxl_stub *s, cxl_stub_orders rule, int use_given,
-                                int *orders, int *assumed, int *iscratch, size_t *idx)
+/* Orders of readings without given ones, length by length: the best
+ * fit to one fundamental, or 1, 2, ... in ascending frequency. */
+static cxl_status infer_groups(const cxl_stub *s, cxl_stub_orders rule, int *orders,
+                               int *iscratch, size_t *idx)
 {
-    if (s->n == 0) return CXL_EINVAL;
-    for (size_t i = 0; i < s->n; i++)
-        if (!reading_plausible(s, i, use_given)) return CXL_ERANGE;
-    *assumed = !(use_given && s->r[0].order != 0);
-    if (!*assumed) {
-        for (size_t i = 0; i < s->n; i++) orders[i] = s->r[i].order;
-        return CXL_OK;
-    }
     int *grp = iscratch, *trial = grp + s->n, *done = trial + s->n;
     memset(done, 0, s->n * sizeof *done);
     cxl_status st = CXL_OK;
@@ -344,6 +342,21 @@ static cxl_status assign_orders(const cxl_stub *s, cxl_stub_orders rule, int use
         for (size_t j = 0; j < m && st == CXL_OK; j++) orders[idx[j]] = grp[j];
     }
     return st;
+}
+
+/* Orders for every reading under a rule, after checking that each reading
+ * is plausible for some allowed order.  *assumed is set when the orders
+ * were not given. */
+static cxl_status assign_orders(const cxl_stub *s, cxl_stub_orders rule, int use_given,
+                                int *orders, int *assumed, int *iscratch, size_t *idx)
+{
+    if (s->n == 0) return CXL_EINVAL;
+    for (size_t i = 0; i < s->n; i++)
+        if (!reading_plausible(s, i, use_given)) return CXL_ERANGE;
+    *assumed = !(use_given && s->r[0].order != 0);
+    if (*assumed) return infer_groups(s, rule, orders, iscratch, idx);
+    for (size_t i = 0; i < s->n; i++) orders[i] = s->r[i].order;
+    return CXL_OK;
 }
 
 cxl_status cxl_stub_implausible_reading(const cxl_stub *stub, size_t *index)
@@ -410,9 +423,38 @@ static void ws_bind(fit_ws *f, cxl__fitws *ws, size_t n, size_t p)
 
 /* Solve y = a L (+ x) for lengths len[] and electrical lengths y[]
  * (weights already in f->w).  Returns 0 when GSL reports a failure. */
+/* One parameter (y = a L): the weighted least squares in closed form,
+ * a = sum(w L y) / sum(w L^2); a small fraction of the cost of the GSL
+ * solver, which the batch rows call several times each. */
+static int solve_one(fit_ws *f, const double *len, const double *y,
+                     double *a, double *x, double *chisq)
+{
+    double sxx = 0.0, sxy = 0.0;
+    for (size_t i = 0; i < f->n; i++) {
+        double w = gsl_vector_get(f->w, i);
+        sxx += w * len[i] * len[i];
+        sxy += w * len[i] * y[i];
+    }
+    if (!(sxx > 0.0)) return 0;
+    *a = sxy / sxx;
+    *x = 0.0;
+    if (chisq) {
+        double chi = 0.0;
+        for (size_t i = 0; i < f->n; i++) {
+            double d = y[i] - *a * len[i];
+            chi += gsl_vector_get(f->w, i) * d * d;
+        }
+        *chisq = chi;
+    }
+    gsl_matrix_set(f->cov, 0, 0, 1.0 / sxx);
+    gsl_vector_set(f->c, 0, *a);
+    return isfinite(*a);
+}
+
 static int solve(fit_ws *f, const double *len, const double *y,
                  double *a, double *x, double *chisq)
 {
+    if (f->p == 1) return solve_one(f, len, y, a, x, chisq);
     for (size_t i = 0; i < f->n; i++) {
         gsl_matrix_set(f->X, i, 0, len[i]);
         if (f->p == 2) gsl_matrix_set(f->X, i, 1, 1.0);
