@@ -339,6 +339,28 @@ int cli_items(const cli_ctx *ctx, const cli_args *a, const char *name,
 
 /* ---- parsers with field names ----------------------------------------- */
 
+/* The hints for a unit or separator written the way another convention
+ * writes it, at text[pos] where parsing stopped: cli_error's exit status,
+ * or 0 when none fits. */
+static int report_unit_hint(const cli_ctx *ctx, const char *field, const char *text,
+                            size_t pos, const char *expected)
+{
+    int at_text = pos < strlen(text);
+    if (at_text && text[pos] == 'm' && (text[pos + 1] == 'h' || text[pos + 1] == 'H'))
+        return cli_error(ctx, field, expected,
+                         "'%s': mHz would be millihertz; write MHz for megahertz", text);
+    if (at_text && (text[pos] == 'M' || text[pos] == 'P') &&
+        strchr("sSmM", text[pos + 1]) && text[pos + 1] != '\0')
+        return cli_error(ctx, field, expected,
+                         "'%s': a capital %c is a mega or peta prefix; write the unit in "
+                         "lower case (ms, mm, ps)", text, text[pos]);
+    if (pos > 0 && text[pos - 1] == '\'' && strspn(text + pos, "0123456789") >= 3)
+        return cli_error(ctx, field, expected,
+                         "'%s': an apostrophe before three digits looks like a thousands "
+                         "separator", text);
+    return 0;
+}
+
 static int report_parse(const cli_ctx *ctx, const char *field, const char *text,
                         cxl_status st, size_t pos, const char *kind,
                         const char *expected)
@@ -350,18 +372,8 @@ static int report_parse(const cli_ctx *ctx, const char *field, const char *text,
                          "'%s' uses a comma; the decimal mark is '.'", text);
     if (text[0] == '\0' || strspn(text, " \t") == strlen(text))
         return cli_error(ctx, field, expected, "value is empty");
-    if (pos < strlen(text) && text[pos] == 'm' && (text[pos + 1] == 'h' || text[pos + 1] == 'H'))
-        return cli_error(ctx, field, expected,
-                         "'%s': mHz would be millihertz; write MHz for megahertz", text);
-    if (pos < strlen(text) && (text[pos] == 'M' || text[pos] == 'P') &&
-        strchr("sSmM", text[pos + 1]) && text[pos + 1] != '\0')
-        return cli_error(ctx, field, expected,
-                         "'%s': a capital %c is a mega or peta prefix; write the unit in "
-                         "lower case (ms, mm, ps)", text, text[pos]);
-    if (pos > 0 && text[pos - 1] == '\'' && strspn(text + pos, "0123456789") >= 3)
-        return cli_error(ctx, field, expected,
-                         "'%s': an apostrophe before three digits looks like a thousands "
-                         "separator", text);
+    int hinted = report_unit_hint(ctx, field, text, pos, expected);
+    if (hinted) return hinted;
     return cli_error(ctx, field, expected, "'%s' is not a %s (stuck at character %zu)",
                      text, kind, pos + 1);
 }
@@ -598,6 +610,23 @@ const char *cli_fmt_length(const cli_ctx *ctx, char *buf, size_t size,
     return buf;
 }
 
+/* A control character at s (one byte, or len 2 for a C1 control) as an
+ * escape at out; *written gets its length.  Returns the bytes of s used. */
+static size_t escape_control(char *out, size_t room, const char *s, size_t len,
+                             size_t *written)
+{
+    unsigned char c = (unsigned char)*s;
+    if (len == 2) { /* C1 control, e.g. U+009B (CSI) */
+        *written = (size_t)snprintf(out, room, "\\u%04x", (unsigned char)s[1]);
+        return 2;
+    }
+    const char *e = c == 0x1b ? "\\e" : c == '\r' ? "\\r" : c == '\n' ? "\\n"
+                  : c == '\t' ? "\\t" : NULL;
+    if (e) *written = (size_t)snprintf(out, room, "%s", e);
+    else *written = (size_t)snprintf(out, room, "\\x%02x", c);
+    return 1;
+}
+
 const char *cli_escape(char *buf, size_t size, const char *s)
 {
     size_t n = 0;
@@ -611,15 +640,10 @@ const char *cli_escape(char *buf, size_t size, const char *s)
             memcpy(buf + n, s, len);
             n += len;
             s += len;
-        } else if (len == 2) { /* C1 control, e.g. U+009B (CSI) */
-            n += (size_t)snprintf(buf + n, size - n, "\\u%04x", (unsigned char)s[1]);
-            s += 2;
         } else {
-            const char *e = c == 0x1b ? "\\e" : c == '\r' ? "\\r" : c == '\n' ? "\\n"
-                          : c == '\t' ? "\\t" : NULL;
-            if (e) n += (size_t)snprintf(buf + n, size - n, "%s", e);
-            else n += (size_t)snprintf(buf + n, size - n, "\\x%02x", c);
-            s++;
+            size_t written = 0;
+            s += escape_control(buf + n, size - n, s, len, &written);
+            n += written;
         }
     }
     buf[n] = '\0';
@@ -646,22 +670,33 @@ const char *cli_label(const cli_args *a)
     return l;
 }
 
+/* The length of the UTF-8 sequence a lead byte c >= 0x80 starts, or 0
+ * when c cannot start one. */
+static inline size_t utf8_lead_len(unsigned char c)
+{
+    size_t n = (c & 0xE0) == 0xC0 ? 2 : (c & 0xF0) == 0xE0 ? 3 : (c & 0xF8) == 0xF0 ? 4 : 0;
+    return c == 0xC0 || c == 0xC1 || c >= 0xF5 ? 0 : n;
+}
+
+/* Second-byte ranges of RFC 3629, section 4: no overlong forms
+ * (E0 80-9F, F0 80-8F), no surrogates (ED A0-BF), nothing above
+ * U+10FFFF (F4 90-BF). */
+static inline int utf8_second_ok(unsigned char lead, unsigned char second)
+{
+    return !((lead == 0xE0 && second < 0xA0) || (lead == 0xED && second > 0x9F) ||
+             (lead == 0xF0 && second < 0x90) || (lead == 0xF4 && second > 0x8F));
+}
+
 size_t cli_utf8_len(const char *s)
 {
     const unsigned char *p = (const unsigned char *)s;
     unsigned char c = p[0];
     if (c < 0x80) return c ? 1 : 0;
-    size_t n = (c & 0xE0) == 0xC0 ? 2 : (c & 0xF0) == 0xE0 ? 3 : (c & 0xF8) == 0xF0 ? 4 : 0;
-    if (n == 0 || c == 0xC0 || c == 0xC1 || c >= 0xF5) return 0;
+    size_t n = utf8_lead_len(c);
+    if (n == 0) return 0;
     for (size_t k = 1; k < n; k++)
         if ((p[k] & 0xC0) != 0x80) return 0;
-    /* second-byte ranges of RFC 3629, section 4: no overlong forms
-     * (E0 80-9F, F0 80-8F), no surrogates (ED A0-BF), nothing above
-     * U+10FFFF (F4 90-BF) */
-    if ((c == 0xE0 && p[1] < 0xA0) || (c == 0xED && p[1] > 0x9F) ||
-        (c == 0xF0 && p[1] < 0x90) || (c == 0xF4 && p[1] > 0x8F))
-        return 0;
-    return n;
+    return utf8_second_ok(c, p[1]) ? n : 0;
 }
 
 /* JSON string with escapes; bytes that are not valid UTF-8 become U+FFFD

@@ -286,42 +286,40 @@ static int grow(void **p, size_t *cap, size_t need, size_t size)
 
 /* ---- cables ------------------------------------------------------------ */
 
-/* One cable record into *c (fields already checked for count). */
-static cxl_status parse_cable(cxl_csv_reader *rd, const size_t *map,
-                              size_t nfields, int builtin, struct cable *c,
-                              const struct load_ctx *ctx)
+/* The reader's current row, where it comes from and how its fields map
+ * to columns: what every row parser reads. */
+struct row_in {
+    const cxl_catalog *cat;
+    cxl_csv_reader *rd;
+    const size_t *map;
+    size_t nfields;
+    int builtin;
+    const struct load_ctx *ctx;
+};
+
+/* The fields of one cable record into *c, each as its column reads it. */
+static cxl_status read_cable_fields(const struct row_in *in, size_t line, struct cable *c)
 {
-    size_t line = cxl_csv_reader_line(rd);
     cxl_status st = CXL_OK;
-    for (size_t p = 0; p < NPROPS; p++) c->value[p] = NAN;
-    c->builtin = builtin;
-    for (size_t i = 0; i < nfields && st == CXL_OK; i++) {
-        const struct column *col = &cable_columns[map[i]];
-        const char *text = cxl_csv_reader_field(rd, i);
+    for (size_t i = 0; i < in->nfields && st == CXL_OK; i++) {
+        const struct column *col = &cable_columns[in->map[i]];
+        const char *text = cxl_csv_reader_field(in->rd, i);
         if (col->prop == COL_NAME)
-            st = copy_text(text, line, col->header, NAME_MAX_CHARS, &c->name, ctx);
+            st = copy_text(text, line, col->header, NAME_MAX_CHARS, &c->name, in->ctx);
         else if (col->prop == COL_DIELECTRIC)
-            st = copy_text(text, line, col->header, NAME_MAX_CHARS, &c->dielectric, ctx);
+            st = copy_text(text, line, col->header, NAME_MAX_CHARS, &c->dielectric, in->ctx);
         else if (col->prop == COL_SOURCE)
-            st = copy_text(text, line, col->header, TEXT_MAX_CHARS, &c->source, ctx);
+            st = copy_text(text, line, col->header, TEXT_MAX_CHARS, &c->source, in->ctx);
         else if (!is_blank(text))
-            st = parse_cell(text, col, line, &c->value[col->prop], ctx);
+            st = parse_cell(text, col, line, &c->value[col->prop], in->ctx);
     }
-    if (st != CXL_OK) return st;
-    if (!c->dielectric && !(c->dielectric = trimmed_dup(""))) return CXL_ENOMEM;
-    if (!c->source && !(c->source = trimmed_dup(""))) return CXL_ENOMEM;
-    if (c->name[0] == '\0')
-        return report(ctx, CXL_EPARSE, line, "column name: missing value");
-    if (isnan(c->value[CXL_CABLE_VF]))
-        return report(ctx, CXL_EPARSE, line, "column vf: missing value");
-    if (builtin && c->source[0] == '\0')
-        return report(ctx, CXL_EPARSE, line, "column source: missing value");
-    double d_in = c->value[CXL_CABLE_INNER_DIAMETER_M];
-    double d_diel = c->value[CXL_CABLE_DIELECTRIC_DIAMETER_M];
-    if (!isnan(d_in) && !isnan(d_diel) && !(d_in < d_diel))
-        return report(ctx, CXL_ERANGE, line,
-                      "column inner_diameter_mm: not smaller than dielectric_diameter_mm");
-    /* a clad centre needs all three of its values */
+    return st;
+}
+
+/* A clad centre needs all three of its values, and a cladding thinner
+ * than the centre's radius. */
+static cxl_status check_clad(const struct cable *c, size_t line, const struct load_ctx *ctx)
+{
     int nclad = !isnan(c->value[CXL_CABLE_CLAD_THICKNESS_M]) +
                 !isnan(c->value[CXL_CABLE_CORE_CONDUCTIVITY_S_PER_M]) +
                 !isnan(c->value[CXL_CABLE_CORE_RELATIVE_PERMEABILITY]);
@@ -331,6 +329,7 @@ static cxl_status parse_cable(cxl_csv_reader *rd, const size_t *map,
                              ? "core_conductivity_s_per_m" : "core_relative_permeability";
         return report(ctx, CXL_EPARSE, line, "column %s: missing value (clad centre)", miss);
     }
+    double d_in = c->value[CXL_CABLE_INNER_DIAMETER_M];
     if (nclad == 3 && !isnan(d_in) &&
         !(2.0 * c->value[CXL_CABLE_CLAD_THICKNESS_M] < d_in))
         return report(ctx, CXL_ERANGE, line,
@@ -338,51 +337,74 @@ static cxl_status parse_cable(cxl_csv_reader *rd, const size_t *map,
     return CXL_OK;
 }
 
+/* One cable record into *c (fields already checked for count). */
+static cxl_status parse_cable(const struct row_in *in, struct cable *c)
+{
+    size_t line = cxl_csv_reader_line(in->rd);
+    const struct load_ctx *ctx = in->ctx;
+    for (size_t p = 0; p < NPROPS; p++) c->value[p] = NAN;
+    c->builtin = in->builtin;
+    cxl_status st = read_cable_fields(in, line, c);
+    if (st != CXL_OK) return st;
+    if (!c->dielectric && !(c->dielectric = trimmed_dup(""))) return CXL_ENOMEM;
+    if (!c->source && !(c->source = trimmed_dup(""))) return CXL_ENOMEM;
+    if (c->name[0] == '\0')
+        return report(ctx, CXL_EPARSE, line, "column name: missing value");
+    if (isnan(c->value[CXL_CABLE_VF]))
+        return report(ctx, CXL_EPARSE, line, "column vf: missing value");
+    if (in->builtin && c->source[0] == '\0')
+        return report(ctx, CXL_EPARSE, line, "column source: missing value");
+    double d_in = c->value[CXL_CABLE_INNER_DIAMETER_M];
+    double d_diel = c->value[CXL_CABLE_DIELECTRIC_DIAMETER_M];
+    if (!isnan(d_in) && !isnan(d_diel) && !(d_in < d_diel))
+        return report(ctx, CXL_ERANGE, line,
+                      "column inner_diameter_mm: not smaller than dielectric_diameter_mm");
+    return check_clad(c, line, ctx);
+}
+
 /* One staged record: parse the reader's current row into slot; staged
  * holds the n records before it. */
-typedef cxl_status (*row_parser)(const cxl_catalog *cat, cxl_csv_reader *rd,
-                                 const size_t *map, size_t nfields, int builtin,
-                                 void *slot, const void *staged, size_t n,
-                                 const struct load_ctx *ctx);
+typedef cxl_status (*row_parser)(const struct row_in *in, void *slot, const void *staged,
+                                 size_t n);
 
 /* Read the header and every record into a growing array of elem_size
  * records (*staged, *n), zeroed before parsing, until the end or the first
  * error.  The caller commits or frees what was staged. */
-static cxl_status stage_rows(const cxl_catalog *cat, cxl_csv_reader *rd,
-                             const struct column *cols, size_t ncols,
-                             size_t elem_size, row_parser parse, int builtin,
-                             void **staged, size_t *n, const struct load_ctx *ctx)
+static cxl_status stage_rows(const struct row_in *in_header, const struct column *cols,
+                             size_t ncols, size_t elem_size, row_parser parse,
+                             void **staged, size_t *n)
 {
     size_t map[MAX_COLUMNS], nfields = 0, cap = 0;
-    cxl_status st = read_header(rd, cols, ncols, map, &nfields, ctx);
+    const struct load_ctx *ctx = in_header->ctx;
+    cxl_status st = read_header(in_header->rd, cols, ncols, map, &nfields, ctx);
+    struct row_in in = *in_header;
+    in.map = map;
+    in.nfields = nfields;
     while (st == CXL_OK) {
         int has_row = 0;
-        st = next_record(rd, nfields, &has_row, ctx);
+        st = next_record(in.rd, nfields, &has_row, ctx);
         if (st != CXL_OK || !has_row) break;
         if (!grow(staged, &cap, *n + 1, elem_size)) return CXL_ENOMEM;
         char *slot = (char *)*staged + *n * elem_size;
         memset(slot, 0, elem_size);
         (*n)++;
-        st = parse(cat, rd, map, nfields, builtin, slot, *staged, *n - 1, ctx);
+        st = parse(&in, slot, *staged, *n - 1);
     }
     return st;
 }
 
-static cxl_status cable_row(const cxl_catalog *cat, cxl_csv_reader *rd,
-                            const size_t *map, size_t nfields, int builtin,
-                            void *slot, const void *staged, size_t n,
-                            const struct load_ctx *ctx)
+static cxl_status cable_row(const struct row_in *in, void *slot, const void *staged, size_t n)
 {
     struct cable *c = slot;
-    cxl_status st = parse_cable(rd, map, nfields, builtin, c, ctx);
+    cxl_status st = parse_cable(in, c);
     if (st != CXL_OK) return st;
-    size_t line = cxl_csv_reader_line(rd);
-    if (find_row(cat->rows, cat->n, c->name, NULL))
-        return report(ctx, CXL_EDUPLICATE, line,
+    size_t line = cxl_csv_reader_line(in->rd);
+    if (find_row(in->cat->rows, in->cat->n, c->name, NULL))
+        return report(in->ctx, CXL_EDUPLICATE, line,
                       "column name: %s is already in the catalog (give this cable its own name)",
                       c->name);
     if (find_row(staged, n, c->name, NULL))
-        return report(ctx, CXL_EDUPLICATE, line, "column name: %s appears twice", c->name);
+        return report(in->ctx, CXL_EDUPLICATE, line, "column name: %s appears twice", c->name);
     return CXL_OK;
 }
 
@@ -391,8 +413,9 @@ static cxl_status load_cables(cxl_catalog *cat, cxl_csv_reader *rd, int builtin,
 {
     void *buf = NULL;
     size_t n = 0;
-    cxl_status st = stage_rows(cat, rd, cable_columns, N_CABLE_COLUMNS, sizeof(struct cable),
-                               cable_row, builtin, &buf, &n, ctx);
+    struct row_in in = {cat, rd, NULL, 0, builtin, ctx};
+    cxl_status st = stage_rows(&in, cable_columns, N_CABLE_COLUMNS, sizeof(struct cable),
+                               cable_row, &buf, &n);
     struct cable *staged = buf;
     if (st == CXL_OK && !grow((void **)&cat->rows, &cat->cap, cat->n + n, sizeof *cat->rows))
         st = CXL_ENOMEM;
@@ -445,62 +468,76 @@ static cxl_status commit_points(cxl_catalog *cat, struct staged_point *sp, size_
     return CXL_OK;
 }
 
-static cxl_status parse_point(cxl_csv_reader *rd, const size_t *map, size_t nfields,
-                              const cxl_catalog *cat, int builtin,
-                              struct staged_point *sp, const struct load_ctx *ctx)
+/* The fields of one loss point: *name is its cable's name as written,
+ * *freq and *loss the numbers, sp->pt.source its source. */
+static cxl_status read_point_fields(const struct row_in *in, size_t line, const char **name,
+                                    double *freq, double *loss, struct staged_point *sp)
 {
-    size_t line = cxl_csv_reader_line(rd);
-    const char *name = NULL;
-    double freq = NAN, loss = NAN;
     cxl_status st = CXL_OK;
-    sp->line = line;
-    for (size_t i = 0; i < nfields && st == CXL_OK; i++) {
-        const struct column *col = &loss_columns[map[i]];
-        const char *text = cxl_csv_reader_field(rd, i);
-        if (col->prop == COL_NAME) name = text;
+    for (size_t i = 0; i < in->nfields && st == CXL_OK; i++) {
+        const struct column *col = &loss_columns[in->map[i]];
+        const char *text = cxl_csv_reader_field(in->rd, i);
+        if (col->prop == COL_NAME) *name = text;
         else if (col->prop == COL_SOURCE)
-            st = copy_text(text, line, col->header, TEXT_MAX_CHARS, &sp->pt.source, ctx);
+            st = copy_text(text, line, col->header, TEXT_MAX_CHARS, &sp->pt.source, in->ctx);
         else if (is_blank(text))
-            st = report(ctx, CXL_EPARSE, line, "column %s: missing value", col->header);
+            st = report(in->ctx, CXL_EPARSE, line, "column %s: missing value", col->header);
         else
-            st = parse_cell(text, col, line, col->prop == COL_FREQ ? &freq : &loss, ctx);
+            st = parse_cell(text, col, line, col->prop == COL_FREQ ? freq : loss, in->ctx);
     }
-    if (st != CXL_OK) return st;
-    if (!sp->pt.source && !(sp->pt.source = trimmed_dup(""))) return CXL_ENOMEM;
-    if (builtin && sp->pt.source[0] == '\0')
-        return report(ctx, CXL_EPARSE, line, "column source: missing value");
+    return st;
+}
+
+/* The cable a loss point names, into sp->row: it must exist, and a user
+ * table may not add to a built-in cable's. */
+static cxl_status point_cable(const struct row_in *in, size_t line, const char *name,
+                              struct staged_point *sp)
+{
     char *trimmed = trimmed_dup(name);
     if (!trimmed) return CXL_ENOMEM;
-    int found = trimmed[0] != '\0' && find_row(cat->rows, cat->n, trimmed, &sp->row);
+    cxl_status st = CXL_OK;
+    int found = trimmed[0] != '\0' && find_row(in->cat->rows, in->cat->n, trimmed, &sp->row);
     if (trimmed[0] == '\0')
-        st = report(ctx, CXL_EPARSE, line, "column name: missing value");
+        st = report(in->ctx, CXL_EPARSE, line, "column name: missing value");
     else if (!found)
-        st = report(ctx, CXL_ENOTFOUND, line, "column name: no cable named %s", trimmed);
-    else if (!builtin && cat->rows[sp->row].builtin)
-        st = report(ctx, CXL_EDUPLICATE, line,
+        st = report(in->ctx, CXL_ENOTFOUND, line, "column name: no cable named %s", trimmed);
+    else if (!in->builtin && in->cat->rows[sp->row].builtin)
+        st = report(in->ctx, CXL_EDUPLICATE, line,
                     "column name: %s is built in and has its own table; add a user cable", trimmed);
     free(trimmed);
+    return st;
+}
+
+static cxl_status parse_point(const struct row_in *in, struct staged_point *sp)
+{
+    size_t line = cxl_csv_reader_line(in->rd);
+    const char *name = NULL;
+    double freq = NAN, loss = NAN;
+    sp->line = line;
+    cxl_status st = read_point_fields(in, line, &name, &freq, &loss, sp);
+    if (st != CXL_OK) return st;
+    if (!sp->pt.source && !(sp->pt.source = trimmed_dup(""))) return CXL_ENOMEM;
+    if (in->builtin && sp->pt.source[0] == '\0')
+        return report(in->ctx, CXL_EPARSE, line, "column source: missing value");
+    st = point_cable(in, line, name, sp);
     sp->pt.freq_hz = freq;
     sp->pt.loss_db_per_m = loss;
     return st;
 }
 
-static cxl_status point_row(const cxl_catalog *cat, cxl_csv_reader *rd,
-                            const size_t *map, size_t nfields, int builtin,
-                            void *slot, const void *staged, size_t n,
-                            const struct load_ctx *ctx)
+static cxl_status point_row(const struct row_in *in, void *slot, const void *staged, size_t n)
 {
     struct staged_point *sp = slot;
     const struct staged_point *before = staged;
-    cxl_status st = parse_point(rd, map, nfields, cat, builtin, sp, ctx);
+    cxl_status st = parse_point(in, sp);
     if (st != CXL_OK) return st;
-    const struct cable *c = &cat->rows[sp->row];
+    const struct cable *c = &in->cat->rows[sp->row];
     int dup = 0;
     for (size_t k = 0; k < c->npoints; k++) dup |= c->points[k].freq_hz == sp->pt.freq_hz;
     for (size_t k = 0; k < n; k++)
         dup |= before[k].row == sp->row && before[k].pt.freq_hz == sp->pt.freq_hz;
     if (dup)
-        return report(ctx, CXL_EDUPLICATE, sp->line,
+        return report(in->ctx, CXL_EDUPLICATE, sp->line,
                       "column freq_mhz: %s already has a point at this frequency", c->name);
     return CXL_OK;
 }
@@ -510,8 +547,9 @@ static cxl_status load_loss(cxl_catalog *cat, cxl_csv_reader *rd, int builtin,
 {
     void *buf = NULL;
     size_t n = 0;
-    cxl_status st = stage_rows(cat, rd, loss_columns, N_LOSS_COLUMNS,
-                               sizeof(struct staged_point), point_row, builtin, &buf, &n, ctx);
+    struct row_in in = {cat, rd, NULL, 0, builtin, ctx};
+    cxl_status st = stage_rows(&in, loss_columns, N_LOSS_COLUMNS, sizeof(struct staged_point),
+                               point_row, &buf, &n);
     struct staged_point *staged = buf;
     if (st == CXL_OK) st = commit_points(cat, staged, n);
     for (size_t k = 0; k < n; k++) free(staged[k].pt.source);

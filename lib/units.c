@@ -59,6 +59,33 @@ static const double exact_pow10[23] = {
     1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22
 };
 
+/* Appends the digits at s[*i..end) to *m; fraction digits (fraction 1)
+ * also count *e down by one each.  Returns 0 when m would overflow. */
+static inline int accumulate_digits(const char *s, size_t *i, size_t end, uint64_t *m,
+                                    int *e, int fraction)
+{
+    for (; *i < end && is_digit(s[*i]); (*i)++, *e -= fraction) {
+        if (*m > (UINT64_MAX - 9) / 10) return 0;
+        *m = *m * 10 + (uint64_t)(s[*i] - '0');
+    }
+    return 1;
+}
+
+/* The exponent at s[i..end), just past its 'e' or 'E': optional sign and
+ * digits, as scan_unsigned checked them.  Returns 0 when it is too large
+ * for any fast path. */
+static inline int exponent_value(const char *s, size_t i, size_t end, int *exponent)
+{
+    int sign = 1, x = 0;
+    if (s[i] == '+' || s[i] == '-') sign = s[i++] == '-' ? -1 : 1;
+    for (; i < end; i++) {
+        if (x > 1000) return 0;
+        x = x * 10 + (s[i] - '0');
+    }
+    *exponent = sign * x;
+    return 1;
+}
+
 /* Fast exact conversion of a decimal already checked by scan_unsigned,
  * s[i..end): digits, optional fraction, optional exponent.  When the
  * digits form an integer m <= 2^53 and the decimal exponent e satisfies
@@ -72,26 +99,14 @@ static int decimal_fast(const char *s, size_t i, size_t end, double *value)
 {
 #if FLT_EVAL_METHOD == 0
     uint64_t m = 0;
-    int e = 0;
-    for (; i < end && is_digit(s[i]); i++) {
-        if (m > (UINT64_MAX - 9) / 10) return 0;
-        m = m * 10 + (uint64_t)(s[i] - '0');
-    }
-    if (i < end && s[i] == '.')
-        for (i++; i < end && is_digit(s[i]); i++, e--) {
-            if (m > (UINT64_MAX - 9) / 10) return 0;
-            m = m * 10 + (uint64_t)(s[i] - '0');
-        }
-    if (i < end) { /* exponent: e or E, optional sign, digits */
-        int sign = 1, x = 0;
+    int e = 0, x = 0;
+    if (!accumulate_digits(s, &i, end, &m, &e, 0)) return 0;
+    if (i < end && s[i] == '.') {
         i++;
-        if (s[i] == '+' || s[i] == '-') sign = s[i++] == '-' ? -1 : 1;
-        for (; i < end; i++) {
-            if (x > 1000) return 0;
-            x = x * 10 + (s[i] - '0');
-        }
-        e += sign * x;
+        if (!accumulate_digits(s, &i, end, &m, &e, 1)) return 0;
     }
+    if (i < end && !exponent_value(s, i + 1, end, &x)) return 0;
+    e += x;
     if (m > ((uint64_t)1 << 53) || e < -22 || e > 22 || fegetround() != FE_TONEAREST)
         return 0;
     *value = e < 0 ? (double)m / exact_pow10[-e] : (double)m * exact_pow10[e];
@@ -102,11 +117,9 @@ static int decimal_fast(const char *s, size_t i, size_t end, double *value)
 #endif
 }
 
-/* Scan an unsigned decimal number at s[i] (digits, optional fraction,
- * optional exponent).  Returns the end index, or i when nothing valid is
- * there.  *value gets the number; *range_error is set when it overflows. */
-static size_t scan_unsigned(const char *s, size_t i, double *value,
-                            int *range_error)
+/* The end of the unsigned decimal at s[i] (digits, optional fraction,
+ * optional exponent), or i when it has no digits. */
+static inline size_t unsigned_end(const char *s, size_t i)
 {
     size_t start = i, digits = 0;
     while (is_digit(s[i])) { i++; digits++; }
@@ -123,24 +136,42 @@ static size_t scan_unsigned(const char *s, size_t i, double *value,
             i = j;
         }
     }
-    if (i - start >= NUMBER_MAX_CHARS) {
-        *range_error = 1;
-        return i;
-    }
-    if (decimal_fast(s, start, i, value)) {
-        *range_error = 0;
-        return i;
-    }
+    return i;
+}
+
+/* strtod_l on the n < NUMBER_MAX_CHARS characters at s, for what
+ * decimal_fast cannot do exactly. */
+static double decimal_slow(const char *s, size_t n, int *range_error)
+{
     char buf[NUMBER_MAX_CHARS];
-    memcpy(buf, s + start, i - start);
-    buf[i - start] = '\0';
+    memcpy(buf, s, n);
+    buf[n] = '\0';
     pthread_once(&c_locale_once, c_locale_init);
     double v = c_locale ? strtod_l(buf, NULL, c_locale) : strtod(buf, NULL);
     /* too large, or a non-zero mantissa that underflowed to zero */
     *range_error = !isfinite(v) ||
                    (v == 0.0 && strcspn(buf, "123456789") < strcspn(buf, "eE"));
-    *value = v;
-    return i;
+    return v;
+}
+
+/* Scan an unsigned decimal number at s[i] (digits, optional fraction,
+ * optional exponent).  Returns the end index, or i when nothing valid is
+ * there.  *value gets the number; *range_error is set when it overflows. */
+static size_t scan_unsigned(const char *s, size_t i, double *value,
+                            int *range_error)
+{
+    size_t end = unsigned_end(s, i);
+    if (end == i) return i;
+    if (end - i >= NUMBER_MAX_CHARS) {
+        *range_error = 1;
+        return end;
+    }
+    if (decimal_fast(s, i, end, value)) {
+        *range_error = 0;
+        return end;
+    }
+    *value = decimal_slow(s + i, end - i, range_error);
+    return end;
 }
 
 static cxl_status fail(size_t *error_pos, size_t pos, cxl_status st)
@@ -248,6 +279,61 @@ static const double metric_scale[] = { 1.0, 0.01, 0.001 };
 static const char *const feet_words[] = { "ft", "feet", "foot", "'" };
 static const char *const inch_words[] = { "in", "inch", "inches", "\"" };
 
+/* After a number of feet and its word, ending at text[end]: an optional
+ * inch amount with an optional inch word.  *metres gets the inches added,
+ * *end_out the index past them. */
+static cxl_status feet_and_inches(const char *text, size_t end, double *metres,
+                                  size_t *end_out, size_t *error_pos)
+{
+    /* 1'000 is a thousands separator (Swiss style), not 1 ft 0 in */
+    if (strspn(text + end, "0123456789") >= 3) return fail(error_pos, end, CXL_EPARSE);
+    *end_out = end;
+    if (text[end] == '\0') return CXL_OK;
+    double more = 0.0;
+    size_t dummy_pos = 0, wlen = 0;
+    cxl_status st = CXL_OK;
+    size_t e2 = scan_inches(text, end, &more, &dummy_pos, &st);
+    if (st != CXL_OK) return fail(error_pos, dummy_pos, st);
+    if (e2 == end) return fail(error_pos, end, CXL_EPARSE);
+    size_t u2 = skip_spaces(text, e2);
+    if (match_word(text, u2, inch_words, 4, &wlen) >= 0)
+        e2 = u2 + wlen;
+    *metres += more * M_PER_IN;
+    *end_out = e2;
+    return CXL_OK;
+}
+
+/* The amount at text[i..end) is already read into amount; the unit word
+ * (or none) at text[u] says what it counts.  *metres gets the length and
+ * *end_out the index past the unit (and any inches after feet). */
+static cxl_status length_with_unit(const char *text, size_t i, size_t end, size_t u,
+                                   double amount, cxl_units bare_units, double *metres,
+                                   size_t *end_out, size_t *error_pos)
+{
+    int is_fraction = memchr(text + i, '/', end - i) != NULL;
+    int has_space = memchr(text + i, ' ', end - i) != NULL;
+    size_t wlen = 0;
+    int k;
+    if (!is_fraction && (k = match_word(text, u, metric_words, 3, &wlen)) >= 0) {
+        if (has_space) return fail(error_pos, end, CXL_EPARSE);
+        if (k == 2 && text[u] == 'M') return fail(error_pos, u, CXL_EPARSE); /* Mm: megametre */
+        *metres = amount * metric_scale[k];
+        *end_out = u + wlen;
+    } else if (!is_fraction && match_word(text, u, feet_words, 4, &wlen) >= 0 && !has_space) {
+        *metres = amount * M_PER_FT;
+        return feet_and_inches(text, skip_spaces(text, u + wlen), metres, end_out, error_pos);
+    } else if (match_word(text, u, inch_words, 4, &wlen) >= 0) {
+        *metres = amount * M_PER_IN;
+        *end_out = u + wlen;
+    } else if (text[u] == '\0' && !is_fraction && !has_space) {
+        *metres = bare_units == CXL_UNITS_METRIC ? amount : amount * M_PER_FT;
+        *end_out = u;
+    } else {
+        return fail(error_pos, text[u] == '\0' ? i : u, CXL_EPARSE);
+    }
+    return CXL_OK;
+}
+
 cxl_status cxl_units_parse_length(const char *text, cxl_units bare_units,
                                   double *length_m, size_t *error_pos)
 {
@@ -256,52 +342,18 @@ cxl_status cxl_units_parse_length(const char *text, cxl_units bare_units,
         return CXL_EINVAL;
     size_t i = skip_spaces(text, 0);
     double sign = scan_sign(text, &i);
-    size_t num_start = i;
-    double inches = 0.0;
+    double amount = 0.0, metres = 0.0;
     size_t dummy_pos = 0;
     cxl_status st = CXL_OK;
-    size_t end = scan_inches(text, i, &inches, &dummy_pos, &st);
+    size_t end = scan_inches(text, i, &amount, &dummy_pos, &st);
     if (st != CXL_OK) return fail(error_pos, dummy_pos, st);
     if (end == i) return fail(error_pos, i, CXL_EPARSE);
-    int is_fraction = memchr(text + i, '/', end - i) != NULL;
-    size_t u = skip_spaces(text, end);
-    size_t wlen = 0;
-    double metres;
-    int k;
-    if (!is_fraction && (k = match_word(text, u, metric_words, 3, &wlen)) >= 0) {
-        if (memchr(text + i, ' ', end - i)) return fail(error_pos, end, CXL_EPARSE);
-        if (k == 2 && text[u] == 'M') return fail(error_pos, u, CXL_EPARSE); /* Mm: megametre */
-        metres = inches * metric_scale[k];
-        end = u + wlen;
-    } else if (!is_fraction && match_word(text, u, feet_words, 4, &wlen) >= 0
-               && !memchr(text + i, ' ', end - i)) {
-        metres = inches * M_PER_FT;
-        end = skip_spaces(text, u + wlen);
-        /* 1'000 is a thousands separator (Swiss style), not 1 ft 0 in */
-        if (strspn(text + end, "0123456789") >= 3) return fail(error_pos, end, CXL_EPARSE);
-        if (text[end] != '\0') {
-            double more = 0.0;
-            size_t e2 = scan_inches(text, end, &more, &dummy_pos, &st);
-            if (st != CXL_OK) return fail(error_pos, dummy_pos, st);
-            if (e2 == end) return fail(error_pos, end, CXL_EPARSE);
-            size_t u2 = skip_spaces(text, e2);
-            if (match_word(text, u2, inch_words, 4, &wlen) >= 0)
-                e2 = u2 + wlen;
-            metres += more * M_PER_IN;
-            end = e2;
-        }
-    } else if (match_word(text, u, inch_words, 4, &wlen) >= 0) {
-        metres = inches * M_PER_IN;
-        end = u + wlen;
-    } else if (text[u] == '\0' && !is_fraction && !memchr(text + i, ' ', end - i)) {
-        metres = bare_units == CXL_UNITS_METRIC ? inches : inches * M_PER_FT;
-        end = u;
-    } else {
-        return fail(error_pos, text[u] == '\0' ? num_start : u, CXL_EPARSE);
-    }
+    st = length_with_unit(text, i, end, skip_spaces(text, end), amount, bare_units, &metres,
+                          &end, error_pos);
+    if (st != CXL_OK) return st;
     end = skip_spaces(text, end);
     if (text[end] != '\0') return fail(error_pos, end, CXL_EPARSE);
-    if (!isfinite(metres)) return fail(error_pos, num_start, CXL_ERANGE);
+    if (!isfinite(metres)) return fail(error_pos, i, CXL_ERANGE);
     *length_m = sign * metres;
     return CXL_OK;
 }
