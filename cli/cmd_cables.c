@@ -114,41 +114,46 @@ static void text_list(cli_ctx *ctx, const cxl_catalog *cat, size_t count)
                "coaxline cables --cable NAME shows sources and loss points.\n");
 }
 
-static void text_detail(cli_ctx *ctx, const cxl_catalog *cat, size_t i)
+/* The cable's own values: impedance, velocity factor, dielectric,
+ * diameters, conductors and source. */
+static void detail_properties(FILE *o, const cable_info *c)
 {
-    FILE *o = ctx->out;
-    cable_info c;
     char b1[512], b2[64], b3[64], b4[64];
-    get_info(cat, i, &c);
-    fprintf(o, "cable %s (%s)\n", cli_clean(b1, sizeof b1, c.name),
-            c.builtin ? "built-in" : "user file");
-    fprintf(o, "  impedance        %s ohm%s\n", cell_text(b2, sizeof b2, c.prop[0], 1),
-            c.builtin ? " (nominal)" : "");
-    fprintf(o, "  velocity factor  %s%s\n", cell_text(b2, sizeof b2, c.prop[1], 4),
-            c.builtin ? " (nominal; a spool differs, measure it)" : " (from the user file)");
+    fprintf(o, "cable %s (%s)\n", cli_clean(b1, sizeof b1, c->name),
+            c->builtin ? "built-in" : "user file");
+    fprintf(o, "  impedance        %s ohm%s\n", cell_text(b2, sizeof b2, c->prop[0], 1),
+            c->builtin ? " (nominal)" : "");
+    fprintf(o, "  velocity factor  %s%s\n", cell_text(b2, sizeof b2, c->prop[1], 4),
+            c->builtin ? " (nominal; a spool differs, measure it)" : " (from the user file)");
     fprintf(o, "  dielectric       %s, relative permittivity %s, loss tangent %s\n",
-            c.dielectric[0] ? cli_clean(b1, sizeof b1, c.dielectric) : "-",
-            cell_text(b2, sizeof b2, c.prop[4], 4), cell_text(b3, sizeof b3, c.prop[5], 6));
+            c->dielectric[0] ? cli_clean(b1, sizeof b1, c->dielectric) : "-",
+            cell_text(b2, sizeof b2, c->prop[4], 4), cell_text(b3, sizeof b3, c->prop[5], 6));
     fprintf(o, "  diameters        centre %s mm, dielectric %s mm\n",
-            cell_text(b2, sizeof b2, c.prop[2], 3), cell_text(b3, sizeof b3, c.prop[3], 3));
-    cli_cell ms = c.prop[6], core_ms = c.prop[9];
+            cell_text(b2, sizeof b2, c->prop[2], 3), cell_text(b3, sizeof b3, c->prop[3], 3));
+    cli_cell ms = c->prop[6], core_ms = c->prop[9];
     ms.value /= 1e6;
     core_ms.value /= 1e6;
     fprintf(o, "  conductors       %s MS/m, loss factor %s", cell_text(b2, sizeof b2, ms, 2),
-            cell_text(b3, sizeof b3, c.prop[7], 3));
-    if (c.prop[8].present)
+            cell_text(b3, sizeof b3, c->prop[7], 3));
+    if (c->prop[8].present)
         fprintf(o, "; centre clad %s mm over a core of %s MS/m, relative permeability %s",
-                cell_text(b2, sizeof b2, c.prop[8], 3), cell_text(b3, sizeof b3, core_ms, 2),
-                cell_text(b4, sizeof b4, c.prop[10], 1));
-    fprintf(o, "\n  source           %s\n", c.source[0] ? cli_clean(b1, sizeof b1, c.source) : "-");
+                cell_text(b2, sizeof b2, c->prop[8], 3), cell_text(b3, sizeof b3, core_ms, 2),
+                cell_text(b4, sizeof b4, c->prop[10], 1));
+    fprintf(o, "\n  source           %s\n",
+            c->source[0] ? cli_clean(b1, sizeof b1, c->source) : "-");
+}
 
-    cxl_loss_fit *fit = cli_cable_fit(cat, i);
-    fprintf(o, "  loss table       %zu point%s%s\n", c.npoints, c.npoints == 1 ? "" : "s",
-            c.npoints ? " (dB/100 m; fitted value and residual; [n] = source below)" : "");
-    /* number the distinct point sources */
+/* The loss table of cable i, each point with its fitted value (when fit)
+ * and the number of its source; then the sources, numbered. */
+static void detail_loss_points(FILE *o, const cxl_catalog *cat, size_t i, size_t npoints,
+                               const cxl_loss_fit *fit)
+{
+    char b1[512], b2[64], b3[64], b4[64];
+    fprintf(o, "  loss table       %zu point%s%s\n", npoints, npoints == 1 ? "" : "s",
+            npoints ? " (dB/100 m; fitted value and residual; [n] = source below)" : "");
     const char *srcs[64];
     size_t nsrc = 0;
-    for (size_t p = 0; p < c.npoints; p++) {
+    for (size_t p = 0; p < npoints; p++) {
         double f, l, rf, rt, rr;
         const char *src = "";
         cxl_catalog_loss_point(cat, i, p, &f, &l, &src);
@@ -164,6 +169,17 @@ static void text_detail(cli_ctx *ctx, const cxl_catalog *cat, size_t i)
     }
     for (size_t s = 0; s < nsrc; s++)
         fprintf(o, "    [%zu] %s\n", s + 1, srcs[s][0] ? cli_clean(b1, sizeof b1, srcs[s]) : "-");
+}
+
+static void text_detail(cli_ctx *ctx, const cxl_catalog *cat, size_t i)
+{
+    FILE *o = ctx->out;
+    cable_info c;
+    char b1[512];
+    get_info(cat, i, &c);
+    detail_properties(o, &c);
+    cxl_loss_fit *fit = cli_cable_fit(cat, i);
+    detail_loss_points(o, cat, i, c.npoints, fit);
     if (fit) fprintf(o, "  fitted model     %s\n", cli_fmt_fit(b1, sizeof b1, fit));
     cxl_loss_fit_free(fit);
     cxl_loss_model *m = NULL;

@@ -360,43 +360,59 @@ static cxl_status bracket(gsl_function *fn, stub_eval *e, double guess, double h
     return CXL_ENOCONV;
 }
 
+/* The first guess at the frequency where the line is k wavelengths: the
+ * phase velocity at the top of the range, where it is nearly the
+ * high-frequency value, then two fixed-point steps. */
+static cxl_status wave_guess(const cxl_loss_model *model, unsigned flags, double k,
+                             double length_m, double f_max, double *guess)
+{
+    *guess = f_max;
+    for (int i = 0; i < 3; i++) {
+        double vf;
+        cxl_status st = cxl_loss_model_vf(model, *guess, flags | CXL_LOSS_EXTRAPOLATE, &vf);
+        if (st != CXL_OK) return st;
+        *guess = k * vf * CXL_C_M_PER_S / length_m;
+        if (!isfinite(*guess) || !(*guess > 0.0)) return CXL_ERANGE;
+    }
+    return CXL_OK;
+}
+
+/* The root of fn in the interval bracket() finds around guess. */
+static cxl_status bracketed_root(gsl_function *fn, stub_eval *e, double guess, double half,
+                                 double grow, double *root)
+{
+    double lo, hi;
+    cxl_status st = bracket(fn, e, guess, half, grow, &lo, &hi);
+    if (st == CXL_OK) st = brent_root(fn, lo, hi, root);
+    if (st == CXL_OK && e->st != CXL_OK) st = e->st;
+    return st;
+}
+
 cxl_status cxl__transfer_stub_points(const cxl_loss_model *model, unsigned flags,
                                      cxl_stub_end end, int order, double length_m,
                                      cxl_dip_kind kind, double ref_ohm,
                                      double *wave_hz, double *dip_hz)
 {
-    double k, lo, hi, guess, root, vf, f_min, f_max;
+    double k, guess, root, f_min, f_max;
     if (!model || !cxl__finite_pos(length_m) ||
         (kind != CXL_DIP_ZERO_X && kind != CXL_DIP_MIN_Z && kind != CXL_DIP_MIN_SWR) ||
         !cxl__finite_pos(ref_ohm))
         return CXL_EINVAL;
     cxl_status st = cxl_stub_wavelengths(end, order, &k);
     if (st == CXL_OK) st = cxl_loss_model_range(model, &f_min, &f_max);
+    if (st == CXL_OK) st = wave_guess(model, flags, k, length_m, f_max, &guess);
     if (st != CXL_OK) return st;
     stub_eval e = { model, flags, length_m, k, end == CXL_STUB_OPEN ? 1.0 : -1.0, CXL_OK,
                     kind, ref_ohm };
-    /* first guess: the phase velocity at the top of the range, where it is
-     * nearly the high-frequency value, then two fixed-point steps */
-    guess = f_max;
-    for (int i = 0; i < 3; i++) {
-        st = cxl_loss_model_vf(model, guess, flags | CXL_LOSS_EXTRAPOLATE, &vf);
-        if (st != CXL_OK) return st;
-        guess = k * vf * CXL_C_M_PER_S / length_m;
-        if (!isfinite(guess) || !(guess > 0.0)) return CXL_ERANGE;
-    }
     /* where the line is exactly k wavelengths (beta l grows with f) */
     gsl_function gap = { wavelength_gap, &e };
-    st = bracket(&gap, &e, guess, 1e-3 * guess, 2.0, &lo, &hi);
-    if (st == CXL_OK) st = brent_root(&gap, lo, hi, &guess);
-    if (st == CXL_OK && e.st != CXL_OK) st = e.st;
+    st = bracketed_root(&gap, &e, guess, 1e-3 * guess, 2.0, &guess);
     if (st != CXL_OK) return st;
     /* the input reactance crosses zero close to it: +-1/8 wavelength
      * (+-pi/4 of beta l, guess / (8 k) in frequency) holds no
      * anti-resonance */
     gsl_function react = { stub_reactance, &e };
-    st = bracket(&react, &e, guess, guess / (8.0 * k), 0.5, &lo, &hi);
-    if (st == CXL_OK) st = brent_root(&react, lo, hi, &root);
-    if (st == CXL_OK && e.st != CXL_OK) st = e.st;
+    st = bracketed_root(&react, &e, guess, guess / (8.0 * k), 0.5, &root);
     if (st != CXL_OK) return st;
     if (kind != CXL_DIP_ZERO_X) {
         /* the minimum lies near the reactance zero: within 1/16
