@@ -504,6 +504,11 @@ typedef struct cli_duo_spec {
  * measured-a, measured-b, actual-vf, phase-error, imbalance, line-loss).
  * Returns 0, or CLI_EXIT_USAGE after cli_error(). */
 int cli_duo_spec_parse(cli_ctx *ctx, const cli_args *a, cli_duo_spec *spec);
+/* --actual-vf, the VF of the spool the lines were cut from, for the duo
+ * and array commands: *actual_vf is design_vf when it is absent; refused
+ * without a design VF.  *given is 1 when it was given. */
+int cli_actual_vf(cli_ctx *ctx, const cli_args *a, int has_design_vf, double design_vf,
+                  double *actual_vf, int *given);
 /* --wire-length and --wire-vf: both needed for a wire element (wire != 0),
  * neither for elements of another kind (named in the error).  Returns 0,
  * or CLI_EXIT_USAGE after cli_error(). */

@@ -142,14 +142,9 @@ static int parse_element(cli_ctx *ctx, const cli_args *a, array_spec *s)
 /* --actual-vf: the spool's VF, which needs the design VF. */
 static int parse_actual_vf(cli_ctx *ctx, const cli_args *a, array_spec *s)
 {
-    s->actual_vf = s->vf;
-    if (!cli_count(a, "actual-vf")) return 0;
-    if (!(s->vf > 0.0))
-        return cli_error(ctx, "actual-vf", "--actual-vf 0.81 with the design --vf or --cable",
-                         "the spool's VF needs the VF the lines were cut for");
-    if (cli_vf(ctx, "actual-vf", cli_get(a, "actual-vf", 0), &s->actual_vf))
-        return CLI_EXIT_USAGE;
-    s->as_built = 1;
+    int given;
+    if (cli_actual_vf(ctx, a, s->vf > 0.0, s->vf, &s->actual_vf, &given)) return CLI_EXIT_USAGE;
+    if (given) s->as_built = 1;
     return 0;
 }
 

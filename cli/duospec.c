@@ -153,16 +153,25 @@ static int has_lines(const cli_args *a, const cli_duo_spec *s)
 }
 
 /* --actual-vf: the spool's real VF against the one the lines were cut for. */
-static int parse_actual_vf(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
+int cli_actual_vf(cli_ctx *ctx, const cli_args *a, int has_design_vf, double design_vf,
+                  double *actual_vf, int *given)
 {
-    s->actual_vf = s->vf;
+    *actual_vf = design_vf;
+    *given = 0;
     if (!cli_count_if(a, "actual-vf")) return 0;
-    if (!s->has_vf)
+    if (!has_design_vf)
         return cli_error(ctx, "actual-vf", "--actual-vf 0.81 with the design --vf or --cable",
                          "the spool's VF needs the VF the lines were cut for");
-    if (cli_vf(ctx, "actual-vf", cli_get(a, "actual-vf", 0), &s->actual_vf))
-        return CLI_EXIT_USAGE;
-    s->has_errors = 1;
+    if (cli_vf(ctx, "actual-vf", cli_get(a, "actual-vf", 0), actual_vf)) return CLI_EXIT_USAGE;
+    *given = 1;
+    return 0;
+}
+
+static int parse_actual_vf(cli_ctx *ctx, const cli_args *a, cli_duo_spec *s)
+{
+    int given;
+    if (cli_actual_vf(ctx, a, s->has_vf, s->vf, &s->actual_vf, &given)) return CLI_EXIT_USAGE;
+    if (given) s->has_errors = 1;
     return 0;
 }
 

@@ -421,8 +421,6 @@ static void ws_bind(fit_ws *f, cxl__fitws *ws, size_t n, size_t p)
     f->work = ws->work;
 }
 
-/* Solve y = a L (+ x) for lengths len[] and electrical lengths y[]
- * (weights already in f->w).  Returns 0 when GSL reports a failure. */
 /* One parameter (y = a L): the weighted least squares in closed form,
  * a = sum(w L y) / sum(w L^2); a small fraction of the cost of the GSL
  * solver, which the batch rows call several times each. */
@@ -451,6 +449,8 @@ static int solve_one(fit_ws *f, const double *len, const double *y,
     return isfinite(*a);
 }
 
+/* Solve y = a L (+ x) for lengths len[] and electrical lengths y[]
+ * (weights already in f->w).  Returns 0 when GSL reports a failure. */
 static int solve(fit_ws *f, const double *len, const double *y,
                  double *a, double *x, double *chisq)
 {
